@@ -1,0 +1,132 @@
+/* text.c — words and lines from poppler's text API, one box per run.
+ * poppler's layout rectangles match the UTF-8 characters of poppler_page_get_text()
+ * one to one (newlines included), so characters are grouped by walking both together. */
+#include <math.h>
+#include <string.h>
+
+#include "internal.h"
+
+typedef struct {
+  GString *text;
+  pp_rect box;
+  double font_size;
+  const char *font_name;
+  pp_point first_centre, last_centre;
+  guint n_chars;
+  gboolean raised;
+} word_builder;
+
+static pp_rect to_rect(const PopplerRectangle *r) {
+  return (pp_rect){MIN(r->x1, r->x2), MIN(r->y1, r->y2), MAX(r->x1, r->x2), MAX(r->y1, r->y2)};
+}
+
+static pp_point centre(pp_rect r) { return (pp_point){(r.x0 + r.x1) / 2, (r.y0 + r.y1) / 2}; }
+
+/* Gap between two boxes along whichever axis separates them most. */
+static double box_gap(pp_rect a, pp_rect b) {
+  double gx = fmax(b.x0 - a.x1, a.x0 - b.x1);
+  double gy = fmax(b.y0 - a.y1, a.y0 - b.y1);
+  return fmax(gx, gy);
+}
+
+static void flush_word(word_builder *wb, pp_scene *scene, guint line) {
+  if (wb->n_chars == 0)
+    return;
+  pp_text_run *run = g_new0(pp_text_run, 1);
+  run->text = g_string_free(wb->text, FALSE);
+  run->box = wb->box;
+  run->font_size = wb->font_size;
+  run->font_name = g_strdup(wb->font_name ? wb->font_name : "");
+  run->line = line;
+  double dx = wb->last_centre.x - wb->first_centre.x, dy = wb->last_centre.y - wb->first_centre.y;
+  /* y grows downwards on the page, so reading upwards is a negative dy. */
+  run->angle = wb->n_chars > 1 ? atan2(-dy, dx) * 180.0 / G_PI : 0.0;
+  if (fabs(run->angle) < 1e-9)
+    run->angle = 0.0;
+  g_ptr_array_add(scene->words, run);
+  memset(wb, 0, sizeof *wb);
+}
+
+static void flush_line(GString **line_text, pp_rect *line_box, pp_scene *scene) {
+  if ((*line_text)->len > 0) {
+    pp_text_line *l = g_new0(pp_text_line, 1);
+    l->text = g_string_free(*line_text, FALSE);
+    l->box = *line_box;
+    g_ptr_array_add(scene->lines, l);
+  } else {
+    g_string_free(*line_text, TRUE);
+  }
+  *line_text = g_string_new(NULL);
+  *line_box = pp_rect_empty();
+}
+
+void pp_text_capture(PopplerPage *page, pp_scene *scene) {
+  char *text = poppler_page_get_text(page);
+  PopplerRectangle *rects = NULL;
+  guint n_rects = 0;
+  if (!text || !poppler_page_get_text_layout(page, &rects, &n_rects)) {
+    g_free(text);
+    g_free(rects);
+    return;
+  }
+  GList *attrs = poppler_page_get_text_attributes(page);
+  GList *attr = attrs;
+
+  word_builder wb = {0};
+  GString *line_text = g_string_new(NULL);
+  pp_rect line_box = pp_rect_empty();
+  guint i = 0;
+  for (const char *p = text; *p && i < n_rects; p = g_utf8_next_char(p), i++) {
+    gunichar c = g_utf8_get_char(p);
+    while (attr && ((PopplerTextAttributes *)attr->data)->end_index < (int)i)
+      attr = attr->next;
+    PopplerTextAttributes *a = attr ? attr->data : NULL;
+    if (c == '\n' || c == '\r') {
+      flush_word(&wb, scene, scene->lines->len);
+      flush_line(&line_text, &line_box, scene);
+      continue;
+    }
+    pp_rect r = to_rect(&rects[i]);
+    double size = a ? a->font_size : pp_rect_height(r);
+    if (g_unichar_isspace(c) && c != 0x202F && c != 0x00A0) {
+      flush_word(&wb, scene, scene->lines->len);
+      g_string_append_unichar(line_text, c);
+      continue;
+    }
+    /* Same-line characters far apart are separate words even without a space
+     * (tick labels laid out on one baseline often come back as one line). */
+    if (wb.n_chars > 0 && box_gap(wb.box, r) > 0.6 * fmax(size, 1.0) &&
+        box_gap((pp_rect){wb.last_centre.x, wb.last_centre.y, wb.last_centre.x, wb.last_centre.y},
+                r) > 0.6 * fmax(size, 1.0)) {
+      flush_word(&wb, scene, scene->lines->len);
+      g_string_append_c(line_text, ' ');
+    }
+    /* A smaller glyph raised above the word is an exponent ("10" then a raised "3"
+     * on a log axis); mark it so the reading is 10^3, not 103. */
+    if (wb.n_chars > 0 && size < 0.85 * wb.font_size &&
+        centre(r).y < wb.last_centre.y - 0.15 * wb.font_size && !wb.raised) {
+      g_string_append_c(wb.text, '^');
+      wb.raised = TRUE;
+    }
+    if (wb.n_chars == 0) {
+      wb.text = g_string_new(NULL);
+      wb.box = r;
+      wb.font_size = size;
+      wb.font_name = a ? a->font_name : NULL;
+      wb.first_centre = centre(r);
+    } else {
+      wb.box = pp_rect_union(wb.box, r);
+    }
+    wb.last_centre = centre(r);
+    g_string_append_unichar(wb.text, c);
+    wb.n_chars++;
+    g_string_append_unichar(line_text, c);
+    line_box = pp_rect_union(line_box, r);
+  }
+  flush_word(&wb, scene, scene->lines->len);
+  flush_line(&line_text, &line_box, scene);
+  g_string_free(line_text, TRUE);
+  poppler_page_free_text_attributes(attrs);
+  g_free(rects);
+  g_free(text);
+}

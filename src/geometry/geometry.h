@@ -1,0 +1,51 @@
+/* geometry.h — contract of the geometry stage: exact areas of painted paths under
+ * both fill rules, intersected with clip chains, plus lengths and bounding boxes.
+ * Input is core's pp_path in page points; nothing here knows about PDF or cairo. */
+#pragma once
+
+#include "core/core.h"
+
+G_BEGIN_DECLS
+
+/* Signed area enclosed by the path by Green's theorem, each subpath implicitly
+ * closed; closed form for cubic segments, so there is no flattening error.
+ * Positive for counter-clockwise in a y-up frame (clockwise on a y-down page). */
+double pp_path_signed_area(const pp_path *path);
+
+/* Area of the region the path fills under the rule, self-intersections and
+ * multiple subpaths included. */
+double pp_path_fill_area(const pp_path *path, pp_fill_rule rule);
+
+/* Area of (path filled under rule) ∩ every region of the clip chain.
+ * clip may be NULL. This is the visible ink of a fill. */
+double pp_path_clipped_area(const pp_path *path, pp_fill_rule rule, const pp_clip *clip);
+
+/* Arc length, cubics by adaptive Gauss–Legendre quadrature. Closing segments count. */
+double pp_path_length(const pp_path *path);
+
+/* Arc length of the cubic p[0..3] between parameters t0 and t1 (same quadrature). */
+double pp_cubic_length(const pp_point p[4], double t0, double t1);
+
+/* Length of the part of the path inside the clip chain (NULL = whole length). */
+double pp_path_clipped_length(const pp_path *path, const pp_clip *clip);
+
+/* Stroke ink = line width × clipped length. Joins, caps and dashes are ignored
+ * (see docs/architecture.md): a documented approximation, not a hidden one. */
+double pp_stroke_ink(const pp_path *path, double line_width, const pp_clip *clip);
+
+/* Tight bounding box; cubic extrema from the roots of the derivative. */
+pp_rect pp_path_bbox(const pp_path *path);
+
+/* Bounding box of the clip chain's region (intersection of member bboxes);
+ * pp_rect_empty() never, an infinite box when clip is NULL. */
+pp_rect pp_clip_bbox(const pp_clip *clip);
+
+/* If the path is one axis-aligned rectangle (4 or 5 points, optional close,
+ * repeated points and collinear points tolerated), store it and return TRUE. */
+gboolean pp_path_is_rectangle(const pp_path *path, double tol, pp_rect *out);
+
+/* Flatten into polygons (one per subpath) with the given maximum chord
+ * deviation, for consumers that need vertices (recognition of area tops). */
+GPtrArray *pp_path_flatten(const pp_path *path, double tolerance); /* of GArray<pp_point> */
+
+G_END_DECLS

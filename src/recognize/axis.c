@@ -1,0 +1,332 @@
+/* axis.c — value axes from aligned numeric labels. A column of labels sharing an edge
+ * (vertical axis) or a row sharing a baseline (horizontal axis) is snapped to its tick
+ * marks or gridlines, then value = a + b·position is fitted by least squares; a log axis
+ * is one where log10(value) fits and value does not. */
+#include <math.h>
+#include <string.h>
+
+#include "internal.h"
+
+/* Relative to the value span: more than this and the labels are not a scale. A tick
+ * label centred by eye is within a few percent of its tick (common practice, no source). */
+#define PP_AXIS_MAX_RESIDUAL 0.02
+
+typedef struct {
+  double along;      /* position of the segment along the axis direction it marks */
+  double lo, hi;     /* extent across */
+} tick_seg;
+
+double pp_axis_value_at(const pp_axis *axis, double pos) {
+  double v = axis->offset + axis->slope * pos;
+  return axis->log ? pow(10, v) : v;
+}
+
+double pp_axis_pos_of(const pp_axis *axis, double value) {
+  double v = axis->log ? log10(value) : value;
+  return (v - axis->offset) / axis->slope;
+}
+
+void pp_axis_free(pp_axis *axis) {
+  if (!axis)
+    return;
+  for (guint i = 0; axis->ticks && i < axis->ticks->len; i++)
+    g_free(g_array_index(axis->ticks, pp_tick, i).label);
+  if (axis->ticks)
+    g_array_unref(axis->ticks);
+  g_free(axis);
+}
+
+/* Straight segments of strokes that could be ticks or gridlines: horizontal ones
+ * (marking positions on a vertical axis) and vertical ones. */
+static void collect_segments(const pp_scene *scene, GArray *horiz, GArray *vert) {
+  for (guint i = 0; i < scene->marks->len; i++) {
+    const pp_mark *m = g_ptr_array_index(scene->marks, i);
+    if (m->kind != PP_MARK_STROKE)
+      continue;
+    pp_point cur = {0, 0}, start = {0, 0};
+    for (size_t k = 0; k < m->path->n_segs; k++) {
+      const pp_seg *s = &m->path->segs[k];
+      pp_point next;
+      if (s->kind == PP_SEG_MOVE) {
+        cur = start = s->pt[0];
+        continue;
+      } else if (s->kind == PP_SEG_LINE) {
+        next = s->pt[0];
+      } else if (s->kind == PP_SEG_CLOSE) {
+        next = start;
+      } else {
+        cur = s->pt[2];
+        continue;
+      }
+      double dx = next.x - cur.x, dy = next.y - cur.y;
+      if (fabs(dy) < 0.01 && fabs(dx) > 0.5) {
+        tick_seg t = {cur.y, fmin(cur.x, next.x), fmax(cur.x, next.x)};
+        g_array_append_val(horiz, t);
+      } else if (fabs(dx) < 0.01 && fabs(dy) > 0.5) {
+        tick_seg t = {cur.x, fmin(cur.y, next.y), fmax(cur.y, next.y)};
+        g_array_append_val(vert, t);
+      }
+      cur = next;
+    }
+  }
+}
+
+/* Position of the tick a label marks: the nearest segment across the label's centre
+ * that starts within reach of the label; the label centre when none. */
+static double snap(const pp_label *l, gboolean vertical, GArray *segs, gboolean *snapped) {
+  double centre = vertical ? l->centre.y : l->centre.x;
+  double half = vertical ? pp_rect_height(l->box) / 2 : pp_rect_width(l->box) / 2;
+  double e0 = vertical ? l->box.x0 : l->box.y0, e1 = vertical ? l->box.x1 : l->box.y1;
+  double best = centre, best_d = 0.9 * half;
+  *snapped = FALSE;
+  for (guint i = 0; i < segs->len; i++) {
+    tick_seg *t = &g_array_index(segs, tick_seg, i);
+    double d = fabs(t->along - centre);
+    if (d >= best_d)
+      continue;
+    double reach = fmin(fabs(t->lo - e1), fabs(t->hi - e0));
+    reach = fmin(reach, fmin(fabs(t->lo - e0), fabs(t->hi - e1)));
+    if (reach > 30 || (t->lo < e1 - 0.5 && t->hi > e0 + 0.5))
+      continue; /* too far away, or running through the label */
+    best = t->along;
+    best_d = d;
+    *snapped = TRUE;
+  }
+  return best;
+}
+
+static gboolean fit(const double *x, const double *y, guint n, double *a, double *b,
+                    double *max_rel) {
+  double sx = 0, sy = 0, sxx = 0, sxy = 0;
+  for (guint i = 0; i < n; i++)
+    sx += x[i], sy += y[i], sxx += x[i] * x[i], sxy += x[i] * y[i];
+  double den = n * sxx - sx * sx;
+  if (n < 2 || fabs(den) < 1e-12)
+    return FALSE;
+  *b = (n * sxy - sx * sy) / den;
+  *a = (sy - *b * sx) / n;
+  double lo = y[0], hi = y[0], worst = 0;
+  for (guint i = 0; i < n; i++) {
+    lo = fmin(lo, y[i]), hi = fmax(hi, y[i]);
+    worst = fmax(worst, fabs(*a + *b * x[i] - y[i]));
+  }
+  if (hi - lo <= 0)
+    return FALSE;
+  *max_rel = worst / (hi - lo);
+  return TRUE;
+}
+
+static int cmp_pos(gconstpointer a, gconstpointer b, gpointer vertical) {
+  const pp_label *la = *(pp_label *const *)a, *lb = *(pp_label *const *)b;
+  double pa = GPOINTER_TO_INT(vertical) ? la->centre.y : la->centre.x;
+  double pb = GPOINTER_TO_INT(vertical) ? lb->centre.y : lb->centre.x;
+  return (pa > pb) - (pa < pb);
+}
+
+static void candidate_free(gpointer p) {
+  pp_axis_candidate *c = p;
+  pp_axis_free(c->axis);
+  g_free(c->reason);
+  g_ptr_array_unref(c->labels);
+  g_free(c);
+}
+
+/* Fits one run of aligned labels; always returns a candidate (failed ones say why). */
+static pp_axis_candidate *make_candidate(GPtrArray *run, gboolean vertical, GArray *segs,
+                                         double edge) {
+  guint n = run->len;
+  const char **texts = g_new0(const char *, n);
+  pp_number *nums = g_new0(pp_number, n);
+  gboolean *ok = g_new0(gboolean, n);
+  for (guint i = 0; i < n; i++)
+    texts[i] = ((pp_label *)g_ptr_array_index(run, i))->text;
+  pp_number_parse_series(texts, n, nums, ok);
+  double *pos = g_new(double, n), *val = g_new(double, n), *lval = g_new(double, n);
+  guint m = 0, n_snapped = 0;
+  gboolean all_positive = TRUE;
+  pp_axis_candidate *c = g_new0(pp_axis_candidate, 1);
+  c->labels = g_ptr_array_new();
+  c->label_edge = edge;
+  pp_axis *axis = g_new0(pp_axis, 1);
+  axis->vertical = vertical;
+  axis->ticks = g_array_new(FALSE, FALSE, sizeof(pp_tick));
+  axis->box = pp_rect_empty();
+  c->axis = axis;
+  for (guint i = 0; i < n; i++) {
+    pp_label *l = g_ptr_array_index(run, i);
+    double v = ok[i] ? nums[i].value : l->number.value;
+    if (!ok[i] && !pp_number_parse(l->text, PP_DECIMAL_UNKNOWN, &nums[i]) &&
+        !strchr(l->text, '^'))
+      continue;
+    gboolean snapped;
+    pos[m] = snap(l, vertical, segs, &snapped);
+    n_snapped += snapped;
+    val[m] = v;
+    all_positive &= v > 0;
+    lval[m] = v > 0 ? log10(v) : 0;
+    pp_tick t = {pos[m], v, g_strdup(l->text)};
+    g_array_append_val(axis->ticks, t);
+    g_ptr_array_add(c->labels, l);
+    axis->box = pp_rect_union(axis->box, l->box);
+    m++;
+  }
+  double a, b, rel = INFINITY, la, lb, lrel = INFINITY;
+  gboolean lin = fit(pos, val, m, &a, &b, &rel);
+  gboolean lg = all_positive && m >= 3 && fit(pos, lval, m, &la, &lb, &lrel);
+  /* Values must change monotonically with position for any scale. */
+  gboolean mono = TRUE;
+  for (guint i = 2; i < m; i++)
+    mono &= (val[i] - val[i - 1]) * (val[1] - val[0]) > 0;
+  if (m >= 2 && val[1] == val[0])
+    mono = FALSE;
+  if (m < 2) {
+    c->fit_failed = TRUE;
+    c->reason = g_strdup("fewer than two numeric tick labels");
+  } else if (!mono) {
+    c->fit_failed = TRUE;
+    c->reason = g_strdup("tick values do not change monotonically along the axis");
+  } else if (lin && rel <= PP_AXIS_MAX_RESIDUAL) {
+    axis->offset = a, axis->slope = b;
+    axis->rms_residual = rel * (val[m - 1] - val[0]);
+  } else if (lg && lrel <= PP_AXIS_MAX_RESIDUAL) {
+    axis->log = TRUE;
+    axis->offset = la, axis->slope = lb;
+    axis->rms_residual = lrel;
+  } else {
+    c->fit_failed = TRUE;
+    c->reason = g_strdup_printf("tick labels fit neither a linear nor a log scale "
+                                "(worst residual %.1f%% of the range)",
+                                100 * fmin(rel, lrel));
+  }
+  (void)n_snapped;
+  if (m > 0) {
+    c->span0 = fmin(pos[0], pos[m - 1]);
+    c->span1 = fmax(pos[0], pos[m - 1]);
+    if (!c->fit_failed) {
+      axis->min_value = pp_axis_value_at(axis, c->span0);
+      axis->max_value = pp_axis_value_at(axis, c->span1);
+      if (axis->min_value > axis->max_value) {
+        double t = axis->min_value;
+        axis->min_value = axis->max_value;
+        axis->max_value = t;
+      }
+    }
+  }
+  g_free(texts), g_free(nums), g_free(ok), g_free(pos), g_free(val), g_free(lval);
+  return c;
+}
+
+/* Splits a sorted run where the spacing jumps (two charts stacked on one page
+ * share a label edge) and keeps the pieces with two or more labels. */
+static void split_runs(GPtrArray *sorted, gboolean vertical, GArray *segs, double edge,
+                       GPtrArray *out) {
+  guint n = sorted->len;
+  if (n < 2)
+    return;
+  double *gaps = g_new(double, n - 1);
+  for (guint i = 0; i + 1 < n; i++) {
+    pp_label *a = g_ptr_array_index(sorted, i), *b = g_ptr_array_index(sorted, i + 1);
+    gaps[i] = vertical ? b->centre.y - a->centre.y : b->centre.x - a->centre.x;
+  }
+  double *tmp = g_memdup2(gaps, (n - 1) * sizeof(double));
+  for (guint i = 0; i + 1 < n - 1; i++) /* small n: insertion sort for the median */
+    for (guint j = i + 1; j < n - 1; j++)
+      if (tmp[j] < tmp[i]) {
+        double t = tmp[i];
+        tmp[i] = tmp[j];
+        tmp[j] = t;
+      }
+  double median = tmp[(n - 1) / 2];
+  g_free(tmp);
+  GPtrArray *run = g_ptr_array_new();
+  for (guint i = 0; i < n; i++) {
+    pp_label *l = g_ptr_array_index(sorted, i);
+    if (i > 0 && (gaps[i - 1] > 2.6 * median || gaps[i - 1] < 0.5 * l->size)) {
+      if (run->len >= 2)
+        g_ptr_array_add(out, make_candidate(run, vertical, segs, edge));
+      g_ptr_array_set_size(run, 0);
+    }
+    g_ptr_array_add(run, l);
+  }
+  if (run->len >= 2)
+    g_ptr_array_add(out, make_candidate(run, vertical, segs, edge));
+  g_ptr_array_unref(run);
+  g_free(gaps);
+}
+
+typedef double (*label_key)(const pp_label *l);
+static double key_x1(const pp_label *l) { return l->box.x1; }
+static double key_x0(const pp_label *l) { return l->box.x0; }
+static double key_cy(const pp_label *l) { return l->centre.y; }
+
+/* Groups labels whose key agrees within tol; each group of 2+ becomes runs. */
+static void group_by(GPtrArray *labels, label_key key, double tol, gboolean vertical,
+                     GArray *segs, GPtrArray *out, GHashTable *taken) {
+  guint n = labels->len;
+  gboolean *done = g_new0(gboolean, n);
+  for (guint i = 0; i < n; i++) {
+    pp_label *li = g_ptr_array_index(labels, i);
+    if (done[i] || g_hash_table_contains(taken, li) || fabs(li->angle) > 1)
+      continue;
+    GPtrArray *group = g_ptr_array_new();
+    for (guint j = i; j < n; j++) {
+      pp_label *lj = g_ptr_array_index(labels, j);
+      if (done[j] || g_hash_table_contains(taken, lj) || fabs(lj->angle) > 1)
+        continue;
+      if (fabs(key(lj) - key(li)) <= tol && fabs(lj->size - li->size) <= 0.25 * li->size) {
+        g_ptr_array_add(group, lj);
+        done[j] = TRUE;
+      }
+    }
+    if (group->len >= 2) {
+      g_ptr_array_sort_with_data(group, cmp_pos, GINT_TO_POINTER(vertical));
+      guint before = out->len;
+      split_runs(group, vertical, segs, key(li), out);
+      for (guint k = before; k < out->len; k++) {
+        pp_axis_candidate *c = g_ptr_array_index(out, k);
+        for (guint q = 0; q < c->labels->len; q++)
+          g_hash_table_add(taken, g_ptr_array_index(c->labels, q));
+      }
+    }
+    g_ptr_array_unref(group);
+  }
+  g_free(done);
+}
+
+GPtrArray *pp_axes_find(const pp_scene *scene, GPtrArray *labels) {
+  GArray *horiz = g_array_new(FALSE, FALSE, sizeof(tick_seg));
+  GArray *vert = g_array_new(FALSE, FALSE, sizeof(tick_seg));
+  collect_segments(scene, horiz, vert);
+  GPtrArray *out = g_ptr_array_new_with_free_func(candidate_free);
+  GHashTable *taken_v = g_hash_table_new(NULL, NULL);
+  GHashTable *taken_h = g_hash_table_new(NULL, NULL);
+  guint first_left;
+  /* Vertical axes: right-aligned labels (axis on the left of the plot), then left-aligned. */
+  group_by(labels, key_x1, 1.5, TRUE, horiz, out, taken_v);
+  for (guint k = 0; k < out->len; k++)
+    ((pp_axis_candidate *)g_ptr_array_index(out, k))->side = +1;
+  first_left = out->len;
+  group_by(labels, key_x0, 1.5, TRUE, horiz, out, taken_v);
+  for (guint k = first_left; k < out->len; k++) {
+    pp_axis_candidate *c = g_ptr_array_index(out, k);
+    c->side = -1;
+    c->label_edge = c->axis->box.x0;
+  }
+  for (guint k = 0; k < first_left; k++) {
+    pp_axis_candidate *c = g_ptr_array_index(out, k);
+    c->label_edge = c->axis->box.x1;
+  }
+  guint first_h = out->len;
+  /* Horizontal axes: labels on one baseline row. */
+  group_by(labels, key_cy, 1.5, FALSE, vert, out, taken_h);
+  for (guint k = first_h; k < out->len; k++) {
+    pp_axis_candidate *c = g_ptr_array_index(out, k);
+    c->side = 0; /* decided by where the bars are */
+    c->label_edge = (c->axis->box.y0 + c->axis->box.y1) / 2;
+  }
+  g_hash_table_unref(taken_v);
+  g_hash_table_unref(taken_h);
+  g_array_unref(horiz);
+  g_array_unref(vert);
+  return out;
+}

@@ -1,0 +1,350 @@
+/* bars.c — bar and column charts. Works in the axis frame: u runs along the value
+ * axis, w across it, so one routine serves vertical and horizontal bars. The bars of
+ * a chart share a baseline edge; segments sitting on each other form stacks. */
+#include <math.h>
+#include <string.h>
+
+#include "internal.h"
+
+typedef struct {
+  double u0, u1, w0, w1;
+} frame_rect;
+
+static frame_rect to_frame(pp_rect r, gboolean vertical) {
+  return vertical ? (frame_rect){r.y0, r.y1, r.x0, r.x1} : (frame_rect){r.x0, r.x1, r.y0, r.y1};
+}
+
+static double label_u(const pp_label *l, gboolean vertical) {
+  return vertical ? l->centre.y : l->centre.x;
+}
+static double label_w(const pp_label *l, gboolean vertical) {
+  return vertical ? l->centre.x : l->centre.y;
+}
+
+/* Which side of the label row/column holds the plot, and how far it may reach
+ * before another axis of the same orientation takes over. */
+static void across_limits(const pp_axis_candidate *axis, GPtrArray *all_axes, int side,
+                          double *lo, double *hi) {
+  gboolean vertical = axis->axis->vertical;
+  pp_rect box = axis->axis->box;
+  double edge = vertical ? (side > 0 ? box.x1 : box.x0) : (side > 0 ? box.y1 : box.y0);
+  *lo = side > 0 ? edge - 1 : -INFINITY;
+  *hi = side > 0 ? INFINITY : edge + 1;
+  for (guint i = 0; i < all_axes->len; i++) {
+    const pp_axis_candidate *o = g_ptr_array_index(all_axes, i);
+    if (o == axis || o->axis->vertical != vertical)
+      continue;
+    /* only axes whose span overlaps ours along u */
+    if (o->span1 < axis->span0 - 20 || o->span0 > axis->span1 + 20)
+      continue;
+    pp_rect ob = o->axis->box;
+    double o_lo = vertical ? ob.x0 : ob.y0, o_hi = vertical ? ob.x1 : ob.y1;
+    if (side > 0 && o_lo > edge + 2)
+      *hi = fmin(*hi, o_lo);
+    if (side < 0 && o_hi < edge - 2)
+      *lo = fmax(*lo, o_hi);
+  }
+}
+
+static GArray *select_bars(GArray *bars, const pp_axis_candidate *axis, double lo, double hi) {
+  gboolean vertical = axis->axis->vertical;
+  double span = axis->span1 - axis->span0;
+  double reach = fmax(0.6 * span, 20);
+  GArray *sel = g_array_new(FALSE, FALSE, sizeof(guint));
+  for (guint i = 0; i < bars->len; i++) {
+    pp_bar_candidate *b = &g_array_index(bars, pp_bar_candidate, i);
+    if (b->used)
+      continue;
+    frame_rect f = to_frame(b->rect, vertical);
+    if (f.w0 < lo || f.w1 > hi)
+      continue;
+    if (f.u0 < axis->span0 - reach || f.u1 > axis->span1 + reach)
+      continue;
+    g_array_append_val(sel, i);
+  }
+  /* A rectangle holding two or more others is a plot background or frame. */
+  GArray *keep = g_array_new(FALSE, FALSE, sizeof(guint));
+  for (guint i = 0; i < sel->len; i++) {
+    pp_bar_candidate *a = &g_array_index(bars, pp_bar_candidate, g_array_index(sel, guint, i));
+    guint inside = 0;
+    for (guint j = 0; j < sel->len && inside < 2; j++) {
+      if (i == j)
+        continue;
+      pp_bar_candidate *b = &g_array_index(bars, pp_bar_candidate, g_array_index(sel, guint, j));
+      if (pp_rect_contains(a->rect, b->rect, 0.01) && pp_rect_area(b->rect) < pp_rect_area(a->rect))
+        inside++;
+    }
+    if (inside < 2)
+      g_array_append_val(keep, g_array_index(sel, guint, i));
+  }
+  g_array_unref(sel);
+  return keep;
+}
+
+/* The edge coordinate shared by the most bars; ties go to the one nearest value 0. */
+static gboolean find_baseline(GArray *bars, GArray *sel, const pp_axis *axis, double *base) {
+  guint best_count = 0;
+  double best = 0, best_abs = INFINITY;
+  for (guint i = 0; i < sel->len; i++) {
+    frame_rect fi = to_frame(g_array_index(bars, pp_bar_candidate, g_array_index(sel, guint, i)).rect,
+                             axis->vertical);
+    double edges[2] = {fi.u0, fi.u1};
+    for (int e = 0; e < 2; e++) {
+      guint count = 0;
+      for (guint j = 0; j < sel->len; j++) {
+        frame_rect fj = to_frame(
+            g_array_index(bars, pp_bar_candidate, g_array_index(sel, guint, j)).rect,
+            axis->vertical);
+        count += fabs(fj.u0 - edges[e]) < 0.05 || fabs(fj.u1 - edges[e]) < 0.05;
+      }
+      double v = fabs(pp_axis_value_at(axis, edges[e]));
+      if (count > best_count || (count == best_count && v < best_abs)) {
+        best_count = count;
+        best = edges[e];
+        best_abs = v;
+      }
+    }
+  }
+  *base = best;
+  /* Most bars of a chart share it; two bars touching end to end by chance do not make one. */
+  return best_count >= 2 && best_count * 10 >= sel->len * 3;
+}
+
+static int paint_series(GArray *colours, const pp_paint *p) {
+  for (guint i = 0; i < colours->len; i++) {
+    pp_paint *c = &g_array_index(colours, pp_paint, i);
+    if (c->kind == p->kind && fabs(c->r - p->r) < 0.02 && fabs(c->g - p->g) < 0.02 &&
+        fabs(c->b - p->b) < 0.02)
+      return (int)i;
+  }
+  g_array_append_val(colours, *p);
+  return (int)colours->len - 1;
+}
+
+static int cmp_element(gconstpointer a, gconstpointer b, gpointer vertical) {
+  const pp_element *ea = a, *eb = b;
+  /* category order: left to right for columns, top to bottom for horizontal bars */
+  double pa = GPOINTER_TO_INT(vertical) ? ea->box.x0 : ea->box.y0;
+  double pb = GPOINTER_TO_INT(vertical) ? eb->box.x0 : eb->box.y0;
+  return (pa > pb) - (pa < pb);
+}
+
+/* Category label: the nearest word outside the plot, beyond the baseline, centred on
+ * (or, when rotated, ending at) the bar. */
+static char *find_category(const pp_scene *scene, pp_rect bar, pp_rect plot, gboolean vertical) {
+  const pp_text_run *best = NULL;
+  double best_d = INFINITY;
+  for (guint i = 0; i < scene->words->len; i++) {
+    const pp_text_run *w = g_ptr_array_index(scene->words, i);
+    double cx = (w->box.x0 + w->box.x1) / 2, cy = (w->box.y0 + w->box.y1) / 2;
+    double d;
+    if (vertical) {
+      gboolean over = (cx >= bar.x0 - 1 && cx <= bar.x1 + 1) ||
+                      (w->angle != 0 && w->box.x1 >= bar.x0 && w->box.x1 <= bar.x1 + 2);
+      if (!over || w->box.y0 < plot.y1 - 0.5)
+        continue;
+      d = w->box.y0 - plot.y1;
+    } else {
+      if (cy < bar.y0 - 1 || cy > bar.y1 + 1 || w->box.x1 > plot.x0 + 0.5)
+        continue;
+      d = plot.x0 - w->box.x1;
+    }
+    if (d < best_d && d < 60) {
+      best_d = d;
+      best = w;
+    }
+  }
+  if (!best)
+    return NULL;
+  /* Multi-word categories ("North Sea") continue on the same line. */
+  GString *s = g_string_new(best->text);
+  for (guint i = 0; i < scene->words->len; i++) {
+    const pp_text_run *w = g_ptr_array_index(scene->words, i);
+    if (w == best || w->line != best->line || w->box.x0 < best->box.x1 ||
+        w->box.x0 - best->box.x1 > 0.6 * best->font_size)
+      continue;
+    if (vertical && (w->box.x0 > bar.x1 + 0.6 * (bar.x1 - bar.x0)))
+      continue;
+    g_string_append_c(s, ' ');
+    g_string_append(s, w->text);
+    break;
+  }
+  return g_string_free(s, FALSE);
+}
+
+static void attach_data_labels(pp_figure *fig, GPtrArray *labels, gboolean vertical) {
+  for (guint i = 0; i < fig->elements->len; i++) {
+    pp_element *e = &g_array_index(fig->elements, pp_element, i);
+    frame_rect f = to_frame(e->box, vertical);
+    double tip_u = fabs(f.u0 - e->extent) < 1e-9 ? f.u0 : 0;
+    (void)tip_u;
+    pp_label *best = NULL;
+    double best_d = INFINITY;
+    for (guint k = 0; k < labels->len; k++) {
+      pp_label *l = g_ptr_array_index(labels, k);
+      if (l->on_axis)
+        continue;
+      double lw = label_w(l, vertical), lu = label_u(l, vertical);
+      if (lw < f.w0 - 0.5 || lw > f.w1 + 0.5)
+        continue;
+      /* distance to the nearer end of the bar along u; labels sit at the tip */
+      double d = fmin(fabs(lu - f.u0), fabs(lu - f.u1));
+      if (lu > f.u0 && lu < f.u1)
+        d = fmin(fabs(lu - f.u0), fabs(lu - f.u1)) * 0.5;
+      if (d < best_d && d < 2.5 * l->size) {
+        best_d = d;
+        best = l;
+      }
+    }
+    if (best) {
+      e->label_value = best->number.value;
+      e->label_text = g_strdup(best->text);
+      best->on_axis = TRUE; /* claimed */
+    }
+  }
+}
+
+static pp_figure *build_from_selection(const pp_scene *scene, GArray *bars, GArray *sel,
+                                       const pp_axis *axis, gboolean vertical, double base,
+                                       GPtrArray *labels) {
+  /* Bars touching the baseline, then whatever stacks on them. */
+  GArray *colours = g_array_new(FALSE, FALSE, sizeof(pp_paint));
+  pp_figure *fig = pp_figure_new(vertical ? PP_FIGURE_COLUMN : PP_FIGURE_BAR);
+  gboolean *in = g_new0(gboolean, sel->len);
+  pp_rect plot = pp_rect_empty();
+  for (guint i = 0; i < sel->len; i++) {
+    pp_bar_candidate *b = &g_array_index(bars, pp_bar_candidate, g_array_index(sel, guint, i));
+    frame_rect f = to_frame(b->rect, vertical);
+    if (in[i] || (fabs(f.u0 - base) >= 0.05 && fabs(f.u1 - base) >= 0.05))
+      continue;
+    in[i] = TRUE;
+    b->used = TRUE;
+    gboolean down = fabs(f.u0 - base) < 0.05; /* grows towards larger u */
+    double tip = down ? f.u1 : f.u0;
+    double ink = b->ink;
+    pp_rect box = b->rect;
+    gboolean stacked = FALSE;
+    for (gboolean grew = TRUE; grew;) {
+      grew = FALSE;
+      for (guint j = 0; j < sel->len; j++) {
+        pp_bar_candidate *s = &g_array_index(bars, pp_bar_candidate, g_array_index(sel, guint, j));
+        frame_rect g = to_frame(s->rect, vertical);
+        if (in[j] || fabs(g.w0 - f.w0) > 0.2 || fabs(g.w1 - f.w1) > 0.2)
+          continue;
+        double near = down ? g.u0 : g.u1, far = down ? g.u1 : g.u0;
+        if (fabs(near - tip) < 0.3) {
+          in[j] = TRUE;
+          s->used = TRUE;
+          tip = far;
+          ink += s->ink;
+          box = pp_rect_union(box, s->rect);
+          stacked = grew = TRUE;
+        }
+      }
+    }
+    pp_element e = {0};
+    e.kind = PP_ELEMENT_BAR;
+    e.mark_index = b->mark;
+    e.box = box;
+    e.ink = ink;
+    e.extent = fabs(tip - base);
+    e.label_value = NAN;
+    e.stacked = stacked;
+    e.series = (guint)paint_series(colours, &b->paint);
+    if (axis) {
+      e.tip_value = pp_axis_value_at(axis, tip);
+      e.base_value = pp_axis_value_at(axis, base);
+    } else {
+      e.tip_value = e.base_value = NAN;
+    }
+    g_array_append_val(fig->elements, e);
+    plot = pp_rect_union(plot, box);
+    if (!pp_rect_is_empty(b->clip) && isfinite(b->clip.x0) && isfinite(b->clip.x1) &&
+        pp_rect_area(b->clip) < 0.6 * scene->width * scene->height)
+      plot = pp_rect_union(plot, b->clip);
+  }
+  g_free(in);
+  fig->n_series = colours->len;
+  g_array_unref(colours);
+  g_array_sort_with_data(fig->elements, cmp_element, GINT_TO_POINTER(vertical));
+  fig->bbox = plot;
+  for (guint i = 0; i < fig->elements->len; i++) {
+    pp_element *e = &g_array_index(fig->elements, pp_element, i);
+    e->category = find_category(scene, e->box, plot, vertical);
+  }
+  attach_data_labels(fig, labels, vertical);
+  return fig;
+}
+
+pp_figure *pp_bar_figure_build(const pp_scene *scene, GArray *bars, const pp_axis_candidate *axis,
+                               GPtrArray *labels, GPtrArray *all_axes) {
+  gboolean vertical = axis->axis->vertical;
+  int sides[2] = {axis->side ? axis->side : -1, axis->side ? 0 : +1};
+  for (int s = 0; s < 2 && sides[s]; s++) {
+    double lo, hi;
+    across_limits(axis, all_axes, sides[s], &lo, &hi);
+    GArray *sel = select_bars(bars, axis, lo, hi);
+    double base;
+    if (sel->len >= 2 && find_baseline(bars, sel, axis->axis, &base)) {
+      pp_figure *fig =
+          build_from_selection(scene, bars, sel, axis->axis, vertical, base, labels);
+      g_array_unref(sel);
+      if (fig->elements->len >= 2)
+        return fig;
+      pp_figure_free(fig);
+      continue;
+    }
+    g_array_unref(sel);
+  }
+  return NULL;
+}
+
+/* Charts with data labels and no value axis: bars sharing a baseline edge, each
+ * carrying its own printed number. */
+pp_figure *pp_bar_figure_from_labels(const pp_scene *scene, GArray *bars, GPtrArray *labels) {
+  for (int orient = 0; orient < 2; orient++) {
+    gboolean vertical = orient == 0;
+    for (guint i = 0; i < bars->len; i++) {
+      pp_bar_candidate *a = &g_array_index(bars, pp_bar_candidate, i);
+      if (a->used)
+        continue;
+      frame_rect fa = to_frame(a->rect, vertical);
+      double edges[2] = {fa.u0, fa.u1};
+      for (int e = 0; e < 2; e++) {
+        GArray *sel = g_array_new(FALSE, FALSE, sizeof(guint));
+        double width = fa.w1 - fa.w0;
+        for (guint j = 0; j < bars->len; j++) {
+          pp_bar_candidate *b = &g_array_index(bars, pp_bar_candidate, j);
+          frame_rect fb = to_frame(b->rect, vertical);
+          if (!b->used && (fabs(fb.u0 - edges[e]) < 0.05 || fabs(fb.u1 - edges[e]) < 0.05) &&
+              fabs((fb.w1 - fb.w0) - width) < 0.05 * width + 0.1)
+            g_array_append_val(sel, j);
+        }
+        if (sel->len < 2) {
+          g_array_unref(sel);
+          continue;
+        }
+        pp_figure *fig = build_from_selection(scene, bars, sel, NULL, vertical, edges[e], labels);
+        g_array_unref(sel);
+        guint labelled = 0;
+        for (guint k = 0; k < fig->elements->len; k++)
+          labelled += !isnan(g_array_index(fig->elements, pp_element, k).label_value);
+        if (labelled == fig->elements->len && labelled >= 2) {
+          for (guint k = 0; k < fig->elements->len; k++) {
+            pp_element *el = &g_array_index(fig->elements, pp_element, k);
+            el->tip_value = el->label_value;
+          }
+          return fig;
+        }
+        /* not a labelled chart after all: release the bars */
+        for (guint k = 0; k < fig->elements->len; k++)
+          for (guint j = 0; j < bars->len; j++)
+            if (g_array_index(bars, pp_bar_candidate, j).mark ==
+                g_array_index(fig->elements, pp_element, k).mark_index)
+              g_array_index(bars, pp_bar_candidate, j).used = FALSE;
+        pp_figure_free(fig);
+      }
+    }
+  }
+  return NULL;
+}

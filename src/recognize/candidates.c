@@ -1,0 +1,87 @@
+/* candidates.c — which painted marks could encode a value: filled axis-aligned
+ * rectangles (bars) and filled polygons (areas), each with its visible extent. */
+#include <math.h>
+
+#include "internal.h"
+
+static gboolean is_blank(const pp_paint *p) {
+  /* White or fully transparent fills are backgrounds and knock-outs, not bars. */
+  if (p->a < 0.02)
+    return TRUE;
+  return p->kind == PP_PAINT_SOLID && p->r > 0.985 && p->g > 0.985 && p->b > 0.985;
+}
+
+static gboolean page_sized(const pp_scene *scene, pp_rect r) {
+  return pp_rect_area(r) > 0.6 * scene->width * scene->height;
+}
+
+GArray *pp_bar_candidates_collect(const pp_scene *scene) {
+  GArray *out = g_array_new(FALSE, FALSE, sizeof(pp_bar_candidate));
+  for (guint i = 0; i < scene->marks->len; i++) {
+    const pp_mark *m = g_ptr_array_index(scene->marks, i);
+    if (m->kind != PP_MARK_FILL || is_blank(&m->paint))
+      continue;
+    pp_rect r;
+    if (!pp_path_is_rectangle(m->path, 0.01, &r))
+      continue;
+    pp_rect clip = pp_clip_bbox(m->clip);
+    pp_rect vis = pp_rect_intersect(r, clip);
+    if (pp_rect_is_empty(vis) || pp_rect_width(vis) < 0.2 || pp_rect_height(vis) < 0.2 ||
+        page_sized(scene, vis))
+      continue;
+    /* Hatching and outlines repaint the same rectangle: keep the first. */
+    gboolean dup = FALSE;
+    for (guint k = out->len; k-- > 0 && k + 8 >= out->len;) {
+      pp_bar_candidate *c = &g_array_index(out, pp_bar_candidate, k);
+      if (fabs(c->rect.x0 - vis.x0) < 0.01 && fabs(c->rect.x1 - vis.x1) < 0.01 &&
+          fabs(c->rect.y0 - vis.y0) < 0.01 && fabs(c->rect.y1 - vis.y1) < 0.01)
+        dup = TRUE;
+    }
+    if (dup)
+      continue;
+    pp_bar_candidate c = {i, vis, clip, isnan(m->ink) ? pp_rect_area(vis) : m->ink, m->paint,
+                          FALSE};
+    g_array_append_val(out, c);
+  }
+  return out;
+}
+
+void pp_area_candidate_free(gpointer p) {
+  pp_area_candidate *a = p;
+  g_array_unref(a->points);
+  g_free(a);
+}
+
+GPtrArray *pp_area_candidates_collect(const pp_scene *scene) {
+  GPtrArray *out = g_ptr_array_new_with_free_func(pp_area_candidate_free);
+  for (guint i = 0; i < scene->marks->len; i++) {
+    const pp_mark *m = g_ptr_array_index(scene->marks, i);
+    if (m->kind != PP_MARK_FILL || is_blank(&m->paint) || m->path->n_segs < 5)
+      continue;
+    pp_rect r;
+    if (pp_path_is_rectangle(m->path, 0.01, &r) || pp_path_n_subpaths(m->path) != 1)
+      continue;
+    double ink = isnan(m->ink) ? 0 : m->ink;
+    if (ink < 50)
+      continue;
+    GPtrArray *polys = pp_path_flatten(m->path, 0.05);
+    if (polys->len != 1) {
+      g_ptr_array_unref(polys);
+      continue;
+    }
+    pp_area_candidate *a = g_new0(pp_area_candidate, 1);
+    a->mark = i;
+    a->points = g_array_ref(g_ptr_array_index(polys, 0));
+    g_ptr_array_unref(polys);
+    a->clip = pp_clip_bbox(m->clip);
+    a->rect = pp_rect_intersect(m->bbox, a->clip);
+    a->ink = ink;
+    a->paint = m->paint;
+    if (page_sized(scene, a->rect) || pp_rect_is_empty(a->rect)) {
+      pp_area_candidate_free(a);
+      continue;
+    }
+    g_ptr_array_add(out, a);
+  }
+  return out;
+}

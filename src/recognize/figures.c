@@ -1,0 +1,230 @@
+/* figures.c — the stage's entry point: labels → axes → bars, areas, lines → figures,
+ * plus what could not be read (scale failures, raster images) for the coverage. */
+#include <math.h>
+#include <string.h>
+
+#include "internal.h"
+
+/* An image at least this big (pt²) could be a chart drawn as a picture (about 5×5 cm,
+ * common practice, no source); smaller ones are logos and icons. */
+#define PP_RASTER_FIGURE_MIN_AREA 2000.0
+
+const char *pp_figure_kind_name(pp_figure_kind kind) {
+  static const char *names[] = {"column", "bar", "area", "line", "other"};
+  return kind <= PP_FIGURE_OTHER ? names[kind] : "other";
+}
+
+pp_figure *pp_figure_new(pp_figure_kind kind) {
+  pp_figure *f = g_new0(pp_figure, 1);
+  f->kind = kind;
+  f->elements = g_array_new(FALSE, TRUE, sizeof(pp_element));
+  f->bbox = pp_rect_empty();
+  return f;
+}
+
+void pp_figure_free(pp_figure *f) {
+  if (!f)
+    return;
+  for (guint i = 0; i < f->elements->len; i++) {
+    pp_element *e = &g_array_index(f->elements, pp_element, i);
+    g_free(e->label_text);
+    g_free(e->category);
+  }
+  g_array_unref(f->elements);
+  pp_axis_free(f->axis);
+  g_free(f->fingerprint);
+  g_free(f->title);
+  g_free(f);
+}
+
+/* Content, not position: the same chart moved to another page keeps its id. */
+void pp_figure_set_fingerprint(pp_figure *f) {
+  GChecksum *ck = g_checksum_new(G_CHECKSUM_SHA256);
+  const char *kind = pp_figure_kind_name(f->kind);
+  g_checksum_update(ck, (const guchar *)kind, -1);
+  for (guint i = 0; i < f->elements->len; i++) {
+    const pp_element *e = &g_array_index(f->elements, pp_element, i);
+    char buf[96];
+    g_snprintf(buf, sizeof buf, "|%.4g|%.4g|%.4g", e->tip_value, e->base_value,
+               e->extent > 0 ? e->ink / e->extent : 0);
+    g_checksum_update(ck, (const guchar *)buf, -1);
+    if (e->category)
+      g_checksum_update(ck, (const guchar *)e->category, -1);
+  }
+  if (f->axis)
+    for (guint i = 0; i < f->axis->ticks->len; i++) {
+      const pp_tick *t = &g_array_index(f->axis->ticks, pp_tick, i);
+      g_checksum_update(ck, (const guchar *)t->label, -1);
+    }
+  f->fingerprint = g_strndup(g_checksum_get_string(ck), 16);
+  g_checksum_free(ck);
+}
+
+static pp_axis *axis_copy(const pp_axis *a) {
+  pp_axis *c = g_memdup2(a, sizeof *a);
+  c->ticks = g_array_new(FALSE, FALSE, sizeof(pp_tick));
+  for (guint i = 0; i < a->ticks->len; i++) {
+    pp_tick t = g_array_index(a->ticks, pp_tick, i);
+    t.label = g_strdup(t.label);
+    g_array_append_val(c->ticks, t);
+  }
+  return c;
+}
+
+/* The visible value range is the plot box along the axis. */
+static void set_axis_range(pp_figure *f, const pp_axis_candidate *cand) {
+  f->axis = axis_copy(cand->axis);
+  double p0 = f->axis->vertical ? f->bbox.y0 : f->bbox.x0;
+  double p1 = f->axis->vertical ? f->bbox.y1 : f->bbox.x1;
+  p0 = fmin(p0, cand->span0), p1 = fmax(p1, cand->span1);
+  double v0 = pp_axis_value_at(f->axis, p0), v1 = pp_axis_value_at(f->axis, p1);
+  f->axis->min_value = fmin(v0, v1);
+  f->axis->max_value = fmax(v0, v1);
+}
+
+/* A nearby line above the plot that is not a number: the chart's title. */
+static void find_title(const pp_scene *scene, pp_figure *f) {
+  const pp_text_line *best = NULL;
+  double best_d = 60;
+  for (guint i = 0; i < scene->lines->len; i++) {
+    const pp_text_line *l = g_ptr_array_index(scene->lines, i);
+    double d = f->bbox.y0 - l->box.y1;
+    if (d < -2 || d > best_d || l->box.x1 < f->bbox.x0 - 40 || l->box.x0 > f->bbox.x1)
+      continue;
+    best_d = d;
+    best = l;
+  }
+  if (best)
+    f->title = g_strdup(best->text);
+}
+
+/* Unfilled polylines beside a fitted axis: a line chart, honest at any baseline. */
+static pp_figure *line_figure(const pp_scene *scene, const pp_axis_candidate *cand) {
+  pp_rect box = pp_rect_empty();
+  guint n = 0;
+  const pp_axis *axis = cand->axis;
+  double span = cand->span1 - cand->span0;
+  for (guint i = 0; i < scene->marks->len; i++) {
+    const pp_mark *m = g_ptr_array_index(scene->marks, i);
+    if (m->kind != PP_MARK_STROKE || m->path->n_segs < 4)
+      continue;
+    pp_rect r = m->bbox;
+    if (pp_rect_width(r) < 1 || pp_rect_height(r) < 1)
+      continue; /* straight rules and gridlines */
+    double u0 = axis->vertical ? r.y0 : r.x0, u1 = axis->vertical ? r.y1 : r.x1;
+    if (u0 < cand->span0 - 0.6 * span - 10 || u1 > cand->span1 + 0.6 * span + 10)
+      continue;
+    gboolean beside = axis->vertical ? (cand->side > 0 ? r.x0 >= axis->box.x1 - 1
+                                                       : r.x1 <= axis->box.x0 + 1)
+                                     : TRUE;
+    double dist = axis->vertical ? fabs((cand->side > 0 ? r.x0 : r.x1) -
+                                        (cand->side > 0 ? axis->box.x1 : axis->box.x0))
+                                 : fmin(fabs(r.y1 - axis->box.y0), fabs(r.y0 - axis->box.y1));
+    if (!beside || dist > 60)
+      continue;
+    box = pp_rect_union(box, r);
+    n++;
+  }
+  if (n == 0)
+    return NULL;
+  pp_figure *f = pp_figure_new(PP_FIGURE_LINE);
+  f->bbox = box;
+  return f;
+}
+
+static void scale_failure_free(gpointer p) {
+  pp_scale_failure *s = p;
+  g_free(s->reason);
+  g_free(s);
+}
+
+static void add_figure(pp_page_charts *out, const pp_scene *scene, pp_figure *f,
+                       const pp_axis_candidate *cand) {
+  if (cand)
+    set_axis_range(f, cand);
+  find_title(scene, f);
+  pp_figure_set_fingerprint(f);
+  g_ptr_array_add(out->figures, f);
+}
+
+/* Are there unused bars beside this axis? Then its failed scale matters. */
+static gboolean has_marks_beside(GArray *bars, const pp_axis_candidate *c) {
+  guint n = 0;
+  for (guint i = 0; i < bars->len; i++) {
+    pp_bar_candidate *b = &g_array_index(bars, pp_bar_candidate, i);
+    pp_rect ab = c->axis->box;
+    double d = c->axis->vertical ? fmin(fabs(b->rect.x0 - ab.x1), fabs(ab.x0 - b->rect.x1))
+                                 : fmin(fabs(b->rect.y1 - ab.y0), fabs(ab.y1 - b->rect.y0));
+    n += !b->used && d < 150;
+  }
+  return n >= 2;
+}
+
+pp_page_charts *pp_page_charts_find(const pp_scene *scene) {
+  pp_page_charts *out = g_new0(pp_page_charts, 1);
+  out->figures = g_ptr_array_new_with_free_func((GDestroyNotify)pp_figure_free);
+  out->scale_failures = g_ptr_array_new_with_free_func(scale_failure_free);
+  out->raster_images = g_array_new(FALSE, FALSE, sizeof(pp_rect));
+
+  GPtrArray *labels = pp_labels_collect(scene);
+  GPtrArray *axes = pp_axes_find(scene, labels);
+  GArray *bars = pp_bar_candidates_collect(scene);
+  GPtrArray *areas = pp_area_candidates_collect(scene);
+
+  for (guint i = 0; i < axes->len; i++) {
+    pp_axis_candidate *c = g_ptr_array_index(axes, i);
+    if (c->fit_failed)
+      continue;
+    pp_figure *f = pp_bar_figure_build(scene, bars, c, labels, axes);
+    if (!f)
+      f = pp_area_figure_build(scene, areas, c, axes);
+    if (f)
+      add_figure(out, scene, f, c);
+  }
+  for (pp_figure *f; (f = pp_bar_figure_from_labels(scene, bars, labels));)
+    add_figure(out, scene, f, NULL);
+  /* Lines only where no bar or area figure took the axis. */
+  for (guint i = 0; i < axes->len; i++) {
+    pp_axis_candidate *c = g_ptr_array_index(axes, i);
+    if (c->fit_failed || !c->axis->vertical)
+      continue;
+    gboolean taken = FALSE;
+    for (guint k = 0; k < out->figures->len && !taken; k++) {
+      pp_figure *f = g_ptr_array_index(out->figures, k);
+      taken = f->axis && pp_rect_area(pp_rect_intersect(f->axis->box, c->axis->box)) > 0;
+    }
+    if (taken)
+      continue;
+    pp_figure *f = line_figure(scene, c);
+    if (f)
+      add_figure(out, scene, f, c);
+  }
+  for (guint i = 0; i < axes->len; i++) {
+    pp_axis_candidate *c = g_ptr_array_index(axes, i);
+    if (!c->fit_failed || c->labels->len < 3 || !has_marks_beside(bars, c))
+      continue;
+    pp_scale_failure *s = g_new0(pp_scale_failure, 1);
+    s->bbox = c->axis->box;
+    s->reason = g_strdup(c->reason);
+    g_ptr_array_add(out->scale_failures, s);
+  }
+  for (guint i = 0; i < scene->marks->len; i++) {
+    const pp_mark *m = g_ptr_array_index(scene->marks, i);
+    if (m->kind == PP_MARK_IMAGE && pp_rect_area(m->visible_bbox) >= PP_RASTER_FIGURE_MIN_AREA)
+      g_array_append_val(out->raster_images, m->visible_bbox);
+  }
+  g_ptr_array_unref(areas);
+  g_array_unref(bars);
+  g_ptr_array_unref(axes);
+  g_ptr_array_unref(labels);
+  return out;
+}
+
+void pp_page_charts_free(pp_page_charts *charts) {
+  if (!charts)
+    return;
+  g_ptr_array_unref(charts->figures);
+  g_ptr_array_unref(charts->scale_failures);
+  g_array_unref(charts->raster_images);
+  g_free(charts);
+}

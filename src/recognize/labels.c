@@ -1,0 +1,119 @@
+/* labels.c — numeric phrases from the page's words. Tick labels are often split by
+ * poppler at spaces ("30 000", "€ 1.2 bn"), so neighbouring words on one baseline are
+ * tried together before alone. Exponent labels "10^3" (see capture/text.c) read as 1000. */
+#include <math.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "internal.h"
+
+static void label_free(gpointer p) {
+  pp_label *l = p;
+  g_free(l->text);
+  g_free(l);
+}
+
+/* "10^3", "10^−2", "2×10^3": a power of ten as matplotlib's log axes print it. */
+static gboolean parse_power(const char *text, pp_number *out) {
+  const char *caret = strchr(text, '^');
+  if (!caret)
+    return FALSE;
+  char *base_txt = g_strndup(text, (gsize)(caret - text));
+  char *exp_txt = g_strdup(caret + 1);
+  /* U+2212 minus in exponents */
+  char *fixed = NULL;
+  if (g_str_has_prefix(exp_txt, "\xe2\x88\x92")) {
+    fixed = g_strconcat("-", exp_txt + 3, NULL);
+    g_free(exp_txt);
+    exp_txt = fixed;
+  }
+  gboolean ok = FALSE;
+  char *end = NULL;
+  long e = strtol(exp_txt, &end, 10);
+  double mant = 1;
+  const char *b = base_txt;
+  /* optional "k×" / "k·" prefix before 10 */
+  const char *times = strstr(b, "\xc3\x97");
+  if (!times)
+    times = strstr(b, "\xc2\xb7");
+  if (times) {
+    mant = g_ascii_strtod(b, NULL);
+    b = times + 2;
+  }
+  if (end && *end == '\0' && end != exp_txt && strcmp(b, "10") == 0 && labs(e) < 300 && mant > 0) {
+    memset(out, 0, sizeof *out);
+    out->value = mant * pow(10, (double)e);
+    out->multiplier = 1;
+    ok = TRUE;
+  }
+  g_free(base_txt);
+  g_free(exp_txt);
+  return ok;
+}
+
+static gboolean parse_label(const char *text, pp_number *out) {
+  return parse_power(text, out) || pp_number_parse(text, PP_DECIMAL_UNKNOWN, out);
+}
+
+static void add_label(GPtrArray *out, const char *text, pp_rect box, double size, double angle,
+                      const pp_number *num) {
+  pp_label *l = g_new0(pp_label, 1);
+  l->text = g_strdup(text);
+  l->box = box;
+  l->centre = (pp_point){(box.x0 + box.x1) / 2, (box.y0 + box.y1) / 2};
+  l->size = size > 0 ? size : pp_rect_height(box);
+  l->angle = angle;
+  l->number = *num;
+  g_ptr_array_add(out, l);
+}
+
+static gboolean same_baseline(const pp_text_run *a, const pp_text_run *b) {
+  double h = fmax(pp_rect_height(a->box), 1.0);
+  return a->line == b->line && fabs(a->box.y1 - b->box.y1) < 0.25 * h &&
+         b->box.x0 - a->box.x1 < 0.6 * h && b->box.x0 - a->box.x1 > -0.1 * h && a->angle == 0 &&
+         b->angle == 0;
+}
+
+GPtrArray *pp_labels_collect(const pp_scene *scene) {
+  GPtrArray *out = g_ptr_array_new_with_free_func(label_free);
+  guint n = scene->words->len;
+  for (guint i = 0; i < n;) {
+    /* Longest run of up to four words on one baseline that parses as one number. */
+    guint best = 0;
+    pp_number best_num;
+    GString *phrase = g_string_new(NULL);
+    for (guint k = 0; k < 4 && i + k < n; k++) {
+      const pp_text_run *w = g_ptr_array_index(scene->words, i + k);
+      if (k > 0 && !same_baseline(g_ptr_array_index(scene->words, i + k - 1), w))
+        break;
+      if (k > 0)
+        g_string_append_c(phrase, ' ');
+      g_string_append(phrase, w->text);
+      pp_number num;
+      if (parse_label(phrase->str, &num)) {
+        best = k + 1;
+        best_num = num;
+      }
+    }
+    if (best == 0) {
+      g_string_free(phrase, TRUE);
+      i++;
+      continue;
+    }
+    const pp_text_run *first = g_ptr_array_index(scene->words, i);
+    pp_rect box = pp_rect_empty();
+    GString *text = g_string_new(NULL);
+    for (guint k = 0; k < best; k++) {
+      const pp_text_run *w = g_ptr_array_index(scene->words, i + k);
+      box = pp_rect_union(box, w->box);
+      if (k)
+        g_string_append_c(text, ' ');
+      g_string_append(text, w->text);
+    }
+    add_label(out, text->str, box, first->font_size, first->angle, &best_num);
+    g_string_free(text, TRUE);
+    g_string_free(phrase, TRUE);
+    i += best;
+  }
+  return out;
+}

@@ -1,0 +1,556 @@
+/* number.c — label string to number: sign, currency, digits with grouping and decimal mark,
+ * exponent, magnitude suffix and percent, validated strictly so that dates, versions, times and
+ * words are rejected instead of being misread as values a rule would then compare bars against.
+ *
+ * Grammar (gaps = ASCII space, tab, U+00A0, U+202F, U+2009, U+2007):
+ *   label  := prefix* core [exp] suffix*         leading/trailing whitespace ignored
+ *   prefix := '(' | sign | currency gap* | percent gap*      (sign: '-', '+', U+2212, U+2013)
+ *   core   := digits (sep digits)* [dec digits] | dec digits
+ *   exp    := (E|e) [sign] digits | ×10^ [sign] digits | ×10 superscript-digits
+ *   suffix := gap* (multiplier | currency | percent | permille) | ')'
+ * Each of sign, parenthesis pair, currency, multiplier, percent appears at most once; a sign and
+ * parentheses together, or a percent with a currency or multiplier, are rejected.
+ * Choices (none comes from a standard, all are common practice, no source):
+ * - A trailing minus ("5-") is rejected: in chart text it is more often half of a range "5–10"
+ *   split by the text extractor than an accounting sign, and a wrong sign is worse than no value.
+ * - No space is allowed between a sign and the digits, for the same reason ("– 5" bullet lists).
+ * - "m"/"M"/"MM" mean million (finance usage; "MM" is US finance practice), "B" billion, "T" and
+ *   "tn" trillion; so "5 m" (metres) reads as 5e6. "Billion" is rejected: 1e9 in English title
+ *   case, 1e12 in German. en-IN compact "T" (thousand) is misread as trillion: not supported.
+ * - Lakh (L, lakh, lac) = 1e5 and crore (Cr, crore) = 1e7, as en-IN charts print them.
+ * - Only ASCII digits; other Unicode digits (Arabic-Indic, Devanagari, fullwidth) are rejected.
+ * - Units other than currency and percent ("5 km", "20 °C") are rejected, not stripped.
+ * - Group sizes are checked: 3s everywhere, or with ',' the Indian 2s-then-3 pattern; a leading
+ *   zero group ("0,234") can never be grouping, which is what resolves many ambiguous strings. */
+#include "recognize/number.h"
+
+#include <math.h>
+#include <string.h>
+
+enum { TOK_CURRENCY, TOK_MULT, TOK_PERCENT, TOK_PERMILLE };
+
+typedef struct {
+  const char *text;
+  int kind;
+  int exp10; /* TOK_MULT only */
+} unit_token;
+
+static const unit_token unit_tokens[] = {
+    {"%", TOK_PERCENT, 0}, {"\u066a", TOK_PERCENT, 0}, {"\uff05", TOK_PERCENT, 0},
+    {"\u2030", TOK_PERMILLE, 0},
+    /* magnitudes: English, German, French compact forms (see CLDR compact decimals) */
+    {"k", TOK_MULT, 3}, {"K", TOK_MULT, 3}, {"Tsd.", TOK_MULT, 3}, {"Tsd", TOK_MULT, 3},
+    {"thousand", TOK_MULT, 3}, {"Tausend", TOK_MULT, 3}, {"mille", TOK_MULT, 3},
+    {"millier", TOK_MULT, 3}, {"milliers", TOK_MULT, 3}, {"L", TOK_MULT, 5},
+    {"lakh", TOK_MULT, 5}, {"Lakh", TOK_MULT, 5}, {"lac", TOK_MULT, 5}, {"m", TOK_MULT, 6},
+    {"M", TOK_MULT, 6}, {"mn", TOK_MULT, 6}, {"Mn", TOK_MULT, 6}, {"MN", TOK_MULT, 6},
+    {"MM", TOK_MULT, 6}, {"Mio.", TOK_MULT, 6}, {"Mio", TOK_MULT, 6}, {"million", TOK_MULT, 6},
+    {"millions", TOK_MULT, 6}, {"Million", TOK_MULT, 6}, {"Millionen", TOK_MULT, 6},
+    {"Cr", TOK_MULT, 7}, {"crore", TOK_MULT, 7}, {"Crore", TOK_MULT, 7}, {"bn", TOK_MULT, 9},
+    {"Bn", TOK_MULT, 9}, {"BN", TOK_MULT, 9}, {"B", TOK_MULT, 9}, {"Mrd.", TOK_MULT, 9},
+    {"Mrd", TOK_MULT, 9}, {"Md", TOK_MULT, 9}, {"Mds", TOK_MULT, 9}, {"billion", TOK_MULT, 9},
+    {"Milliarde", TOK_MULT, 9}, {"Milliarden", TOK_MULT, 9}, {"milliard", TOK_MULT, 9},
+    {"milliards", TOK_MULT, 9}, {"tn", TOK_MULT, 12}, {"Tn", TOK_MULT, 12}, {"T", TOK_MULT, 12},
+    {"Bio.", TOK_MULT, 12}, {"Bio", TOK_MULT, 12}, {"trillion", TOK_MULT, 12},
+    {"Billionen", TOK_MULT, 12},
+    /* currency symbols, then ISO 4217 codes in common use ("RMB" is not ISO but is printed) */
+    {"$", TOK_CURRENCY, 0}, {"\u20ac", TOK_CURRENCY, 0}, {"\u00a3", TOK_CURRENCY, 0},
+    {"\u00a5", TOK_CURRENCY, 0}, {"\u20b9", TOK_CURRENCY, 0}, {"\u20a9", TOK_CURRENCY, 0},
+    {"\u20bd", TOK_CURRENCY, 0}, {"\u20ba", TOK_CURRENCY, 0}, {"\u20aa", TOK_CURRENCY, 0},
+    {"\u20ab", TOK_CURRENCY, 0}, {"\u20a6", TOK_CURRENCY, 0}, {"\u20b1", TOK_CURRENCY, 0},
+    {"\u20b4", TOK_CURRENCY, 0}, {"\u0e3f", TOK_CURRENCY, 0}, {"\u00a2", TOK_CURRENCY, 0},
+    {"US$", TOK_CURRENCY, 0}, {"A$", TOK_CURRENCY, 0}, {"AU$", TOK_CURRENCY, 0},
+    {"C$", TOK_CURRENCY, 0}, {"CA$", TOK_CURRENCY, 0}, {"NZ$", TOK_CURRENCY, 0},
+    {"HK$", TOK_CURRENCY, 0}, {"S$", TOK_CURRENCY, 0}, {"R$", TOK_CURRENCY, 0},
+    {"MX$", TOK_CURRENCY, 0}, {"$US", TOK_CURRENCY, 0}, {"$CA", TOK_CURRENCY, 0},
+    {"$AU", TOK_CURRENCY, 0}, {"Fr.", TOK_CURRENCY, 0}, {"fr.", TOK_CURRENCY, 0},
+    {"kr", TOK_CURRENCY, 0}, {"kr.", TOK_CURRENCY, 0}, {"Kr", TOK_CURRENCY, 0},
+    {"z\u0142", TOK_CURRENCY, 0}, {"K\u010d", TOK_CURRENCY, 0}, {"Ft", TOK_CURRENCY, 0},
+    {"Rs", TOK_CURRENCY, 0}, {"Rs.", TOK_CURRENCY, 0}, {"USD", TOK_CURRENCY, 0},
+    {"EUR", TOK_CURRENCY, 0}, {"GBP", TOK_CURRENCY, 0}, {"JPY", TOK_CURRENCY, 0},
+    {"CHF", TOK_CURRENCY, 0}, {"CNY", TOK_CURRENCY, 0}, {"RMB", TOK_CURRENCY, 0},
+    {"CAD", TOK_CURRENCY, 0}, {"AUD", TOK_CURRENCY, 0}, {"NZD", TOK_CURRENCY, 0},
+    {"SEK", TOK_CURRENCY, 0}, {"NOK", TOK_CURRENCY, 0}, {"DKK", TOK_CURRENCY, 0},
+    {"ISK", TOK_CURRENCY, 0}, {"INR", TOK_CURRENCY, 0}, {"RUB", TOK_CURRENCY, 0},
+    {"BRL", TOK_CURRENCY, 0}, {"ZAR", TOK_CURRENCY, 0}, {"HKD", TOK_CURRENCY, 0},
+    {"SGD", TOK_CURRENCY, 0}, {"KRW", TOK_CURRENCY, 0}, {"MXN", TOK_CURRENCY, 0},
+    {"PLN", TOK_CURRENCY, 0}, {"CZK", TOK_CURRENCY, 0}, {"HUF", TOK_CURRENCY, 0},
+    {"TRY", TOK_CURRENCY, 0}, {"ILS", TOK_CURRENCY, 0}, {"AED", TOK_CURRENCY, 0},
+    {"SAR", TOK_CURRENCY, 0}, {"THB", TOK_CURRENCY, 0}, {"IDR", TOK_CURRENCY, 0},
+    {"MYR", TOK_CURRENCY, 0}, {"PHP", TOK_CURRENCY, 0}, {"TWD", TOK_CURRENCY, 0},
+    {"ARS", TOK_CURRENCY, 0}, {"CLP", TOK_CURRENCY, 0}, {"COP", TOK_CURRENCY, 0},
+    {"PEN", TOK_CURRENCY, 0}, {"UAH", TOK_CURRENCY, 0}, {"RON", TOK_CURRENCY, 0},
+    {"BGN", TOK_CURRENCY, 0}, {"EGP", TOK_CURRENCY, 0}, {"NGN", TOK_CURRENCY, 0},
+    {"KES", TOK_CURRENCY, 0}, {"PKR", TOK_CURRENCY, 0}, {"VND", TOK_CURRENCY, 0},
+};
+
+/* Separator classes after folding the look-alikes: all spaces are one class, ' and ’ another. */
+enum { SEP_NONE = 0, SEP_POINT = '.', SEP_COMMA = ',', SEP_SPACE = ' ', SEP_APOS = '\'' };
+
+#define MAX_GROUPS 32
+
+static gunichar char_at(const char *p, const char *end, size_t *len)
+{
+  if (p >= end) {
+    *len = 0;
+    return 0;
+  }
+  const char *next = g_utf8_next_char(p);
+  *len = (size_t)(next - p);
+  return g_utf8_get_char(p);
+}
+
+static gboolean is_gap(gunichar c)
+{
+  return c == ' ' || c == '\t' || c == 0x00A0 || c == 0x202F || c == 0x2009 || c == 0x2007;
+}
+
+static gboolean is_trim(gunichar c)
+{
+  return is_gap(c) || c == '\n' || c == '\r' || c == '\v' || c == '\f' || c == 0x200B ||
+         c == 0xFEFF;
+}
+
+static int sep_class(gunichar c)
+{
+  if (c == '.')
+    return SEP_POINT;
+  if (c == ',')
+    return SEP_COMMA;
+  if (c == '\'' || c == 0x2019)
+    return SEP_APOS;
+  if (c != '\t' && is_gap(c))
+    return SEP_SPACE;
+  return SEP_NONE;
+}
+
+/* Returns the sign length at p, or 0; *neg tells which sign. */
+static size_t match_sign(const char *p, const char *end, gboolean *neg)
+{
+  size_t len;
+  gunichar c = char_at(p, end, &len);
+  *neg = c == '-' || c == 0x2212 || c == 0x2013;
+  return (*neg || c == '+') ? len : 0;
+}
+
+/* Longest unit token at p; a token ending in a letter must not run on into another letter, so
+ * "km" is neither "k" nor "kr" and "EURO" is not "EUR". */
+static const unit_token *match_unit(const char *p, const char *end, size_t *len)
+{
+  const unit_token *best = NULL;
+  size_t best_len = 0;
+  for (size_t i = 0; i < G_N_ELEMENTS(unit_tokens); i++) {
+    size_t n = strlen(unit_tokens[i].text);
+    if (n <= best_len || (size_t)(end - p) < n || memcmp(p, unit_tokens[i].text, n) != 0)
+      continue;
+    if (g_ascii_isalpha(p[n - 1]) && p + n < end && g_ascii_isalpha(p[n]))
+      continue;
+    best = &unit_tokens[i];
+    best_len = n;
+  }
+  *len = best_len;
+  return best;
+}
+
+static const char *skip_gaps(const char *p, const char *end)
+{
+  size_t len;
+  while (p < end && is_gap(char_at(p, end, &len)))
+    p += len;
+  return p;
+}
+
+/* Western groups are 3s; Indian (lakh) grouping is 3 then 2s, only ever written with ','. */
+static gboolean groups_valid(const int *glen, int nint, const char *first_digit, int sep)
+{
+  if (nint == 1)
+    return TRUE;
+  if (glen[0] < 1 || glen[0] > 3 || first_digit[0] == '0' || glen[nint - 1] != 3)
+    return FALSE;
+  gboolean western = TRUE, indian = sep == SEP_COMMA && glen[0] <= 2 && nint >= 3;
+  for (int i = 1; i < nint - 1; i++) {
+    western = western && glen[i] == 3;
+    indian = indian && glen[i] == 2;
+  }
+  return western || indian;
+}
+
+static int superscript_digit(gunichar c)
+{
+  static const gunichar sup[10] = {0x2070, 0x00B9, 0x00B2, 0x00B3, 0x2074,
+                                   0x2075, 0x2076, 0x2077, 0x2078, 0x2079};
+  for (int i = 0; i < 10; i++)
+    if (sup[i] == c)
+      return i;
+  return -1;
+}
+
+/* Exponent after a mantissa: "E9", "e+06" (C, R, ICU), "×10^5" (CLDR sv and others),
+ * "×10⁻³" with superscripts (typeset axes). Advances *pp only on success. */
+static gboolean parse_exponent(const char **pp, const char *end, int *exp)
+{
+  const char *q = *pp;
+  size_t len;
+  gboolean neg = FALSE, super = FALSE;
+  if (q < end && (*q == 'e' || *q == 'E')) {
+    q++;
+  } else if (char_at(q, end, &len) == 0x00D7 && (size_t)(end - q) > len + 2 &&
+             memcmp(q + len, "10", 2) == 0) {
+    q += len + 2;
+    if (q < end && *q == '^')
+      q++;
+    else
+      super = TRUE;
+  } else {
+    return FALSE;
+  }
+  int e = 0, ndig = 0;
+  if (super) {
+    if (char_at(q, end, &len) == 0x207B) /* superscript minus */
+      neg = TRUE, q += len;
+    int d;
+    while (q < end && (d = superscript_digit(char_at(q, end, &len))) >= 0) {
+      e = MIN(e * 10 + d, 1000);
+      ndig++;
+      q += len;
+    }
+  } else {
+    q += match_sign(q, end, &neg);
+    for (; q < end && g_ascii_isdigit(*q); q++, ndig++)
+      e = MIN(e * 10 + (*q - '0'), 1000);
+  }
+  if (ndig == 0)
+    return FALSE;
+  *exp = neg ? -e : e;
+  *pp = q;
+  return TRUE;
+}
+
+typedef struct {
+  gboolean neg, signed_, paren_open, paren_closed;
+  int exp10;
+} label_state;
+
+static gboolean apply_unit(const unit_token *t, size_t len, const char *p, pp_number *out,
+                           label_state *st)
+{
+  switch (t->kind) {
+  case TOK_CURRENCY:
+    if (out->currency[0] || len >= sizeof out->currency)
+      return FALSE;
+    memcpy(out->currency, p, len);
+    out->currency[len] = '\0';
+    return TRUE;
+  case TOK_MULT:
+    if (out->multiplier != 1.0)
+      return FALSE;
+    out->multiplier = pow(10.0, t->exp10);
+    st->exp10 += t->exp10;
+    return TRUE;
+  case TOK_PERCENT:
+  case TOK_PERMILLE:
+    if (out->percent || out->permille)
+      return FALSE;
+    out->percent = t->kind == TOK_PERCENT;
+    out->permille = t->kind == TOK_PERMILLE;
+    return TRUE;
+  }
+  return FALSE;
+}
+
+/* Parses s..end under one definite convention. *last_dec_zero reports whether the final decimal
+ * digit is '0', which the series chooser reads as a sign of a misread grouping ("1.000"). */
+static gboolean parse_strict(const char *s, const char *end, pp_decimal_mark conv, pp_number *out,
+                             gboolean *last_dec_zero)
+{
+  const int dec_sep = conv == PP_DECIMAL_COMMA ? SEP_COMMA : SEP_POINT;
+  label_state st = {0};
+  const char *p = s;
+  size_t len;
+
+  memset(out, 0, sizeof *out);
+  out->multiplier = 1.0;
+  *last_dec_zero = FALSE;
+
+  for (;;) {
+    if (p >= end)
+      return FALSE;
+    if (g_ascii_isdigit(*p))
+      break;
+    gunichar c = char_at(p, end, &len);
+    if (sep_class(c) == dec_sep && p + len < end && g_ascii_isdigit(p[len]))
+      break;
+    gboolean neg;
+    size_t sl = match_sign(p, end, &neg);
+    if (sl) {
+      if (st.signed_ || st.paren_open)
+        return FALSE;
+      st.signed_ = TRUE;
+      st.neg = neg;
+      p += sl;
+      if (p < end && is_gap(char_at(p, end, &len)))
+        return FALSE;
+      continue;
+    }
+    if (c == '(') {
+      if (st.signed_ || st.paren_open)
+        return FALSE;
+      st.paren_open = TRUE;
+      p += len;
+      continue;
+    }
+    const unit_token *t = match_unit(p, end, &len);
+    if (!t || t->kind == TOK_MULT || !apply_unit(t, len, p, out, &st))
+      return FALSE;
+    p = skip_gaps(p + len, end);
+  }
+
+  /* core: digit groups split by separators that are followed by a digit */
+  GString *digits = g_string_new(NULL);
+  int glen[MAX_GROUPS], seps[MAX_GROUPS], ng = 0, cur = 0;
+  const char *first_digit = p;
+  gboolean ok = FALSE;
+  gunichar c0 = char_at(p, end, &len);
+  if (sep_class(c0) == dec_sep) { /* ".5" */
+    glen[ng] = 0;
+    seps[ng++] = dec_sep;
+    p += len;
+    first_digit = p;
+  }
+  while (p < end) {
+    if (g_ascii_isdigit(*p)) {
+      g_string_append_c(digits, *p++);
+      cur++;
+      continue;
+    }
+    int sc = sep_class(char_at(p, end, &len));
+    if (sc == SEP_NONE || cur == 0 || p + len >= end || !g_ascii_isdigit(p[len]))
+      break;
+    if (ng >= MAX_GROUPS - 1)
+      goto done;
+    glen[ng] = cur;
+    seps[ng++] = sc;
+    cur = 0;
+    p += len;
+  }
+  glen[ng++] = cur;
+
+  /* at most one decimal mark, and only as the last separator; the rest group with one class */
+  int ndec = 0, group_sep = SEP_NONE;
+  for (int i = 0; i < ng - 1; i++) {
+    if (seps[i] == dec_sep) {
+      if (++ndec > 1 || i != ng - 2)
+        goto done;
+    } else if (seps[i] == SEP_POINT || seps[i] == SEP_COMMA || seps[i] == SEP_SPACE ||
+               seps[i] == SEP_APOS) {
+      if (group_sep != SEP_NONE && group_sep != seps[i])
+        goto done;
+      group_sep = seps[i];
+    }
+  }
+  int nint = ndec ? ng - 1 : ng;
+  if (glen[0] == 0 && nint > 1) /* ".5" cannot be followed by grouping */
+    goto done;
+  if (!groups_valid(glen, nint, first_digit, group_sep))
+    goto done;
+  out->has_grouping = group_sep != SEP_NONE;
+  out->decimals = ndec ? glen[ng - 1] : 0;
+  out->decimal_mark = ndec ? conv : PP_DECIMAL_UNKNOWN;
+  *last_dec_zero = ndec && digits->str[digits->len - 1] == '0';
+
+  int exp = 0;
+  gboolean has_exp = !out->has_grouping && parse_exponent(&p, end, &exp);
+
+  /* suffixes */
+  while (p < end) {
+    const char *q = skip_gaps(p, end);
+    if (q >= end)
+      goto done;
+    if (*q == ')' && q == p && st.paren_open && !st.paren_closed) {
+      st.paren_closed = TRUE;
+      p++;
+      continue;
+    }
+    const unit_token *t = match_unit(q, end, &len);
+    if (!t || !apply_unit(t, len, q, out, &st))
+      goto done;
+    p = q + len;
+  }
+  if (st.paren_open != st.paren_closed)
+    goto done;
+  if ((out->percent || out->permille) && (out->currency[0] || out->multiplier != 1.0))
+    goto done;
+  if (has_exp && out->multiplier != 1.0)
+    goto done;
+
+  /* one correctly rounded conversion of the whole decimal string, multiplier included */
+  int nint_digits = (int)digits->len - out->decimals;
+  GString *num = g_string_new(NULL);
+  g_string_append_len(num, digits->str, nint_digits);
+  if (nint_digits == 0)
+    g_string_append_c(num, '0');
+  g_string_append_c(num, '.');
+  g_string_append(num, digits->str + nint_digits);
+  g_string_append_printf(num, "0e%d", exp + st.exp10);
+  out->value = g_ascii_strtod(num->str, NULL);
+  g_string_free(num, TRUE);
+  if (!isfinite(out->value))
+    goto done;
+  if (out->value == 0.0) /* "-0" is zero, not a negative value */
+    out->value = 0.0;
+  else if (st.neg || st.paren_open)
+    out->value = -out->value;
+
+  out->year_like = !out->has_grouping && ndec == 0 && !has_exp && nint == 1 && glen[0] == 4 &&
+                   !st.signed_ && !st.paren_open && !out->currency[0] &&
+                   out->multiplier == 1.0 && !out->percent && !out->permille &&
+                   out->value >= 1800 && out->value <= 2199;
+  ok = TRUE;
+done:
+  g_string_free(digits, TRUE);
+  if (!ok)
+    memset(out, 0, sizeof *out);
+  return ok;
+}
+
+/* Trims, validates UTF-8 and parses under hint, trying both conventions for UNKNOWN. */
+static gboolean parse_label(const char *utf8, pp_decimal_mark hint, pp_number *out,
+                            gboolean *last_dec_zero)
+{
+  pp_number a, b;
+  gboolean za, zb;
+  size_t len;
+
+  memset(out, 0, sizeof *out);
+  *last_dec_zero = FALSE;
+  if (!utf8 || !g_utf8_validate(utf8, -1, NULL))
+    return FALSE;
+  const char *s = utf8, *end = utf8 + strlen(utf8);
+  while (s < end && is_trim(char_at(s, end, &len)))
+    s += len;
+  while (end > s) {
+    const char *prev = g_utf8_prev_char(end);
+    if (!is_trim(g_utf8_get_char(prev)))
+      break;
+    end = prev;
+  }
+  if (s == end)
+    return FALSE;
+
+  if (hint != PP_DECIMAL_UNKNOWN)
+    return parse_strict(s, end, hint, out, last_dec_zero);
+  gboolean oka = parse_strict(s, end, PP_DECIMAL_POINT, &a, &za);
+  gboolean okb = parse_strict(s, end, PP_DECIMAL_COMMA, &b, &zb);
+  if (oka) {
+    *out = a;
+    *last_dec_zero = za;
+    out->ambiguous = okb && a.value != b.value;
+  } else if (okb) {
+    *out = b;
+    *last_dec_zero = zb;
+  }
+  return oka || okb;
+}
+
+gboolean pp_number_parse(const char *utf8, pp_decimal_mark hint, pp_number *out)
+{
+  gboolean last_dec_zero;
+  return parse_label(utf8, hint, out, &last_dec_zero);
+}
+
+/* Evidence that a reading is the intended one, for tick labels in axis order: evenly spaced
+ * (linear or log axis), monotonic, same number of decimals, no decimal part that always ends in
+ * '0' (a tick formatter never pads "1.5" to "1.500"). Weights only break ties between them. */
+static int pattern_score(const pp_number *v, const gboolean *ok, const gboolean *zero, size_t n)
+{
+  double prev = 0;
+  size_t m = 0;
+  gboolean same_dec = TRUE, any_dec = FALSE, all_zero = TRUE, mono_up = TRUE, mono_down = TRUE;
+  gboolean linear = TRUE, geometric = TRUE;
+  double first_diff = 0, first_ratio = 0, scale = 0;
+  int dec0 = -1;
+
+  for (size_t i = 0; i < n; i++)
+    if (ok[i])
+      scale = MAX(scale, fabs(v[i].value));
+  double tol = 1e-9 * scale + 1e-300;
+  for (size_t i = 0; i < n; i++) {
+    if (!ok[i])
+      continue;
+    double x = v[i].value;
+    if (dec0 < 0)
+      dec0 = v[i].decimals;
+    same_dec = same_dec && v[i].decimals == dec0;
+    if (v[i].decimals > 0) {
+      any_dec = TRUE;
+      all_zero = all_zero && zero[i];
+    }
+    if (m > 0) {
+      double d = x - prev;
+      mono_up = mono_up && d > 0;
+      mono_down = mono_down && d < 0;
+      if (m == 1)
+        first_diff = d;
+      linear = linear && fabs(d - first_diff) <= tol;
+      if (prev != 0 && x / prev > 0) {
+        double r = x / prev;
+        if (m == 1)
+          first_ratio = r;
+        geometric = geometric && fabs(r - first_ratio) <= 1e-9 * fabs(first_ratio);
+      } else {
+        geometric = FALSE;
+      }
+    }
+    prev = x;
+    m++;
+  }
+  int score = 0;
+  if (m >= 3 && (mono_up || mono_down) && (linear || geometric))
+    score += 8;
+  if (m >= 3 && (mono_up || mono_down))
+    score += 4;
+  if (m >= 2 && same_dec)
+    score += 2;
+  if (!(any_dec && all_zero))
+    score += 1;
+  return score;
+}
+
+size_t pp_number_parse_series(const char *const *labels, size_t n, pp_number *out, gboolean *ok)
+{
+  static const pp_decimal_mark conv[2] = {PP_DECIMAL_POINT, PP_DECIMAL_COMMA};
+  pp_number *cand[2];
+  gboolean *cok[2], *czero[2];
+  size_t count[2] = {0, 0};
+  int score[2];
+
+  if (n == 0)
+    return 0;
+  for (int c = 0; c < 2; c++) {
+    cand[c] = g_new0(pp_number, n);
+    cok[c] = g_new0(gboolean, n);
+    czero[c] = g_new0(gboolean, n);
+    for (size_t i = 0; i < n; i++) {
+      cok[c][i] = parse_label(labels[i], conv[c], &cand[c][i], &czero[c][i]);
+      count[c] += cok[c][i] ? 1 : 0;
+    }
+    score[c] = (int)MIN(count[c], (size_t)1 << 20) * 16 +
+               pattern_score(cand[c], cok[c], czero[c], n);
+  }
+  int pick = score[1] > score[0] ? 1 : 0;
+  gboolean tie = score[0] == score[1];
+  for (size_t i = 0; i < n; i++) {
+    out[i] = cand[pick][i];
+    /* with no evidence either way, flag the labels the other convention reads differently */
+    out[i].ambiguous = tie && cok[0][i] && cok[1][i] && cand[0][i].value != cand[1][i].value;
+    if (ok)
+      ok[i] = cok[pick][i];
+  }
+  size_t result = count[pick];
+  for (int c = 0; c < 2; c++) {
+    g_free(cand[c]);
+    g_free(cok[c]);
+    g_free(czero[c]);
+  }
+  return result;
+}

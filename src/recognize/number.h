@@ -1,0 +1,36 @@
+/* number.h — turns one tick or data label string ("1.234,5", "$1.2bn", "(45 %)") into a number
+ * plus the notation facts the recognition stage needs (decimal mark, grouping, unit, year-likeness).
+ * Stage-internal: only src/recognize uses it. Grammar and choices are documented in number.c. */
+#pragma once
+
+#include <glib.h>
+
+G_BEGIN_DECLS
+
+typedef enum { PP_DECIMAL_UNKNOWN, PP_DECIMAL_POINT, PP_DECIMAL_COMMA } pp_decimal_mark;
+
+typedef struct {
+  double value;      /* mantissa × multiplier, sign applied; percent NOT divided (45% -> 45) */
+  double multiplier; /* 1 unless a suffix: 1e3, 1e5 (lakh), 1e6, 1e7 (crore), 1e9, 1e12 */
+  gboolean percent;  /* '%', U+066A or U+FF05 */
+  gboolean permille; /* '‰' U+2030; value not divided either */
+  char currency[8];  /* symbol or ISO 4217 code as written ("$", "€", "CHF", "US$"), "" if none */
+  int decimals;      /* digits after the decimal mark */
+  gboolean has_grouping;
+  pp_decimal_mark decimal_mark; /* the mark used, UNKNOWN when the string has neither */
+  gboolean year_like; /* bare 4-digit integer 1800..2199, no sign/unit/grouping: maybe a year */
+  gboolean ambiguous; /* hint UNKNOWN and both conventions read it differently ("1,234") */
+} pp_number;
+
+/* Parses one label. With hint POINT or COMMA the convention is strict ("1,5" fails under POINT);
+ * with UNKNOWN both are tried and an ambiguous string takes the point reading. On failure *out
+ * is zeroed and FALSE returned. */
+gboolean pp_number_parse(const char *utf8, pp_decimal_mark hint, pp_number *out);
+
+/* Parses the labels of one axis under one shared convention: the one that parses the most labels,
+ * then the one giving an evenly spaced / monotonic / equal-decimals series, else the point
+ * convention. out has n slots (failed ones zeroed); ok[i] (may be NULL) tells which parsed;
+ * returns how many did. ambiguous is set only when no evidence chose the convention. */
+size_t pp_number_parse_series(const char *const *labels, size_t n, pp_number *out, gboolean *ok);
+
+G_END_DECLS
