@@ -172,12 +172,14 @@ static char *find_category(const pp_scene *scene, pp_rect bar, pp_rect plot, gbo
   return g_string_free(s, FALSE);
 }
 
-static void attach_data_labels(pp_figure *fig, GPtrArray *labels, gboolean vertical) {
+/* A data label sits at the bar's tip, just beyond it or just inside it; never at
+ * the baseline end, where category labels live. */
+static void attach_data_labels(pp_figure *fig, GPtrArray *labels, gboolean vertical, double base) {
   for (guint i = 0; i < fig->elements->len; i++) {
     pp_element *e = &g_array_index(fig->elements, pp_element, i);
     frame_rect f = to_frame(e->box, vertical);
-    double tip_u = fabs(f.u0 - e->extent) < 1e-9 ? f.u0 : 0;
-    (void)tip_u;
+    double tip = fabs(f.u0 - base) > fabs(f.u1 - base) ? f.u0 : f.u1;
+    double dir = tip < base ? -1 : 1; /* from base towards tip */
     pp_label *best = NULL;
     double best_d = INFINITY;
     for (guint k = 0; k < labels->len; k++) {
@@ -187,11 +189,12 @@ static void attach_data_labels(pp_figure *fig, GPtrArray *labels, gboolean verti
       double lw = label_w(l, vertical), lu = label_u(l, vertical);
       if (lw < f.w0 - 0.5 || lw > f.w1 + 0.5)
         continue;
-      /* distance to the nearer end of the bar along u; labels sit at the tip */
-      double d = fmin(fabs(lu - f.u0), fabs(lu - f.u1));
-      if (lu > f.u0 && lu < f.u1)
-        d = fmin(fabs(lu - f.u0), fabs(lu - f.u1)) * 0.5;
-      if (d < best_d && d < 2.5 * l->size) {
+      double beyond = (lu - tip) * dir; /* > 0 outside the bar, < 0 inside */
+      double from_base = (lu - base) * dir;
+      if (from_base <= 0 || beyond > 2.5 * l->size || beyond < -3.0 * l->size)
+        continue;
+      double d = fabs(beyond);
+      if (d < best_d) {
         best_d = d;
         best = l;
       }
@@ -272,7 +275,7 @@ static pp_figure *build_from_selection(const pp_scene *scene, GArray *bars, GArr
     pp_element *e = &g_array_index(fig->elements, pp_element, i);
     e->category = find_category(scene, e->box, plot, vertical);
   }
-  attach_data_labels(fig, labels, vertical);
+  attach_data_labels(fig, labels, vertical, base);
   return fig;
 }
 

@@ -140,8 +140,11 @@ static void scale_failure_free(gpointer p) {
 
 static void add_figure(pp_page_charts *out, const pp_scene *scene, pp_figure *f,
                        const pp_axis_candidate *cand) {
-  if (cand)
+  if (cand) {
     set_axis_range(f, cand);
+    for (guint i = 0; i < cand->labels->len; i++)
+      ((pp_label *)g_ptr_array_index(cand->labels, i))->on_axis = TRUE;
+  }
   find_title(scene, f);
   pp_figure_set_fingerprint(f);
   g_ptr_array_add(out->figures, f);
@@ -175,11 +178,17 @@ pp_page_charts *pp_page_charts_find(const pp_scene *scene) {
     pp_axis_candidate *c = g_ptr_array_index(axes, i);
     if (c->fit_failed)
       continue;
+    /* The axis' own labels must not be taken for data labels while its bars are read. */
+    for (guint k = 0; k < c->labels->len; k++)
+      ((pp_label *)g_ptr_array_index(c->labels, k))->on_axis = TRUE;
     pp_figure *f = pp_bar_figure_build(scene, bars, c, labels, axes);
     if (!f)
       f = pp_area_figure_build(scene, areas, c, axes);
     if (f)
       add_figure(out, scene, f, c);
+    else
+      for (guint k = 0; k < c->labels->len; k++)
+        ((pp_label *)g_ptr_array_index(c->labels, k))->on_axis = FALSE;
   }
   for (pp_figure *f; (f = pp_bar_figure_from_labels(scene, bars, labels));)
     add_figure(out, scene, f, NULL);
