@@ -1,0 +1,41 @@
+#!/bin/sh
+# Regenerate the plotproof test corpus (corpus/<producer>/) from real plotting
+# software; each producer is skipped with a message when it is not installed.
+set -u
+here=$(cd "$(dirname "$0")" && pwd)
+root=$(cd "$here/../.." && pwd)
+py=/usr/bin/python3
+status=0
+
+if [ -x "$py" ] && "$py" -c 'import matplotlib' 2>/dev/null; then
+	"$py" "$here/gen_matplotlib.py" || status=1
+else
+	echo "skip matplotlib: /usr/bin/python3 with matplotlib not found" >&2
+fi
+
+if command -v gnuplot >/dev/null 2>&1 && [ -x "$py" ]; then
+	"$py" "$here/gen_gnuplot.py" || status=1
+else
+	echo "skip gnuplot: gnuplot not installed" >&2
+fi
+
+if command -v Rscript >/dev/null 2>&1 && [ -x "$py" ]; then
+	Rscript "$here/gen_r.R" || status=1
+else
+	echo "skip R: Rscript not installed" >&2
+fi
+
+# The cairo generator is a C program built by meson; pass the build dir.
+# usage: generate.sh [MESON_BUILD_DIR]
+if [ $# -ge 1 ] && [ -x "$1/scripts/gen-corpus-cairo" ]; then
+	(cd "$root" && "$1/scripts/gen-corpus-cairo" corpus/cairo) || status=1
+else
+	echo "skip cairo: pass a meson build dir containing scripts/gen-corpus-cairo" >&2
+fi
+
+for d in matplotlib gnuplot r cairo; do
+	if [ -d "$root/corpus/$d" ]; then
+		"$py" "$here/truth.py" check "$root/corpus/$d" || status=1
+	fi
+done
+exit $status
