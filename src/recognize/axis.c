@@ -216,6 +216,41 @@ static pp_axis_candidate *make_candidate(GPtrArray *run, gboolean vertical, GArr
   return c;
 }
 
+static void candidate_free(gpointer p);
+
+/* Fits a run; when the fit fails, the run may be two axes stacked on one label edge
+ * with a gap too small to split on: retry both sides of its widest gap. */
+static void fit_or_split(GPtrArray *run, gboolean vertical, GArray *segs, double edge,
+                         GPtrArray *out) {
+  pp_axis_candidate *c = make_candidate(run, vertical, segs, edge);
+  if (!c->fit_failed || run->len < 4) {
+    g_ptr_array_add(out, c);
+    return;
+  }
+  guint cut = 0;
+  double widest = -1;
+  for (guint i = 1; i + 1 < run->len; i++) {
+    pp_label *a = g_ptr_array_index(run, i), *b = g_ptr_array_index(run, i + 1);
+    double gap = vertical ? b->centre.y - a->centre.y : b->centre.x - a->centre.x;
+    if (gap > widest && i + 1 >= 2 && run->len - (i + 1) >= 2) {
+      widest = gap;
+      cut = i + 1;
+    }
+  }
+  if (cut == 0) {
+    g_ptr_array_add(out, c);
+    return;
+  }
+  candidate_free(c);
+  GPtrArray *head = g_ptr_array_new(), *tail = g_ptr_array_new();
+  for (guint i = 0; i < run->len; i++)
+    g_ptr_array_add(i < cut ? head : tail, g_ptr_array_index(run, i));
+  fit_or_split(head, vertical, segs, edge, out);
+  fit_or_split(tail, vertical, segs, edge, out);
+  g_ptr_array_unref(head);
+  g_ptr_array_unref(tail);
+}
+
 /* Splits a sorted run where the spacing jumps (two charts stacked on one page
  * share a label edge) and keeps the pieces with two or more labels. */
 static void split_runs(GPtrArray *sorted, gboolean vertical, GArray *segs, double edge,
@@ -243,13 +278,13 @@ static void split_runs(GPtrArray *sorted, gboolean vertical, GArray *segs, doubl
     pp_label *l = g_ptr_array_index(sorted, i);
     if (i > 0 && (gaps[i - 1] > 2.6 * median || gaps[i - 1] < 0.5 * l->size)) {
       if (run->len >= 2)
-        g_ptr_array_add(out, make_candidate(run, vertical, segs, edge));
+        fit_or_split(run, vertical, segs, edge, out);
       g_ptr_array_set_size(run, 0);
     }
     g_ptr_array_add(run, l);
   }
   if (run->len >= 2)
-    g_ptr_array_add(out, make_candidate(run, vertical, segs, edge));
+    fit_or_split(run, vertical, segs, edge, out);
   g_ptr_array_unref(run);
   g_free(gaps);
 }

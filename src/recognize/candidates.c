@@ -59,7 +59,7 @@ GPtrArray *pp_area_candidates_collect(const pp_scene *scene) {
     if (m->kind != PP_MARK_FILL || is_blank(&m->paint) || m->path->n_segs < 5)
       continue;
     pp_rect r;
-    if (pp_path_is_rectangle(m->path, 0.01, &r) || pp_path_n_subpaths(m->path) != 1)
+    if (pp_path_is_rectangle(m->path, 0.01, &r))
       continue;
     double ink = isnan(m->ink) ? 0 : m->ink;
     if (ink < 50)

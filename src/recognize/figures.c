@@ -3,6 +3,7 @@
 #include <math.h>
 #include <string.h>
 
+#define G_LOG_DOMAIN "plotproof-recognize"
 #include "internal.h"
 
 /* An image at least this big (pt²) could be a chart drawn as a picture (about 5×5 cm,
@@ -176,14 +177,22 @@ pp_page_charts *pp_page_charts_find(const pp_scene *scene) {
 
   for (guint i = 0; i < axes->len; i++) {
     pp_axis_candidate *c = g_ptr_array_index(axes, i);
-    if (c->fit_failed)
+    if (c->fit_failed) {
+      g_debug("axis candidate %u labels [%s..]: %s", c->labels->len,
+              c->labels->len ? ((pp_label *)g_ptr_array_index(c->labels, 0))->text : "",
+              c->reason);
       continue;
+    }
     /* The axis' own labels must not be taken for data labels while its bars are read. */
     for (guint k = 0; k < c->labels->len; k++)
       ((pp_label *)g_ptr_array_index(c->labels, k))->on_axis = TRUE;
     pp_figure *f = pp_bar_figure_build(scene, bars, c, labels, axes);
     if (!f)
       f = pp_area_figure_build(scene, areas, c, axes);
+    g_debug("axis %s %u labels [%s..%s] side %d: %s", c->axis->vertical ? "vertical" : "horizontal",
+            c->labels->len, ((pp_label *)g_ptr_array_index(c->labels, 0))->text,
+            ((pp_label *)g_ptr_array_index(c->labels, c->labels->len - 1))->text, c->side,
+            f ? pp_figure_kind_name(f->kind) : "no figure");
     if (f)
       add_figure(out, scene, f, c);
     else
