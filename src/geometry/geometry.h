@@ -3,6 +3,7 @@
  * Input is core's pp_path in page points; nothing here knows about PDF or cairo. */
 #pragma once
 
+#include "capture/capture.h"
 #include "core/core.h"
 
 G_BEGIN_DECLS
@@ -47,5 +48,9 @@ gboolean pp_path_is_rectangle(const pp_path *path, double tol, pp_rect *out);
 /* Flatten into polygons (one per subpath) with the given maximum chord
  * deviation, for consumers that need vertices (recognition of area tops). */
 GPtrArray *pp_path_flatten(const pp_path *path, double tolerance); /* of GArray<pp_point> */
+
+/* Measures every mark of a captured scene in place: bbox, visible bbox and ink
+ * (fills and images by clipped area, strokes by width × clipped length). */
+void pp_scene_measure(pp_scene *scene);
 
 G_END_DECLS
