@@ -106,8 +106,25 @@ static gboolean find_baseline(GArray *bars, GArray *sel, const pp_axis *axis, do
     }
   }
   *base = best;
-  /* Most bars of a chart share it; two bars touching end to end by chance do not make one. */
-  return best_count >= 2 && best_count * 10 >= sel->len * 3;
+  if (best_count < 2)
+    return FALSE;
+  /* Most bars of a chart touch it, or stand in a stack on one that does; two bars
+   * touching end to end by chance do not make a chart. */
+  guint supported = 0;
+  for (guint i = 0; i < sel->len; i++) {
+    frame_rect fi = to_frame(g_array_index(bars, pp_bar_candidate, g_array_index(sel, guint, i)).rect,
+                             axis->vertical);
+    for (guint j = 0; j < sel->len; j++) {
+      frame_rect fj = to_frame(
+          g_array_index(bars, pp_bar_candidate, g_array_index(sel, guint, j)).rect, axis->vertical);
+      if ((fabs(fj.u0 - best) < 0.05 || fabs(fj.u1 - best) < 0.05) && fabs(fj.w0 - fi.w0) < 0.2 &&
+          fabs(fj.w1 - fi.w1) < 0.2) {
+        supported++;
+        break;
+      }
+    }
+  }
+  return supported * 2 >= sel->len;
 }
 
 static int paint_series(GArray *colours, const pp_paint *p) {
