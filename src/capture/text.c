@@ -40,7 +40,8 @@ static void flush_word(word_builder *wb, pp_scene *scene, guint line) {
   run->line = line;
   double dx = wb->last_centre.x - wb->first_centre.x, dy = wb->last_centre.y - wb->first_centre.y;
   /* y grows downwards on the page, so reading upwards is a negative dy. */
-  run->angle = wb->n_chars > 1 ? atan2(-dy, dx) * 180.0 / G_PI : 0.0;
+  /* An exponent is raised on purpose; it does not turn the word. */
+  run->angle = wb->n_chars > 1 && !wb->raised ? atan2(-dy, dx) * 180.0 / G_PI : 0.0;
   if (fabs(run->angle) < 1e-9)
     run->angle = 0.0;
   g_ptr_array_add(scene->words, run);
