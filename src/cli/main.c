@@ -1,0 +1,238 @@
+/* main.c — plotproof's command line: subcommand dispatch, option parsing, --help with
+ * the exit codes, --version. All work is in scan.c and inspect.c. */
+#include <getopt.h>
+#include <math.h>
+#include <signal.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "cli.h"
+
+#define DEFAULT_TIMEOUT_S 120
+
+static void print_help(FILE *out) {
+  fprintf(out,
+          "Usage: plotproof scan [OPTIONS] PATH...\n"
+          "       plotproof scene FILE [--page N] [--password PW]\n"
+          "       plotproof charts FILE [--page N] [--password PW]\n"
+          "       plotproof --help | --version\n"
+          "\n"
+          "Finds charts in PDF reports whose ink is not proportional to the values it\n"
+          "stands for (truncated value axes under bars or areas, bars on log axes, bars\n"
+          "that disagree with their labels) and scores Tufte's Lie Factor and the Graph\n"
+          "Discrepancy Index.\n"
+          "\n"
+          "scan: PATH is a file, or a directory searched recursively for *.pdf. Each\n"
+          "document is scanned in its own process and gets DIR/<name>.findings.json\n"
+          "(same-named files from different directories get a -<hash> suffix).\n"
+          "  -o, --output DIR       where findings files go (default: current directory;\n"
+          "                         created if missing)\n"
+          "  -p, --password PW      password for encrypted PDFs\n"
+          "  -q, --quiet            no summary on stdout\n"
+          "      --json             print each document's findings JSON on stdout instead\n"
+          "                         of the summary, one object per line (JSON Lines);\n"
+          "                         files are then written only if --output is given\n"
+          "      --timeout SECONDS  per document (default %d)\n"
+          "      --lie-band LOW:HIGH  Lie Factor band taken as faithful (default 0.95:1.05)\n"
+          "      --gdi-limit PCT    Graph Discrepancy Index materiality, percent (default 10)\n"
+          "\n"
+          "scene: the captured scene of one page (marks, paths, clips, words) as JSON.\n"
+          "charts: the figures recognised on one page (axes, ticks, elements) as JSON.\n"
+          "  --page N               1-based page number (default 1)\n"
+          "\n",
+          DEFAULT_TIMEOUT_S);
+  guint n = 0;
+  const pp_rule_info *rules = pp_rules_list(&n);
+  if (n > 0) {
+    fprintf(out, "Rules:\n");
+    for (guint i = 0; i < n; i++)
+      fprintf(out, "  %-20s %s\n", rules[i].id, rules[i].summary);
+    fprintf(out, "\n");
+  }
+  fprintf(out,
+          "Exit codes:\n"
+          "  0  clean: every document scanned, no findings\n"
+          "  1  findings: every document scanned, at least one finding\n"
+          "  2  usage error, or unreadable input (every input failed)\n"
+          "  3  some documents of a batch failed; the others were scanned\n"
+          "\n"
+          "Each failure is one stderr line: plotproof: FILE: reason.\n"
+          "%s\n",
+          PP_REPORT_DISCLAIMER);
+}
+
+static int usage_error(const char *fmt, const char *arg) {
+  fprintf(stderr, "plotproof: ");
+  fprintf(stderr, fmt, arg);
+  fprintf(stderr, "\nTry 'plotproof --help'.\n");
+  return PP_EXIT_USAGE;
+}
+
+static gboolean parse_double(const char *s, double *out) {
+  char *end = NULL;
+  double v = g_ascii_strtod(s, &end);
+  if (!s[0] || !end || *end || !isfinite(v))
+    return FALSE;
+  *out = v;
+  return TRUE;
+}
+
+static gboolean parse_uint(const char *s, guint min, guint max, guint *out) {
+  guint64 v;
+  if (!g_ascii_string_to_unsigned(s, 10, min, max, &v, NULL))
+    return FALSE;
+  *out = (guint)v;
+  return TRUE;
+}
+
+static gboolean parse_band(const char *s, pp_thresholds *t) {
+  char **parts = g_strsplit(s, ":", 3);
+  double low, high;
+  gboolean ok = g_strv_length(parts) == 2 && parse_double(parts[0], &low) &&
+                parse_double(parts[1], &high) && low > 0 && low <= 1 && high >= 1;
+  g_strfreev(parts);
+  if (ok) {
+    t->lie_band_low = low;
+    t->lie_band_high = high;
+  }
+  return ok;
+}
+
+enum { OPT_JSON = 256, OPT_TIMEOUT, OPT_LIE_BAND, OPT_GDI_LIMIT, OPT_PAGE };
+
+static const struct option long_options[] = {
+    {"help", no_argument, NULL, 'h'},
+    {"version", no_argument, NULL, 'V'},
+    {"output", required_argument, NULL, 'o'},
+    {"password", required_argument, NULL, 'p'},
+    {"quiet", no_argument, NULL, 'q'},
+    {"json", no_argument, NULL, OPT_JSON},
+    {"timeout", required_argument, NULL, OPT_TIMEOUT},
+    {"lie-band", required_argument, NULL, OPT_LIE_BAND},
+    {"gdi-limit", required_argument, NULL, OPT_GDI_LIMIT},
+    {"page", required_argument, NULL, OPT_PAGE},
+    {NULL, 0, NULL, 0},
+};
+
+typedef enum { CMD_NONE, CMD_SCAN, CMD_SCENE, CMD_CHARTS } command;
+
+/* Returns -1 to go on, or an exit code (help, version, usage error). */
+static int parse_options(int argc, char **argv, command cmd, pp_cli_options *opt) {
+  gboolean scan_only = FALSE, page_given = FALSE;
+  opterr = 0; /* our own messages, in our format */
+  optind = 1;
+  int c;
+  while ((c = getopt_long(argc, argv, ":hVo:p:q", long_options, NULL)) != -1) {
+    switch (c) {
+    case 'h':
+      print_help(stdout);
+      return PP_EXIT_CLEAN;
+    case 'V':
+      printf("plotproof %s\n", PP_VERSION);
+      return PP_EXIT_CLEAN;
+    case 'o':
+      g_free(opt->output_dir);
+      opt->output_dir = g_strdup(optarg);
+      opt->output_given = scan_only = TRUE;
+      break;
+    case 'p':
+      g_free(opt->password);
+      opt->password = g_strdup(optarg);
+      break;
+    case 'q':
+      opt->quiet = scan_only = TRUE;
+      break;
+    case OPT_JSON:
+      opt->json = scan_only = TRUE;
+      break;
+    case OPT_TIMEOUT:
+      if (!parse_uint(optarg, 1, 86400, &opt->timeout_s))
+        return usage_error("--timeout wants whole seconds from 1 to 86400, not '%s'", optarg);
+      break;
+    case OPT_LIE_BAND:
+      scan_only = TRUE;
+      if (!parse_band(optarg, &opt->thresholds))
+        return usage_error("--lie-band wants LOW:HIGH with 0 < LOW <= 1 <= HIGH, not '%s'",
+                           optarg);
+      break;
+    case OPT_GDI_LIMIT: {
+      double v;
+      scan_only = TRUE;
+      if (!parse_double(optarg, &v) || v <= 0)
+        return usage_error("--gdi-limit wants a positive percentage, not '%s'", optarg);
+      opt->thresholds.gdi_material = v;
+      break;
+    }
+    case OPT_PAGE:
+      page_given = TRUE;
+      if (!parse_uint(optarg, 1, G_MAXINT, &opt->page))
+        return usage_error("--page wants a page number from 1, not '%s'", optarg);
+      break;
+    case ':':
+      return usage_error("option '%s' needs a value", argv[optind - 1]);
+    default:
+      return usage_error("unknown option '%s'", argv[optind - 1]);
+    }
+  }
+  if (cmd == CMD_SCAN && page_given)
+    return usage_error("%s", "--page is for 'scene' and 'charts', not 'scan'");
+  if (cmd != CMD_SCAN && cmd != CMD_NONE && scan_only)
+    return usage_error("%s", "--output, --quiet, --json, --lie-band and --gdi-limit are for 'scan'");
+  if (opt->quiet && opt->json)
+    return usage_error("%s", "--quiet and --json exclude each other");
+  return -1;
+}
+
+static command command_from(const char *word) {
+  if (strcmp(word, "scan") == 0)
+    return CMD_SCAN;
+  if (strcmp(word, "scene") == 0)
+    return CMD_SCENE;
+  if (strcmp(word, "charts") == 0)
+    return CMD_CHARTS;
+  return CMD_NONE;
+}
+
+static int run(int argc, char **argv, pp_cli_options *opt) {
+  if (argc < 2)
+    return usage_error("%s", "missing command (scan, scene or charts)");
+  command cmd = command_from(argv[1]);
+  if (cmd == CMD_NONE && argv[1][0] != '-')
+    return usage_error("unknown command '%s' (scan, scene or charts)", argv[1]);
+  /* Parse the words after the command (or all of them for a bare --help). */
+  int skip = cmd == CMD_NONE ? 0 : 1;
+  int rc = parse_options(argc - skip, argv + skip, cmd, opt);
+  if (rc >= 0)
+    return rc;
+  int n_args = argc - skip - optind;
+  char **args = argv + skip + optind;
+  switch (cmd) {
+  case CMD_NONE:
+    return usage_error("%s", "missing command (scan, scene or charts)");
+  case CMD_SCAN:
+    if (n_args < 1)
+      return usage_error("%s", "scan needs at least one PATH");
+    return pp_cli_scan(args, n_args, opt);
+  case CMD_SCENE:
+  case CMD_CHARTS:
+    if (n_args != 1)
+      return usage_error("%s needs exactly one FILE", argv[1]);
+    return pp_cli_inspect(args[0], cmd == CMD_CHARTS, opt);
+  }
+  return PP_EXIT_USAGE;
+}
+
+int main(int argc, char **argv) {
+  /* A closed stdout pipe (plotproof ... | head) must end in an error, not a signal. */
+  signal(SIGPIPE, SIG_IGN);
+  pp_cli_options opt = {0};
+  opt.output_dir = g_strdup(".");
+  opt.timeout_s = DEFAULT_TIMEOUT_S;
+  opt.page = 1;
+  opt.thresholds = pp_thresholds_default();
+  int rc = run(argc, argv, &opt);
+  g_free(opt.output_dir);
+  g_free(opt.password);
+  return rc;
+}

@@ -1,0 +1,76 @@
+/* json_util.c — the few JsonBuilder helpers every report writer needs, so the rule
+ * "non-finite numbers are null" is enforced in exactly one place. */
+#include <math.h>
+
+#include "json_util.h"
+
+void pp_json_add_number(JsonBuilder *b, double v) {
+  if (!isfinite(v))
+    json_builder_add_null_value(b);
+  else if (v == floor(v) && fabs(v) < 9.0e15)
+    json_builder_add_int_value(b, (gint64)v); /* "3" reads better than "3.0" */
+  else
+    json_builder_add_double_value(b, v);
+}
+
+void pp_json_member_number(JsonBuilder *b, const char *name, double v) {
+  json_builder_set_member_name(b, name);
+  pp_json_add_number(b, v);
+}
+
+void pp_json_member_string(JsonBuilder *b, const char *name, const char *s) {
+  json_builder_set_member_name(b, name);
+  if (!s) {
+    json_builder_add_null_value(b);
+  } else if (g_utf8_validate(s, -1, NULL)) {
+    json_builder_add_string_value(b, s);
+  } else {
+    /* Text from a PDF is not guaranteed UTF-8; JSON strings must be. */
+    char *valid = g_utf8_make_valid(s, -1);
+    json_builder_add_string_value(b, valid);
+    g_free(valid);
+  }
+}
+
+void pp_json_member_int(JsonBuilder *b, const char *name, gint64 v) {
+  json_builder_set_member_name(b, name);
+  json_builder_add_int_value(b, v);
+}
+
+void pp_json_member_bool(JsonBuilder *b, const char *name, gboolean v) {
+  json_builder_set_member_name(b, name);
+  json_builder_add_boolean_value(b, v);
+}
+
+static gboolean rect_usable(pp_rect r) {
+  return !pp_rect_is_empty(r) && isfinite(r.x0) && isfinite(r.y0) && isfinite(r.x1) &&
+         isfinite(r.y1);
+}
+
+void pp_json_member_rect(JsonBuilder *b, const char *name, pp_rect r) {
+  json_builder_set_member_name(b, name);
+  if (!rect_usable(r)) {
+    json_builder_add_null_value(b);
+    return;
+  }
+  json_builder_begin_array(b);
+  pp_json_add_number(b, r.x0);
+  pp_json_add_number(b, r.y0);
+  pp_json_add_number(b, r.x1);
+  pp_json_add_number(b, r.y1);
+  json_builder_end_array(b);
+}
+
+pp_rect pp_json_rect_map(pp_rect r, pp_matrix m) {
+  if (!rect_usable(r))
+    return pp_rect_empty();
+  pp_point corners[4] = {{r.x0, r.y0}, {r.x1, r.y0}, {r.x1, r.y1}, {r.x0, r.y1}};
+  pp_rect out = pp_rect_empty();
+  for (int i = 0; i < 4; i++)
+    out = pp_rect_add_point(out, pp_matrix_apply(m, corners[i]));
+  return out;
+}
+
+void pp_json_member_mapped_rect(JsonBuilder *b, const char *name, pp_rect r, pp_matrix m) {
+  pp_json_member_rect(b, name, pp_json_rect_map(r, m));
+}
