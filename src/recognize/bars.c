@@ -32,7 +32,7 @@ static void across_limits(const pp_axis_candidate *axis, GPtrArray *all_axes, in
   *hi = side > 0 ? INFINITY : edge + 1;
   for (guint i = 0; i < all_axes->len; i++) {
     const pp_axis_candidate *o = g_ptr_array_index(all_axes, i);
-    if (o == axis || o->axis->vertical != vertical)
+    if (o == axis || o->fit_failed || o->axis->vertical != vertical)
       continue;
     /* only axes whose span overlaps ours along u */
     if (o->span1 < axis->span0 - 20 || o->span0 > axis->span1 + 20)

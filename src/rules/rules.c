@@ -90,6 +90,10 @@ static char *comparison(const pp_finding *f, const char *noun, const pp_threshol
   if (a >= f->values->len || b >= f->values->len || g[a] <= 0 || v[a] == 0)
     return g_strdup("");
   char b1[32], b2[32];
+  if (strcmp(noun, "point") == 0 && a == m->first && b == m->last)
+    return g_strdup_printf("at its right end the area uses %.2f× the ink of its left end for "
+                           "%.2f× the value",
+                           g[b] / g[a], v[b] / v[a]);
   return g_strdup_printf("the %s %s uses %.2f× the ink of %s for %.2f× the value",
                          name_of(f, b, b1, sizeof b1), noun, g[b] / g[a],
                          name_of(f, a, b2, sizeof b2), v[b] / v[a]);
