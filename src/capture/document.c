@@ -189,9 +189,10 @@ pp_scene *pp_document_capture_page(pp_document *doc, guint index, GError **error
   cairo_destroy(cr);
   cairo_surface_destroy(target);
 
-  pp_text_capture(page, scene);
+  /* Text extraction parses the page again: its warnings would repeat the render's. */
   g_log_remove_handler("Poppler", handler);
   current_warnings = NULL;
+  pp_text_capture(page, scene);
   g_object_unref(page);
 
   if (status != CAIRO_STATUS_SUCCESS)

@@ -74,6 +74,11 @@ static pp_path *copy_device_path(cairo_t *cr) {
       cairo_path_data_t *d = &cp->data[i];
       switch (d->header.type) {
       case CAIRO_PATH_MOVE_TO:
+        /* cairo adds a move-to after every close-path; it draws nothing. */
+        if (path->n_segs > 0 && path->segs[path->n_segs - 1].kind == PP_SEG_CLOSE &&
+            (i + d->header.length >= cp->num_data ||
+             cp->data[i + d->header.length].header.type == CAIRO_PATH_MOVE_TO))
+          break;
         pp_path_move_to(path, d[1].point.x * k, d[1].point.y * k);
         break;
       case CAIRO_PATH_LINE_TO:
