@@ -8,7 +8,7 @@ typedef struct {
   const char *path;
   const char *output_file; /* NULL: do not write a findings file */
   const pp_cli_options *opt;
-  gboolean charts;         /* inspect: recognised charts instead of the scene */
+  gboolean charts; /* inspect: recognised charts instead of the scene */
 } pp_analyse_job;
 
 /* Payload: the compact findings object, or {"error": {"code", "word", "message"}}. */

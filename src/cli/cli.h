@@ -10,7 +10,7 @@ typedef struct {
   char *password;        /* NULL when not given */
   gboolean quiet, json;
   guint timeout_s;
-  guint page;            /* 1-based; scene and charts only */
+  guint page; /* 1-based; scene and charts only */
   pp_thresholds thresholds;
 } pp_cli_options;
 

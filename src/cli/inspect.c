@@ -22,7 +22,7 @@ int pp_cli_inspect(const char *path, gboolean charts, const pp_cli_options *opt)
     g_free(msg);
   } else if (res.outcome == PP_WORKER_TIMED_OUT) {
     char *msg = g_strdup_printf("timed out after %u s", opt->timeout_s);
-    pp_cli_print_file_error(path, "damaged", msg);
+    pp_cli_print_file_error(path, "timed out", msg);
     g_free(msg);
   } else if (res.outcome != PP_WORKER_DONE) {
     pp_cli_print_file_error(path, "damaged", "the capture ended without a result");
@@ -38,7 +38,8 @@ int pp_cli_inspect(const char *path, gboolean charts, const pp_cli_options *opt)
     if (!root) {
       pp_cli_print_file_error(path, "damaged", "the capture returned an unreadable result");
     } else if (err) {
-      pp_cli_print_file_error(path, json_object_get_string_member_with_default(err, "word", "error"),
+      pp_cli_print_file_error(path,
+                              json_object_get_string_member_with_default(err, "word", "error"),
                               json_object_get_string_member_with_default(err, "message", ""));
     } else {
       fwrite(res.payload->str, 1, res.payload->len, stdout);

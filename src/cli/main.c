@@ -125,12 +125,8 @@ static int parse_options(int argc, char **argv, command cmd, pp_cli_options *opt
   int c;
   while ((c = getopt_long(argc, argv, ":hVo:p:q", long_options, NULL)) != -1) {
     switch (c) {
-    case 'h':
-      print_help(stdout);
-      return PP_EXIT_CLEAN;
-    case 'V':
-      printf("plotproof %s\n", PP_VERSION);
-      return PP_EXIT_CLEAN;
+    case 'h': print_help(stdout); return PP_EXIT_CLEAN;
+    case 'V': printf("plotproof %s\n", PP_VERSION); return PP_EXIT_CLEAN;
     case 'o':
       g_free(opt->output_dir);
       opt->output_dir = g_strdup(optarg);
@@ -140,12 +136,8 @@ static int parse_options(int argc, char **argv, command cmd, pp_cli_options *opt
       g_free(opt->password);
       opt->password = g_strdup(optarg);
       break;
-    case 'q':
-      opt->quiet = scan_only = TRUE;
-      break;
-    case OPT_JSON:
-      opt->json = scan_only = TRUE;
-      break;
+    case 'q': opt->quiet = scan_only = TRUE; break;
+    case OPT_JSON: opt->json = scan_only = TRUE; break;
     case OPT_TIMEOUT:
       if (!parse_uint(optarg, 1, 86400, &opt->timeout_s))
         return usage_error("--timeout wants whole seconds from 1 to 86400, not '%s'", optarg);
@@ -153,8 +145,7 @@ static int parse_options(int argc, char **argv, command cmd, pp_cli_options *opt
     case OPT_LIE_BAND:
       scan_only = TRUE;
       if (!parse_band(optarg, &opt->thresholds))
-        return usage_error("--lie-band wants LOW:HIGH with 0 < LOW <= 1 <= HIGH, not '%s'",
-                           optarg);
+        return usage_error("--lie-band wants LOW:HIGH with 0 < LOW <= 1 <= HIGH, not '%s'", optarg);
       break;
     case OPT_GDI_LIMIT: {
       double v;
@@ -169,16 +160,15 @@ static int parse_options(int argc, char **argv, command cmd, pp_cli_options *opt
       if (!parse_uint(optarg, 1, G_MAXINT, &opt->page))
         return usage_error("--page wants a page number from 1, not '%s'", optarg);
       break;
-    case ':':
-      return usage_error("option '%s' needs a value", argv[optind - 1]);
-    default:
-      return usage_error("unknown option '%s'", argv[optind - 1]);
+    case ':': return usage_error("option '%s' needs a value", argv[optind - 1]);
+    default: return usage_error("unknown option '%s'", argv[optind - 1]);
     }
   }
   if (cmd == CMD_SCAN && page_given)
     return usage_error("%s", "--page is for 'scene' and 'charts', not 'scan'");
   if (cmd != CMD_SCAN && cmd != CMD_NONE && scan_only)
-    return usage_error("%s", "--output, --quiet, --json, --lie-band and --gdi-limit are for 'scan'");
+    return usage_error("%s",
+                       "--output, --quiet, --json, --lie-band and --gdi-limit are for 'scan'");
   if (opt->quiet && opt->json)
     return usage_error("%s", "--quiet and --json exclude each other");
   return -1;
@@ -208,8 +198,7 @@ static int run(int argc, char **argv, pp_cli_options *opt) {
   int n_args = argc - skip - optind;
   char **args = argv + skip + optind;
   switch (cmd) {
-  case CMD_NONE:
-    return usage_error("%s", "missing command (scan, scene or charts)");
+  case CMD_NONE: return usage_error("%s", "missing command (scan, scene or charts)");
   case CMD_SCAN:
     if (n_args < 1)
       return usage_error("%s", "scan needs at least one PATH");

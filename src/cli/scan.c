@@ -19,18 +19,14 @@ static gboolean report_worker_failure(const char *path, const pp_worker_result *
     break;
   case PP_WORKER_TIMED_OUT:
     msg = g_strdup_printf("timed out after %u s", timeout_s);
-    pp_cli_print_file_error(path, "damaged", msg);
+    pp_cli_print_file_error(path, "timed out", msg);
     break;
   case PP_WORKER_EXITED:
-    msg = g_strdup_printf("the capture ended without a result (exit status %d)",
-                          res->exit_status);
+    msg = g_strdup_printf("the capture ended without a result (exit status %d)", res->exit_status);
     pp_cli_print_file_error(path, "damaged", msg);
     break;
-  case PP_WORKER_NO_FORK:
-    pp_cli_print_file_error(path, "not scanned", res->payload->str);
-    break;
-  case PP_WORKER_DONE:
-    return TRUE;
+  case PP_WORKER_NO_FORK: pp_cli_print_file_error(path, "not scanned", res->payload->str); break;
+  case PP_WORKER_DONE: return TRUE;
   }
   g_free(msg);
   return FALSE;
@@ -61,8 +57,7 @@ static gboolean make_output_dir(const pp_cli_options *opt) {
   if (g_mkdir_with_parents(opt->output_dir, 0755) == 0 &&
       g_file_test(opt->output_dir, G_FILE_TEST_IS_DIR))
     return TRUE;
-  pp_cli_print_file_error(opt->output_dir, "unwritable",
-                          "cannot create the output directory");
+  pp_cli_print_file_error(opt->output_dir, "unwritable", "cannot create the output directory");
   return FALSE;
 }
 

@@ -8,11 +8,11 @@
 typedef char *(*pp_worker_func)(gpointer data);
 
 typedef enum {
-  PP_WORKER_DONE,       /* payload holds what the child sent */
-  PP_WORKER_SIGNALLED,  /* signal holds the signal number */
+  PP_WORKER_DONE,      /* payload holds what the child sent */
+  PP_WORKER_SIGNALLED, /* signal holds the signal number */
   PP_WORKER_TIMED_OUT,
-  PP_WORKER_EXITED,     /* ended without a payload; exit_status holds its status */
-  PP_WORKER_NO_FORK,    /* fork or pipe failed; message in payload */
+  PP_WORKER_EXITED,  /* ended without a payload; exit_status holds its status */
+  PP_WORKER_NO_FORK, /* fork or pipe failed; message in payload */
 } pp_worker_outcome;
 
 typedef struct {

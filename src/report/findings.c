@@ -44,9 +44,15 @@ void pp_report_free(pp_report *r) {
   g_free(r);
 }
 
-guint pp_report_n_pages_added(const pp_report *r) { return json_array_get_length(r->pages); }
-guint pp_report_n_pages_failed(const pp_report *r) { return r->n_pages_failed; }
-guint pp_report_n_findings(const pp_report *r) { return json_array_get_length(r->findings); }
+guint pp_report_n_pages_added(const pp_report *r) {
+  return json_array_get_length(r->pages);
+}
+guint pp_report_n_pages_failed(const pp_report *r) {
+  return r->n_pages_failed;
+}
+guint pp_report_n_findings(const pp_report *r) {
+  return json_array_get_length(r->findings);
+}
 
 static void add_mark_counts(JsonBuilder *b, const pp_scene *scene) {
   guint n[PP_MARK_GLYPHS + 1] = {0};
@@ -174,9 +180,8 @@ static void add_elements(JsonBuilder *b, const pp_finding *f) {
   guint n = f->values ? f->values->len : 0;
   for (guint i = 0; i < n; i++) {
     json_builder_begin_object(b);
-    const char *cat = f->categories && i < f->categories->len
-                          ? g_ptr_array_index(f->categories, i)
-                          : NULL;
+    const char *cat =
+        f->categories && i < f->categories->len ? g_ptr_array_index(f->categories, i) : NULL;
     pp_json_member_string(b, "category", cat);
     pp_json_member_number(b, "value", g_array_index(f->values, double, i));
     double ink = f->inks && i < f->inks->len ? g_array_index(f->inks, double, i) : NAN;
@@ -261,8 +266,10 @@ static void add_header(JsonBuilder *b, const pp_report *r) {
   pp_json_member_string(b, "disclaimer", PP_REPORT_DISCLAIMER);
   json_builder_set_member_name(b, "coordinates");
   json_builder_begin_object(b);
-  pp_json_member_string(b, "rect", "[x0, y0, x1, y1] with x0 <= x1 and y0 <= y1, in points (1/72 in)");
-  pp_json_member_string(b, "bbox", "page points, origin at the top-left of the displayed page, y down");
+  pp_json_member_string(b, "rect",
+                        "[x0, y0, x1, y1] with x0 <= x1 and y0 <= y1, in points (1/72 in)");
+  pp_json_member_string(b, "bbox",
+                        "page points, origin at the top-left of the displayed page, y down");
   pp_json_member_string(b, "pdf_bbox", "PDF default user space, origin at the bottom-left, y up");
   json_builder_end_object(b);
   json_builder_set_member_name(b, "thresholds");

@@ -12,7 +12,7 @@ G_BEGIN_DECLS
 #define PP_REPORT_FORMAT "plotproof-findings"
 #define PP_REPORT_VERSION 1
 #define PP_REPORT_DISCLAIMER                                                                       \
-  "These verdicts are an aid to a reviewer, not an audit opinion; the applicable reporting "      \
+  "These verdicts are an aid to a reviewer, not an audit opinion; the applicable reporting "       \
   "standards and regulator rules prevail."
 #define PP_REPORT_LIE_FACTOR_DEFINITION                                                            \
   "growth-factor: (ink_last/ink_first)/(value_last/value_first)"

@@ -1,0 +1,209 @@
+"""End-to-end tests of the real plotproof binary on PDFs made at test time by cairo
+(make_pdf), qpdf-encrypted copies, truncations, empty and random files, directories.
+
+usage: run_e2e.py PLOTPROOF MAKE_PDF FAULT_SO SCHEMA VERSION
+
+External references for the expected values are named beside each check. Every run is
+also checked never to end by a signal (returncode >= 0 and < 128)."""
+import hashlib
+import json
+import os
+import random
+import shutil
+import subprocess
+import sys
+import tempfile
+
+import jsonschema
+
+# meson passes build-relative paths; the test changes directory, so make them absolute.
+PLOTPROOF, MAKE_PDF, FAULT_SO, SCHEMA = map(os.path.abspath, sys.argv[1:5])
+VERSION = sys.argv[5]
+failures = []
+
+
+def check(cond, what):
+    if not cond:
+        failures.append(what)
+        print("FAIL:", what)
+
+
+def run(*args, env=None, timeout=120):
+    p = subprocess.run([PLOTPROOF, *args], capture_output=True, timeout=timeout,
+                       env={**os.environ, **(env or {})})
+    # subprocess gives -N for a death by signal N; a shell would show 128+N.
+    check(0 <= p.returncode < 128, f"{args}: died by a signal / rc {p.returncode}")
+    return p.returncode, p.stdout.decode(), p.stderr.decode()
+
+
+def one_error_line(err, name, word, what):
+    lines = [l for l in err.splitlines() if l.strip()]
+    check(len(lines) == 1, f"{what}: expected one stderr line, got {lines!r}")
+    if lines:
+        check(lines[0].startswith(f"plotproof: {name}: "), f"{what}: line does not name {name}: {lines[0]!r}")
+        check(word in lines[0], f"{what}: {word!r} not in {lines[0]!r}")
+
+
+with open(SCHEMA, encoding="utf-8") as f:
+    validator = jsonschema.Draft202012Validator(json.load(f))
+
+
+def valid_findings(path_or_text, what, is_text=False):
+    text = path_or_text if is_text else open(path_or_text, encoding="utf-8").read()
+    doc = json.loads(text)
+    errs = list(validator.iter_errors(doc))  # JSON Schema 2020-12 via python3-jsonschema
+    check(not errs, f"{what}: schema errors {[e.message for e in errs[:3]]}")
+    return doc
+
+
+tmp = tempfile.mkdtemp(prefix="pp-e2e-")
+os.chdir(tmp)
+good = os.path.join(tmp, "good.pdf")
+drawn = json.loads(subprocess.run([MAKE_PDF, good], check=True, capture_output=True).stdout)
+data = open(good, "rb").read()
+
+# --help and --version
+rc, out, _ = run("--help")
+check(rc == 0, "--help exits 0")
+for code in ("0  clean", "1  findings", "2  usage", "3  some documents"):
+    check(code in out, f"--help documents exit code '{code}'")
+rc, out, _ = run("--version")
+check(rc == 0 and out.strip() == f"plotproof {VERSION}", f"--version prints {VERSION}: {out!r}")
+rc, _, err = run("scan")
+check(rc == 2 and "PATH" in err, "scan without PATH is a usage error (2)")
+rc, _, err = run("scan", "--lie-band", "1.2:0.9", good)
+check(rc == 2, "an inverted --lie-band is a usage error (2)")
+rc, _, err = run("frobnicate")
+check(rc == 2, "an unknown command is a usage error (2)")
+
+# A clean cairo PDF: file identity checked against Python's own reading of the file.
+rc, out, err = run("scan", "-o", "out1", good)
+check(rc in (0, 1), f"good PDF scans (rc {rc}, stderr {err!r})")
+check(err == "", f"good PDF: stderr is empty: {err!r}")
+doc = valid_findings("out1/good.findings.json", "good findings file")
+d = doc["document"]
+check(d["sha256"] == hashlib.sha256(data).hexdigest(), "sha256 equals hashlib's (FIPS 180-4)")
+check(d["size"] == len(data), "size equals the file size")
+check(d["pages"] == drawn["pages"] == len(doc["pages"]), "page count equals the pages cairo drew")
+# ISO 32000-1 §7.5.2: the header line is %PDF-x.y; poppler reports the same version.
+header_version = data[5:8].decode()
+check(header_version in (d["pdf_version"] or ""), f"pdf_version {d['pdf_version']} vs header {header_version}")
+check("cairo" in (d["producer"] or "").lower(), "producer names cairo (cairo sets /Producer)")
+check(doc["pages"][0]["width"] == 400 and doc["pages"][0]["height"] == 300, "page size as created (400x300 pt)")
+check(doc["pages"][0]["marks"]["fill"] >= 3, "at least the 3 filled columns are counted")
+check("good.pdf" in out and "Total:" in out, "summary names the document and has a total line")
+check("not an audit opinion" in out.splitlines()[-1], "summary ends with the disclaimer")
+check((rc == 1) == (doc["totals"]["findings"] > 0), "exit code 1 iff findings")
+
+# scene: the filled rectangles cairo drew come back with the same corners (page points,
+# top-left origin, y down; cairo's PDF surface uses that user space too).
+rc, out, err = run("scene", good, "--page", "1")
+check(rc == 0, f"scene page 1 (rc {rc}, {err!r})")
+scene = json.loads(out)
+fills = []
+for m in scene["marks"]:
+    if m["kind"] == "fill":
+        pts = [p for seg in m["path"] for p in seg["points"]]
+        xs, ys = [p[0] for p in pts], [p[1] for p in pts]
+        fills.append([min(xs), min(ys), max(xs), max(ys)])
+for r in drawn["rects"]:
+    check(any(all(abs(a - b) < 0.01 for a, b in zip(r, f)) for f in fills), f"scene has the fill {r}")
+words = [w["text"] for w in scene["words"]]
+for w in drawn["words"]:
+    check(w in words, f"scene has the word {w!r}")
+rc, out, err = run("scene", good, "--page", "3")
+check(rc == 2 and out == "", "scene of a page that does not exist fails with 2")
+one_error_line(err, good, "page", "scene --page 3")
+rc, out, err = run("charts", good, "--page", "2")
+check(rc == 0 and "figures" in json.loads(out), "charts prints JSON with a figures list")
+
+# --json: one JSON object per line (JSON Lines), no files unless --output.
+os.makedirs("copy", exist_ok=True)
+shutil.copy(good, "copy/good.pdf")
+rc, out, err = run("scan", "--json", good, "copy/good.pdf")
+lines = out.splitlines()
+check(len(lines) == 2, f"--json with 2 documents prints 2 lines, got {len(lines)}")
+for i, line in enumerate(lines):
+    valid_findings(line, f"--json line {i}", is_text=True)
+check(not os.path.exists("good.findings.json"), "--json without --output writes no file")
+
+# Same-named files from different directories do not overwrite each other.
+rc, out, err = run("scan", "-q", "-o", "out2", good, "copy/good.pdf")
+check(out == "", "--quiet prints nothing on stdout")
+names = sorted(os.listdir("out2"))
+check(len(names) == 2 and all(n.startswith("good-") and n.endswith(".findings.json") for n in names),
+      f"two distinct findings files: {names}")
+
+# Broken inputs: each is one stderr line naming the file, exit 2 on its own.
+open("empty.pdf", "wb").close()
+rc, _, err = run("scan", "-o", "out3", "empty.pdf")
+check(rc == 2, "empty file: exit 2")
+one_error_line(err, "empty.pdf", "empty", "empty file")
+
+rng = random.Random(20240611)  # fixed seed
+with open("random.pdf", "wb") as f:
+    f.write(bytes(rng.randrange(256) for _ in range(4096)))
+rc, _, err = run("scan", "-o", "out3", "random.pdf")
+check(rc == 2, "random bytes: exit 2")
+one_error_line(err, "random.pdf", "not a PDF", "random bytes")
+
+for pct in (10, 50, 90):
+    name = f"trunc{pct}.pdf"
+    with open(name, "wb") as f:
+        f.write(data[: len(data) * pct // 100])
+    rc, _, err = run("scan", "-o", "out3", name)
+    # poppler may rebuild a truncated file's xref, so a scan can succeed (0/1) or the
+    # file is reported damaged (2); both are documented, a crash or silence is not.
+    check(rc in (0, 1, 2), f"{name}: rc {rc}")
+    if rc == 2:
+        one_error_line(err, name, "damaged", name)
+    else:
+        valid_findings(f"out3/trunc{pct}.findings.json", name)
+
+# qpdf: AES-256 encryption with user password "user" (qpdf manual, --encrypt).
+subprocess.run(["qpdf", "--encrypt", "user", "owner", "256", "--", good, "enc.pdf"], check=True)
+rc, _, err = run("scan", "-o", "out3", "enc.pdf")
+check(rc == 2, "encrypted, no password: exit 2")
+one_error_line(err, "enc.pdf", "encrypted", "encrypted without password")
+rc, _, err = run("scan", "-o", "out3", "--password", "wrong", "enc.pdf")
+check(rc == 2, "encrypted, wrong password: exit 2")
+one_error_line(err, "enc.pdf", "wrong", "encrypted with a wrong password")
+rc, _, err = run("scan", "-q", "-o", "out3", "--password", "user", "enc.pdf")
+check(rc in (0, 1) and err == "", f"encrypted with the right password scans (rc {rc}, {err!r})")
+
+os.makedirs("nopdfs/sub", exist_ok=True)
+open("nopdfs/sub/readme.txt", "w").write("no PDFs here\n")
+rc, _, err = run("scan", "-o", "out3", "nopdfs")
+check(rc == 2, "directory without PDFs: exit 2")
+one_error_line(err, "nopdfs", "no PDF", "directory without PDFs")
+
+rc, _, err = run("scan", "-o", "out3", "does-not-exist.pdf")
+check(rc == 2, "nonexistent path: exit 2")
+one_error_line(err, "does-not-exist.pdf", "unreadable", "nonexistent path")
+
+# A batch with good and bad documents: exit 3, the good one still scanned.
+rc, out, err = run("scan", "-o", "out4", good, "empty.pdf")
+check(rc == 3, f"mixed batch: exit 3 (got {rc})")
+check(os.path.exists("out4/good.findings.json"), "mixed batch: the good document was scanned")
+
+# Recursion with a symlink loop and upper-case extension: terminates, each PDF once.
+os.makedirs("tree/a/b", exist_ok=True)
+shutil.copy(good, "tree/a/b/DEEP.PDF")
+os.symlink("..", "tree/a/b/loop")
+rc, out, err = run("scan", "-o", "out5", "tree", timeout=60)
+check(rc in (0, 1), f"tree with a symlink loop scans (rc {rc}, {err!r})")
+check(sorted(os.listdir("out5")) == ["DEEP.findings.json"], f"tree: {os.listdir('out5')}")
+
+# Worker isolation: poppler made to abort() or hang via LD_PRELOAD (fault.c).
+env = {"LD_PRELOAD": FAULT_SO, "PP_TEST_FAULT": "abort"}
+rc, _, err = run("scan", "-o", "out6", good, env=env)
+check(rc == 2, f"aborting capture: exit 2 (got {rc})")
+one_error_line(err, good, "crashed (signal 6)", "aborting capture")  # SIGABRT is 6 on Linux
+env["PP_TEST_FAULT"] = "hang"
+rc, _, err = run("scan", "-o", "out6", "--timeout", "1", good, env=env, timeout=30)
+check(rc == 2, f"hanging capture: exit 2 (got {rc})")
+one_error_line(err, good, "timed out after 1 s", "hanging capture")
+
+shutil.rmtree(tmp, ignore_errors=True)
+print(f"{len(failures)} failure(s)")
+sys.exit(1 if failures else 0)

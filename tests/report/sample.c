@@ -1,0 +1,188 @@
+/* sample.c — builds the sample page by hand, without capture or recognition, so the
+ * report writer is tested alone. Scenario: the invented "Quillmere Textiles" revenue. */
+#include <math.h>
+
+#include "sample.h"
+
+static void mark_free(gpointer p) {
+  pp_mark *m = p;
+  pp_path_free(m->path);
+  pp_clip_unref(m->clip);
+  g_free(m);
+}
+
+static void word_free(gpointer p) {
+  pp_text_run *w = p;
+  g_free(w->text);
+  g_free(w->font_name);
+  g_free(w);
+}
+
+static pp_scene *sample_scene(void) {
+  pp_scene *s = g_new0(pp_scene, 1);
+  s->page_index = 0;
+  s->width = 400;
+  s->height = 300;
+  s->crop_box = (pp_rect){0, 0, 400, 300};
+  /* Page points (y down) to PDF user space (y up from the bottom-left, ISO 32000-1 §8.3.2.3). */
+  s->to_pdf = (pp_matrix){1, 0, 0, -1, 0, 300};
+  s->marks = g_ptr_array_new_with_free_func(mark_free);
+  s->words = g_ptr_array_new_with_free_func(word_free);
+  s->lines = g_ptr_array_new_with_free_func(g_free);
+  s->warnings = g_ptr_array_new_with_free_func(g_free);
+  pp_path *clip_path = pp_path_new();
+  pp_path_rectangle(clip_path, 50, 50, 300, 200);
+  pp_clip *clip = pp_clip_new(NULL, clip_path, PP_FILL_NONZERO);
+  pp_path *inner = pp_path_new();
+  pp_path_rectangle(inner, 60, 60, 280, 180);
+  pp_clip *clip2 = pp_clip_new(clip, inner, PP_FILL_EVEN_ODD);
+  pp_clip_unref(clip);
+  for (int i = 0; i < 3; i++) {
+    pp_mark *m = g_new0(pp_mark, 1);
+    m->kind = i < 2 ? PP_MARK_FILL : PP_MARK_STROKE;
+    m->index = (guint)i;
+    m->path = pp_path_new();
+    pp_path_rectangle(m->path, 80 + 90 * i, 100, 50, 150);
+    m->paint = (pp_paint){PP_PAINT_SOLID, 0.2, 0.4, 0.7, 1};
+    m->clip = i == 0 ? pp_clip_ref(clip2) : NULL;
+    m->ink = i == 1 ? 7500 : NAN; /* mark 0: geometry not run */
+    m->bbox = m->visible_bbox = i == 1 ? (pp_rect){170, 100, 220, 250} : pp_rect_empty();
+    m->line_width = i == 2 ? 1.5 : 0;
+    g_ptr_array_add(s->marks, m);
+  }
+  pp_clip_unref(clip2);
+  pp_text_run *w = g_new0(pp_text_run, 1);
+  w->text = g_strdup("Revenue");
+  w->box = (pp_rect){60, 20, 112, 32};
+  w->font_size = 12;
+  w->font_name = g_strdup("DejaVuSans");
+  g_ptr_array_add(s->words, w);
+  g_ptr_array_add(s->warnings, g_strdup("Syntax Error: \xff invented warning"));
+  s->n_images = 1;
+  return s;
+}
+
+static pp_page_charts *sample_charts(void) {
+  pp_page_charts *c = g_new0(pp_page_charts, 1);
+  c->figures = g_ptr_array_new();
+  c->scale_failures = g_ptr_array_new();
+  c->raster_images = g_array_new(FALSE, FALSE, sizeof(pp_rect));
+  pp_figure *f = g_new0(pp_figure, 1);
+  f->kind = PP_FIGURE_COLUMN;
+  f->bbox = (pp_rect){10, 20, 110, 120};
+  f->axis = g_new0(pp_axis, 1);
+  f->axis->vertical = TRUE;
+  f->axis->min_value = 35;
+  f->axis->max_value = 75;
+  f->axis->ticks = g_array_new(FALSE, TRUE, sizeof(pp_tick));
+  for (int v = 40; v <= 70; v += 10) {
+    pp_tick t = {250.0 - v, v, g_strdup_printf("%d", v)};
+    g_array_append_val(f->axis->ticks, t);
+  }
+  f->elements = g_array_new(FALSE, TRUE, sizeof(pp_element));
+  for (int i = 0; i < 3; i++) {
+    pp_element e = {0};
+    e.kind = PP_ELEMENT_BAR;
+    e.mark_index = (guint)i;
+    e.tip_value = 40 + 15 * i;
+    e.label_value = NAN;
+    g_array_append_val(f->elements, e);
+  }
+  f->n_series = 1;
+  f->fingerprint = g_strdup("fig-0123abcd");
+  f->title = g_strdup("Revenue, invented EUR m");
+  g_ptr_array_add(c->figures, f);
+  pp_scale_failure *sf = g_new0(pp_scale_failure, 1);
+  sf->bbox = (pp_rect){200, 20, 390, 120};
+  sf->reason = g_strdup("tick labels are not numbers");
+  g_ptr_array_add(c->scale_failures, sf);
+  pp_rect raster = {10, 150, 110, 290};
+  g_array_append_val(c->raster_images, raster);
+  return c;
+}
+
+static pp_finding *sample_finding(double lie_factor, double gdi) {
+  pp_finding *f = g_new0(pp_finding, 1);
+  f->id = g_strdup("fig-0123abcd/bars-off-zero");
+  f->page = 1;
+  f->bbox = (pp_rect){10, 20, 110, 120};
+  f->pdf_bbox = (pp_rect){10, 180, 110, 280};
+  f->figure_kind = PP_FIGURE_COLUMN;
+  f->rule = "bars-off-zero";
+  f->severity = PP_SEVERITY_GROSS;
+  f->measures = (pp_measures){lie_factor, 2.0, gdi, 35, 3.5, 0, 2, 0, 2};
+  f->values = g_array_new(FALSE, FALSE, sizeof(double));
+  f->inks = g_array_new(FALSE, FALSE, sizeof(double));
+  f->categories = g_ptr_array_new_with_free_func(g_free);
+  const double values[] = {40, 55, 70}, inks[] = {1250, 5000, 8750};
+  const char *cats[] = {"2021", NULL,
+                        "20\xff"
+                        "23"}; /* a missing and a non-UTF-8 label */
+  for (int i = 0; i < 3; i++) {
+    g_array_append_val(f->values, values[i]);
+    g_array_append_val(f->inks, inks[i]);
+    g_ptr_array_add(f->categories, g_strdup(cats[i]));
+  }
+  f->message = g_strdup("The columns start at 35, not 0: the last is drawn 7.0 times the first "
+                        "for a 1.75 times larger value.");
+  return f;
+}
+
+pp_sample *pp_sample_new(double lie_factor, double gdi) {
+  pp_sample *s = g_new0(pp_sample, 1);
+  s->scene = sample_scene();
+  s->charts = sample_charts();
+  s->findings = g_ptr_array_new();
+  g_ptr_array_add(s->findings, sample_finding(lie_factor, gdi));
+  s->info = (pp_document_info){"/invented/quillmere-annual-report.pdf",
+                               123456,
+                               "9f86d081884c7d659a2feaa0c55ad015a3bf4f1b2b0b822cd15d6c15b0f00a08",
+                               2,
+                               "1.7",
+                               "cairo 1.16.0",
+                               NULL,
+                               "Quillmere Textiles 2023"};
+  return s;
+}
+
+static void figure_free(pp_figure *f) {
+  for (guint i = 0; i < f->axis->ticks->len; i++)
+    g_free(g_array_index(f->axis->ticks, pp_tick, i).label);
+  g_array_unref(f->axis->ticks);
+  g_free(f->axis);
+  g_array_unref(f->elements);
+  g_free(f->fingerprint);
+  g_free(f->title);
+  g_free(f);
+}
+
+void pp_sample_free(pp_sample *s) {
+  pp_scene_free(s->scene);
+  figure_free(g_ptr_array_index(s->charts->figures, 0));
+  g_ptr_array_unref(s->charts->figures);
+  pp_scale_failure *sf = g_ptr_array_index(s->charts->scale_failures, 0);
+  g_free(sf->reason);
+  g_free(sf);
+  g_ptr_array_unref(s->charts->scale_failures);
+  g_array_unref(s->charts->raster_images);
+  g_free(s->charts);
+  for (guint i = 0; i < s->findings->len; i++) {
+    pp_finding *f = g_ptr_array_index(s->findings, i);
+    g_free(f->id);
+    g_free(f->message);
+    g_array_unref(f->values);
+    g_array_unref(f->inks);
+    g_ptr_array_unref(f->categories);
+    g_free(f);
+  }
+  g_ptr_array_unref(s->findings);
+  g_free(s);
+}
+
+pp_report *pp_sample_report(const pp_sample *s) {
+  pp_thresholds t = pp_thresholds_default();
+  pp_report *r = pp_report_new(&s->info, &t);
+  pp_report_add_page(r, s->scene, s->charts, s->findings);
+  pp_report_add_failed_page(r, 1, "page 2 cannot be loaded");
+  return r;
+}

@@ -1,0 +1,273 @@
+/* test_report.c — the findings writer: valid JSON (parsed back by json-glib), NaN and
+ * infinities as null (RFC 8259 §6 has no literal for them), the schema's required fields
+ * present (read from docs/findings.schema.json, path given as argv[1]), the PDF-space box. */
+#include <math.h>
+#include <setjmp.h>
+#include <stdarg.h>
+#include <stddef.h>
+#include <string.h>
+
+#include <cmocka.h>
+#include <glib/gstdio.h>
+
+#include "sample.h"
+
+static const char *schema_path;
+
+static JsonNode *parse_or_fail(const char *text) {
+  g_autoptr(JsonParser) p = json_parser_new();
+  GError *error = NULL;
+  gboolean ok = json_parser_load_from_data(p, text, -1, &error);
+  if (!ok)
+    fail_msg("not JSON: %s", error->message);
+  return json_node_copy(json_parser_get_root(p));
+}
+
+static JsonObject *first_finding(JsonNode *root) {
+  JsonArray *f = json_object_get_array_member(json_node_get_object(root), "findings");
+  assert_int_equal(json_array_get_length(f), 1);
+  return json_array_get_object_element(f, 0);
+}
+
+static void test_nan_and_inf_are_null(void **state) {
+  (void)state;
+  pp_sample *s = pp_sample_new(NAN, INFINITY);
+  pp_report *r = pp_sample_report(s);
+  char *text = pp_report_to_string(r, TRUE, NULL);
+  /* RFC 8259 §6: numbers are digits only; json-glib would otherwise print "nan.0"/"inf". */
+  GRegex *literal = g_regex_new("[:\\[,]\\s*-?(nan|inf)", G_REGEX_CASELESS, 0, NULL);
+  assert_false(g_regex_match(literal, text, 0, NULL));
+  g_regex_unref(literal);
+  JsonNode *root = parse_or_fail(text);
+  JsonObject *m = json_object_get_object_member(first_finding(root), "measures");
+  assert_true(JSON_NODE_HOLDS_NULL(json_object_get_member(m, "lie_factor")));
+  assert_true(JSON_NODE_HOLDS_NULL(json_object_get_member(m, "gdi")));
+  assert_float_equal(json_object_get_double_member(m, "lie_factor_change"), 2.0, 0);
+  json_node_unref(root);
+  g_free(text);
+  pp_report_free(r);
+  pp_sample_free(s);
+}
+
+static void test_values_round_trip(void **state) {
+  (void)state;
+  pp_sample *s = pp_sample_new(1.0 / 3.0, 250.0);
+  pp_report *r = pp_sample_report(s);
+  char *text = pp_report_to_string(r, FALSE, NULL);
+  assert_null(strchr(text, '\n')); /* compact output is one JSON Lines record */
+  JsonNode *root = parse_or_fail(text);
+  JsonObject *f = first_finding(root);
+  JsonObject *m = json_object_get_object_member(f, "measures");
+  /* Exact: 17 significant digits round-trip an IEEE double (IEEE 754-2008 §5.12.2). */
+  assert_true(json_object_get_double_member(m, "lie_factor") == 1.0 / 3.0);
+  assert_float_equal(json_object_get_double_member(m, "gdi"), 250.0, 0);
+  assert_string_equal(json_object_get_string_member(m, "lie_factor_definition"),
+                      "growth-factor: (ink_last/ink_first)/(value_last/value_first)");
+  JsonArray *el = json_object_get_array_member(f, "elements");
+  assert_int_equal(json_array_get_length(el), 3);
+  JsonObject *e0 = json_array_get_object_element(el, 0), *e1 = json_array_get_object_element(el, 1);
+  assert_string_equal(json_object_get_string_member(e0, "category"), "2021");
+  assert_true(json_object_get_null_member(e1, "category"));
+  assert_float_equal(json_object_get_double_member(e1, "ink"), 5000, 0);
+  const char *bad = json_object_get_string_member(json_array_get_object_element(el, 2), "category");
+  assert_true(g_utf8_validate(bad, -1, NULL)); /* RFC 8259 §8.1: JSON text is UTF-8 */
+  assert_int_equal(json_object_get_int_member(f, "page"), 1);
+  assert_string_equal(json_object_get_string_member(f, "severity"), "gross");
+  json_node_unref(root);
+  g_free(text);
+  pp_report_free(r);
+  pp_sample_free(s);
+}
+
+static void assert_rect(JsonArray *a, double x0, double y0, double x1, double y1) {
+  assert_non_null(a);
+  assert_int_equal(json_array_get_length(a), 4);
+  assert_float_equal(json_array_get_double_element(a, 0), x0, 1e-9);
+  assert_float_equal(json_array_get_double_element(a, 1), y0, 1e-9);
+  assert_float_equal(json_array_get_double_element(a, 2), x1, 1e-9);
+  assert_float_equal(json_array_get_double_element(a, 3), y1, 1e-9);
+}
+
+static void test_figure_boxes_and_coverage(void **state) {
+  (void)state;
+  pp_sample *s = pp_sample_new(7.0 / 1.75, 300);
+  pp_report *r = pp_sample_report(s);
+  JsonNode *root = pp_report_to_json(r);
+  char *text = pp_report_node_to_string(root, FALSE, NULL);
+  json_node_unref(root);
+  root = parse_or_fail(text);
+  JsonArray *pages = json_object_get_array_member(json_node_get_object(root), "pages");
+  assert_int_equal(json_array_get_length(pages), 2);
+  JsonObject *p1 = json_array_get_object_element(pages, 0);
+  JsonObject *fig = json_array_get_object_element(json_object_get_array_member(p1, "figures"), 0);
+  assert_rect(json_object_get_array_member(fig, "bbox"), 10, 20, 110, 120);
+  /* ISO 32000-1 §8.3.2.3: default user space has its origin at the lower left, y up, so
+   * on a 300 pt page top-left y=20..120 is y=180..280. */
+  assert_rect(json_object_get_array_member(fig, "pdf_bbox"), 10, 180, 110, 280);
+  JsonObject *axis = json_object_get_object_member(fig, "value_axis");
+  assert_int_equal(json_object_get_int_member(axis, "ticks"), 4);
+  assert_int_equal(json_object_get_int_member(fig, "elements"), 3);
+  JsonObject *marks = json_object_get_object_member(p1, "marks");
+  assert_int_equal(json_object_get_int_member(marks, "fill"), 2);
+  assert_int_equal(json_object_get_int_member(marks, "stroke"), 1);
+  assert_int_equal(json_object_get_int_member(marks, "total"), 3);
+  JsonArray *sf = json_object_get_array_member(p1, "scale_failures");
+  assert_string_equal(json_object_get_string_member(json_array_get_object_element(sf, 0), "reason"),
+                      "tick labels are not numbers");
+  JsonObject *p2 = json_array_get_object_element(pages, 1);
+  assert_int_equal(json_object_get_int_member(p2, "page"), 2);
+  assert_string_equal(json_object_get_string_member(p2, "error"), "page 2 cannot be loaded");
+  JsonObject *t = json_object_get_object_member(json_node_get_object(root), "totals");
+  assert_int_equal(json_object_get_int_member(t, "pages_failed"), 1);
+  assert_int_equal(json_object_get_int_member(t, "findings"), 1);
+  assert_int_equal(json_object_get_int_member(t, "figures"), 1);
+  json_node_unref(root);
+  g_free(text);
+  pp_report_free(r);
+  pp_sample_free(s);
+}
+
+/* Every "required" list of the schema's objects must be present in the output: a small
+ * checker of the schema's own statement (JSON Schema 2020-12 §10.3.1 / validation §6.5.3). */
+static void check_required(JsonObject *schema_obj, JsonObject *data, const char *where) {
+  if (!json_object_has_member(schema_obj, "required"))
+    return;
+  JsonArray *req = json_object_get_array_member(schema_obj, "required");
+  for (guint i = 0; i < json_array_get_length(req); i++) {
+    const char *name = json_array_get_string_element(req, i);
+    if (!json_object_has_member(data, name))
+      fail_msg("%s lacks required member '%s'", where, name);
+  }
+}
+
+static void test_schema_required_fields(void **state) {
+  (void)state;
+  assert_non_null(schema_path);
+  g_autoptr(JsonParser) sp = json_parser_new();
+  GError *error = NULL;
+  if (!json_parser_load_from_file(sp, schema_path, &error))
+    fail_msg("schema: %s", error->message);
+  JsonObject *schema = json_node_get_object(json_parser_get_root(sp));
+  JsonObject *defs = json_object_get_object_member(schema, "$defs");
+  pp_sample *s = pp_sample_new(4.0, 300);
+  pp_report *r = pp_sample_report(s);
+  char *text = pp_report_to_string(r, TRUE, NULL);
+  JsonNode *root = parse_or_fail(text);
+  JsonObject *doc = json_node_get_object(root);
+  check_required(schema, doc, "top level");
+  JsonObject *props = json_object_get_object_member(schema, "properties");
+  const char *objects[] = {"tool", "coordinates", "thresholds", "document", "totals"};
+  for (guint i = 0; i < G_N_ELEMENTS(objects); i++)
+    check_required(json_object_get_object_member(props, objects[i]),
+                   json_object_get_object_member(doc, objects[i]), objects[i]);
+  assert_string_equal(json_object_get_string_member(doc, "format"), "plotproof-findings");
+  assert_int_equal(json_object_get_int_member(doc, "version"), 1);
+  JsonObject *finding_schema = json_object_get_object_member(defs, "finding");
+  JsonObject *f = first_finding(root);
+  check_required(finding_schema, f, "finding");
+  check_required(json_object_get_object_member(defs, "boxed"), f, "finding box");
+  JsonObject *fprops = json_object_get_object_member(finding_schema, "properties");
+  check_required(json_object_get_object_member(fprops, "measures"),
+                 json_object_get_object_member(f, "measures"), "measures");
+  JsonObject *page_schema = json_object_get_object_member(defs, "page");
+  JsonObject *p1 = json_array_get_object_element(json_object_get_array_member(doc, "pages"), 0);
+  check_required(page_schema, p1, "page");
+  check_required(json_object_get_object_member(page_schema, "then"), p1, "analysed page");
+  JsonObject *fig = json_array_get_object_element(json_object_get_array_member(p1, "figures"), 0);
+  check_required(json_object_get_object_member(defs, "figure"), fig, "figure");
+  json_node_unref(root);
+  g_free(text);
+  pp_report_free(r);
+  pp_sample_free(s);
+}
+
+static void test_write_file(void **state) {
+  (void)state;
+  char *dir = g_dir_make_tmp("pp-report-XXXXXX", NULL);
+  assert_non_null(dir);
+  char *path = g_build_filename(dir, "quillmere.findings.json", NULL);
+  pp_sample *s = pp_sample_new(4.0, 300);
+  pp_report *r = pp_sample_report(s);
+  GError *error = NULL;
+  assert_true(pp_report_write_file(r, path, &error));
+  char *text = NULL;
+  gsize len = 0;
+  assert_true(g_file_get_contents(path, &text, &len, NULL));
+  assert_true(len > 0 && text[len - 1] == '\n');
+  json_node_unref(parse_or_fail(text));
+  /* Writing into a missing directory is a GError, not a crash. */
+  char *bad = g_build_filename(dir, "missing", "x.json", NULL);
+  assert_false(pp_report_write_file(r, bad, &error));
+  assert_non_null(error);
+  g_clear_error(&error);
+  g_unlink(path);
+  g_rmdir(dir);
+  g_free(bad);
+  g_free(text);
+  g_free(path);
+  g_free(dir);
+  pp_report_free(r);
+  pp_sample_free(s);
+}
+
+static void test_scene_json(void **state) {
+  (void)state;
+  pp_sample *s = pp_sample_new(4.0, 300);
+  JsonNode *node = pp_report_scene_to_json(s->scene);
+  char *text = pp_report_node_to_string(node, FALSE, NULL);
+  json_node_unref(node);
+  JsonNode *root = parse_or_fail(text);
+  JsonObject *o = json_node_get_object(root);
+  JsonArray *marks = json_object_get_array_member(o, "marks");
+  assert_int_equal(json_array_get_length(marks), 3);
+  JsonObject *m0 = json_array_get_object_element(marks, 0);
+  assert_string_equal(json_object_get_string_member(m0, "kind"), "fill");
+  assert_true(json_object_get_null_member(m0, "ink"));
+  assert_true(json_object_get_null_member(m0, "bbox"));
+  /* pp_path_rectangle: move + 3 lines + close (cairo_rectangle's shape). */
+  JsonArray *path = json_object_get_array_member(m0, "path");
+  assert_int_equal(json_array_get_length(path), 5);
+  JsonObject *seg0 = json_array_get_object_element(path, 0);
+  assert_string_equal(json_object_get_string_member(seg0, "op"), "move");
+  JsonArray *pt = json_array_get_array_element(json_object_get_array_member(seg0, "points"), 0);
+  assert_float_equal(json_array_get_double_element(pt, 0), 80, 0);
+  assert_float_equal(json_array_get_double_element(pt, 1), 100, 0);
+  JsonArray *clip = json_object_get_array_member(m0, "clip");
+  assert_int_equal(json_array_get_length(clip), 2);
+  assert_string_equal(json_object_get_string_member(json_array_get_object_element(clip, 0), "rule"),
+                      pp_fill_rule_name(PP_FILL_EVEN_ODD));
+  JsonObject *m1 = json_array_get_object_element(marks, 1);
+  assert_float_equal(json_object_get_double_member(m1, "ink"), 7500, 0);
+  assert_int_equal(json_array_get_length(json_object_get_array_member(m1, "clip")), 0);
+  JsonArray *words = json_object_get_array_member(o, "words");
+  assert_string_equal(
+      json_object_get_string_member(json_array_get_object_element(words, 0), "text"), "Revenue");
+  const char *warning =
+      json_array_get_string_element(json_object_get_array_member(o, "warnings"), 0);
+  assert_true(g_utf8_validate(warning, -1, NULL));
+  json_node_unref(root);
+  g_free(text);
+  node = pp_report_charts_to_json(s->scene, s->charts);
+  text = pp_report_node_to_string(node, TRUE, NULL);
+  json_node_unref(node);
+  root = parse_or_fail(text);
+  JsonArray *figs = json_object_get_array_member(json_node_get_object(root), "figures");
+  JsonObject *axis = json_object_get_object_member(json_array_get_object_element(figs, 0), "axis");
+  assert_int_equal(json_array_get_length(json_object_get_array_member(axis, "ticks")), 4);
+  json_node_unref(root);
+  g_free(text);
+  pp_sample_free(s);
+}
+
+int main(int argc, char **argv) {
+  schema_path = argc > 1 ? argv[1] : NULL;
+  const struct CMUnitTest tests[] = {
+      cmocka_unit_test(test_nan_and_inf_are_null),
+      cmocka_unit_test(test_values_round_trip),
+      cmocka_unit_test(test_figure_boxes_and_coverage),
+      cmocka_unit_test(test_schema_required_fields),
+      cmocka_unit_test(test_write_file),
+      cmocka_unit_test(test_scene_json),
+  };
+  return cmocka_run_group_tests(tests, NULL, NULL);
+}
