@@ -96,7 +96,7 @@ static double snap(const pp_label *l, gboolean vertical, GArray *segs, gboolean 
 }
 
 static gboolean fit(const double *x, const double *y, guint n, double *a, double *b,
-                    double *max_rel) {
+                    double *max_rel, double *rms) {
   double sx = 0, sy = 0, sxx = 0, sxy = 0;
   for (guint i = 0; i < n; i++)
     sx += x[i], sy += y[i], sxx += x[i] * x[i], sxy += x[i] * y[i];
@@ -105,11 +105,14 @@ static gboolean fit(const double *x, const double *y, guint n, double *a, double
     return FALSE;
   *b = (n * sxy - sx * sy) / den;
   *a = (sy - *b * sx) / n;
-  double lo = y[0], hi = y[0], worst = 0;
+  double lo = y[0], hi = y[0], worst = 0, sq = 0;
   for (guint i = 0; i < n; i++) {
+    double r = *a + *b * x[i] - y[i];
     lo = fmin(lo, y[i]), hi = fmax(hi, y[i]);
-    worst = fmax(worst, fabs(*a + *b * x[i] - y[i]));
+    worst = fmax(worst, fabs(r));
+    sq += r * r;
   }
+  *rms = sqrt(sq / n);
   if (hi - lo <= 0)
     return FALSE;
   *max_rel = worst / (hi - lo);
@@ -170,9 +173,9 @@ static pp_axis_candidate *make_candidate(GPtrArray *run, gboolean vertical, GArr
     axis->box = pp_rect_union(axis->box, l->box);
     m++;
   }
-  double a, b, rel = INFINITY, la, lb, lrel = INFINITY;
-  gboolean lin = fit(pos, val, m, &a, &b, &rel);
-  gboolean lg = all_positive && m >= 3 && fit(pos, lval, m, &la, &lb, &lrel);
+  double a, b, rel = INFINITY, la, lb, lrel = INFINITY, rms = 0, lrms = 0;
+  gboolean lin = fit(pos, val, m, &a, &b, &rel, &rms);
+  gboolean lg = all_positive && m >= 3 && fit(pos, lval, m, &la, &lb, &lrel, &lrms);
   /* Values must change monotonically with position for any scale. */
   gboolean mono = TRUE;
   for (guint i = 2; i < m; i++)
@@ -187,11 +190,11 @@ static pp_axis_candidate *make_candidate(GPtrArray *run, gboolean vertical, GArr
     c->reason = g_strdup("tick values do not change monotonically along the axis");
   } else if (lin && rel <= PP_AXIS_MAX_RESIDUAL) {
     axis->offset = a, axis->slope = b;
-    axis->rms_residual = rel * (val[m - 1] - val[0]);
+    axis->rms_residual = rms;
   } else if (lg && lrel <= PP_AXIS_MAX_RESIDUAL) {
     axis->log = TRUE;
     axis->offset = la, axis->slope = lb;
-    axis->rms_residual = lrel;
+    axis->rms_residual = lrms;
   } else {
     c->fit_failed = TRUE;
     c->reason = g_strdup_printf("tick labels fit neither a linear nor a log scale "

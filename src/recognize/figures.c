@@ -90,6 +90,11 @@ static void find_title(const pp_scene *scene, pp_figure *f) {
   for (guint i = 0; i < scene->lines->len; i++) {
     const pp_text_line *l = g_ptr_array_index(scene->lines, i);
     double d = f->bbox.y0 - l->box.y1;
+    pp_number num;
+    /* tick labels above the plot are numbers; titles are not */
+    if (pp_number_parse(l->text, PP_DECIMAL_UNKNOWN, &num) ||
+        (f->axis && pp_rect_area(pp_rect_intersect(l->box, f->axis->box)) > 0))
+      continue;
     if (d < -2 || d > best_d || l->box.x1 < f->bbox.x0 - 40 || l->box.x0 > f->bbox.x1)
       continue;
     best_d = d;
