@@ -37,6 +37,11 @@ static guint capture_all(pp_document *doc) {
 
 static void test_rss_bounded(void **state) {
   (void)state;
+#if defined(__SANITIZE_ADDRESS__)
+  /* ASan's quarantine keeps freed memory resident on purpose: RSS says nothing here.
+   * The plain build runs this check; the sanitizer build checks the frees instead. */
+  skip();
+#endif
   char *dir = cu_scratch_new();
   char *path = g_build_filename(dir, "pages.pdf", NULL);
   cu_write_chart_pages(path, N_PAGES);
