@@ -73,12 +73,11 @@ static void collect_segments(const pp_scene *scene, GArray *horiz, GArray *vert)
 
 /* Position of the tick a label marks: the nearest segment across the label's centre
  * that starts within reach of the label; the label centre when none. */
-static double snap(const pp_label *l, gboolean vertical, GArray *segs, gboolean *snapped) {
+static double snap(const pp_label *l, gboolean vertical, GArray *segs) {
   double centre = vertical ? l->centre.y : l->centre.x;
   double half = vertical ? pp_rect_height(l->box) / 2 : pp_rect_width(l->box) / 2;
   double e0 = vertical ? l->box.x0 : l->box.y0, e1 = vertical ? l->box.x1 : l->box.y1;
   double best = centre, best_d = 0.9 * half;
-  *snapped = FALSE;
   for (guint i = 0; i < segs->len; i++) {
     tick_seg *t = &g_array_index(segs, tick_seg, i);
     double d = fabs(t->along - centre);
@@ -90,7 +89,6 @@ static double snap(const pp_label *l, gboolean vertical, GArray *segs, gboolean 
       continue; /* too far away, or running through the label */
     best = t->along;
     best_d = d;
-    *snapped = TRUE;
   }
   return best;
 }
@@ -145,7 +143,7 @@ static pp_axis_candidate *make_candidate(GPtrArray *run, gboolean vertical, GArr
     texts[i] = ((pp_label *)g_ptr_array_index(run, i))->text;
   pp_number_parse_series(texts, n, nums, ok);
   double *pos = g_new(double, n), *val = g_new(double, n), *lval = g_new(double, n);
-  guint m = 0, n_snapped = 0;
+  guint m = 0;
   gboolean all_positive = TRUE;
   pp_axis_candidate *c = g_new0(pp_axis_candidate, 1);
   c->labels = g_ptr_array_new();
@@ -157,13 +155,9 @@ static pp_axis_candidate *make_candidate(GPtrArray *run, gboolean vertical, GArr
   c->axis = axis;
   for (guint i = 0; i < n; i++) {
     pp_label *l = g_ptr_array_index(run, i);
+    /* Every label parsed on its own; the series reading wins where it exists. */
     double v = ok[i] ? nums[i].value : l->number.value;
-    if (!ok[i] && !pp_number_parse(l->text, PP_DECIMAL_UNKNOWN, &nums[i]) &&
-        !strchr(l->text, '^'))
-      continue;
-    gboolean snapped;
-    pos[m] = snap(l, vertical, segs, &snapped);
-    n_snapped += snapped;
+    pos[m] = snap(l, vertical, segs);
     val[m] = v;
     all_positive &= v > 0;
     lval[m] = v > 0 ? log10(v) : 0;
@@ -201,7 +195,6 @@ static pp_axis_candidate *make_candidate(GPtrArray *run, gboolean vertical, GArr
                                 "(worst residual %.1f%% of the range)",
                                 100 * fmin(rel, lrel));
   }
-  (void)n_snapped;
   if (m > 0) {
     c->span0 = fmin(pos[0], pos[m - 1]);
     c->span1 = fmax(pos[0], pos[m - 1]);

@@ -1,8 +1,7 @@
 /* labels.c — numeric phrases from the page's words. Tick labels are often split by
  * poppler at spaces ("30 000", "€ 1.2 bn"), so neighbouring words on one baseline are
- * tried together before alone. Exponent labels "10^3" (see capture/text.c) read as 1000. */
+ * tried together before alone. */
 #include <math.h>
-#include <stdlib.h>
 #include <string.h>
 
 #include "internal.h"
@@ -11,48 +10,6 @@ static void label_free(gpointer p) {
   pp_label *l = p;
   g_free(l->text);
   g_free(l);
-}
-
-/* "10^3", "10^−2", "2×10^3": a power of ten as matplotlib's log axes print it. */
-static gboolean parse_power(const char *text, pp_number *out) {
-  const char *caret = strchr(text, '^');
-  if (!caret)
-    return FALSE;
-  char *base_txt = g_strndup(text, (gsize)(caret - text));
-  char *exp_txt = g_strdup(caret + 1);
-  /* U+2212 minus in exponents */
-  char *fixed = NULL;
-  if (g_str_has_prefix(exp_txt, "\xe2\x88\x92")) {
-    fixed = g_strconcat("-", exp_txt + 3, NULL);
-    g_free(exp_txt);
-    exp_txt = fixed;
-  }
-  gboolean ok = FALSE;
-  char *end = NULL;
-  long e = strtol(exp_txt, &end, 10);
-  double mant = 1;
-  const char *b = base_txt;
-  /* optional "k×" / "k·" prefix before 10 */
-  const char *times = strstr(b, "\xc3\x97");
-  if (!times)
-    times = strstr(b, "\xc2\xb7");
-  if (times) {
-    mant = g_ascii_strtod(b, NULL);
-    b = times + 2;
-  }
-  if (end && *end == '\0' && end != exp_txt && strcmp(b, "10") == 0 && labs(e) < 300 && mant > 0) {
-    memset(out, 0, sizeof *out);
-    out->value = mant * pow(10, (double)e);
-    out->multiplier = 1;
-    ok = TRUE;
-  }
-  g_free(base_txt);
-  g_free(exp_txt);
-  return ok;
-}
-
-static gboolean parse_label(const char *text, pp_number *out) {
-  return parse_power(text, out) || pp_number_parse(text, PP_DECIMAL_UNKNOWN, out);
 }
 
 static void add_label(GPtrArray *out, const char *text, pp_rect box, double size, double angle,
@@ -90,7 +47,7 @@ GPtrArray *pp_labels_collect(const pp_scene *scene) {
         g_string_append_c(phrase, ' ');
       g_string_append(phrase, w->text);
       pp_number num;
-      if (parse_label(phrase->str, &num)) {
+      if (pp_number_parse(phrase->str, PP_DECIMAL_UNKNOWN, &num)) {
         best = k + 1;
         best_num = num;
       }

@@ -7,6 +7,7 @@
  *   prefix := '(' | sign | currency gap* | percent gap*      (sign: '-', '+', U+2212, U+2013)
  *   core   := digits (sep digits)* [dec digits] | dec digits
  *   exp    := (E|e) [sign] digits | ×10^ [sign] digits | ×10 superscript-digits
+ *   power  := "10" (^ [sign] digits | superscript-digits)   in place of core [exp]: 10^k
  *   suffix := gap* (multiplier | currency | percent | permille) | ')'
  * Each of sign, parenthesis pair, currency, multiplier, percent appears at most once; a sign and
  * parentheses together, or a percent with a currency or multiplier, are rejected.
@@ -185,25 +186,13 @@ static int superscript_digit(gunichar c)
   return -1;
 }
 
-/* Exponent after a mantissa: "E9", "e+06" (C, R, ICU), "×10^5" (CLDR sv and others),
- * "×10⁻³" with superscripts (typeset axes). Advances *pp only on success. */
-static gboolean parse_exponent(const char **pp, const char *end, int *exp)
+/* The digits of an exponent: ASCII with an optional sign, or superscripts with an optional
+ * superscript minus. Advances *pp only on success. */
+static gboolean parse_exponent_digits(const char **pp, const char *end, gboolean super, int *exp)
 {
   const char *q = *pp;
   size_t len;
-  gboolean neg = FALSE, super = FALSE;
-  if (q < end && (*q == 'e' || *q == 'E')) {
-    q++;
-  } else if (char_at(q, end, &len) == 0x00D7 && (size_t)(end - q) > len + 2 &&
-             memcmp(q + len, "10", 2) == 0) {
-    q += len + 2;
-    if (q < end && *q == '^')
-      q++;
-    else
-      super = TRUE;
-  } else {
-    return FALSE;
-  }
+  gboolean neg = FALSE;
   int e = 0, ndig = 0;
   if (super) {
     if (char_at(q, end, &len) == 0x207B) /* superscript minus */
@@ -222,6 +211,51 @@ static gboolean parse_exponent(const char **pp, const char *end, int *exp)
   if (ndig == 0)
     return FALSE;
   *exp = neg ? -e : e;
+  *pp = q;
+  return TRUE;
+}
+
+/* Exponent after a mantissa: "E9", "e+06" (C, R, ICU), "×10^5" (CLDR sv and others),
+ * "×10⁻³" with superscripts (typeset axes). Advances *pp only on success. */
+static gboolean parse_exponent(const char **pp, const char *end, int *exp)
+{
+  const char *q = *pp;
+  size_t len;
+  gboolean super = FALSE;
+  if (q < end && (*q == 'e' || *q == 'E')) {
+    q++;
+  } else if (char_at(q, end, &len) == 0x00D7 && (size_t)(end - q) > len + 2 &&
+             memcmp(q + len, "10", 2) == 0) {
+    q += len + 2;
+    if (q < end && *q == '^')
+      q++;
+    else
+      super = TRUE;
+  } else {
+    return FALSE;
+  }
+  if (!parse_exponent_digits(&q, end, super, exp))
+    return FALSE;
+  *pp = q;
+  return TRUE;
+}
+
+/* A bare power of ten right after the digits "10": "10^3", "10⁻²", as log axes print
+ * their ticks (the text stage marks a raised exponent with '^'). */
+static gboolean parse_bare_power(const char **pp, const char *end, int *exp)
+{
+  const char *q = *pp;
+  size_t len;
+  if (q >= end)
+    return FALSE;
+  gunichar c = char_at(q, end, &len);
+  gboolean super = c == 0x207B || superscript_digit(c) >= 0;
+  if (c != '^' && !super)
+    return FALSE;
+  if (!super)
+    q++;
+  if (!parse_exponent_digits(&q, end, super, exp))
+    return FALSE;
   *pp = q;
   return TRUE;
 }
@@ -360,6 +394,10 @@ static gboolean parse_strict(const char *s, const char *end, pp_decimal_mark con
 
   int exp = 0;
   gboolean has_exp = !out->has_grouping && parse_exponent(&p, end, &exp);
+  if (!has_exp && ng == 1 && strcmp(digits->str, "10") == 0 && parse_bare_power(&p, end, &exp)) {
+    g_string_assign(digits, "1"); /* 10^k = 1·10^k */
+    has_exp = TRUE;
+  }
 
   /* suffixes */
   while (p < end) {

@@ -176,6 +176,20 @@ static void test_cldr_sv(void **state)
   CHECK_REJECTED("2,5×10^");
 }
 
+static void test_bare_power_of_ten(void **state)
+{
+  (void)state;
+  /* Log-axis ticks as matplotlib's mathtext typesets them, 10 with a raised exponent; the
+   * text stage writes the raise as '^' (common practice, no source). */
+  CHECK_VALUE("10^3", ANY, 1000);
+  CHECK_VALUE("10^-2", ANY, 0.01);
+  CHECK_VALUE("10^−2", ANY, 0.01);
+  CHECK_VALUE("10³", ANY, 1000); /* superscript three, U+00B3 */
+  CHECK_REJECTED("10^");
+  CHECK_REJECTED("11^3");
+  CHECK_REJECTED("1,000^3");
+}
+
 static void test_cldr_de_ch(void **state)
 {
   (void)state;
@@ -749,6 +763,7 @@ static void test_series(void **state)
 int main(void)
 {
   const struct CMUnitTest tests[] = {
+      cmocka_unit_test(test_bare_power_of_ten),
       cmocka_unit_test(test_cldr_en),
       cmocka_unit_test(test_cldr_de),
       cmocka_unit_test(test_cldr_fr),
