@@ -59,8 +59,7 @@ static void column_extent(GArray *pts, double x, double *top, double *bottom) {
 }
 
 pp_figure *pp_area_figure_build(const pp_scene *scene, GPtrArray *areas,
-                                const pp_axis_candidate *cand, GPtrArray *all_axes) {
-  (void)scene, (void)all_axes;
+                                const pp_axis_candidate *cand) {
   const pp_axis *axis = cand->axis;
   if (!axis->vertical)
     return NULL;

@@ -344,8 +344,11 @@ pp_figure *pp_bar_figure_from_labels(const pp_scene *scene, GArray *bars, GPtrAr
           g_array_unref(sel);
           continue;
         }
+        /* A trial: on failure the bars and the labels it claimed are given back. */
+        gboolean *claimed = g_new(gboolean, MAX(labels->len, 1));
+        for (guint k = 0; k < labels->len; k++)
+          claimed[k] = ((pp_label *)g_ptr_array_index(labels, k))->on_axis;
         pp_figure *fig = build_from_selection(scene, bars, sel, NULL, vertical, edges[e], labels);
-        g_array_unref(sel);
         guint labelled = 0;
         for (guint k = 0; k < fig->elements->len; k++)
           labelled += !isnan(g_array_index(fig->elements, pp_element, k).label_value);
@@ -354,14 +357,16 @@ pp_figure *pp_bar_figure_from_labels(const pp_scene *scene, GArray *bars, GPtrAr
             pp_element *el = &g_array_index(fig->elements, pp_element, k);
             el->tip_value = el->label_value;
           }
+          g_free(claimed);
+          g_array_unref(sel);
           return fig;
         }
-        /* not a labelled chart after all: release the bars */
-        for (guint k = 0; k < fig->elements->len; k++)
-          for (guint j = 0; j < bars->len; j++)
-            if (g_array_index(bars, pp_bar_candidate, j).mark ==
-                g_array_index(fig->elements, pp_element, k).mark_index)
-              g_array_index(bars, pp_bar_candidate, j).used = FALSE;
+        for (guint k = 0; k < sel->len; k++) /* sel held only unused bars */
+          g_array_index(bars, pp_bar_candidate, g_array_index(sel, guint, k)).used = FALSE;
+        for (guint k = 0; k < labels->len; k++)
+          ((pp_label *)g_ptr_array_index(labels, k))->on_axis = claimed[k];
+        g_free(claimed);
+        g_array_unref(sel);
         pp_figure_free(fig);
       }
     }

@@ -193,7 +193,7 @@ pp_page_charts *pp_page_charts_find(const pp_scene *scene) {
       ((pp_label *)g_ptr_array_index(c->labels, k))->on_axis = TRUE;
     pp_figure *f = pp_bar_figure_build(scene, bars, c, labels, axes);
     if (!f)
-      f = pp_area_figure_build(scene, areas, c, axes);
+      f = pp_area_figure_build(scene, areas, c);
     g_debug("axis %s %u labels [%s..%s] side %d: %s", c->axis->vertical ? "vertical" : "horizontal",
             c->labels->len, ((pp_label *)g_ptr_array_index(c->labels, 0))->text,
             ((pp_label *)g_ptr_array_index(c->labels, c->labels->len - 1))->text, c->side,

@@ -68,7 +68,7 @@ pp_figure *pp_bar_figure_build(const pp_scene *scene, GArray *bars, const pp_axi
                                GPtrArray *labels, GPtrArray *all_axes);
 pp_figure *pp_bar_figure_from_labels(const pp_scene *scene, GArray *bars, GPtrArray *labels);
 pp_figure *pp_area_figure_build(const pp_scene *scene, GPtrArray *areas,
-                                const pp_axis_candidate *axis, GPtrArray *all_axes);
+                                const pp_axis_candidate *axis);
 
 pp_figure *pp_figure_new(pp_figure_kind kind);
 void pp_figure_free(pp_figure *figure);
