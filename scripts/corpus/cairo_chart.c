@@ -179,7 +179,9 @@ static void draw_bars(cairo_t *cr, const pp_gen_chart *c)
   double thick = slot * (c->n >= 40 ? 0.8 : 0.62);
   double sub = c->stacked ? thick : thick / ns;
   cairo_save(cr);
-  if (c->bar_style == PP_GEN_BAR_CLIPPED) {
+  /* Stacked segments below a truncated axis would hang under the frame: plotting
+   * software clips to the plot area, so does this generator. */
+  if (c->bar_style == PP_GEN_BAR_CLIPPED || c->stacked) {
     cairo_rectangle(cr, c->x, c->y, c->w, c->h);
     cairo_clip(cr);
   }

@@ -176,7 +176,18 @@ static pp_axis_candidate *make_candidate(GPtrArray *run, gboolean vertical, GArr
     mono &= (val[i] - val[i - 1]) * (val[1] - val[0]) > 0;
   if (m >= 2 && val[1] == val[0])
     mono = FALSE;
-  if (m < 2) {
+  /* 2019, 2020, 2021…: years name categories even though they fit a line. */
+  gboolean years = m >= 2;
+  for (guint i = 0; i < m && years; i++) {
+    const pp_label *l = g_ptr_array_index(c->labels, i);
+    double step = i > 0 ? fabs(val[i] - val[i - 1]) : 1;
+    years = (ok[i] ? nums[i].year_like : l->number.year_like) && step >= 1 && step <= 10 &&
+            (i < 2 || fabs(step - fabs(val[1] - val[0])) < 1e-9);
+  }
+  if (years) {
+    c->fit_failed = c->category = TRUE;
+    c->reason = g_strdup("consecutive years: a category axis");
+  } else if (m < 2) {
     c->fit_failed = TRUE;
     c->reason = g_strdup("fewer than two numeric tick labels");
   } else if (!mono) {

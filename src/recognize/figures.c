@@ -224,7 +224,7 @@ pp_page_charts *pp_page_charts_find(const pp_scene *scene) {
   }
   for (guint i = 0; i < axes->len; i++) {
     pp_axis_candidate *c = g_ptr_array_index(axes, i);
-    if (!c->fit_failed || c->labels->len < 3 || !has_marks_beside(bars, c))
+    if (!c->fit_failed || c->category || c->labels->len < 3 || !has_marks_beside(bars, c))
       continue;
     pp_scale_failure *s = g_new0(pp_scale_failure, 1);
     s->bbox = c->axis->box;

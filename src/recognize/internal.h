@@ -26,6 +26,7 @@ GPtrArray *pp_labels_collect(const pp_scene *scene);
 typedef struct {
   pp_axis *axis;
   gboolean fit_failed;
+  gboolean category; /* consecutive years: labels of categories, never a value scale */
   char *reason;
   double label_edge; /* x of the label column's inner edge (vertical) or y (horizontal) */
   int side;          /* +1: plot lies towards larger coordinates from the labels, −1 smaller, 0 unknown */

@@ -127,7 +127,9 @@ static pp_finding *finding_new(const pp_figure *fig, const pp_scene *scene, cons
     g_array_append_val(f->values, v);
     g_array_append_val(f->inks, e->ink);
     g_ptr_array_add(f->categories, g_strdup(e->category));
-    series[i] = e->series;
+    /* Bars: the first and last bars in category order, whatever their series (the GDI
+     * convention compares the first and last bars drawn). Areas: one series' own ends. */
+    series[i] = fig->kind == PP_FIGURE_AREA ? e->series : 0;
     if (isnan(base) && isfinite(e->base_value))
       base = e->base_value;
   }
