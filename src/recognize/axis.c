@@ -41,7 +41,10 @@ void pp_axis_free(pp_axis *axis) {
 static void collect_segments(const pp_scene *scene, GArray *horiz, GArray *vert) {
   for (guint i = 0; i < scene->marks->len; i++) {
     const pp_mark *m = g_ptr_array_index(scene->marks, i);
-    if (m->kind != PP_MARK_STROKE)
+    pp_rect outline;
+    /* Outlined rectangles are bar borders and frames, not ticks: their edges run
+     * through tick labels' rows and would capture them. */
+    if (m->kind != PP_MARK_STROKE || pp_path_is_rectangle(m->path, 0.01, &outline))
       continue;
     pp_point cur = {0, 0}, start = {0, 0};
     for (size_t k = 0; k < m->path->n_segs; k++) {
@@ -77,7 +80,8 @@ static double snap(const pp_label *l, gboolean vertical, GArray *segs) {
   double centre = vertical ? l->centre.y : l->centre.x;
   double half = vertical ? pp_rect_height(l->box) / 2 : pp_rect_width(l->box) / 2;
   double e0 = vertical ? l->box.x0 : l->box.y0, e1 = vertical ? l->box.x1 : l->box.y1;
-  double best = centre, best_d = 0.9 * half;
+  /* Rotated labels are long along the axis; the text size bounds the window then. */
+  double best = centre, best_d = fmin(0.9 * half, 0.6 * l->size);
   for (guint i = 0; i < segs->len; i++) {
     tick_seg *t = &g_array_index(segs, tick_seg, i);
     double d = fabs(t->along - centre);
