@@ -89,7 +89,8 @@ static double snap(const pp_label *l, gboolean vertical, GArray *segs) {
       continue;
     double reach = fmin(fabs(t->lo - e1), fabs(t->hi - e0));
     reach = fmin(reach, fmin(fabs(t->lo - e0), fabs(t->hi - e1)));
-    if (reach > 30 || (t->lo < e1 - 0.5 && t->hi > e0 + 0.5))
+    double mid = (e0 + e1) / 2; /* font boxes are tall: only the label's middle counts */
+    if (reach > 30 || (t->lo < mid && t->hi > mid))
       continue; /* too far away, or running through the label */
     best = t->along;
     best_d = d;
@@ -233,6 +234,15 @@ static void candidate_free(gpointer p);
  * with a gap too small to split on: retry both sides of its widest gap. */
 static void fit_or_split(GPtrArray *run, gboolean vertical, GArray *segs, double edge,
                          GPtrArray *out) {
+  if (run->len == 2) {
+    /* Two labels far apart (an x-axis label above a category label of the chart below)
+     * are a coincidence of alignment; ticks sit a few text heights apart (common
+     * practice, no source). */
+    pp_label *a = g_ptr_array_index(run, 0), *b = g_ptr_array_index(run, 1);
+    double gap = vertical ? b->centre.y - a->centre.y : b->centre.x - a->centre.x;
+    if (fabs(gap) > 8 * fmax(a->size, b->size))
+      return;
+  }
   pp_axis_candidate *c = make_candidate(run, vertical, segs, edge);
   if (!c->fit_failed || run->len < 4) {
     g_ptr_array_add(out, c);

@@ -4,6 +4,7 @@
 #include <math.h>
 #include <string.h>
 
+#define G_LOG_DOMAIN "plotproof-recognize"
 #include "internal.h"
 
 typedef struct {
@@ -304,6 +305,7 @@ pp_figure *pp_bar_figure_build(const pp_scene *scene, GArray *bars, const pp_axi
     double lo, hi;
     across_limits(axis, all_axes, sides[s], &lo, &hi);
     GArray *sel = select_bars(bars, axis, lo, hi);
+    g_debug("  side %d: %u bars between %.1f and %.1f", sides[s], sel->len, lo, hi);
     double base;
     if (sel->len >= 2 && find_baseline(bars, sel, axis->axis, &base)) {
       pp_figure *fig =
