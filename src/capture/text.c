@@ -104,8 +104,10 @@ void pp_text_capture(PopplerPage *page, pp_scene *scene) {
     }
     /* A smaller glyph raised above the word is an exponent ("10" then a raised "3"
      * on a log axis); mark it so the reading is 10^3, not 103. */
+    /* Judged by the bottom edge: Type 3 boxes come from the font bbox and scale with the
+     * size, which hides the raise in the centres but not in where the glyph ends. */
     if (wb.n_chars > 0 && size < 0.85 * wb.font_size &&
-        centre(r).y < wb.last_centre.y - 0.15 * wb.font_size && !wb.raised) {
+        r.y1 < wb.box.y1 - 0.15 * wb.font_size && !wb.raised) {
       g_string_append_c(wb.text, '^');
       wb.raised = TRUE;
     }
