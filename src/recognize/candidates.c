@@ -1,4 +1,4 @@
-/* candidates.c — which painted marks could encode a value: filled axis-aligned
+/* candidates.c — which painted marks could encode a value: filled or hatched axis-aligned
  * rectangles (bars) and filled polygons (areas), each with its visible extent. */
 #include <math.h>
 
@@ -15,8 +15,42 @@ static gboolean page_sized(const pp_scene *scene, pp_rect r) {
   return pp_rect_area(r) > 0.6 * scene->width * scene->height;
 }
 
+/* Hatch lines inside an outlined rectangle: single slanted strokes whose box lies within
+ * it. Slanted, because ticks and gridlines inside a plot frame are axis-aligned. */
+static guint count_hatching(const pp_scene *scene, pp_rect r) {
+  guint n = 0;
+  for (guint i = 0; i < scene->marks->len && n < 3; i++) {
+    const pp_mark *m = g_ptr_array_index(scene->marks, i);
+    if (m->kind != PP_MARK_STROKE || m->path->n_segs != 2 ||
+        m->path->segs[1].kind != PP_SEG_LINE || !pp_rect_contains(r, m->bbox, 0.5))
+      continue;
+    n += pp_rect_width(m->bbox) > 0.1 && pp_rect_height(m->bbox) > 0.1;
+  }
+  return n;
+}
+
+/* An outlined rectangle filled with hatch lines, not paint (R's barplot(density = …)):
+ * the reader sees the region, so the region is its ink. Unhatched outlines are table
+ * cells, frames and legends, never bars. */
+static void collect_hatched(const pp_scene *scene, GArray *out) {
+  for (guint i = 0; i < scene->marks->len; i++) {
+    const pp_mark *m = g_ptr_array_index(scene->marks, i);
+    pp_rect r;
+    if (m->kind != PP_MARK_STROKE || !pp_path_is_rectangle(m->path, 0.01, &r) ||
+        pp_rect_width(r) < 2 || pp_rect_height(r) < 2 || count_hatching(scene, r) < 3)
+      continue;
+    pp_rect clip = pp_clip_bbox(m->clip);
+    pp_rect vis = pp_rect_intersect(r, clip);
+    if (pp_rect_is_empty(vis) || page_sized(scene, vis))
+      continue;
+    pp_bar_candidate c = {i, vis, clip, pp_rect_area(vis), m->paint, FALSE};
+    g_array_append_val(out, c);
+  }
+}
+
 GArray *pp_bar_candidates_collect(const pp_scene *scene) {
   GArray *out = g_array_new(FALSE, FALSE, sizeof(pp_bar_candidate));
+  collect_hatched(scene, out);
   for (guint i = 0; i < scene->marks->len; i++) {
     const pp_mark *m = g_ptr_array_index(scene->marks, i);
     if (m->kind != PP_MARK_FILL || is_blank(&m->paint))
