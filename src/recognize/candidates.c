@@ -48,12 +48,13 @@ static void collect_hatched(const pp_scene *scene, GArray *out) {
   }
 }
 
-GArray *pp_bar_candidates_collect(const pp_scene *scene) {
+GArray *pp_bar_candidates_collect(const pp_scene *scene, GHashTable *glyph_marks) {
   GArray *out = g_array_new(FALSE, FALSE, sizeof(pp_bar_candidate));
   collect_hatched(scene, out);
   for (guint i = 0; i < scene->marks->len; i++) {
     const pp_mark *m = g_ptr_array_index(scene->marks, i);
-    if (m->kind != PP_MARK_FILL || is_blank(&m->paint))
+    if (m->kind != PP_MARK_FILL || is_blank(&m->paint) ||
+        g_hash_table_contains(glyph_marks, GUINT_TO_POINTER(i)))
       continue;
     pp_rect r;
     if (!pp_path_is_rectangle(m->path, 0.01, &r))

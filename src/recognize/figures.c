@@ -175,9 +175,10 @@ pp_page_charts *pp_page_charts_find(const pp_scene *scene) {
   out->scale_failures = g_ptr_array_new_with_free_func(scale_failure_free);
   out->raster_images = g_array_new(FALSE, FALSE, sizeof(pp_rect));
 
-  GPtrArray *labels = pp_labels_collect(scene);
+  GHashTable *glyph_marks = g_hash_table_new(NULL, NULL);
+  GPtrArray *labels = pp_labels_collect(scene, glyph_marks);
   GPtrArray *axes = pp_axes_find(scene, labels);
-  GArray *bars = pp_bar_candidates_collect(scene);
+  GArray *bars = pp_bar_candidates_collect(scene, glyph_marks);
   GPtrArray *areas = pp_area_candidates_collect(scene);
 
   for (guint i = 0; i < axes->len; i++) {
@@ -238,6 +239,7 @@ pp_page_charts *pp_page_charts_find(const pp_scene *scene) {
   }
   g_ptr_array_unref(areas);
   g_array_unref(bars);
+  g_hash_table_unref(glyph_marks);
   g_ptr_array_unref(axes);
   g_ptr_array_unref(labels);
   return out;

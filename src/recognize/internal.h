@@ -18,8 +18,9 @@ typedef struct {
 } pp_label;
 
 /* Every numeric phrase of the page, words merged where a number was split by
- * spaces ("30 000", "€ 1.2 bn"). Free with g_ptr_array_unref. */
-GPtrArray *pp_labels_collect(const pp_scene *scene);
+ * spaces ("30 000", "€ 1.2 bn"). Free with g_ptr_array_unref. Marks that turn out
+ * to be parts of labels (a minus sign drawn as a path) are added to glyph_marks. */
+GPtrArray *pp_labels_collect(const pp_scene *scene, GHashTable *glyph_marks);
 
 /* Value-axis candidates (pp_axis*, fitted or not) from aligned labels. Labels used
  * get on_axis. Candidates whose fit failed carry fit_failed and a reason. */
@@ -47,7 +48,8 @@ typedef struct {
   gboolean used;
 } pp_bar_candidate;
 
-GArray *pp_bar_candidates_collect(const pp_scene *scene);
+/* glyph_marks: mark indices that are parts of text, never bars. */
+GArray *pp_bar_candidates_collect(const pp_scene *scene, GHashTable *glyph_marks);
 
 /* A filled non-rectangular polygon that could be an area under a series. */
 typedef struct {

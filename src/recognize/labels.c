@@ -31,7 +31,46 @@ static gboolean same_baseline(const pp_text_run *a, const pp_text_run *b) {
          b->angle == 0;
 }
 
-GPtrArray *pp_labels_collect(const pp_scene *scene) {
+/* A minus sign drawn as a filled bar just left of the digits: matplotlib's Type 3
+ * fonts draw U+2212 as a path, so the text API never sees it (capture notes §7).
+ * Thin (under a tenth of the text height), about a digit wide, at mid-height. */
+static gint find_path_minus(const pp_scene *scene, const pp_label *l) {
+  double h = pp_rect_height(l->box);
+  for (guint i = 0; i < scene->marks->len; i++) {
+    const pp_mark *m = g_ptr_array_index(scene->marks, i);
+    pp_rect r;
+    if (m->kind != PP_MARK_FILL || !pp_path_is_rectangle(m->path, 0.01, &r))
+      continue;
+    double w = pp_rect_width(r), t = pp_rect_height(r), cy = (r.y0 + r.y1) / 2;
+    double gap = l->box.x0 - r.x1;
+    if (t > 0.05 && t < 0.1 * h && w > 0.15 * h && w < 0.6 * h && gap > -0.5 &&
+        gap < 0.3 * h && cy > l->box.y0 + 0.3 * h && cy < l->box.y0 + 0.8 * h)
+      return (gint)i;
+  }
+  return -1;
+}
+
+static void recover_minus_signs(const pp_scene *scene, GPtrArray *labels,
+                                GHashTable *glyph_marks) {
+  for (guint k = 0; k < labels->len; k++) {
+    pp_label *l = g_ptr_array_index(labels, k);
+    if (!g_ascii_isdigit(l->text[0]) || l->number.value <= 0 || l->angle != 0)
+      continue;
+    gint mark = find_path_minus(scene, l);
+    if (mark < 0)
+      continue;
+    const pp_mark *m = g_ptr_array_index(scene->marks, (guint)mark);
+    char *text = g_strconcat("\u2212", l->text, NULL);
+    g_free(l->text);
+    l->text = text;
+    l->number.value = -l->number.value;
+    l->box = pp_rect_union(l->box, m->bbox);
+    l->centre = (pp_point){(l->box.x0 + l->box.x1) / 2, (l->box.y0 + l->box.y1) / 2};
+    g_hash_table_add(glyph_marks, GUINT_TO_POINTER((guint)mark));
+  }
+}
+
+GPtrArray *pp_labels_collect(const pp_scene *scene, GHashTable *glyph_marks) {
   GPtrArray *out = g_ptr_array_new_with_free_func(label_free);
   guint n = scene->words->len;
   for (guint i = 0; i < n;) {
@@ -72,5 +111,6 @@ GPtrArray *pp_labels_collect(const pp_scene *scene) {
     g_string_free(phrase, TRUE);
     i += best;
   }
+  recover_minus_signs(scene, out, glyph_marks);
   return out;
 }
