@@ -104,34 +104,44 @@ static void find_title(const pp_scene *scene, pp_figure *f) {
     f->title = g_strdup(best->text);
 }
 
-/* Unfilled polylines beside a fitted axis: a line chart, honest at any baseline. */
+/* A mark that draws data without standing for a number by its ink: a polyline, or a
+ * small marker of a scatter plot. */
+static gboolean is_line_mark(const pp_mark *m) {
+  pp_rect r = m->bbox;
+  if (m->kind == PP_MARK_STROKE)
+    return m->path->n_segs >= 4 && pp_rect_width(r) >= 1 && pp_rect_height(r) >= 1;
+  pp_rect rect;
+  return m->kind == PP_MARK_FILL && m->path->n_segs >= 4 && pp_rect_width(r) < 15 &&
+         pp_rect_height(r) < 15 && pp_rect_area(r) > 1 &&
+         !pp_path_is_rectangle(m->path, 0.01, &rect);
+}
+
+/* Lines and markers beside a fitted axis: a line chart, honest at any baseline. */
 static pp_figure *line_figure(const pp_scene *scene, const pp_axis_candidate *cand) {
   pp_rect box = pp_rect_empty();
-  guint n = 0;
   const pp_axis *axis = cand->axis;
   double span = cand->span1 - cand->span0;
   for (guint i = 0; i < scene->marks->len; i++) {
     const pp_mark *m = g_ptr_array_index(scene->marks, i);
-    if (m->kind != PP_MARK_STROKE || m->path->n_segs < 4)
+    if (!is_line_mark(m))
       continue;
     pp_rect r = m->bbox;
-    if (pp_rect_width(r) < 1 || pp_rect_height(r) < 1)
-      continue; /* straight rules and gridlines */
     double u0 = axis->vertical ? r.y0 : r.x0, u1 = axis->vertical ? r.y1 : r.x1;
     if (u0 < cand->span0 - 0.6 * span - 10 || u1 > cand->span1 + 0.6 * span + 10)
       continue;
     gboolean beside = axis->vertical ? (cand->side > 0 ? r.x0 >= axis->box.x1 - 1
                                                        : r.x1 <= axis->box.x0 + 1)
                                      : TRUE;
-    double dist = axis->vertical ? fabs((cand->side > 0 ? r.x0 : r.x1) -
-                                        (cand->side > 0 ? axis->box.x1 : axis->box.x0))
-                                 : fmin(fabs(r.y1 - axis->box.y0), fabs(r.y0 - axis->box.y1));
-    if (!beside || dist > 60)
-      continue;
-    box = pp_rect_union(box, r);
-    n++;
+    if (beside)
+      box = pp_rect_union(box, r);
   }
-  if (n == 0)
+  if (pp_rect_is_empty(box))
+    return NULL;
+  /* the data must start near the labels, not in the next chart over */
+  double dist = axis->vertical ? fabs((cand->side > 0 ? box.x0 : box.x1) -
+                                      (cand->side > 0 ? axis->box.x1 : axis->box.x0))
+                               : fmin(fabs(box.y1 - axis->box.y0), fabs(box.y0 - axis->box.y1));
+  if (dist > 60)
     return NULL;
   pp_figure *f = pp_figure_new(PP_FIGURE_LINE);
   f->bbox = box;
