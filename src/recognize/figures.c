@@ -143,6 +143,11 @@ static pp_figure *line_figure(const pp_scene *scene, const pp_axis_candidate *ca
                                : fmin(fabs(box.y1 - axis->box.y0), fabs(box.y0 - axis->box.y1));
   if (dist > 60)
     return NULL;
+  /* The plot spans the axis' ticks, however flat the line. */
+  if (axis->vertical)
+    box.y0 = fmin(box.y0, cand->span0), box.y1 = fmax(box.y1, cand->span1);
+  else
+    box.x0 = fmin(box.x0, cand->span0), box.x1 = fmax(box.x1, cand->span1);
   pp_figure *f = pp_figure_new(PP_FIGURE_LINE);
   f->bbox = box;
   return f;
