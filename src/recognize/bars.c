@@ -297,6 +297,48 @@ static pp_figure *build_from_selection(const pp_scene *scene, GArray *bars, GArr
   return fig;
 }
 
+/* Building a figure claims bars and data labels; a rejected attempt gives them back. */
+typedef struct {
+  gboolean *claimed; /* on_axis of every label before the attempt */
+} attempt;
+
+static attempt attempt_begin(GPtrArray *labels) {
+  attempt t = {g_new(gboolean, MAX(labels->len, 1))};
+  for (guint k = 0; k < labels->len; k++)
+    t.claimed[k] = ((pp_label *)g_ptr_array_index(labels, k))->on_axis;
+  return t;
+}
+
+static void attempt_undo(attempt *t, GArray *bars, GArray *sel, GPtrArray *labels) {
+  for (guint k = 0; k < sel->len; k++) /* sel holds only bars unused before the attempt */
+    g_array_index(bars, pp_bar_candidate, g_array_index(sel, guint, k)).used = FALSE;
+  for (guint k = 0; k < labels->len; k++)
+    ((pp_label *)g_ptr_array_index(labels, k))->on_axis = t->claimed[k];
+}
+
+static void attempt_end(attempt *t) { g_free(t->claimed); }
+
+/* Legend keys: small swatches, each with its series name just to its right. They share
+ * edges like bars do, but stand for no value. */
+static gboolean legend_like(const pp_scene *scene, const pp_figure *fig) {
+  for (guint i = 0; i < fig->elements->len; i++) {
+    pp_rect b = g_array_index(fig->elements, pp_element, i).box;
+    if (pp_rect_width(b) > 16 || pp_rect_height(b) > 16)
+      return FALSE;
+    gboolean named = FALSE;
+    for (guint k = 0; k < scene->words->len && !named; k++) {
+      const pp_text_run *word = g_ptr_array_index(scene->words, k);
+      pp_rect w = word->box;
+      pp_number num; /* a number beside a short bar is its data label, not a series name */
+      named = w.x0 >= b.x1 - 0.5 && w.x0 <= b.x1 + pp_rect_height(b) + 6 && w.y0 < b.y1 &&
+              w.y1 > b.y0 && !pp_number_parse(word->text, PP_DECIMAL_UNKNOWN, &num);
+    }
+    if (!named)
+      return FALSE;
+  }
+  return TRUE;
+}
+
 pp_figure *pp_bar_figure_build(const pp_scene *scene, GArray *bars, const pp_axis_candidate *axis,
                                GPtrArray *labels, GPtrArray *all_axes) {
   gboolean vertical = axis->axis->vertical;
@@ -308,12 +350,19 @@ pp_figure *pp_bar_figure_build(const pp_scene *scene, GArray *bars, const pp_axi
     g_debug("  side %d: %u bars between %.1f and %.1f", sides[s], sel->len, lo, hi);
     double base;
     if (sel->len >= 2 && find_baseline(bars, sel, axis->axis, &base)) {
+      attempt t = attempt_begin(labels);
       pp_figure *fig =
           build_from_selection(scene, bars, sel, axis->axis, vertical, base, labels);
+      gboolean keep = fig->elements->len >= 2 && !legend_like(scene, fig);
+      if (!keep) {
+        attempt_undo(&t, bars, sel, labels);
+        pp_figure_free(fig);
+        fig = NULL;
+      }
+      attempt_end(&t);
       g_array_unref(sel);
-      if (fig->elements->len >= 2)
+      if (fig)
         return fig;
-      pp_figure_free(fig);
       continue;
     }
     g_array_unref(sel);
@@ -346,28 +395,22 @@ pp_figure *pp_bar_figure_from_labels(const pp_scene *scene, GArray *bars, GPtrAr
           g_array_unref(sel);
           continue;
         }
-        /* A trial: on failure the bars and the labels it claimed are given back. */
-        gboolean *claimed = g_new(gboolean, MAX(labels->len, 1));
-        for (guint k = 0; k < labels->len; k++)
-          claimed[k] = ((pp_label *)g_ptr_array_index(labels, k))->on_axis;
+        attempt t = attempt_begin(labels);
         pp_figure *fig = build_from_selection(scene, bars, sel, NULL, vertical, edges[e], labels);
         guint labelled = 0;
         for (guint k = 0; k < fig->elements->len; k++)
           labelled += !isnan(g_array_index(fig->elements, pp_element, k).label_value);
-        if (labelled == fig->elements->len && labelled >= 2) {
+        if (labelled == fig->elements->len && labelled >= 2 && !legend_like(scene, fig)) {
           for (guint k = 0; k < fig->elements->len; k++) {
             pp_element *el = &g_array_index(fig->elements, pp_element, k);
             el->tip_value = el->label_value;
           }
-          g_free(claimed);
+          attempt_end(&t);
           g_array_unref(sel);
           return fig;
         }
-        for (guint k = 0; k < sel->len; k++) /* sel held only unused bars */
-          g_array_index(bars, pp_bar_candidate, g_array_index(sel, guint, k)).used = FALSE;
-        for (guint k = 0; k < labels->len; k++)
-          ((pp_label *)g_ptr_array_index(labels, k))->on_axis = claimed[k];
-        g_free(claimed);
+        attempt_undo(&t, bars, sel, labels);
+        attempt_end(&t);
         g_array_unref(sel);
         pp_figure_free(fig);
       }
