@@ -159,6 +159,19 @@ def draw_columns(fig, ax, spec):
                            ha="right" if rot else "center")
     ax.yaxis.set_major_formatter(FuncFormatter(lambda t, p: FORMATS[fmt](t)))
     apply_styles(ax, style, "y")
+    if "inverted-axis" in style:
+        ax.invert_yaxis()  # bars hang from the top edge
+    if "right-axis" in style:
+        ax.yaxis.tick_right()
+    if "twin-axis" in style:
+        # A second value axis on the right for an unfilled line (load factor, %);
+        # the bars belong to the left axis.
+        ax2 = ax.twinx()
+        ax2.plot(x, [55 + 3 * ((i * 7) % 5) for i in x], color="black",
+                 linewidth=1.2)
+        ax2.set_ylim(40, 80)
+        ax2.yaxis.set_major_formatter(
+            FuncFormatter(lambda t, p: "%d%%" % t))
     dl = None
     if "data-labels" in style:
         dl = list(v)
@@ -669,6 +682,22 @@ def main():
     total += save("raster_chart", seed, 42, [raster_page(seed)])
     seed += 1
     total += save("raster_report", seed, 3, [raster_page(seed, True)])
+
+    # value axes on the other side, upside down, or paired with a second axis
+    for k, (extra, trunc) in enumerate((
+            (["inverted-axis"], "none"), (["inverted-axis"], "severe"),
+            (["right-axis"], "none"), (["right-axis"], "mild"),
+            (["twin-axis"], "none"), (["twin-axis"], "severe"))):
+        seed = 9100 + k  # own seeds: the cases above keep theirs
+        rng = random.Random(seed)
+        lo, hi, dec = RANGES["plain"]
+        spec = {"draw": "column", "fmt": "plain", "style": extra,
+                "values": make_values(rng, 6, lo, hi, dec), "labels": YEARS[:6],
+                "trunc": trunc, "seed": seed,
+                "title": "Fjordhaven Ferries - sailings"}
+        total += save("axes_%s_%s" % (extra[0].split("-")[0], trunc), seed,
+                      3 if k % 2 else 42, [one_chart_page(spec)])
+
     print("matplotlib: %d figures" % total)
 
 

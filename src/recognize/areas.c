@@ -59,7 +59,7 @@ static void column_extent(GArray *pts, double x, double *top, double *bottom) {
 }
 
 pp_figure *pp_area_figure_build(const pp_scene *scene, GPtrArray *areas,
-                                const pp_axis_candidate *cand) {
+                                const pp_axis_candidate *cand, int side) {
   const pp_axis *axis = cand->axis;
   if (!axis->vertical)
     return NULL;
@@ -70,12 +70,12 @@ pp_figure *pp_area_figure_build(const pp_scene *scene, GPtrArray *areas,
     if (a->used)
       continue;
     /* The area must lie beside the labels, within the axis' reach along y. */
-    gboolean beside = cand->side > 0 ? a->rect.x0 >= axis->box.x1 - 1
-                                     : a->rect.x1 <= axis->box.x0 + 1;
-    if (!beside || a->rect.y0 < cand->span0 - 0.6 * span - 20 ||
-        a->rect.y1 > cand->span1 + 0.6 * span + 20)
+    /* Beside the labels on the given side, within the axis' reach along y. */
+    gboolean beside = side > 0 ? a->rect.x0 >= axis->box.x1 - 1 && a->rect.x0 - axis->box.x1 < 400
+                               : a->rect.x1 <= axis->box.x0 + 1 && axis->box.x0 - a->rect.x1 < 400;
+    if (!beside)
       continue;
-    if (fabs(a->rect.x0 - (cand->side > 0 ? axis->box.x1 : axis->box.x0)) > 400)
+    if (a->rect.y0 < cand->span0 - 0.6 * span - 20 || a->rect.y1 > cand->span1 + 0.6 * span + 20)
       continue;
     GArray *vis = clip_polygon(a->points, isfinite(a->clip.x0) ? a->clip : a->rect);
     if (vis->len < 3) {

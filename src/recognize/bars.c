@@ -340,34 +340,23 @@ static gboolean legend_like(const pp_scene *scene, const pp_figure *fig) {
 }
 
 pp_figure *pp_bar_figure_build(const pp_scene *scene, GArray *bars, const pp_axis_candidate *axis,
-                               GPtrArray *labels, GPtrArray *all_axes) {
-  gboolean vertical = axis->axis->vertical;
-  int sides[2] = {axis->side ? axis->side : -1, axis->side ? 0 : +1};
-  for (int s = 0; s < 2 && sides[s]; s++) {
-    double lo, hi;
-    across_limits(axis, all_axes, sides[s], &lo, &hi);
-    GArray *sel = select_bars(bars, axis, lo, hi);
-    g_debug("  side %d: %u bars between %.1f and %.1f", sides[s], sel->len, lo, hi);
-    double base;
-    if (sel->len >= 2 && find_baseline(bars, sel, axis->axis, &base)) {
-      attempt t = attempt_begin(labels);
-      pp_figure *fig =
-          build_from_selection(scene, bars, sel, axis->axis, vertical, base, labels);
-      gboolean keep = fig->elements->len >= 2 && !legend_like(scene, fig);
-      if (!keep) {
-        attempt_undo(&t, bars, sel, labels);
-        pp_figure_free(fig);
-        fig = NULL;
-      }
-      attempt_end(&t);
-      g_array_unref(sel);
-      if (fig)
-        return fig;
-      continue;
+                               int side, GPtrArray *labels, GPtrArray *all_axes) {
+  double lo, hi, base;
+  across_limits(axis, all_axes, side, &lo, &hi);
+  GArray *sel = select_bars(bars, axis, lo, hi);
+  g_debug("  side %d: %u bars between %.1f and %.1f", side, sel->len, lo, hi);
+  pp_figure *fig = NULL;
+  if (sel->len >= 2 && find_baseline(bars, sel, axis->axis, &base)) {
+    attempt t = attempt_begin(labels);
+    fig = build_from_selection(scene, bars, sel, axis->axis, axis->axis->vertical, base, labels);
+    if (fig->elements->len < 2 || legend_like(scene, fig)) {
+      attempt_undo(&t, bars, sel, labels);
+      g_clear_pointer(&fig, pp_figure_free);
     }
-    g_array_unref(sel);
+    attempt_end(&t);
   }
-  return NULL;
+  g_array_unref(sel);
+  return fig;
 }
 
 /* Charts with data labels and no value axis: bars sharing a baseline edge, each

@@ -196,48 +196,52 @@ pp_page_charts *pp_page_charts_find(const pp_scene *scene) {
   GArray *bars = pp_bar_candidates_collect(scene, glyph_marks);
   GPtrArray *areas = pp_area_candidates_collect(scene);
 
-  for (guint i = 0; i < axes->len; i++) {
-    pp_axis_candidate *c = g_ptr_array_index(axes, i);
-    if (c->fit_failed) {
-      g_debug("axis candidate %u labels [%s..]: %s", c->labels->len,
-              c->labels->len ? ((pp_label *)g_ptr_array_index(c->labels, 0))->text : "",
-              c->reason);
-      continue;
-    }
-    /* The axis' own labels must not be taken for data labels while its bars are read. */
-    for (guint k = 0; k < c->labels->len; k++)
-      ((pp_label *)g_ptr_array_index(c->labels, k))->on_axis = TRUE;
-    pp_figure *f = pp_bar_figure_build(scene, bars, c, labels, axes);
-    if (!f)
-      f = pp_area_figure_build(scene, areas, c);
-    g_debug("axis %s %u labels [%s..%s] side %d: %s", c->axis->vertical ? "vertical" : "horizontal",
-            c->labels->len, ((pp_label *)g_ptr_array_index(c->labels, 0))->text,
-            ((pp_label *)g_ptr_array_index(c->labels, c->labels->len - 1))->text, c->side,
-            f ? pp_figure_kind_name(f->kind) : "no figure");
-    if (f)
-      add_figure(out, scene, f, c);
-    else
+  /* First every axis on the side its labels face, then the ones still empty on the
+   * other side: with two value axes, the bars go to the axis that faces them. */
+  gboolean *figured = g_new0(gboolean, MAX(axes->len, 1));
+  for (int pass = 0; pass < 2; pass++) {
+    for (guint i = 0; i < axes->len; i++) {
+      pp_axis_candidate *c = g_ptr_array_index(axes, i);
+      if (c->fit_failed || figured[i]) {
+        if (pass == 0 && c->fit_failed)
+          g_debug("axis candidate %u labels [%s..]: %s", c->labels->len,
+                  c->labels->len ? ((pp_label *)g_ptr_array_index(c->labels, 0))->text : "",
+                  c->reason);
+        continue;
+      }
+      int side = c->side ? (pass ? -c->side : c->side) : (pass ? +1 : -1);
+      /* The axis' own labels must not be taken for data labels while its bars are read. */
       for (guint k = 0; k < c->labels->len; k++)
-        ((pp_label *)g_ptr_array_index(c->labels, k))->on_axis = FALSE;
+        ((pp_label *)g_ptr_array_index(c->labels, k))->on_axis = TRUE;
+      pp_figure *f = pp_bar_figure_build(scene, bars, c, side, labels, axes);
+      if (!f)
+        f = pp_area_figure_build(scene, areas, c, side);
+      g_debug("axis %s %u labels [%s..%s] side %d: %s",
+              c->axis->vertical ? "vertical" : "horizontal", c->labels->len,
+              ((pp_label *)g_ptr_array_index(c->labels, 0))->text,
+              ((pp_label *)g_ptr_array_index(c->labels, c->labels->len - 1))->text, side,
+              f ? pp_figure_kind_name(f->kind) : "no figure");
+      if (f) {
+        figured[i] = TRUE;
+        add_figure(out, scene, f, c);
+      } else {
+        for (guint k = 0; k < c->labels->len; k++)
+          ((pp_label *)g_ptr_array_index(c->labels, k))->on_axis = FALSE;
+      }
+    }
   }
   for (pp_figure *f; (f = pp_bar_figure_from_labels(scene, bars, labels));)
     add_figure(out, scene, f, NULL);
   /* Lines only where no bar or area figure took the axis. */
   for (guint i = 0; i < axes->len; i++) {
     pp_axis_candidate *c = g_ptr_array_index(axes, i);
-    if (c->fit_failed || !c->axis->vertical)
-      continue;
-    gboolean taken = FALSE;
-    for (guint k = 0; k < out->figures->len && !taken; k++) {
-      pp_figure *f = g_ptr_array_index(out->figures, k);
-      taken = f->axis && pp_rect_area(pp_rect_intersect(f->axis->box, c->axis->box)) > 0;
-    }
-    if (taken)
+    if (c->fit_failed || figured[i] || !c->axis->vertical)
       continue;
     pp_figure *f = line_figure(scene, c);
     if (f)
       add_figure(out, scene, f, c);
   }
+  g_free(figured);
   for (guint i = 0; i < axes->len; i++) {
     pp_axis_candidate *c = g_ptr_array_index(axes, i);
     if (!c->fit_failed || c->category || c->labels->len < 3 || !has_marks_beside(bars, c))

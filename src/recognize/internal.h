@@ -65,13 +65,13 @@ typedef struct {
 GPtrArray *pp_area_candidates_collect(const pp_scene *scene);
 void pp_area_candidate_free(gpointer p);
 
-/* Builds the figure's element list from bars near a vertical (or, with swap, horizontal)
- * axis. Returns NULL when no bar group is found. */
+/* Builds a figure from the bars on one side of an axis (+1: towards larger x, or y for
+ * a horizontal axis; −1: smaller). Returns NULL when no bar group is found there. */
 pp_figure *pp_bar_figure_build(const pp_scene *scene, GArray *bars, const pp_axis_candidate *axis,
-                               GPtrArray *labels, GPtrArray *all_axes);
+                               int side, GPtrArray *labels, GPtrArray *all_axes);
 pp_figure *pp_bar_figure_from_labels(const pp_scene *scene, GArray *bars, GPtrArray *labels);
 pp_figure *pp_area_figure_build(const pp_scene *scene, GPtrArray *areas,
-                                const pp_axis_candidate *axis);
+                                const pp_axis_candidate *axis, int side);
 
 pp_figure *pp_figure_new(pp_figure_kind kind);
 void pp_figure_free(pp_figure *figure);
