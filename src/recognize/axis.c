@@ -315,6 +315,12 @@ static double key_x1(const pp_label *l) { return l->box.x1; }
 static double key_x0(const pp_label *l) { return l->box.x0; }
 static double key_cy(const pp_label *l) { return l->centre.y; }
 
+/* Tick labels read horizontally; a vertical axis may also have them turned a quarter
+ * (R's default, las = 0), which keeps them in one column. */
+static gboolean reads_along(const pp_label *l, gboolean vertical) {
+  return fabs(l->angle) <= 1 || (vertical && fabs(fabs(l->angle) - 90) <= 1);
+}
+
 /* Groups labels whose key agrees within tol; each group of 2+ becomes runs. */
 static void group_by(GPtrArray *labels, label_key key, double tol, gboolean vertical,
                      GArray *segs, GPtrArray *out, GHashTable *taken) {
@@ -322,12 +328,12 @@ static void group_by(GPtrArray *labels, label_key key, double tol, gboolean vert
   gboolean *done = g_new0(gboolean, n);
   for (guint i = 0; i < n; i++) {
     pp_label *li = g_ptr_array_index(labels, i);
-    if (done[i] || g_hash_table_contains(taken, li) || fabs(li->angle) > 1)
+    if (done[i] || g_hash_table_contains(taken, li) || !reads_along(li, vertical))
       continue;
     GPtrArray *group = g_ptr_array_new();
     for (guint j = i; j < n; j++) {
       pp_label *lj = g_ptr_array_index(labels, j);
-      if (done[j] || g_hash_table_contains(taken, lj) || fabs(lj->angle) > 1)
+      if (done[j] || g_hash_table_contains(taken, lj) || !reads_along(lj, vertical))
         continue;
       if (fabs(key(lj) - key(li)) <= tol && fabs(lj->size - li->size) <= 0.25 * li->size) {
         g_ptr_array_add(group, lj);

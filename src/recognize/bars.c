@@ -318,6 +318,22 @@ static void attempt_undo(attempt *t, GArray *bars, GArray *sel, GPtrArray *label
 
 static void attempt_end(attempt *t) { g_free(t->claimed); }
 
+/* Bars of one chart stand side by side across the axis (stacks are merged already);
+ * two that overlap across it are neighbours in another direction, e.g. the touching
+ * bars of a histogram read against the wrong axis. */
+static gboolean overlapping(const pp_figure *fig) {
+  gboolean vertical = fig->kind == PP_FIGURE_COLUMN;
+  for (guint i = 0; i < fig->elements->len; i++)
+    for (guint j = i + 1; j < fig->elements->len; j++) {
+      frame_rect a = to_frame(g_array_index(fig->elements, pp_element, i).box, vertical);
+      frame_rect b = to_frame(g_array_index(fig->elements, pp_element, j).box, vertical);
+      double common = fmin(a.w1, b.w1) - fmax(a.w0, b.w0);
+      if (common > 0.5 * fmin(a.w1 - a.w0, b.w1 - b.w0))
+        return TRUE;
+    }
+  return FALSE;
+}
+
 /* Legend keys: small swatches, each with its series name just to its right. They share
  * edges like bars do, but stand for no value. */
 static gboolean legend_like(const pp_scene *scene, const pp_figure *fig) {
@@ -349,7 +365,7 @@ pp_figure *pp_bar_figure_build(const pp_scene *scene, GArray *bars, const pp_axi
   if (sel->len >= 2 && find_baseline(bars, sel, axis->axis, &base)) {
     attempt t = attempt_begin(labels);
     fig = build_from_selection(scene, bars, sel, axis->axis, axis->axis->vertical, base, labels);
-    if (fig->elements->len < 2 || legend_like(scene, fig)) {
+    if (fig->elements->len < 2 || legend_like(scene, fig) || overlapping(fig)) {
       attempt_undo(&t, bars, sel, labels);
       g_clear_pointer(&fig, pp_figure_free);
     }
