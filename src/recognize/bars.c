@@ -82,50 +82,82 @@ static GArray *select_bars(GArray *bars, const pp_axis_candidate *axis, double l
   return keep;
 }
 
-/* The edge coordinate shared by the most bars; ties go to the one nearest value 0. */
-static gboolean find_baseline(GArray *bars, GArray *sel, const pp_axis *axis, double *base) {
-  guint best_count = 0;
-  double best = 0, best_abs = INFINITY;
-  for (guint i = 0; i < sel->len; i++) {
-    frame_rect fi = to_frame(g_array_index(bars, pp_bar_candidate, g_array_index(sel, guint, i)).rect,
-                             axis->vertical);
-    double edges[2] = {fi.u0, fi.u1};
-    for (int e = 0; e < 2; e++) {
-      guint count = 0;
-      for (guint j = 0; j < sel->len; j++) {
-        frame_rect fj = to_frame(
-            g_array_index(bars, pp_bar_candidate, g_array_index(sel, guint, j)).rect,
-            axis->vertical);
-        count += fabs(fj.u0 - edges[e]) < 0.05 || fabs(fj.u1 - edges[e]) < 0.05;
-      }
-      double v = fabs(pp_axis_value_at(axis, edges[e]));
-      if (count > best_count || (count == best_count && v < best_abs)) {
-        best_count = count;
-        best = edges[e];
-        best_abs = v;
-      }
-    }
-  }
-  *base = best;
-  if (best_count < 2)
-    return FALSE;
-  /* Most bars of a chart touch it, or stand in a stack on one that does; two bars
-   * touching end to end by chance do not make a chart. */
+static frame_rect sel_rect(GArray *bars, GArray *sel, guint i, gboolean vertical) {
+  return to_frame(g_array_index(bars, pp_bar_candidate, g_array_index(sel, guint, i)).rect,
+                  vertical);
+}
+
+/* How many selected bars stand on the edge coordinate c: those touching it and those
+ * stacked in their columns. Legend keys and stray boxes touching c by chance add
+ * little; the true baseline carries whole stacks. */
+static guint support_of(GArray *bars, GArray *sel, double c, gboolean vertical) {
   guint supported = 0;
   for (guint i = 0; i < sel->len; i++) {
-    frame_rect fi = to_frame(g_array_index(bars, pp_bar_candidate, g_array_index(sel, guint, i)).rect,
-                             axis->vertical);
+    frame_rect fi = sel_rect(bars, sel, i, vertical);
     for (guint j = 0; j < sel->len; j++) {
-      frame_rect fj = to_frame(
-          g_array_index(bars, pp_bar_candidate, g_array_index(sel, guint, j)).rect, axis->vertical);
-      if ((fabs(fj.u0 - best) < 0.05 || fabs(fj.u1 - best) < 0.05) && fabs(fj.w0 - fi.w0) < 0.2 &&
+      frame_rect fj = sel_rect(bars, sel, j, vertical);
+      if ((fabs(fj.u0 - c) < 0.05 || fabs(fj.u1 - c) < 0.05) && fabs(fj.w0 - fi.w0) < 0.2 &&
           fabs(fj.w1 - fi.w1) < 0.2) {
         supported++;
         break;
       }
     }
   }
-  return supported * 2 >= sel->len;
+  return supported;
+}
+
+#define PP_BASELINE_TRIALS 8
+
+/* The baseline: among the edge coordinates most bars touch, the one that carries the
+ * most bars with their stacks; ties go to the one nearest value 0. It must carry at
+ * least half of the selection: two bars touching end to end do not make a chart. */
+static gboolean find_baseline(GArray *bars, GArray *sel, const pp_axis *axis, double *base) {
+  gboolean vertical = axis->vertical;
+  double cand[PP_BASELINE_TRIALS];
+  guint touches[PP_BASELINE_TRIALS], n_cand = 0;
+  for (guint i = 0; i < sel->len; i++) {
+    frame_rect fi = sel_rect(bars, sel, i, vertical);
+    double edges[2] = {fi.u0, fi.u1};
+    for (int e = 0; e < 2; e++) {
+      gboolean seen = FALSE;
+      for (guint k = 0; k < n_cand && !seen; k++)
+        seen = fabs(cand[k] - edges[e]) < 0.05;
+      if (seen)
+        continue;
+      guint count = 0;
+      for (guint j = 0; j < sel->len; j++) {
+        frame_rect fj = sel_rect(bars, sel, j, vertical);
+        count += fabs(fj.u0 - edges[e]) < 0.05 || fabs(fj.u1 - edges[e]) < 0.05;
+      }
+      if (count < 2)
+        continue;
+      /* keep the PP_BASELINE_TRIALS most touched coordinates */
+      guint slot = n_cand < PP_BASELINE_TRIALS ? n_cand++ : PP_BASELINE_TRIALS;
+      if (slot == PP_BASELINE_TRIALS) {
+        guint weakest = 0;
+        for (guint k = 1; k < n_cand; k++)
+          if (touches[k] < touches[weakest])
+            weakest = k;
+        if (touches[weakest] >= count)
+          continue;
+        slot = weakest;
+      }
+      cand[slot] = edges[e];
+      touches[slot] = count;
+    }
+  }
+  guint best_support = 0;
+  double best_abs = INFINITY;
+  for (guint k = 0; k < n_cand; k++) {
+    guint support = support_of(bars, sel, cand[k], vertical);
+    double v = fabs(pp_axis_value_at(axis, cand[k]));
+    if (support > best_support || (support == best_support && v < best_abs)) {
+      best_support = support;
+      best_abs = v;
+      *base = cand[k];
+    }
+  }
+  return best_support >= 2 && best_support * 2 >= sel->len;
 }
 
 static int paint_series(GArray *colours, const pp_paint *p) {
@@ -334,20 +366,26 @@ static gboolean overlapping(const pp_figure *fig) {
   return FALSE;
 }
 
-/* Legend keys: small swatches, each with its series name just to its right. They share
- * edges like bars do, but stand for no value. */
+/* Legend keys: swatches of one size, each with a series name beside, above or below
+ * it. They share edges like bars do but stand for no value. */
 static gboolean legend_like(const pp_scene *scene, const pp_figure *fig) {
+  pp_rect first = g_array_index(fig->elements, pp_element, 0).box;
   for (guint i = 0; i < fig->elements->len; i++) {
     pp_rect b = g_array_index(fig->elements, pp_element, i).box;
-    if (pp_rect_width(b) > 16 || pp_rect_height(b) > 16)
+    if (fabs(pp_rect_width(b) - pp_rect_width(first)) > 0.5 ||
+        fabs(pp_rect_height(b) - pp_rect_height(first)) > 0.5 || pp_rect_width(b) > 40 ||
+        pp_rect_height(b) > 40)
       return FALSE;
+    double reach = fmin(pp_rect_width(b), pp_rect_height(b)) + 6;
     gboolean named = FALSE;
     for (guint k = 0; k < scene->words->len && !named; k++) {
       const pp_text_run *word = g_ptr_array_index(scene->words, k);
       pp_rect w = word->box;
-      pp_number num; /* a number beside a short bar is its data label, not a series name */
-      named = w.x0 >= b.x1 - 0.5 && w.x0 <= b.x1 + pp_rect_height(b) + 6 && w.y0 < b.y1 &&
-              w.y1 > b.y0 && !pp_number_parse(word->text, PP_DECIMAL_UNKNOWN, &num);
+      gboolean right = w.x0 >= b.x1 - 0.5 && w.x0 <= b.x1 + reach && w.y0 < b.y1 && w.y1 > b.y0;
+      gboolean below = w.y0 >= b.y1 - 0.5 && w.y0 <= b.y1 + reach && w.x0 < b.x1 && w.x1 > b.x0;
+      gboolean above = w.y1 <= b.y0 + 0.5 && w.y1 >= b.y0 - reach && w.x0 < b.x1 && w.x1 > b.x0;
+      pp_number num; /* a number beside a bar is its data label, not a series name */
+      named = (right || below || above) && !pp_number_parse(word->text, PP_DECIMAL_UNKNOWN, &num);
     }
     if (!named)
       return FALSE;
@@ -365,6 +403,8 @@ pp_figure *pp_bar_figure_build(const pp_scene *scene, GArray *bars, const pp_axi
   if (sel->len >= 2 && find_baseline(bars, sel, axis->axis, &base)) {
     attempt t = attempt_begin(labels);
     fig = build_from_selection(scene, bars, sel, axis->axis, axis->axis->vertical, base, labels);
+    g_debug("  baseline %.2f: %u elements, legend %d, overlapping %d", base, fig->elements->len,
+            legend_like(scene, fig), overlapping(fig));
     if (fig->elements->len < 2 || legend_like(scene, fig) || overlapping(fig)) {
       attempt_undo(&t, bars, sel, labels);
       g_clear_pointer(&fig, pp_figure_free);
