@@ -76,12 +76,13 @@ static void collect_segments(const pp_scene *scene, GArray *horiz, GArray *vert)
 
 /* Position of the tick a label marks: the nearest segment across the label's centre
  * that starts within reach of the label; the label centre when none. */
-static double snap(const pp_label *l, gboolean vertical, GArray *segs) {
+static double snap(const pp_label *l, gboolean vertical, GArray *segs, gboolean *snapped) {
   double centre = vertical ? l->centre.y : l->centre.x;
   double half = vertical ? pp_rect_height(l->box) / 2 : pp_rect_width(l->box) / 2;
   double e0 = vertical ? l->box.x0 : l->box.y0, e1 = vertical ? l->box.x1 : l->box.y1;
   /* Rotated labels are long along the axis; the text size bounds the window then. */
   double best = centre, best_d = fmin(0.9 * half, 0.6 * l->size);
+  *snapped = FALSE;
   for (guint i = 0; i < segs->len; i++) {
     tick_seg *t = &g_array_index(segs, tick_seg, i);
     double d = fabs(t->along - centre);
@@ -94,6 +95,7 @@ static double snap(const pp_label *l, gboolean vertical, GArray *segs) {
       continue; /* too far away, or running through the label */
     best = t->along;
     best_d = d;
+    *snapped = TRUE;
   }
   return best;
 }
@@ -148,7 +150,7 @@ static pp_axis_candidate *make_candidate(GPtrArray *run, gboolean vertical, GArr
     texts[i] = ((pp_label *)g_ptr_array_index(run, i))->text;
   pp_number_parse_series(texts, n, nums, ok);
   double *pos = g_new(double, n), *val = g_new(double, n), *lval = g_new(double, n);
-  guint m = 0;
+  guint m = 0, n_snapped = 0;
   gboolean all_positive = TRUE;
   pp_axis_candidate *c = g_new0(pp_axis_candidate, 1);
   c->labels = g_ptr_array_new();
@@ -162,7 +164,9 @@ static pp_axis_candidate *make_candidate(GPtrArray *run, gboolean vertical, GArr
     pp_label *l = g_ptr_array_index(run, i);
     /* Every label parsed on its own; the series reading wins where it exists. */
     double v = ok[i] ? nums[i].value : l->number.value;
-    pos[m] = snap(l, vertical, segs);
+    gboolean snapped;
+    pos[m] = snap(l, vertical, segs, &snapped);
+    n_snapped += snapped;
     val[m] = v;
     all_positive &= v > 0;
     lval[m] = v > 0 ? log10(v) : 0;
@@ -195,6 +199,10 @@ static pp_axis_candidate *make_candidate(GPtrArray *run, gboolean vertical, GArr
   } else if (m < 2) {
     c->fit_failed = TRUE;
     c->reason = g_strdup("fewer than two numeric tick labels");
+  } else if (m == 2 && n_snapped < 2) {
+    /* Two numbers in a column fit any line; only their tick marks make them a scale. */
+    c->fit_failed = TRUE;
+    c->reason = g_strdup("two labels without tick marks");
   } else if (!mono) {
     c->fit_failed = TRUE;
     c->reason = g_strdup("tick values do not change monotonically along the axis");

@@ -366,6 +366,15 @@ static gboolean overlapping(const pp_figure *fig) {
   return FALSE;
 }
 
+/* Bars that all stay within a tenth of the tick span are cells of a matrix plot or a
+ * colour key, not a bar chart (common practice, no source). */
+static gboolean too_short(const pp_figure *fig, const pp_axis_candidate *axis) {
+  double longest = 0;
+  for (guint i = 0; i < fig->elements->len; i++)
+    longest = fmax(longest, g_array_index(fig->elements, pp_element, i).extent);
+  return longest < 0.1 * (axis->span1 - axis->span0);
+}
+
 /* Legend keys: swatches of one size, each with a series name beside, above or below
  * it. They share edges like bars do but stand for no value. */
 static gboolean legend_like(const pp_scene *scene, const pp_figure *fig) {
@@ -405,7 +414,8 @@ pp_figure *pp_bar_figure_build(const pp_scene *scene, GArray *bars, const pp_axi
     fig = build_from_selection(scene, bars, sel, axis->axis, axis->axis->vertical, base, labels);
     g_debug("  baseline %.2f: %u elements, legend %d, overlapping %d", base, fig->elements->len,
             legend_like(scene, fig), overlapping(fig));
-    if (fig->elements->len < 2 || legend_like(scene, fig) || overlapping(fig)) {
+    if (fig->elements->len < 2 || legend_like(scene, fig) || overlapping(fig) ||
+        too_short(fig, axis)) {
       attempt_undo(&t, bars, sel, labels);
       g_clear_pointer(&fig, pp_figure_free);
     }

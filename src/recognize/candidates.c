@@ -11,6 +11,20 @@ static gboolean is_blank(const pp_paint *p) {
   return p->kind == PP_PAINT_SOLID && p->r > 0.985 && p->g > 0.985 && p->b > 0.985;
 }
 
+/* A box behind a word that nearly fills it is a text background (a tag, a highlighted
+ * cell), not a bar; data labels inside bars are numbers and leave most of it free. */
+static gboolean behind_text(const pp_scene *scene, pp_rect r) {
+  for (guint i = 0; i < scene->words->len; i++) {
+    const pp_text_run *w = g_ptr_array_index(scene->words, i);
+    pp_rect in = pp_rect_intersect(w->box, r);
+    pp_number num;
+    if (pp_rect_width(in) >= 0.5 * pp_rect_width(r) && pp_rect_height(in) >= 0.5 * pp_rect_height(r) &&
+        !pp_number_parse(w->text, PP_DECIMAL_UNKNOWN, &num))
+      return TRUE;
+  }
+  return FALSE;
+}
+
 static gboolean page_sized(const pp_scene *scene, pp_rect r) {
   return pp_rect_area(r) > 0.6 * scene->width * scene->height;
 }
@@ -62,7 +76,7 @@ GArray *pp_bar_candidates_collect(const pp_scene *scene, GHashTable *glyph_marks
     pp_rect clip = pp_clip_bbox(m->clip);
     pp_rect vis = pp_rect_intersect(r, clip);
     if (pp_rect_is_empty(vis) || pp_rect_width(vis) < 0.2 || pp_rect_height(vis) < 0.2 ||
-        page_sized(scene, vis))
+        page_sized(scene, vis) || behind_text(scene, vis))
       continue;
     /* Hatching and outlines repaint the same rectangle: keep the first. */
     gboolean dup = FALSE;
