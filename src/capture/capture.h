@@ -99,6 +99,9 @@ typedef struct {
   guint n_groups;
 } pp_scene;
 
+/* An empty scene of a page; capture backends fill it. to_pdf starts as the plain
+ * y flip of a page without crop offset or rotation. */
+pp_scene *pp_scene_new(guint page_index, double width, double height);
 void pp_scene_free(pp_scene *scene);
 G_DEFINE_AUTOPTR_CLEANUP_FUNC(pp_scene, pp_scene_free)
 

@@ -15,4 +15,3 @@ guint pp_tap_end(void);
 
 void pp_text_capture(PopplerPage *page, pp_scene *scene);
 
-pp_scene *pp_scene_new(guint page_index, double width, double height);

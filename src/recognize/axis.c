@@ -26,6 +26,14 @@ double pp_axis_pos_of(const pp_axis *axis, double value) {
   return (v - axis->offset) / axis->slope;
 }
 
+pp_axis *pp_axis_new(gboolean vertical) {
+  pp_axis *axis = g_new0(pp_axis, 1);
+  axis->vertical = vertical;
+  axis->ticks = g_array_new(FALSE, FALSE, sizeof(pp_tick));
+  axis->box = pp_rect_empty();
+  return axis;
+}
+
 void pp_axis_free(pp_axis *axis) {
   if (!axis)
     return;
@@ -155,10 +163,7 @@ static pp_axis_candidate *make_candidate(GPtrArray *run, gboolean vertical, GArr
   pp_axis_candidate *c = g_new0(pp_axis_candidate, 1);
   c->labels = g_ptr_array_new();
   c->label_edge = edge;
-  pp_axis *axis = g_new0(pp_axis, 1);
-  axis->vertical = vertical;
-  axis->ticks = g_array_new(FALSE, FALSE, sizeof(pp_tick));
-  axis->box = pp_rect_empty();
+  pp_axis *axis = pp_axis_new(vertical);
   c->axis = axis;
   for (guint i = 0; i < n; i++) {
     pp_label *l = g_ptr_array_index(run, i);

@@ -153,10 +153,19 @@ static pp_figure *line_figure(const pp_scene *scene, const pp_axis_candidate *ca
   return f;
 }
 
-static void scale_failure_free(gpointer p) {
-  pp_scale_failure *s = p;
+void pp_scale_failure_free(pp_scale_failure *s) {
+  if (!s)
+    return;
   g_free(s->reason);
   g_free(s);
+}
+
+pp_page_charts *pp_page_charts_new(void) {
+  pp_page_charts *out = g_new0(pp_page_charts, 1);
+  out->figures = g_ptr_array_new_with_free_func((GDestroyNotify)pp_figure_free);
+  out->scale_failures = g_ptr_array_new_with_free_func((GDestroyNotify)pp_scale_failure_free);
+  out->raster_images = g_array_new(FALSE, FALSE, sizeof(pp_rect));
+  return out;
 }
 
 static void add_figure(pp_page_charts *out, const pp_scene *scene, pp_figure *f,
@@ -185,10 +194,7 @@ static gboolean has_marks_beside(GArray *bars, const pp_axis_candidate *c) {
 }
 
 pp_page_charts *pp_page_charts_find(const pp_scene *scene) {
-  pp_page_charts *out = g_new0(pp_page_charts, 1);
-  out->figures = g_ptr_array_new_with_free_func((GDestroyNotify)pp_figure_free);
-  out->scale_failures = g_ptr_array_new_with_free_func(scale_failure_free);
-  out->raster_images = g_array_new(FALSE, FALSE, sizeof(pp_rect));
+  pp_page_charts *out = pp_page_charts_new();
 
   GHashTable *glyph_marks = g_hash_table_new(NULL, NULL);
   GPtrArray *labels = pp_labels_collect(scene, glyph_marks);

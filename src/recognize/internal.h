@@ -36,7 +36,6 @@ typedef struct {
 } pp_axis_candidate;
 
 GPtrArray *pp_axes_find(const pp_scene *scene, GPtrArray *labels);
-void pp_axis_free(pp_axis *axis);
 
 /* A filled axis-aligned rectangle that could be a bar. */
 typedef struct {
@@ -73,6 +72,4 @@ pp_figure *pp_bar_figure_from_labels(const pp_scene *scene, GArray *bars, GPtrAr
 pp_figure *pp_area_figure_build(const pp_scene *scene, GPtrArray *areas,
                                 const pp_axis_candidate *axis, int side);
 
-pp_figure *pp_figure_new(pp_figure_kind kind);
-void pp_figure_free(pp_figure *figure);
 void pp_figure_set_fingerprint(pp_figure *figure);

@@ -35,6 +35,9 @@ typedef struct {
   pp_rect box;        /* the tick labels' extent */
 } pp_axis;
 
+/* An empty axis (no ticks yet); freed with its tick labels. */
+pp_axis *pp_axis_new(gboolean vertical);
+void pp_axis_free(pp_axis *axis);
 double pp_axis_value_at(const pp_axis *axis, double pos);
 double pp_axis_pos_of(const pp_axis *axis, double value);
 
@@ -69,6 +72,10 @@ typedef struct {
   char *title;        /* nearest title-like text above, NULL if none */
 } pp_figure;
 
+/* An empty figure; frees its axis, elements' strings, fingerprint and title. */
+pp_figure *pp_figure_new(pp_figure_kind kind);
+void pp_figure_free(pp_figure *figure);
+
 typedef struct {
   pp_rect bbox;
   char *reason;
@@ -80,7 +87,10 @@ typedef struct {
   GArray *raster_images;     /* of pp_rect: images big enough to be figures, not analysed */
 } pp_page_charts;
 
+/* Empty result lists, owning what is added: figures, scale failures (bbox, reason). */
+pp_page_charts *pp_page_charts_new(void);
 pp_page_charts *pp_page_charts_find(const pp_scene *scene);
+void pp_scale_failure_free(pp_scale_failure *failure);
 void pp_page_charts_free(pp_page_charts *charts);
 G_DEFINE_AUTOPTR_CLEANUP_FUNC(pp_page_charts, pp_page_charts_free)
 

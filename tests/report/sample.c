@@ -4,32 +4,11 @@
 
 #include "sample.h"
 
-static void mark_free(gpointer p) {
-  pp_mark *m = p;
-  pp_path_free(m->path);
-  pp_clip_unref(m->clip);
-  g_free(m);
-}
-
-static void word_free(gpointer p) {
-  pp_text_run *w = p;
-  g_free(w->text);
-  g_free(w->font_name);
-  g_free(w);
-}
-
 static pp_scene *sample_scene(void) {
-  pp_scene *s = g_new0(pp_scene, 1);
-  s->page_index = 0;
-  s->width = 400;
-  s->height = 300;
+  pp_scene *s = pp_scene_new(0, 400, 300);
   s->crop_box = (pp_rect){0, 0, 400, 300};
   /* Page points (y down) to PDF user space (y up from the bottom-left, ISO 32000-1 §8.3.2.3). */
   s->to_pdf = (pp_matrix){1, 0, 0, -1, 0, 300};
-  s->marks = g_ptr_array_new_with_free_func(mark_free);
-  s->words = g_ptr_array_new_with_free_func(word_free);
-  s->lines = g_ptr_array_new_with_free_func(g_free);
-  s->warnings = g_ptr_array_new_with_free_func(g_free);
   pp_path *clip_path = pp_path_new();
   pp_path_rectangle(clip_path, 50, 50, 300, 200);
   pp_clip *clip = pp_clip_new(NULL, clip_path, PP_FILL_NONZERO);
@@ -63,23 +42,16 @@ static pp_scene *sample_scene(void) {
 }
 
 static pp_page_charts *sample_charts(void) {
-  pp_page_charts *c = g_new0(pp_page_charts, 1);
-  c->figures = g_ptr_array_new();
-  c->scale_failures = g_ptr_array_new();
-  c->raster_images = g_array_new(FALSE, FALSE, sizeof(pp_rect));
-  pp_figure *f = g_new0(pp_figure, 1);
-  f->kind = PP_FIGURE_COLUMN;
+  pp_page_charts *c = pp_page_charts_new();
+  pp_figure *f = pp_figure_new(PP_FIGURE_COLUMN);
   f->bbox = (pp_rect){10, 20, 110, 120};
-  f->axis = g_new0(pp_axis, 1);
-  f->axis->vertical = TRUE;
+  f->axis = pp_axis_new(TRUE);
   f->axis->min_value = 35;
   f->axis->max_value = 75;
-  f->axis->ticks = g_array_new(FALSE, TRUE, sizeof(pp_tick));
   for (int v = 40; v <= 70; v += 10) {
     pp_tick t = {250.0 - v, v, g_strdup_printf("%d", v)};
     g_array_append_val(f->axis->ticks, t);
   }
-  f->elements = g_array_new(FALSE, TRUE, sizeof(pp_element));
   for (int i = 0; i < 3; i++) {
     pp_element e = {0};
     e.kind = PP_ELEMENT_BAR;
@@ -132,7 +104,7 @@ pp_sample *pp_sample_new(double lie_factor, double gdi) {
   pp_sample *s = g_new0(pp_sample, 1);
   s->scene = sample_scene();
   s->charts = sample_charts();
-  s->findings = g_ptr_array_new();
+  s->findings = g_ptr_array_new_with_free_func((GDestroyNotify)pp_finding_free);
   g_ptr_array_add(s->findings, sample_finding(lie_factor, gdi));
   s->info = (pp_document_info){"/invented/quillmere-annual-report.pdf",
                                123456,
@@ -145,36 +117,9 @@ pp_sample *pp_sample_new(double lie_factor, double gdi) {
   return s;
 }
 
-static void figure_free(pp_figure *f) {
-  for (guint i = 0; i < f->axis->ticks->len; i++)
-    g_free(g_array_index(f->axis->ticks, pp_tick, i).label);
-  g_array_unref(f->axis->ticks);
-  g_free(f->axis);
-  g_array_unref(f->elements);
-  g_free(f->fingerprint);
-  g_free(f->title);
-  g_free(f);
-}
-
 void pp_sample_free(pp_sample *s) {
   pp_scene_free(s->scene);
-  figure_free(g_ptr_array_index(s->charts->figures, 0));
-  g_ptr_array_unref(s->charts->figures);
-  pp_scale_failure *sf = g_ptr_array_index(s->charts->scale_failures, 0);
-  g_free(sf->reason);
-  g_free(sf);
-  g_ptr_array_unref(s->charts->scale_failures);
-  g_array_unref(s->charts->raster_images);
-  g_free(s->charts);
-  for (guint i = 0; i < s->findings->len; i++) {
-    pp_finding *f = g_ptr_array_index(s->findings, i);
-    g_free(f->id);
-    g_free(f->message);
-    g_array_unref(f->values);
-    g_array_unref(f->inks);
-    g_ptr_array_unref(f->categories);
-    g_free(f);
-  }
+  pp_page_charts_free(s->charts);
   g_ptr_array_unref(s->findings);
   g_free(s);
 }
