@@ -1,6 +1,6 @@
 /* area.c — signed area by Green's theorem, A = ½∮(x dy − y dx), with cubic segments
  * integrated in closed form, and the fill-rule area as the unclipped sweep. */
-#include "geometry.h"
+#include "internal.h"
 
 #include <math.h>
 

@@ -1,6 +1,6 @@
 /* bbox.c — tight bounding boxes (cubic extrema from the derivative's roots) and
  * recognition of axis-aligned rectangles, which unlock the O(1) rect ∩ rect path. */
-#include "geometry.h"
+#include "internal.h"
 
 #include <math.h>
 
@@ -147,4 +147,17 @@ gboolean pp_path_is_rectangle(const pp_path *path, double tol, pp_rect *out) {
   if (out)
     *out = b;
   return TRUE;
+}
+
+gboolean pp_path_is_finite(const pp_path *path) {
+  for (size_t i = 0; i < path->n_segs; i++)
+    for (int k = 0; k < 3; k++)
+      if (!isfinite(path->segs[i].pt[k].x) || !isfinite(path->segs[i].pt[k].y))
+        return FALSE;
+  return TRUE;
+}
+
+int pp_compare_doubles(const void *a, const void *b) {
+  double x = *(const double *)a, y = *(const double *)b;
+  return x < y ? -1 : x > y;
 }

@@ -1,7 +1,7 @@
 /* clip_area.c — exact area of (path under its fill rule) ∩ every clip region.
  * Slab sweep: edges become y-monotone pieces; between consecutive event y's no two
  * edges cross, so gaps are ordered by x and ∫(x_right − x_left) dy is taken in closed form. */
-#include "geometry.h"
+#include "internal.h"
 
 #include <float.h>
 #include <math.h>
@@ -42,17 +42,7 @@ typedef struct {
   double eps_y, tol_x;
 } sweep;
 
-static pp_point bez(const pp_point *p, double t) {
-  double s = 1 - t;
-  double a = s * s * s, b = 3 * s * s * t, c = 3 * s * t * t, d = t * t * t;
-  return (pp_point){a * p[0].x + b * p[1].x + c * p[2].x + d * p[3].x,
-                    a * p[0].y + b * p[1].y + c * p[2].y + d * p[3].y};
-}
 
-static double bez_dy(const pp_point *p, double t) {
-  double s = 1 - t;
-  return 3 * (s * s * (p[1].y - p[0].y) + 2 * s * t * (p[2].y - p[1].y) + t * t * (p[3].y - p[2].y));
-}
 
 /* de Casteljau split at t: left half into l, right half into r (either may alias nothing). */
 static void bez_split(const pp_point *p, double t, pp_point *l, pp_point *r) {
@@ -191,14 +181,14 @@ static double solve_t(edge *e, double y) {
   if (!(t > 0 && t < 1))
     t = (y - e->ya) / (e->yb - e->ya);
   for (int it = 0; it < 100; it++) {
-    double f = bez(e->p, t).y - y;
+    double f = pp_cubic_point(e->p, t).y - y;
     if (f == 0)
       break;
     if (f < 0)
       lo = t;
     else
       hi = t;
-    double d = bez_dy(e->p, t);
+    double d = pp_cubic_tangent(e->p, t).y;
     double nt = d > 0 ? t - f / d : -1;
     if (!(nt > lo && nt < hi))
       nt = 0.5 * (lo + hi);
@@ -223,7 +213,7 @@ static double edge_x(edge *e, double y, double *t_out) {
   double t = solve_t(e, y);
   if (t_out)
     *t_out = t;
-  return bez(e->p, t).x;
+  return pp_cubic_point(e->p, t).x;
 }
 
 /* ∫ (x − xref) dy over the slab [y0, y1], using the scratch values of the slab.
@@ -406,10 +396,6 @@ static gboolean inside(pp_fill_rule rule, int w) {
   return rule == PP_FILL_EVEN_ODD ? (w & 1) != 0 : w != 0;
 }
 
-static int cmp_double(const void *a, const void *b) {
-  double x = *(const double *)a, y = *(const double *)b;
-  return x < y ? -1 : x > y;
-}
 
 static double integrate_slab(sweep *s, double y0, double y1) {
   double sum = 0;
@@ -469,7 +455,7 @@ static double slab(sweep *s, double y0, double y1, int depth) {
     for (size_t i = 0; i + 1 < s->n_act; i++)
       find_crossings(s, s->act[i], s->act[i + 1], y0, y1, &cuts);
     if (cuts.n > 0) {
-      qsort(cuts.ys, cuts.n, sizeof(double), cmp_double);
+      qsort(cuts.ys, cuts.n, sizeof(double), pp_compare_doubles);
       double sum = 0, prev = y0;
       for (size_t i = 0; i <= cuts.n; i++) {
         double next = i < cuts.n ? cuts.ys[i] : y1;
@@ -519,7 +505,7 @@ static double sweep_area(const region *regs, guint n_reg) {
       ev[2 * i + 1] = order[i]->yb;
     }
     qsort(order, n, sizeof(edge *), cmp_edge_ya);
-    qsort(ev, 2 * n, sizeof(double), cmp_double);
+    qsort(ev, 2 * n, sizeof(double), pp_compare_doubles);
     s.act = g_new(edge *, n);
     s.wind = g_new0(int, n_reg);
     size_t next = 0;
@@ -547,21 +533,14 @@ static double sweep_area(const region *regs, guint n_reg) {
   return area;
 }
 
-static gboolean path_finite(const pp_path *path) {
-  for (size_t i = 0; i < path->n_segs; i++)
-    for (int k = 0; k < 3; k++)
-      if (!isfinite(path->segs[i].pt[k].x) || !isfinite(path->segs[i].pt[k].y))
-        return FALSE;
-  return TRUE;
-}
 
 double pp_path_clipped_area(const pp_path *path, pp_fill_rule rule, const pp_clip *clip) {
   if (!path)
     return 0;
-  if (!path_finite(path))
+  if (!pp_path_is_finite(path))
     return NAN;
   for (const pp_clip *c = clip; c; c = c->parent)
-    if (c->path && !path_finite(c->path))
+    if (c->path && !pp_path_is_finite(c->path))
       return NAN;
   pp_rect pbox = pp_path_bbox(path);
   if (pp_rect_is_empty(pbox))

@@ -1,7 +1,7 @@
 /* clip_length.c — length of the part of a path inside a clip chain, for stroke ink.
  * Each segment is cut where it meets a clip boundary; each piece is then in or out,
  * decided by probes either side of its midpoint (a piece along the boundary counts half). */
-#include "geometry.h"
+#include "internal.h"
 
 #include <math.h>
 
@@ -49,20 +49,7 @@ static gboolean in_clip(const clip_set *cs, pp_point p) {
   return TRUE;
 }
 
-static pp_point cubic_at(const pp_point *p, double t) {
-  double s = 1 - t;
-  double a = s * s * s, b = 3 * s * s * t, c = 3 * s * t * t, d = t * t * t;
-  return (pp_point){a * p[0].x + b * p[1].x + c * p[2].x + d * p[3].x,
-                    a * p[0].y + b * p[1].y + c * p[2].y + d * p[3].y};
-}
 
-static pp_point cubic_tangent(const pp_point *p, double t) {
-  double s = 1 - t;
-  return (pp_point){3 * (s * s * (p[1].x - p[0].x) + 2 * s * t * (p[2].x - p[1].x) +
-                         t * t * (p[3].x - p[2].x)),
-                    3 * (s * s * (p[1].y - p[0].y) + 2 * s * t * (p[2].y - p[1].y) +
-                         t * t * (p[3].y - p[2].y))};
-}
 
 static double poly3(const double *c, double t) { return ((c[3] * t + c[2]) * t + c[1]) * t + c[0]; }
 
@@ -138,7 +125,7 @@ static void cut_line(const pp_point *p, int n, pp_point c, pp_point d, gboolean 
   for (guint i = from; i < ts->len; i++) {
     double t = g_array_index(ts, double, i);
     pp_point q = n == 2 ? (pp_point){p[0].x + t * (p[1].x - p[0].x), p[0].y + t * (p[1].y - p[0].y)}
-                        : cubic_at(p, t);
+                        : pp_cubic_point(p, t);
     double u = ((q.x - c.x) * (d.x - c.x) + (q.y - c.y) * (d.y - c.y)) / dd;
     if (u >= -1e-9 && u <= 1 + 1e-9)
       g_array_index(ts, double, k++) = t;
@@ -146,10 +133,6 @@ static void cut_line(const pp_point *p, int n, pp_point c, pp_point d, gboolean 
   g_array_set_size(ts, k);
 }
 
-static int cmp_double(const void *a, const void *b) {
-  double x = *(const double *)a, y = *(const double *)b;
-  return x < y ? -1 : x > y;
-}
 
 static gboolean boxes_overlap(pp_rect a, pp_rect b) {
   return a.x0 <= b.x1 && b.x0 <= a.x1 && a.y0 <= b.y1 && b.y0 <= a.y1;
@@ -195,7 +178,7 @@ static double segment_inside(const clip_set *cs, const pp_point *p, int n, GArra
       }
     }
   }
-  qsort(ts->data, ts->len, sizeof(double), cmp_double);
+  qsort(ts->data, ts->len, sizeof(double), pp_compare_doubles);
   double sum = 0;
   for (guint i = 0; i + 1 < ts->len; i++) {
     double t0 = g_array_index(ts, double, i), t1 = g_array_index(ts, double, i + 1);
@@ -207,8 +190,8 @@ static double segment_inside(const clip_set *cs, const pp_point *p, int n, GArra
       q = (pp_point){p[0].x + tm * (p[1].x - p[0].x), p[0].y + tm * (p[1].y - p[0].y)};
       tan = (pp_point){p[1].x - p[0].x, p[1].y - p[0].y};
     } else {
-      q = cubic_at(p, tm);
-      tan = cubic_tangent(p, tm);
+      q = pp_cubic_point(p, tm);
+      tan = pp_cubic_tangent(p, tm);
     }
     double tl = hypot(tan.x, tan.y);
     double w;
@@ -225,20 +208,13 @@ static double segment_inside(const clip_set *cs, const pp_point *p, int n, GArra
   return sum;
 }
 
-static gboolean finite_path(const pp_path *path) {
-  for (size_t i = 0; i < path->n_segs; i++)
-    for (int k = 0; k < 3; k++)
-      if (!isfinite(path->segs[i].pt[k].x) || !isfinite(path->segs[i].pt[k].y))
-        return FALSE;
-  return TRUE;
-}
 
 double pp_path_clipped_length(const pp_path *path, const pp_clip *clip) {
   if (!path)
     return 0;
   if (!clip)
     return pp_path_length(path);
-  if (!finite_path(path))
+  if (!pp_path_is_finite(path))
     return NAN;
   pp_rect scene = pp_path_bbox(path);
   if (pp_rect_is_empty(scene))
@@ -249,7 +225,7 @@ double pp_path_clipped_length(const pp_path *path, const pp_clip *clip) {
   for (const pp_clip *c = clip; c; c = c->parent) {
     if (!c->path)
       continue;
-    if (!finite_path(c->path)) {
+    if (!pp_path_is_finite(c->path)) {
       result = NAN;
       goto out;
     }

@@ -1,6 +1,6 @@
 /* flatten.c — polygons from paths for consumers that need vertices; areas never use
  * this (they are exact), so the tolerance only shapes the vertex lists. */
-#include "geometry.h"
+#include "internal.h"
 
 #include <math.h>
 

@@ -1,6 +1,6 @@
 /* length.c — arc length of paths (cubics by adaptive Gauss–Legendre quadrature) and
  * stroke ink as width × visible length. */
-#include "geometry.h"
+#include "internal.h"
 
 #include <math.h>
 
@@ -11,12 +11,8 @@ static const double gl_w[4] = {0.3626837833783620, 0.3137066458778873, 0.2223810
                                0.1012285362903763};
 
 static double speed(const pp_point *p, double t) {
-  double s = 1 - t;
-  double dx = 3 * (s * s * (p[1].x - p[0].x) + 2 * s * t * (p[2].x - p[1].x) +
-                   t * t * (p[3].x - p[2].x));
-  double dy = 3 * (s * s * (p[1].y - p[0].y) + 2 * s * t * (p[2].y - p[1].y) +
-                   t * t * (p[3].y - p[2].y));
-  return hypot(dx, dy);
+  pp_point d = pp_cubic_tangent(p, t);
+  return hypot(d.x, d.y);
 }
 
 static double gl(const pp_point *p, double a, double b) {
