@@ -155,7 +155,8 @@ static void emit(GPtrArray *findings, pp_finding *f, const pp_thresholds *t, cha
   char *cmp = comparison(f, noun, t);
   char lf[64] = "", gdi[64] = "";
   if (isfinite(f->measures.lie_factor))
-    g_snprintf(lf, sizeof lf, "lie factor %.2f", f->measures.lie_factor);
+    g_snprintf(lf, sizeof lf, f->measures.lie_factor < 0.1 ? "lie factor %.2g" : "lie factor %.2f",
+               f->measures.lie_factor);
   if (isfinite(f->measures.gdi))
     g_snprintf(gdi, sizeof gdi, ", GDI %+.0f%%", f->measures.gdi);
   f->message = g_strdup_printf("%s: %s (%s%s)", lead, cmp, lf, gdi);
