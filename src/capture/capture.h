@@ -53,31 +53,31 @@ typedef struct {
 
 typedef struct {
   pp_mark_kind kind;
-  guint index;        /* paint order on the page, from 0 */
-  pp_path *path;      /* page points; for images the placement parallelogram */
+  guint index;   /* paint order on the page, from 0 */
+  pp_path *path; /* page points; for images the placement parallelogram */
   pp_fill_rule rule;
   pp_paint paint;
-  double line_width;  /* page points; strokes only */
+  double line_width; /* page points; strokes only */
   gboolean dashed;
-  pp_clip *clip;      /* reference, NULL when unclipped */
-  guint group_depth;  /* > 0 inside transparency groups */
+  pp_clip *clip;     /* reference, NULL when unclipped */
+  guint group_depth; /* > 0 inside transparency groups */
   gboolean soft_masked;
-  guint glyph_count;  /* glyph runs */
-  double font_size;   /* glyph runs: em size in page points */
+  guint glyph_count;             /* glyph runs */
+  double font_size;              /* glyph runs: em size in page points */
   int image_width, image_height; /* images: pixels */
   /* Filled in by the geometry stage (pp_scene_measure()); NAN until then. */
-  double ink;         /* visible ink area in pt² after clipping */
-  pp_rect bbox;       /* of the path itself, unclipped */
+  double ink;           /* visible ink area in pt² after clipping */
+  pp_rect bbox;         /* of the path itself, unclipped */
   pp_rect visible_bbox; /* bbox ∩ clip bbox */
 } pp_mark;
 
 typedef struct {
-  char *text;        /* UTF-8 */
+  char *text; /* UTF-8 */
   pp_rect box;
-  double font_size;  /* points, from poppler's text attributes */
+  double font_size; /* points, from poppler's text attributes */
   char *font_name;
-  guint line;        /* index into pp_scene.lines */
-  double angle;      /* reading direction in degrees, 0 = left to right, 90 = bottom to top */
+  guint line;   /* index into pp_scene.lines */
+  double angle; /* reading direction in degrees, 0 = left to right, 90 = bottom to top */
 } pp_text_run;
 
 typedef struct {
@@ -88,12 +88,12 @@ typedef struct {
 typedef struct {
   guint page_index; /* 0-based */
   double width, height;
-  pp_rect crop_box;  /* in PDF user space */
-  int rotation;      /* /Rotate as far as it can be inferred (see docs/architecture.md) */
-  pp_matrix to_pdf;  /* page points → PDF default user space */
-  GPtrArray *marks;  /* of pp_mark* */
-  GPtrArray *words;  /* of pp_text_run*: words, in reading order */
-  GPtrArray *lines;  /* of pp_text_line* */
+  pp_rect crop_box;    /* in PDF user space */
+  int rotation;        /* /Rotate as far as it can be inferred (see docs/architecture.md) */
+  pp_matrix to_pdf;    /* page points → PDF default user space */
+  GPtrArray *marks;    /* of pp_mark* */
+  GPtrArray *words;    /* of pp_text_run*: words, in reading order */
+  GPtrArray *lines;    /* of pp_text_line* */
   GPtrArray *warnings; /* of char*: things poppler or the tap reported on this page */
   guint n_images;
   guint n_groups;
@@ -108,7 +108,7 @@ G_DEFINE_AUTOPTR_CLEANUP_FUNC(pp_scene, pp_scene_free)
 typedef struct {
   char *path;
   guint64 size;
-  char *sha256;   /* lowercase hex */
+  char *sha256; /* lowercase hex */
   guint n_pages;
   char *pdf_version;
   char *producer, *creator, *title; /* NULL when absent */

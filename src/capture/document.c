@@ -15,7 +15,7 @@ struct pp_document {
   pp_document_info info;
 };
 
-G_DEFINE_QUARK(pp-capture-error-quark, pp_capture_error)
+G_DEFINE_QUARK(pp - capture - error - quark, pp_capture_error)
 
 const char *pp_capture_error_word(int code) {
   switch (code) {
@@ -124,7 +124,9 @@ void pp_document_free(pp_document *doc) {
   g_free(doc);
 }
 
-const pp_document_info *pp_document_get_info(const pp_document *doc) { return &doc->info; }
+const pp_document_info *pp_document_get_info(const pp_document *doc) {
+  return &doc->info;
+}
 
 /* poppler-glib has no /Rotate getter; the crop box is unrotated, the page size is
  * rotated, so a W/H swap reveals 90/270 on non-square pages. 0 versus 180 and
@@ -132,11 +134,11 @@ const pp_document_info *pp_document_get_info(const pp_document *doc) { return &d
 static void set_pdf_mapping(PopplerPage *page, pp_scene *scene) {
   PopplerRectangle crop;
   poppler_page_get_crop_box(page, &crop);
-  scene->crop_box = (pp_rect){MIN(crop.x1, crop.x2), MIN(crop.y1, crop.y2),
-                              MAX(crop.x1, crop.x2), MAX(crop.y1, crop.y2)};
+  scene->crop_box = (pp_rect){MIN(crop.x1, crop.x2), MIN(crop.y1, crop.y2), MAX(crop.x1, crop.x2),
+                              MAX(crop.y1, crop.y2)};
   double cw = pp_rect_width(scene->crop_box), ch = pp_rect_height(scene->crop_box);
-  gboolean swapped = fabs(cw - ch) > 0.5 && fabs(scene->width - ch) < 0.5 &&
-                     fabs(scene->height - cw) < 0.5;
+  gboolean swapped =
+      fabs(cw - ch) > 0.5 && fabs(scene->width - ch) < 0.5 && fabs(scene->height - cw) < 0.5;
   scene->rotation = swapped ? 90 : 0;
   double cx1 = scene->crop_box.x0, cy1 = scene->crop_box.y0, cy2 = scene->crop_box.y1;
   if (scene->rotation == 90) /* device (u,v) = (y − cy1, x − cx1) → x = v + cx1, y = u + cy1 */

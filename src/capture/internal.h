@@ -14,4 +14,3 @@ void pp_tap_begin(cairo_t *cr, double scale, pp_scene *scene);
 guint pp_tap_end(void);
 
 void pp_text_capture(PopplerPage *page, pp_scene *scene);
-

@@ -52,7 +52,7 @@ const char *pp_mark_kind_name(pp_mark_kind kind) {
 }
 
 const char *pp_paint_kind_name(pp_paint_kind kind) {
-  static const char *names[] = {"solid", "linear-gradient", "radial-gradient",
-                                "mesh-gradient", "surface", "other"};
+  static const char *names[] = {"solid",         "linear-gradient", "radial-gradient",
+                                "mesh-gradient", "surface",         "other"};
   return kind <= PP_PAINT_OTHER ? names[kind] : "other";
 }

@@ -34,8 +34,8 @@ gboolean pp_capture_self_test(GError **error) {
   g_bytes_unref(bytes);
   gboolean ok = FALSE;
   if (!pd) {
-    reason = g_strdup_printf("capture self-test: poppler cannot open its probe PDF: %s",
-                             local->message);
+    reason =
+        g_strdup_printf("capture self-test: poppler cannot open its probe PDF: %s", local->message);
     g_error_free(local);
   } else {
     PopplerPage *page = poppler_document_get_page(pd, 0);

@@ -81,16 +81,12 @@ static pp_path *copy_device_path(cairo_t *cr) {
           break;
         pp_path_move_to(path, d[1].point.x * k, d[1].point.y * k);
         break;
-      case CAIRO_PATH_LINE_TO:
-        pp_path_line_to(path, d[1].point.x * k, d[1].point.y * k);
-        break;
+      case CAIRO_PATH_LINE_TO: pp_path_line_to(path, d[1].point.x * k, d[1].point.y * k); break;
       case CAIRO_PATH_CURVE_TO:
         pp_path_curve_to(path, d[1].point.x * k, d[1].point.y * k, d[2].point.x * k,
                          d[2].point.y * k, d[3].point.x * k, d[3].point.y * k);
         break;
-      case CAIRO_PATH_CLOSE_PATH:
-        pp_path_close(path);
-        break;
+      case CAIRO_PATH_CLOSE_PATH: pp_path_close(path); break;
       }
     }
   }
@@ -128,14 +124,9 @@ static pp_paint read_paint(cairo_t *cr) {
     paint.kind = PP_PAINT_RADIAL;
     mean_stops(src, &paint.r, &paint.g, &paint.b, &paint.a);
     break;
-  case CAIRO_PATTERN_TYPE_MESH:
-    paint.kind = PP_PAINT_MESH;
-    break;
-  case CAIRO_PATTERN_TYPE_SURFACE:
-    paint.kind = PP_PAINT_SURFACE;
-    break;
-  default:
-    break;
+  case CAIRO_PATTERN_TYPE_MESH: paint.kind = PP_PAINT_MESH; break;
+  case CAIRO_PATTERN_TYPE_SURFACE: paint.kind = PP_PAINT_SURFACE; break;
+  default: break;
   }
   return paint;
 }
@@ -161,8 +152,8 @@ static void record_fill(cairo_t *cr) {
     return;
   }
   pp_mark *m = add_mark(PP_MARK_FILL, path);
-  m->rule = cairo_get_fill_rule(cr) == CAIRO_FILL_RULE_EVEN_ODD ? PP_FILL_EVEN_ODD
-                                                                : PP_FILL_NONZERO;
+  m->rule =
+      cairo_get_fill_rule(cr) == CAIRO_FILL_RULE_EVEN_ODD ? PP_FILL_EVEN_ODD : PP_FILL_NONZERO;
   m->paint = read_paint(cr);
 }
 

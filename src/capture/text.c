@@ -20,7 +20,9 @@ static pp_rect to_rect(const PopplerRectangle *r) {
   return (pp_rect){MIN(r->x1, r->x2), MIN(r->y1, r->y2), MAX(r->x1, r->x2), MAX(r->y1, r->y2)};
 }
 
-static pp_point centre(pp_rect r) { return (pp_point){(r.x0 + r.x1) / 2, (r.y0 + r.y1) / 2}; }
+static pp_point centre(pp_rect r) {
+  return (pp_point){(r.x0 + r.x1) / 2, (r.y0 + r.y1) / 2};
+}
 
 /* Gap between two boxes along whichever axis separates them most. */
 static double box_gap(pp_rect a, pp_rect b) {
@@ -106,8 +108,8 @@ void pp_text_capture(PopplerPage *page, pp_scene *scene) {
      * on a log axis); mark it so the reading is 10^3, not 103. */
     /* Judged by the bottom edge: Type 3 boxes come from the font bbox and scale with the
      * size, which hides the raise in the centres but not in where the glyph ends. */
-    if (wb.n_chars > 0 && size < 0.85 * wb.font_size &&
-        r.y1 < wb.box.y1 - 0.15 * wb.font_size && !wb.raised) {
+    if (wb.n_chars > 0 && size < 0.85 * wb.font_size && r.y1 < wb.box.y1 - 0.15 * wb.font_size &&
+        !wb.raised) {
       g_string_append_c(wb.text, '^');
       wb.raised = TRUE;
     }

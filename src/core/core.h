@@ -73,8 +73,8 @@ pp_path *pp_path_copy(const pp_path *path);
 void pp_path_free(pp_path *path);
 void pp_path_move_to(pp_path *path, double x, double y);
 void pp_path_line_to(pp_path *path, double x, double y);
-void pp_path_curve_to(pp_path *path, double x1, double y1, double x2, double y2,
-                      double x3, double y3);
+void pp_path_curve_to(pp_path *path, double x1, double y1, double x2, double y2, double x3,
+                      double y3);
 void pp_path_close(pp_path *path);
 void pp_path_rectangle(pp_path *path, double x, double y, double w, double h);
 void pp_path_transform(pp_path *path, pp_matrix m);

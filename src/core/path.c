@@ -4,7 +4,9 @@
 
 #include <string.h>
 
-pp_path *pp_path_new(void) { return g_new0(pp_path, 1); }
+pp_path *pp_path_new(void) {
+  return g_new0(pp_path, 1);
+}
 
 pp_path *pp_path_copy(const pp_path *path) {
   pp_path *copy = pp_path_new();
@@ -44,15 +46,17 @@ void pp_path_line_to(pp_path *path, double x, double y) {
   s->pt[0] = (pp_point){x, y};
 }
 
-void pp_path_curve_to(pp_path *path, double x1, double y1, double x2, double y2,
-                      double x3, double y3) {
+void pp_path_curve_to(pp_path *path, double x1, double y1, double x2, double y2, double x3,
+                      double y3) {
   pp_seg *s = push(path, PP_SEG_CURVE);
   s->pt[0] = (pp_point){x1, y1};
   s->pt[1] = (pp_point){x2, y2};
   s->pt[2] = (pp_point){x3, y3};
 }
 
-void pp_path_close(pp_path *path) { push(path, PP_SEG_CLOSE); }
+void pp_path_close(pp_path *path) {
+  push(path, PP_SEG_CLOSE);
+}
 
 void pp_path_rectangle(pp_path *path, double x, double y, double w, double h) {
   pp_path_move_to(path, x, y);

@@ -3,9 +3,13 @@
 
 #include <math.h>
 
-pp_rect pp_rect_empty(void) { return (pp_rect){INFINITY, INFINITY, -INFINITY, -INFINITY}; }
+pp_rect pp_rect_empty(void) {
+  return (pp_rect){INFINITY, INFINITY, -INFINITY, -INFINITY};
+}
 
-gboolean pp_rect_is_empty(pp_rect r) { return !(r.x0 <= r.x1 && r.y0 <= r.y1); }
+gboolean pp_rect_is_empty(pp_rect r) {
+  return !(r.x0 <= r.x1 && r.y0 <= r.y1);
+}
 
 pp_rect pp_rect_union(pp_rect a, pp_rect b) {
   if (pp_rect_is_empty(a))
@@ -24,16 +28,24 @@ pp_rect pp_rect_add_point(pp_rect r, pp_point p) {
   return pp_rect_union(r, (pp_rect){p.x, p.y, p.x, p.y});
 }
 
-double pp_rect_width(pp_rect r) { return pp_rect_is_empty(r) ? 0 : r.x1 - r.x0; }
-double pp_rect_height(pp_rect r) { return pp_rect_is_empty(r) ? 0 : r.y1 - r.y0; }
-double pp_rect_area(pp_rect r) { return pp_rect_width(r) * pp_rect_height(r); }
+double pp_rect_width(pp_rect r) {
+  return pp_rect_is_empty(r) ? 0 : r.x1 - r.x0;
+}
+double pp_rect_height(pp_rect r) {
+  return pp_rect_is_empty(r) ? 0 : r.y1 - r.y0;
+}
+double pp_rect_area(pp_rect r) {
+  return pp_rect_width(r) * pp_rect_height(r);
+}
 
 gboolean pp_rect_contains(pp_rect outer, pp_rect inner, double tol) {
   return inner.x0 >= outer.x0 - tol && inner.y0 >= outer.y0 - tol && inner.x1 <= outer.x1 + tol &&
          inner.y1 <= outer.y1 + tol;
 }
 
-pp_matrix pp_matrix_identity(void) { return (pp_matrix){1, 0, 0, 1, 0, 0}; }
+pp_matrix pp_matrix_identity(void) {
+  return (pp_matrix){1, 0, 0, 1, 0, 0};
+}
 
 pp_matrix pp_matrix_multiply(pp_matrix a, pp_matrix b) {
   return (pp_matrix){

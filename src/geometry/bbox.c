@@ -88,7 +88,9 @@ pp_rect pp_clip_bbox(const pp_clip *clip) {
   return r;
 }
 
-static gboolean near(double a, double b, double tol) { return fabs(a - b) <= tol; }
+static gboolean near(double a, double b, double tol) {
+  return fabs(a - b) <= tol;
+}
 
 gboolean pp_path_is_rectangle(const pp_path *path, double tol, pp_rect *out) {
   if (!path || !(tol >= 0))

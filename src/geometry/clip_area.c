@@ -42,8 +42,6 @@ typedef struct {
   double eps_y, tol_x;
 } sweep;
 
-
-
 /* de Casteljau split at t: left half into l, right half into r (either may alias nothing). */
 static void bez_split(const pp_point *p, double t, pp_point *l, pp_point *r) {
   pp_point p01 = {p[0].x + (p[1].x - p[0].x) * t, p[0].y + (p[1].y - p[0].y) * t};
@@ -256,7 +254,9 @@ static void xrange(edge *e, double lo_y, double hi_y, double *lo, double *hi) {
   *hi = fmax(fmax(q[0].x, q[1].x), fmax(q[2].x, q[3].x));
 }
 
-static int sign_tol(double d, double tol) { return d > tol ? 1 : d < -tol ? -1 : 0; }
+static int sign_tol(double d, double tol) {
+  return d > tol ? 1 : d < -tol ? -1 : 0;
+}
 
 typedef struct {
   double *ys;
@@ -396,7 +396,6 @@ static gboolean inside(pp_fill_rule rule, int w) {
   return rule == PP_FILL_EVEN_ODD ? (w & 1) != 0 : w != 0;
 }
 
-
 static double integrate_slab(sweep *s, double y0, double y1) {
   double sum = 0;
   guint n_in = 0;
@@ -419,7 +418,8 @@ static double integrate_slab(sweep *s, double y0, double y1) {
       left = NULL;
     }
   }
-  /* Every region is closed, so windings return to zero; reset anyway against rounding in dir sums. */
+  /* Every region is closed, so windings return to zero; reset anyway against rounding in dir sums.
+   */
   memset(s->wind, 0, s->n_reg * sizeof(int));
   return sum;
 }
@@ -532,7 +532,6 @@ static double sweep_area(const region *regs, guint n_reg) {
   g_array_free(s.edges, TRUE);
   return area;
 }
-
 
 double pp_path_clipped_area(const pp_path *path, pp_fill_rule rule, const pp_clip *clip) {
   if (!path)

@@ -16,7 +16,7 @@ typedef struct {
 } clip_poly;
 
 typedef struct {
-  pp_rect box; /* intersection of the rectangular clips */
+  pp_rect box;     /* intersection of the rectangular clips */
   GArray *general; /* of clip_poly */
   double eps;
 } clip_set;
@@ -49,9 +49,9 @@ static gboolean in_clip(const clip_set *cs, pp_point p) {
   return TRUE;
 }
 
-
-
-static double poly3(const double *c, double t) { return ((c[3] * t + c[2]) * t + c[1]) * t + c[0]; }
+static double poly3(const double *c, double t) {
+  return ((c[3] * t + c[2]) * t + c[1]) * t + c[0];
+}
 
 /* Roots in [0,1] of c0 + c1 t + c2 t² + c3 t³: the derivative's roots split [0,1] into
  * monotone stretches, each bisected — slow but never misses a simple root. */
@@ -133,7 +133,6 @@ static void cut_line(const pp_point *p, int n, pp_point c, pp_point d, gboolean 
   g_array_set_size(ts, k);
 }
 
-
 static gboolean boxes_overlap(pp_rect a, pp_rect b) {
   return a.x0 <= b.x1 && b.x0 <= a.x1 && a.y0 <= b.y1 && b.y0 <= a.y1;
 }
@@ -147,8 +146,8 @@ static double segment_inside(const clip_set *cs, const pp_point *p, int n, GArra
     return 0;
   if (!boxes_overlap(sb, cs->box))
     return 0;
-  gboolean inner = sb.x0 > cs->box.x0 && sb.x1 < cs->box.x1 && sb.y0 > cs->box.y0 &&
-                   sb.y1 < cs->box.y1;
+  gboolean inner =
+      sb.x0 > cs->box.x0 && sb.x1 < cs->box.x1 && sb.y0 > cs->box.y0 && sb.y1 < cs->box.y1;
   if (inner && cs->general->len == 0)
     return full; /* the common case: a mark well inside its plot-area clip */
   g_array_set_size(ts, 0);
@@ -208,7 +207,6 @@ static double segment_inside(const clip_set *cs, const pp_point *p, int n, GArra
   return sum;
 }
 
-
 double pp_path_clipped_length(const pp_path *path, const pp_clip *clip) {
   if (!path)
     return 0;
@@ -219,8 +217,8 @@ double pp_path_clipped_length(const pp_path *path, const pp_clip *clip) {
   pp_rect scene = pp_path_bbox(path);
   if (pp_rect_is_empty(scene))
     return 0;
-  clip_set cs = {{-INFINITY, -INFINITY, INFINITY, INFINITY},
-                 g_array_new(FALSE, FALSE, sizeof(clip_poly)), 0};
+  clip_set cs = {
+      {-INFINITY, -INFINITY, INFINITY, INFINITY}, g_array_new(FALSE, FALSE, sizeof(clip_poly)), 0};
   double result = 0;
   for (const pp_clip *c = clip; c; c = c->parent) {
     if (!c->path)
@@ -259,9 +257,7 @@ double pp_path_clipped_length(const pp_path *path, const pp_clip *clip) {
     const pp_seg *s = &path->segs[i];
     pp_point p[4];
     switch (s->kind) {
-    case PP_SEG_MOVE:
-      start = cur = s->pt[0];
-      break;
+    case PP_SEG_MOVE: start = cur = s->pt[0]; break;
     case PP_SEG_LINE:
     case PP_SEG_CLOSE:
       p[0] = cur, p[1] = s->kind == PP_SEG_LINE ? s->pt[0] : start;

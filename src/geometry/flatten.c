@@ -14,8 +14,8 @@ static double dist_to_segment(pp_point p, pp_point a, pp_point b) {
 /* The curve lies in its control hull, so control points within tol of the chord
  * bound the chord's deviation by tol. */
 static void flatten_cubic(GArray *out, const pp_point *p, double tol, int depth) {
-  if (depth >= 24 || (dist_to_segment(p[1], p[0], p[3]) <= tol &&
-                      dist_to_segment(p[2], p[0], p[3]) <= tol)) {
+  if (depth >= 24 ||
+      (dist_to_segment(p[1], p[0], p[3]) <= tol && dist_to_segment(p[2], p[0], p[3]) <= tol)) {
     g_array_append_val(out, p[3]);
     return;
   }

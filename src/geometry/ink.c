@@ -21,9 +21,8 @@ void pp_scene_measure(pp_scene *scene) {
       m->ink = NAN;
     } else {
       m->visible_bbox = pp_rect_intersect(m->bbox, clip);
-      m->ink = pp_rect_is_empty(m->visible_bbox)
-                   ? 0.0
-                   : pp_path_clipped_area(m->path, m->rule, m->clip);
+      m->ink =
+          pp_rect_is_empty(m->visible_bbox) ? 0.0 : pp_path_clipped_area(m->path, m->rule, m->clip);
     }
   }
 }

@@ -17,10 +17,9 @@ static inline pp_point pp_cubic_point(const pp_point *p, double t) {
 /* Derivative of the cubic p[0..3] with respect to t. */
 static inline pp_point pp_cubic_tangent(const pp_point *p, double t) {
   double s = 1 - t;
-  return (pp_point){3 * (s * s * (p[1].x - p[0].x) + 2 * s * t * (p[2].x - p[1].x) +
-                         t * t * (p[3].x - p[2].x)),
-                    3 * (s * s * (p[1].y - p[0].y) + 2 * s * t * (p[2].y - p[1].y) +
-                         t * t * (p[3].y - p[2].y))};
+  return (pp_point){
+      3 * (s * s * (p[1].x - p[0].x) + 2 * s * t * (p[2].x - p[1].x) + t * t * (p[3].x - p[2].x)),
+      3 * (s * s * (p[1].y - p[0].y) + 2 * s * t * (p[2].y - p[1].y) + t * t * (p[3].y - p[2].y))};
 }
 
 /* Every coordinate finite: NaN or infinity anywhere makes a measure undefined. */

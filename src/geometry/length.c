@@ -46,9 +46,7 @@ double pp_path_length(const pp_path *path) {
   for (size_t i = 0; i < path->n_segs; i++) {
     const pp_seg *s = &path->segs[i];
     switch (s->kind) {
-    case PP_SEG_MOVE:
-      start = cur = s->pt[0];
-      break;
+    case PP_SEG_MOVE: start = cur = s->pt[0]; break;
     case PP_SEG_LINE:
       sum += hypot(s->pt[0].x - cur.x, s->pt[0].y - cur.y);
       cur = s->pt[0];

@@ -12,8 +12,8 @@
 #define PP_AXIS_MAX_RESIDUAL 0.02
 
 typedef struct {
-  double along;      /* position of the segment along the axis direction it marks */
-  double lo, hi;     /* extent across */
+  double along;  /* position of the segment along the axis direction it marks */
+  double lo, hi; /* extent across */
 } tick_seg;
 
 double pp_axis_value_at(const pp_axis *axis, double pos) {
@@ -324,9 +324,15 @@ static void split_runs(GPtrArray *sorted, gboolean vertical, GArray *segs, doubl
 }
 
 typedef double (*label_key)(const pp_label *l);
-static double key_x1(const pp_label *l) { return l->box.x1; }
-static double key_x0(const pp_label *l) { return l->box.x0; }
-static double key_cy(const pp_label *l) { return l->centre.y; }
+static double key_x1(const pp_label *l) {
+  return l->box.x1;
+}
+static double key_x0(const pp_label *l) {
+  return l->box.x0;
+}
+static double key_cy(const pp_label *l) {
+  return l->centre.y;
+}
 
 /* Tick labels read horizontally; a vertical axis may also have them turned a quarter
  * (R's default, las = 0), which keeps them in one column. */
@@ -335,8 +341,8 @@ static gboolean reads_along(const pp_label *l, gboolean vertical) {
 }
 
 /* Groups labels whose key agrees within tol; each group of 2+ becomes runs. */
-static void group_by(GPtrArray *labels, label_key key, double tol, gboolean vertical,
-                     GArray *segs, GPtrArray *out, GHashTable *taken) {
+static void group_by(GPtrArray *labels, label_key key, double tol, gboolean vertical, GArray *segs,
+                     GPtrArray *out, GHashTable *taken) {
   guint n = labels->len;
   gboolean *done = g_new0(gboolean, n);
   for (guint i = 0; i < n; i++) {

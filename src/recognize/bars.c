@@ -24,8 +24,8 @@ static double label_w(const pp_label *l, gboolean vertical) {
 
 /* Which side of the label row/column holds the plot, and how far it may reach
  * before another axis of the same orientation takes over. */
-static void across_limits(const pp_axis_candidate *axis, GPtrArray *all_axes, int side,
-                          double *lo, double *hi) {
+static void across_limits(const pp_axis_candidate *axis, GPtrArray *all_axes, int side, double *lo,
+                          double *hi) {
   gboolean vertical = axis->axis->vertical;
   pp_rect box = axis->axis->box;
   double edge = vertical ? (side > 0 ? box.x1 : box.x0) : (side > 0 ? box.y1 : box.y0);
@@ -348,7 +348,9 @@ static void attempt_undo(attempt *t, GArray *bars, GArray *sel, GPtrArray *label
     ((pp_label *)g_ptr_array_index(labels, k))->on_axis = t->claimed[k];
 }
 
-static void attempt_end(attempt *t) { g_free(t->claimed); }
+static void attempt_end(attempt *t) {
+  g_free(t->claimed);
+}
 
 /* Bars of one chart stand side by side across the axis (stacks are merged already);
  * two that overlap across it are neighbours in another direction, e.g. the touching

@@ -18,7 +18,8 @@ static gboolean behind_text(const pp_scene *scene, pp_rect r) {
     const pp_text_run *w = g_ptr_array_index(scene->words, i);
     pp_rect in = pp_rect_intersect(w->box, r);
     pp_number num;
-    if (pp_rect_width(in) >= 0.5 * pp_rect_width(r) && pp_rect_height(in) >= 0.5 * pp_rect_height(r) &&
+    if (pp_rect_width(in) >= 0.5 * pp_rect_width(r) &&
+        pp_rect_height(in) >= 0.5 * pp_rect_height(r) &&
         !pp_number_parse(w->text, PP_DECIMAL_UNKNOWN, &num))
       return TRUE;
   }
@@ -35,8 +36,8 @@ static guint count_hatching(const pp_scene *scene, pp_rect r) {
   guint n = 0;
   for (guint i = 0; i < scene->marks->len && n < 3; i++) {
     const pp_mark *m = g_ptr_array_index(scene->marks, i);
-    if (m->kind != PP_MARK_STROKE || m->path->n_segs != 2 ||
-        m->path->segs[1].kind != PP_SEG_LINE || !pp_rect_contains(r, m->bbox, 0.5))
+    if (m->kind != PP_MARK_STROKE || m->path->n_segs != 2 || m->path->segs[1].kind != PP_SEG_LINE ||
+        !pp_rect_contains(r, m->bbox, 0.5))
       continue;
     n += pp_rect_width(m->bbox) > 0.1 && pp_rect_height(m->bbox) > 0.1;
   }
@@ -88,8 +89,8 @@ GArray *pp_bar_candidates_collect(const pp_scene *scene, GHashTable *glyph_marks
     }
     if (dup)
       continue;
-    pp_bar_candidate c = {i, vis, clip, isnan(m->ink) ? pp_rect_area(vis) : m->ink, m->paint,
-                          FALSE};
+    pp_bar_candidate c = {i,        vis,  clip, isnan(m->ink) ? pp_rect_area(vis) : m->ink,
+                          m->paint, FALSE};
     g_array_append_val(out, c);
   }
   return out;

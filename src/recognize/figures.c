@@ -129,9 +129,9 @@ static pp_figure *line_figure(const pp_scene *scene, const pp_axis_candidate *ca
     double u0 = axis->vertical ? r.y0 : r.x0, u1 = axis->vertical ? r.y1 : r.x1;
     if (u0 < cand->span0 - 0.6 * span - 10 || u1 > cand->span1 + 0.6 * span + 10)
       continue;
-    gboolean beside = axis->vertical ? (cand->side > 0 ? r.x0 >= axis->box.x1 - 1
-                                                       : r.x1 <= axis->box.x0 + 1)
-                                     : TRUE;
+    gboolean beside = axis->vertical
+                          ? (cand->side > 0 ? r.x0 >= axis->box.x1 - 1 : r.x1 <= axis->box.x0 + 1)
+                          : TRUE;
     if (beside)
       box = pp_rect_union(box, r);
   }

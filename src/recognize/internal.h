@@ -30,7 +30,7 @@ typedef struct {
   gboolean category; /* consecutive years: labels of categories, never a value scale */
   char *reason;
   double label_edge; /* x of the label column's inner edge (vertical) or y (horizontal) */
-  int side;          /* +1: plot lies towards larger coordinates from the labels, −1 smaller, 0 unknown */
+  int side; /* +1: plot lies towards larger coordinates from the labels, −1 smaller, 0 unknown */
   double span0, span1; /* extent of the tick positions along the axis */
   GPtrArray *labels;   /* pp_label* (borrowed) */
 } pp_axis_candidate;
@@ -40,8 +40,8 @@ GPtrArray *pp_axes_find(const pp_scene *scene, GPtrArray *labels);
 /* A filled axis-aligned rectangle that could be a bar. */
 typedef struct {
   guint mark;
-  pp_rect rect;    /* visible part: path rectangle ∩ clip bbox */
-  pp_rect clip;    /* clip bbox (infinite when unclipped) */
+  pp_rect rect; /* visible part: path rectangle ∩ clip bbox */
+  pp_rect clip; /* clip bbox (infinite when unclipped) */
   double ink;
   pp_paint paint;
   gboolean used;
@@ -53,8 +53,8 @@ GArray *pp_bar_candidates_collect(const pp_scene *scene, GHashTable *glyph_marks
 /* A filled non-rectangular polygon that could be an area under a series. */
 typedef struct {
   guint mark;
-  GArray *points;  /* pp_point, flattened outline */
-  pp_rect rect;    /* visible bbox */
+  GArray *points; /* pp_point, flattened outline */
+  pp_rect rect;   /* visible bbox */
   pp_rect clip;
   double ink;
   pp_paint paint;

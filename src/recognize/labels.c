@@ -43,15 +43,14 @@ static gint find_path_minus(const pp_scene *scene, const pp_label *l) {
       continue;
     double w = pp_rect_width(r), t = pp_rect_height(r), cy = (r.y0 + r.y1) / 2;
     double gap = l->box.x0 - r.x1;
-    if (t > 0.05 && t < 0.1 * h && w > 0.15 * h && w < 0.6 * h && gap > -0.5 &&
-        gap < 0.3 * h && cy > l->box.y0 + 0.3 * h && cy < l->box.y0 + 0.8 * h)
+    if (t > 0.05 && t < 0.1 * h && w > 0.15 * h && w < 0.6 * h && gap > -0.5 && gap < 0.3 * h &&
+        cy > l->box.y0 + 0.3 * h && cy < l->box.y0 + 0.8 * h)
       return (gint)i;
   }
   return -1;
 }
 
-static void recover_minus_signs(const pp_scene *scene, GPtrArray *labels,
-                                GHashTable *glyph_marks) {
+static void recover_minus_signs(const pp_scene *scene, GPtrArray *labels, GHashTable *glyph_marks) {
   for (guint k = 0; k < labels->len; k++) {
     pp_label *l = g_ptr_array_index(labels, k);
     if (!g_ascii_isdigit(l->text[0]) || l->number.value <= 0 || l->angle != 0)

@@ -37,52 +37,144 @@ typedef struct {
 } unit_token;
 
 static const unit_token unit_tokens[] = {
-    {"%", TOK_PERCENT, 0}, {"\u066a", TOK_PERCENT, 0}, {"\uff05", TOK_PERCENT, 0},
+    {"%", TOK_PERCENT, 0},
+    {"\u066a", TOK_PERCENT, 0},
+    {"\uff05", TOK_PERCENT, 0},
     {"\u2030", TOK_PERMILLE, 0},
     /* magnitudes: English, German, French compact forms (see CLDR compact decimals) */
-    {"k", TOK_MULT, 3}, {"K", TOK_MULT, 3}, {"Tsd.", TOK_MULT, 3}, {"Tsd", TOK_MULT, 3},
-    {"thousand", TOK_MULT, 3}, {"Tausend", TOK_MULT, 3}, {"mille", TOK_MULT, 3},
-    {"millier", TOK_MULT, 3}, {"milliers", TOK_MULT, 3}, {"L", TOK_MULT, 5},
-    {"lakh", TOK_MULT, 5}, {"Lakh", TOK_MULT, 5}, {"lac", TOK_MULT, 5}, {"m", TOK_MULT, 6},
-    {"M", TOK_MULT, 6}, {"mn", TOK_MULT, 6}, {"Mn", TOK_MULT, 6}, {"MN", TOK_MULT, 6},
-    {"MM", TOK_MULT, 6}, {"Mio.", TOK_MULT, 6}, {"Mio", TOK_MULT, 6}, {"million", TOK_MULT, 6},
-    {"millions", TOK_MULT, 6}, {"Million", TOK_MULT, 6}, {"Millionen", TOK_MULT, 6},
-    {"Cr", TOK_MULT, 7}, {"crore", TOK_MULT, 7}, {"Crore", TOK_MULT, 7}, {"bn", TOK_MULT, 9},
-    {"Bn", TOK_MULT, 9}, {"BN", TOK_MULT, 9}, {"B", TOK_MULT, 9}, {"Mrd.", TOK_MULT, 9},
-    {"Mrd", TOK_MULT, 9}, {"Md", TOK_MULT, 9}, {"Mds", TOK_MULT, 9}, {"billion", TOK_MULT, 9},
-    {"Milliarde", TOK_MULT, 9}, {"Milliarden", TOK_MULT, 9}, {"milliard", TOK_MULT, 9},
-    {"milliards", TOK_MULT, 9}, {"tn", TOK_MULT, 12}, {"Tn", TOK_MULT, 12}, {"T", TOK_MULT, 12},
-    {"Bio.", TOK_MULT, 12}, {"Bio", TOK_MULT, 12}, {"trillion", TOK_MULT, 12},
+    {"k", TOK_MULT, 3},
+    {"K", TOK_MULT, 3},
+    {"Tsd.", TOK_MULT, 3},
+    {"Tsd", TOK_MULT, 3},
+    {"thousand", TOK_MULT, 3},
+    {"Tausend", TOK_MULT, 3},
+    {"mille", TOK_MULT, 3},
+    {"millier", TOK_MULT, 3},
+    {"milliers", TOK_MULT, 3},
+    {"L", TOK_MULT, 5},
+    {"lakh", TOK_MULT, 5},
+    {"Lakh", TOK_MULT, 5},
+    {"lac", TOK_MULT, 5},
+    {"m", TOK_MULT, 6},
+    {"M", TOK_MULT, 6},
+    {"mn", TOK_MULT, 6},
+    {"Mn", TOK_MULT, 6},
+    {"MN", TOK_MULT, 6},
+    {"MM", TOK_MULT, 6},
+    {"Mio.", TOK_MULT, 6},
+    {"Mio", TOK_MULT, 6},
+    {"million", TOK_MULT, 6},
+    {"millions", TOK_MULT, 6},
+    {"Million", TOK_MULT, 6},
+    {"Millionen", TOK_MULT, 6},
+    {"Cr", TOK_MULT, 7},
+    {"crore", TOK_MULT, 7},
+    {"Crore", TOK_MULT, 7},
+    {"bn", TOK_MULT, 9},
+    {"Bn", TOK_MULT, 9},
+    {"BN", TOK_MULT, 9},
+    {"B", TOK_MULT, 9},
+    {"Mrd.", TOK_MULT, 9},
+    {"Mrd", TOK_MULT, 9},
+    {"Md", TOK_MULT, 9},
+    {"Mds", TOK_MULT, 9},
+    {"billion", TOK_MULT, 9},
+    {"Milliarde", TOK_MULT, 9},
+    {"Milliarden", TOK_MULT, 9},
+    {"milliard", TOK_MULT, 9},
+    {"milliards", TOK_MULT, 9},
+    {"tn", TOK_MULT, 12},
+    {"Tn", TOK_MULT, 12},
+    {"T", TOK_MULT, 12},
+    {"Bio.", TOK_MULT, 12},
+    {"Bio", TOK_MULT, 12},
+    {"trillion", TOK_MULT, 12},
     {"Billionen", TOK_MULT, 12},
     /* currency symbols, then ISO 4217 codes in common use ("RMB" is not ISO but is printed) */
-    {"$", TOK_CURRENCY, 0}, {"\u20ac", TOK_CURRENCY, 0}, {"\u00a3", TOK_CURRENCY, 0},
-    {"\u00a5", TOK_CURRENCY, 0}, {"\u20b9", TOK_CURRENCY, 0}, {"\u20a9", TOK_CURRENCY, 0},
-    {"\u20bd", TOK_CURRENCY, 0}, {"\u20ba", TOK_CURRENCY, 0}, {"\u20aa", TOK_CURRENCY, 0},
-    {"\u20ab", TOK_CURRENCY, 0}, {"\u20a6", TOK_CURRENCY, 0}, {"\u20b1", TOK_CURRENCY, 0},
-    {"\u20b4", TOK_CURRENCY, 0}, {"\u0e3f", TOK_CURRENCY, 0}, {"\u00a2", TOK_CURRENCY, 0},
-    {"US$", TOK_CURRENCY, 0}, {"A$", TOK_CURRENCY, 0}, {"AU$", TOK_CURRENCY, 0},
-    {"C$", TOK_CURRENCY, 0}, {"CA$", TOK_CURRENCY, 0}, {"NZ$", TOK_CURRENCY, 0},
-    {"HK$", TOK_CURRENCY, 0}, {"S$", TOK_CURRENCY, 0}, {"R$", TOK_CURRENCY, 0},
-    {"MX$", TOK_CURRENCY, 0}, {"$US", TOK_CURRENCY, 0}, {"$CA", TOK_CURRENCY, 0},
-    {"$AU", TOK_CURRENCY, 0}, {"Fr.", TOK_CURRENCY, 0}, {"fr.", TOK_CURRENCY, 0},
-    {"kr", TOK_CURRENCY, 0}, {"kr.", TOK_CURRENCY, 0}, {"Kr", TOK_CURRENCY, 0},
-    {"z\u0142", TOK_CURRENCY, 0}, {"K\u010d", TOK_CURRENCY, 0}, {"Ft", TOK_CURRENCY, 0},
-    {"Rs", TOK_CURRENCY, 0}, {"Rs.", TOK_CURRENCY, 0}, {"USD", TOK_CURRENCY, 0},
-    {"EUR", TOK_CURRENCY, 0}, {"GBP", TOK_CURRENCY, 0}, {"JPY", TOK_CURRENCY, 0},
-    {"CHF", TOK_CURRENCY, 0}, {"CNY", TOK_CURRENCY, 0}, {"RMB", TOK_CURRENCY, 0},
-    {"CAD", TOK_CURRENCY, 0}, {"AUD", TOK_CURRENCY, 0}, {"NZD", TOK_CURRENCY, 0},
-    {"SEK", TOK_CURRENCY, 0}, {"NOK", TOK_CURRENCY, 0}, {"DKK", TOK_CURRENCY, 0},
-    {"ISK", TOK_CURRENCY, 0}, {"INR", TOK_CURRENCY, 0}, {"RUB", TOK_CURRENCY, 0},
-    {"BRL", TOK_CURRENCY, 0}, {"ZAR", TOK_CURRENCY, 0}, {"HKD", TOK_CURRENCY, 0},
-    {"SGD", TOK_CURRENCY, 0}, {"KRW", TOK_CURRENCY, 0}, {"MXN", TOK_CURRENCY, 0},
-    {"PLN", TOK_CURRENCY, 0}, {"CZK", TOK_CURRENCY, 0}, {"HUF", TOK_CURRENCY, 0},
-    {"TRY", TOK_CURRENCY, 0}, {"ILS", TOK_CURRENCY, 0}, {"AED", TOK_CURRENCY, 0},
-    {"SAR", TOK_CURRENCY, 0}, {"THB", TOK_CURRENCY, 0}, {"IDR", TOK_CURRENCY, 0},
-    {"MYR", TOK_CURRENCY, 0}, {"PHP", TOK_CURRENCY, 0}, {"TWD", TOK_CURRENCY, 0},
-    {"ARS", TOK_CURRENCY, 0}, {"CLP", TOK_CURRENCY, 0}, {"COP", TOK_CURRENCY, 0},
-    {"PEN", TOK_CURRENCY, 0}, {"UAH", TOK_CURRENCY, 0}, {"RON", TOK_CURRENCY, 0},
-    {"BGN", TOK_CURRENCY, 0}, {"EGP", TOK_CURRENCY, 0}, {"NGN", TOK_CURRENCY, 0},
-    {"KES", TOK_CURRENCY, 0}, {"PKR", TOK_CURRENCY, 0}, {"VND", TOK_CURRENCY, 0},
+    {"$", TOK_CURRENCY, 0},
+    {"\u20ac", TOK_CURRENCY, 0},
+    {"\u00a3", TOK_CURRENCY, 0},
+    {"\u00a5", TOK_CURRENCY, 0},
+    {"\u20b9", TOK_CURRENCY, 0},
+    {"\u20a9", TOK_CURRENCY, 0},
+    {"\u20bd", TOK_CURRENCY, 0},
+    {"\u20ba", TOK_CURRENCY, 0},
+    {"\u20aa", TOK_CURRENCY, 0},
+    {"\u20ab", TOK_CURRENCY, 0},
+    {"\u20a6", TOK_CURRENCY, 0},
+    {"\u20b1", TOK_CURRENCY, 0},
+    {"\u20b4", TOK_CURRENCY, 0},
+    {"\u0e3f", TOK_CURRENCY, 0},
+    {"\u00a2", TOK_CURRENCY, 0},
+    {"US$", TOK_CURRENCY, 0},
+    {"A$", TOK_CURRENCY, 0},
+    {"AU$", TOK_CURRENCY, 0},
+    {"C$", TOK_CURRENCY, 0},
+    {"CA$", TOK_CURRENCY, 0},
+    {"NZ$", TOK_CURRENCY, 0},
+    {"HK$", TOK_CURRENCY, 0},
+    {"S$", TOK_CURRENCY, 0},
+    {"R$", TOK_CURRENCY, 0},
+    {"MX$", TOK_CURRENCY, 0},
+    {"$US", TOK_CURRENCY, 0},
+    {"$CA", TOK_CURRENCY, 0},
+    {"$AU", TOK_CURRENCY, 0},
+    {"Fr.", TOK_CURRENCY, 0},
+    {"fr.", TOK_CURRENCY, 0},
+    {"kr", TOK_CURRENCY, 0},
+    {"kr.", TOK_CURRENCY, 0},
+    {"Kr", TOK_CURRENCY, 0},
+    {"z\u0142", TOK_CURRENCY, 0},
+    {"K\u010d", TOK_CURRENCY, 0},
+    {"Ft", TOK_CURRENCY, 0},
+    {"Rs", TOK_CURRENCY, 0},
+    {"Rs.", TOK_CURRENCY, 0},
+    {"USD", TOK_CURRENCY, 0},
+    {"EUR", TOK_CURRENCY, 0},
+    {"GBP", TOK_CURRENCY, 0},
+    {"JPY", TOK_CURRENCY, 0},
+    {"CHF", TOK_CURRENCY, 0},
+    {"CNY", TOK_CURRENCY, 0},
+    {"RMB", TOK_CURRENCY, 0},
+    {"CAD", TOK_CURRENCY, 0},
+    {"AUD", TOK_CURRENCY, 0},
+    {"NZD", TOK_CURRENCY, 0},
+    {"SEK", TOK_CURRENCY, 0},
+    {"NOK", TOK_CURRENCY, 0},
+    {"DKK", TOK_CURRENCY, 0},
+    {"ISK", TOK_CURRENCY, 0},
+    {"INR", TOK_CURRENCY, 0},
+    {"RUB", TOK_CURRENCY, 0},
+    {"BRL", TOK_CURRENCY, 0},
+    {"ZAR", TOK_CURRENCY, 0},
+    {"HKD", TOK_CURRENCY, 0},
+    {"SGD", TOK_CURRENCY, 0},
+    {"KRW", TOK_CURRENCY, 0},
+    {"MXN", TOK_CURRENCY, 0},
+    {"PLN", TOK_CURRENCY, 0},
+    {"CZK", TOK_CURRENCY, 0},
+    {"HUF", TOK_CURRENCY, 0},
+    {"TRY", TOK_CURRENCY, 0},
+    {"ILS", TOK_CURRENCY, 0},
+    {"AED", TOK_CURRENCY, 0},
+    {"SAR", TOK_CURRENCY, 0},
+    {"THB", TOK_CURRENCY, 0},
+    {"IDR", TOK_CURRENCY, 0},
+    {"MYR", TOK_CURRENCY, 0},
+    {"PHP", TOK_CURRENCY, 0},
+    {"TWD", TOK_CURRENCY, 0},
+    {"ARS", TOK_CURRENCY, 0},
+    {"CLP", TOK_CURRENCY, 0},
+    {"COP", TOK_CURRENCY, 0},
+    {"PEN", TOK_CURRENCY, 0},
+    {"UAH", TOK_CURRENCY, 0},
+    {"RON", TOK_CURRENCY, 0},
+    {"BGN", TOK_CURRENCY, 0},
+    {"EGP", TOK_CURRENCY, 0},
+    {"NGN", TOK_CURRENCY, 0},
+    {"KES", TOK_CURRENCY, 0},
+    {"PKR", TOK_CURRENCY, 0},
+    {"VND", TOK_CURRENCY, 0},
 };
 
 /* Separator classes after folding the look-alikes: all spaces are one class, ' and ’ another. */
@@ -90,8 +182,7 @@ enum { SEP_NONE = 0, SEP_POINT = '.', SEP_COMMA = ',', SEP_SPACE = ' ', SEP_APOS
 
 #define MAX_GROUPS 32
 
-static gunichar char_at(const char *p, const char *end, size_t *len)
-{
+static gunichar char_at(const char *p, const char *end, size_t *len) {
   if (p >= end) {
     *len = 0;
     return 0;
@@ -101,19 +192,16 @@ static gunichar char_at(const char *p, const char *end, size_t *len)
   return g_utf8_get_char(p);
 }
 
-static gboolean is_gap(gunichar c)
-{
+static gboolean is_gap(gunichar c) {
   return c == ' ' || c == '\t' || c == 0x00A0 || c == 0x202F || c == 0x2009 || c == 0x2007;
 }
 
-static gboolean is_trim(gunichar c)
-{
+static gboolean is_trim(gunichar c) {
   return is_gap(c) || c == '\n' || c == '\r' || c == '\v' || c == '\f' || c == 0x200B ||
          c == 0xFEFF;
 }
 
-static int sep_class(gunichar c)
-{
+static int sep_class(gunichar c) {
   if (c == '.')
     return SEP_POINT;
   if (c == ',')
@@ -126,8 +214,7 @@ static int sep_class(gunichar c)
 }
 
 /* Returns the sign length at p, or 0; *neg tells which sign. */
-static size_t match_sign(const char *p, const char *end, gboolean *neg)
-{
+static size_t match_sign(const char *p, const char *end, gboolean *neg) {
   size_t len;
   gunichar c = char_at(p, end, &len);
   *neg = c == '-' || c == 0x2212 || c == 0x2013;
@@ -136,8 +223,7 @@ static size_t match_sign(const char *p, const char *end, gboolean *neg)
 
 /* Longest unit token at p; a token ending in a letter must not run on into another letter, so
  * "km" is neither "k" nor "kr" and "EURO" is not "EUR". */
-static const unit_token *match_unit(const char *p, const char *end, size_t *len)
-{
+static const unit_token *match_unit(const char *p, const char *end, size_t *len) {
   const unit_token *best = NULL;
   size_t best_len = 0;
   for (size_t i = 0; i < G_N_ELEMENTS(unit_tokens); i++) {
@@ -153,8 +239,7 @@ static const unit_token *match_unit(const char *p, const char *end, size_t *len)
   return best;
 }
 
-static const char *skip_gaps(const char *p, const char *end)
-{
+static const char *skip_gaps(const char *p, const char *end) {
   size_t len;
   while (p < end && is_gap(char_at(p, end, &len)))
     p += len;
@@ -162,8 +247,7 @@ static const char *skip_gaps(const char *p, const char *end)
 }
 
 /* Western groups are 3s; Indian (lakh) grouping is 3 then 2s, only ever written with ','. */
-static gboolean groups_valid(const int *glen, int nint, const char *first_digit, int sep)
-{
+static gboolean groups_valid(const int *glen, int nint, const char *first_digit, int sep) {
   if (nint == 1)
     return TRUE;
   if (glen[0] < 1 || glen[0] > 3 || first_digit[0] == '0' || glen[nint - 1] != 3)
@@ -176,8 +260,7 @@ static gboolean groups_valid(const int *glen, int nint, const char *first_digit,
   return western || indian;
 }
 
-static int superscript_digit(gunichar c)
-{
+static int superscript_digit(gunichar c) {
   static const gunichar sup[10] = {0x2070, 0x00B9, 0x00B2, 0x00B3, 0x2074,
                                    0x2075, 0x2076, 0x2077, 0x2078, 0x2079};
   for (int i = 0; i < 10; i++)
@@ -188,8 +271,7 @@ static int superscript_digit(gunichar c)
 
 /* The digits of an exponent: ASCII with an optional sign, or superscripts with an optional
  * superscript minus. Advances *pp only on success. */
-static gboolean parse_exponent_digits(const char **pp, const char *end, gboolean super, int *exp)
-{
+static gboolean parse_exponent_digits(const char **pp, const char *end, gboolean super, int *exp) {
   const char *q = *pp;
   size_t len;
   gboolean neg = FALSE;
@@ -217,8 +299,7 @@ static gboolean parse_exponent_digits(const char **pp, const char *end, gboolean
 
 /* Exponent after a mantissa: "E9", "e+06" (C, R, ICU), "×10^5" (CLDR sv and others),
  * "×10⁻³" with superscripts (typeset axes). Advances *pp only on success. */
-static gboolean parse_exponent(const char **pp, const char *end, int *exp)
-{
+static gboolean parse_exponent(const char **pp, const char *end, int *exp) {
   const char *q = *pp;
   size_t len;
   gboolean super = FALSE;
@@ -242,8 +323,7 @@ static gboolean parse_exponent(const char **pp, const char *end, int *exp)
 
 /* A bare power of ten right after the digits "10": "10^3", "10⁻²", as log axes print
  * their ticks (the text stage marks a raised exponent with '^'). */
-static gboolean parse_bare_power(const char **pp, const char *end, int *exp)
-{
+static gboolean parse_bare_power(const char **pp, const char *end, int *exp) {
   const char *q = *pp;
   size_t len;
   if (q >= end)
@@ -266,8 +346,7 @@ typedef struct {
 } label_state;
 
 static gboolean apply_unit(const unit_token *t, size_t len, const char *p, pp_number *out,
-                           label_state *st)
-{
+                           label_state *st) {
   switch (t->kind) {
   case TOK_CURRENCY:
     if (out->currency[0] || len >= sizeof out->currency)
@@ -295,8 +374,7 @@ static gboolean apply_unit(const unit_token *t, size_t len, const char *p, pp_nu
 /* Parses s..end under one definite convention. *last_dec_zero reports whether the final decimal
  * digit is '0', which the series chooser reads as a sign of a misread grouping ("1.000"). */
 static gboolean parse_strict(const char *s, const char *end, pp_decimal_mark conv, pp_number *out,
-                             gboolean *last_dec_zero)
-{
+                             gboolean *last_dec_zero) {
   const int dec_sep = conv == PP_DECIMAL_COMMA ? SEP_COMMA : SEP_POINT;
   label_state st = {0};
   const char *p = s;
@@ -440,9 +518,8 @@ static gboolean parse_strict(const char *s, const char *end, pp_decimal_mark con
     out->value = -out->value;
 
   out->year_like = !out->has_grouping && ndec == 0 && !has_exp && nint == 1 && glen[0] == 4 &&
-                   !st.signed_ && !st.paren_open && !out->currency[0] &&
-                   out->multiplier == 1.0 && !out->percent && !out->permille &&
-                   out->value >= 1800 && out->value <= 2199;
+                   !st.signed_ && !st.paren_open && !out->currency[0] && out->multiplier == 1.0 &&
+                   !out->percent && !out->permille && out->value >= 1800 && out->value <= 2199;
   ok = TRUE;
 done:
   g_string_free(digits, TRUE);
@@ -453,8 +530,7 @@ done:
 
 /* Trims, validates UTF-8 and parses under hint, trying both conventions for UNKNOWN. */
 static gboolean parse_label(const char *utf8, pp_decimal_mark hint, pp_number *out,
-                            gboolean *last_dec_zero)
-{
+                            gboolean *last_dec_zero) {
   pp_number a, b;
   gboolean za, zb;
   size_t len;
@@ -490,8 +566,7 @@ static gboolean parse_label(const char *utf8, pp_decimal_mark hint, pp_number *o
   return oka || okb;
 }
 
-gboolean pp_number_parse(const char *utf8, pp_decimal_mark hint, pp_number *out)
-{
+gboolean pp_number_parse(const char *utf8, pp_decimal_mark hint, pp_number *out) {
   gboolean last_dec_zero;
   return parse_label(utf8, hint, out, &last_dec_zero);
 }
@@ -499,8 +574,7 @@ gboolean pp_number_parse(const char *utf8, pp_decimal_mark hint, pp_number *out)
 /* Evidence that a reading is the intended one, for tick labels in axis order: evenly spaced
  * (linear or log axis), monotonic, same number of decimals, no decimal part that always ends in
  * '0' (a tick formatter never pads "1.5" to "1.500"). Weights only break ties between them. */
-static int pattern_score(const pp_number *v, const gboolean *ok, const gboolean *zero, size_t n)
-{
+static int pattern_score(const pp_number *v, const gboolean *ok, const gboolean *zero, size_t n) {
   double prev = 0;
   size_t m = 0;
   gboolean same_dec = TRUE, any_dec = FALSE, all_zero = TRUE, mono_up = TRUE, mono_down = TRUE;
@@ -554,8 +628,7 @@ static int pattern_score(const pp_number *v, const gboolean *ok, const gboolean 
   return score;
 }
 
-size_t pp_number_parse_series(const char *const *labels, size_t n, pp_number *out, gboolean *ok)
-{
+size_t pp_number_parse_series(const char *const *labels, size_t n, pp_number *out, gboolean *ok) {
   static const pp_decimal_mark conv[2] = {PP_DECIMAL_POINT, PP_DECIMAL_COMMA};
   pp_number *cand[2];
   gboolean *cok[2], *czero[2];
@@ -572,8 +645,8 @@ size_t pp_number_parse_series(const char *const *labels, size_t n, pp_number *ou
       cok[c][i] = parse_label(labels[i], conv[c], &cand[c][i], &czero[c][i]);
       count[c] += cok[c][i] ? 1 : 0;
     }
-    score[c] = (int)MIN(count[c], (size_t)1 << 20) * 16 +
-               pattern_score(cand[c], cok[c], czero[c], n);
+    score[c] =
+        (int)MIN(count[c], (size_t)1 << 20) * 16 + pattern_score(cand[c], cok[c], czero[c], n);
   }
   int pick = score[1] > score[0] ? 1 : 0;
   gboolean tie = score[0] == score[1];

@@ -1,6 +1,7 @@
 /* number.h — turns one tick or data label string ("1.234,5", "$1.2bn", "(45 %)") into a number
- * plus the notation facts the recognition stage needs (decimal mark, grouping, unit, year-likeness).
- * Stage-internal: only src/recognize uses it. Grammar and choices are documented in number.c. */
+ * plus the notation facts the recognition stage needs (decimal mark, grouping, unit,
+ * year-likeness). Stage-internal: only src/recognize uses it. Grammar and choices are documented in
+ * number.c. */
 #pragma once
 
 #include <glib.h>

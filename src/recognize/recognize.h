@@ -18,21 +18,21 @@ typedef enum {
 const char *pp_figure_kind_name(pp_figure_kind kind);
 
 typedef struct {
-  double pos;    /* page points along the axis (x for a horizontal axis, y for vertical) */
-  double value;  /* as printed */
+  double pos;   /* page points along the axis (x for a horizontal axis, y for vertical) */
+  double value; /* as printed */
   char *label;
 } pp_tick;
 
 /* A value axis: value = offset + slope·pos, or on a log axis
  * log10(value) = offset + slope·pos. */
 typedef struct {
-  gboolean vertical;  /* values change along y */
+  gboolean vertical; /* values change along y */
   gboolean log;
   double offset, slope;
   double rms_residual; /* of the least-squares fit, in value units (log10 units on log axes) */
   double min_value, max_value; /* of the visible axis range (plot area edges) */
-  GArray *ticks;      /* of pp_tick */
-  pp_rect box;        /* the tick labels' extent */
+  GArray *ticks;               /* of pp_tick */
+  pp_rect box;                 /* the tick labels' extent */
 } pp_axis;
 
 /* An empty axis (no ticks yet); freed with its tick labels. */
@@ -57,19 +57,19 @@ typedef struct {
   double extent;      /* visible length along the value axis (bars) or mean height (areas), pt */
   double label_value; /* printed data label attached to it, NAN if none */
   char *label_text;
-  char *category;     /* category label, NULL if none was found */
-  guint series;       /* colour group, 0-based */
-  gboolean stacked;   /* sits on another bar */
+  char *category;   /* category label, NULL if none was found */
+  guint series;     /* colour group, 0-based */
+  gboolean stacked; /* sits on another bar */
 } pp_element;
 
 typedef struct {
   pp_figure_kind kind;
-  pp_rect bbox;       /* plot area, page points */
-  pp_axis *axis;      /* NULL when the chart has no readable value axis */
-  GArray *elements;   /* of pp_element, category order (left→right, top→bottom) */
+  pp_rect bbox;     /* plot area, page points */
+  pp_axis *axis;    /* NULL when the chart has no readable value axis */
+  GArray *elements; /* of pp_element, category order (left→right, top→bottom) */
   guint n_series;
-  char *fingerprint;  /* stable content hash: values, labels, kind; no page number */
-  char *title;        /* nearest title-like text above, NULL if none */
+  char *fingerprint; /* stable content hash: values, labels, kind; no page number */
+  char *title;       /* nearest title-like text above, NULL if none */
 } pp_figure;
 
 /* An empty figure; frees its axis, elements' strings, fingerprint and title. */

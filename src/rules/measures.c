@@ -29,7 +29,9 @@ double pp_gdi(double v1, double v2, double g1, double g2) {
 
 /* Pairs are compared only when both values have the same sign and neither is
  * zero: a ratio across zero says nothing about proportional ink. */
-static gboolean comparable(double a, double b) { return a != 0 && b != 0 && (a > 0) == (b > 0); }
+static gboolean comparable(double a, double b) {
+  return a != 0 && b != 0 && (a > 0) == (b > 0);
+}
 
 void pp_measures_compute(const double *values, const double *inks, const guint *series, guint n,
                          double baseline, pp_measures *out) {

@@ -25,10 +25,10 @@ const pp_rule_info *pp_rules_list(guint *n) {
 
 pp_thresholds pp_thresholds_default(void) {
   return (pp_thresholds){
-      .lie_band_low = 0.95,  /* Tufte (1983) p. 57: 0.95–1.05 is "accurate" */
+      .lie_band_low = 0.95, /* Tufte (1983) p. 57: 0.95–1.05 is "accurate" */
       .lie_band_high = 1.05,
-      .gdi_material = 10.0,  /* ±10%: the materiality convention (Steinbart 1989; Beattie & Jones) */
-      .gross_factor = 2.0,   /* ink off by a factor 2: common practice, no source */
+      .gdi_material = 10.0, /* ±10%: the materiality convention (Steinbart 1989; Beattie & Jones) */
+      .gross_factor = 2.0,  /* ink off by a factor 2: common practice, no source */
       .label_tolerance = 0.05, /* 5% between a bar and its label: common practice, no source */
   };
 }
@@ -59,7 +59,8 @@ static gboolean outside_band(const pp_measures *m, const pp_thresholds *t) {
 
 static pp_severity grade(const pp_measures *m, const pp_thresholds *t) {
   double lf = isfinite(m->lie_factor) ? m->lie_factor : 1;
-  double worst = fmax(fmax(lf, 1 / lf), isfinite(m->max_pair_departure) ? m->max_pair_departure : 1);
+  double worst =
+      fmax(fmax(lf, 1 / lf), isfinite(m->max_pair_departure) ? m->max_pair_departure : 1);
   if (worst >= t->gross_factor)
     return PP_SEVERITY_GROSS;
   if ((isfinite(m->gdi) && fabs(m->gdi) > t->gdi_material) || worst > 1 + t->gdi_material / 100)
@@ -101,8 +102,10 @@ static char *comparison(const pp_finding *f, const char *noun, const pp_threshol
 
 static void fill_bbox(pp_finding *f, const pp_figure *fig, const pp_scene *scene) {
   f->bbox = fig->bbox;
-  pp_point c[4] = {{fig->bbox.x0, fig->bbox.y0}, {fig->bbox.x1, fig->bbox.y0},
-                   {fig->bbox.x0, fig->bbox.y1}, {fig->bbox.x1, fig->bbox.y1}};
+  pp_point c[4] = {{fig->bbox.x0, fig->bbox.y0},
+                   {fig->bbox.x1, fig->bbox.y0},
+                   {fig->bbox.x0, fig->bbox.y1},
+                   {fig->bbox.x1, fig->bbox.y1}};
   f->pdf_bbox = pp_rect_empty();
   for (int i = 0; i < 4; i++)
     f->pdf_bbox = pp_rect_add_point(f->pdf_bbox, pp_matrix_apply(scene->to_pdf, c[i]));
@@ -186,8 +189,8 @@ static gboolean labels_disagree(const pp_figure *fig, const pp_thresholds *t, gu
   return bad > 0;
 }
 
-void pp_rules_check_figure(const pp_figure *fig, const pp_scene *scene,
-                           const pp_thresholds *t, GPtrArray *findings) {
+void pp_rules_check_figure(const pp_figure *fig, const pp_scene *scene, const pp_thresholds *t,
+                           GPtrArray *findings) {
   if (fig->elements->len < 2)
     return;
   gboolean bars = fig->kind == PP_FIGURE_COLUMN || fig->kind == PP_FIGURE_BAR;
@@ -205,8 +208,8 @@ void pp_rules_check_figure(const pp_figure *fig, const pp_scene *scene,
     pp_finding *f = finding_new(fig, scene, RULE_BARS_ON_LOG, FALSE);
     char *lo = pp_format_value(fig->axis->min_value), *hi = pp_format_value(fig->axis->max_value);
     emit(findings, f, t,
-         g_strdup_printf("bars on a logarithmic axis (%s to %s), so length cannot follow value",
-                         lo, hi),
+         g_strdup_printf("bars on a logarithmic axis (%s to %s), so length cannot follow value", lo,
+                         hi),
          "bar");
     g_free(lo), g_free(hi);
     return;

@@ -8,7 +8,7 @@
 G_BEGIN_DECLS
 
 typedef enum {
-  PP_SEVERITY_NOTE,   /* outside the band but below materiality */
+  PP_SEVERITY_NOTE, /* outside the band but below materiality */
   PP_SEVERITY_MATERIAL,
   PP_SEVERITY_GROSS,
 } pp_severity;
@@ -18,8 +18,8 @@ const char *pp_severity_name(pp_severity s);
 typedef struct {
   double lie_band_low, lie_band_high; /* Tufte: 0.95–1.05 */
   double gdi_material;                /* percent; accounting literature: 10 */
-  double gross_factor;                /* lie factor beyond which a finding is gross: 2 (no source) */
-  double label_tolerance;             /* relative; bar-vs-label disagreement tolerated: 0.05 (no source) */
+  double gross_factor;    /* lie factor beyond which a finding is gross: 2 (no source) */
+  double label_tolerance; /* relative; bar-vs-label disagreement tolerated: 0.05 (no source) */
 } pp_thresholds;
 
 pp_thresholds pp_thresholds_default(void);
@@ -27,13 +27,13 @@ pp_thresholds pp_thresholds_default(void);
 /* The measures for one figure: ink versus value of its first and last elements
  * and of the worst pair. NAN where undefined. */
 typedef struct {
-  double lie_factor;          /* growth-factor definition: (ink_last/ink_first)/(v_last/v_first) */
-  double lie_factor_change;   /* Tufte's ratio of relative changes */
-  double gdi;                 /* 100·(lie_factor_change − 1) */
-  double baseline_value;      /* value where the ink starts */
-  double max_pair_departure;  /* max over pairs of (ink_i/ink_j)/(v_i/v_j) ≥ 1 */
-  guint first, last;          /* element indices used */
-  guint pair_i, pair_j;       /* the worst pair */
+  double lie_factor;         /* growth-factor definition: (ink_last/ink_first)/(v_last/v_first) */
+  double lie_factor_change;  /* Tufte's ratio of relative changes */
+  double gdi;                /* 100·(lie_factor_change − 1) */
+  double baseline_value;     /* value where the ink starts */
+  double max_pair_departure; /* max over pairs of (ink_i/ink_j)/(v_i/v_j) ≥ 1 */
+  guint first, last;         /* element indices used */
+  guint pair_i, pair_j;      /* the worst pair */
 } pp_measures;
 
 /* Lie factors from two values and two ink amounts (exposed for tests). */
@@ -42,18 +42,18 @@ double pp_lie_factor_change(double v1, double v2, double g1, double g2);
 double pp_gdi(double v1, double v2, double g1, double g2);
 
 typedef struct {
-  char *id;          /* fingerprint of figure + rule */
-  guint page;        /* 1-based */
-  pp_rect bbox;      /* page points, top-left origin */
-  pp_rect pdf_bbox;  /* PDF user space, bottom-left origin */
+  char *id;         /* fingerprint of figure + rule */
+  guint page;       /* 1-based */
+  pp_rect bbox;     /* page points, top-left origin */
+  pp_rect pdf_bbox; /* PDF user space, bottom-left origin */
   pp_figure_kind figure_kind;
-  const char *rule;  /* rule id, static string */
+  const char *rule; /* rule id, static string */
   pp_severity severity;
   pp_measures measures;
-  GArray *values;    /* of double: the values the marks stand for */
-  GArray *inks;      /* of double: their visible ink, pt² */
+  GArray *values;        /* of double: the values the marks stand for */
+  GArray *inks;          /* of double: their visible ink, pt² */
   GPtrArray *categories; /* of char* (may hold NULL) */
-  char *message;     /* one plain sentence with the numbers */
+  char *message;         /* one plain sentence with the numbers */
 } pp_finding;
 
 void pp_finding_free(pp_finding *f);

@@ -10,8 +10,8 @@
 #include <cmocka.h>
 #include <glib/gstdio.h>
 
-#include "recognize/recognize.h"
 #include "geometry/geometry.h"
+#include "recognize/recognize.h"
 
 /* The chart: a plot box, a linear value axis [lo, hi] mapped onto it, bars of known
  * values, tick labels as real text. */

@@ -63,8 +63,10 @@ static void test_format(void **state) {
 
 int main(void) {
   const struct CMUnitTest tests[] = {
-      cmocka_unit_test(test_truncated_check_value), cmocka_unit_test(test_growth_case),
-      cmocka_unit_test(test_honest_is_one),         cmocka_unit_test(test_measures_pairs),
+      cmocka_unit_test(test_truncated_check_value),
+      cmocka_unit_test(test_growth_case),
+      cmocka_unit_test(test_honest_is_one),
+      cmocka_unit_test(test_measures_pairs),
       cmocka_unit_test(test_format),
   };
   return cmocka_run_group_tests_name("rules/measures", tests, NULL, NULL);
