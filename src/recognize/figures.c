@@ -180,17 +180,41 @@ static void add_figure(pp_page_charts *out, const pp_scene *scene, pp_figure *f,
   g_ptr_array_add(out->figures, f);
 }
 
-/* Are there unused bars beside this axis? Then its failed scale matters. */
-static gboolean has_marks_beside(GArray *bars, const pp_axis_candidate *c) {
-  guint n = 0;
+/* Is there an unread bar chart beside this axis? Then its failed scale matters: three
+ * or more unused bars within reach that share an edge along the axis and differ in
+ * length. Tables (rules, equal row shading) have labels too, but no such bars. */
+static gboolean has_bars_beside(GArray *bars, const pp_axis_candidate *c) {
+  gboolean vertical = c->axis->vertical;
+  pp_rect ab = c->axis->box;
+  GArray *near = g_array_new(FALSE, FALSE, sizeof(pp_rect));
   for (guint i = 0; i < bars->len; i++) {
     pp_bar_candidate *b = &g_array_index(bars, pp_bar_candidate, i);
-    pp_rect ab = c->axis->box;
-    double d = c->axis->vertical ? fmin(fabs(b->rect.x0 - ab.x1), fabs(ab.x0 - b->rect.x1))
-                                 : fmin(fabs(b->rect.y1 - ab.y0), fabs(ab.y1 - b->rect.y0));
-    n += !b->used && d < 150;
+    double d = vertical ? fmin(fabs(b->rect.x0 - ab.x1), fabs(ab.x0 - b->rect.x1))
+                        : fmin(fabs(b->rect.y1 - ab.y0), fabs(ab.y1 - b->rect.y0));
+    if (!b->used && d < 150)
+      g_array_append_val(near, b->rect);
   }
-  return n >= 2;
+  gboolean found = FALSE;
+  for (guint i = 0; i < near->len && !found; i++) {
+    pp_rect a = g_array_index(near, pp_rect, i);
+    double edges[2] = {vertical ? a.y0 : a.x0, vertical ? a.y1 : a.x1};
+    for (int e = 0; e < 2 && !found; e++) {
+      guint sharing = 0;
+      double shortest = INFINITY, longest = 0;
+      for (guint j = 0; j < near->len; j++) {
+        pp_rect r = g_array_index(near, pp_rect, j);
+        double u0 = vertical ? r.y0 : r.x0, u1 = vertical ? r.y1 : r.x1;
+        if (fabs(u0 - edges[e]) < 0.05 || fabs(u1 - edges[e]) < 0.05) {
+          sharing++;
+          shortest = fmin(shortest, u1 - u0);
+          longest = fmax(longest, u1 - u0);
+        }
+      }
+      found = sharing >= 3 && longest - shortest > 0.5 && longest >= 0.1 * (c->span1 - c->span0);
+    }
+  }
+  g_array_unref(near);
+  return found;
 }
 
 pp_page_charts *pp_page_charts_find(const pp_scene *scene) {
@@ -250,7 +274,7 @@ pp_page_charts *pp_page_charts_find(const pp_scene *scene) {
   g_free(figured);
   for (guint i = 0; i < axes->len; i++) {
     pp_axis_candidate *c = g_ptr_array_index(axes, i);
-    if (!c->fit_failed || c->category || c->labels->len < 3 || !has_marks_beside(bars, c))
+    if (!c->fit_failed || c->category || c->labels->len < 3 || !has_bars_beside(bars, c))
       continue;
     pp_scale_failure *s = g_new0(pp_scale_failure, 1);
     s->bbox = c->axis->box;
