@@ -63,23 +63,7 @@ static GArray *select_bars(GArray *bars, const pp_axis_candidate *axis, double l
       continue;
     g_array_append_val(sel, i);
   }
-  /* A rectangle holding two or more others is a plot background or frame. */
-  GArray *keep = g_array_new(FALSE, FALSE, sizeof(guint));
-  for (guint i = 0; i < sel->len; i++) {
-    pp_bar_candidate *a = &g_array_index(bars, pp_bar_candidate, g_array_index(sel, guint, i));
-    guint inside = 0;
-    for (guint j = 0; j < sel->len && inside < 2; j++) {
-      if (i == j)
-        continue;
-      pp_bar_candidate *b = &g_array_index(bars, pp_bar_candidate, g_array_index(sel, guint, j));
-      if (pp_rect_contains(a->rect, b->rect, 0.01) && pp_rect_area(b->rect) < pp_rect_area(a->rect))
-        inside++;
-    }
-    if (inside < 2)
-      g_array_append_val(keep, g_array_index(sel, guint, i));
-  }
-  g_array_unref(sel);
-  return keep;
+  return sel;
 }
 
 static frame_rect sel_rect(GArray *bars, GArray *sel, guint i, gboolean vertical) {

@@ -63,6 +63,27 @@ static void collect_hatched(const pp_scene *scene, GArray *out) {
   }
 }
 
+/* A rectangle holding two or more others is a plot background, a chart wall or a frame.
+ * Producers round geometry (LibreOffice to 1/100 mm, 0.028 pt), so bars may stick out
+ * of their wall by that much. */
+static void drop_backgrounds(GArray *cands) {
+  gboolean *background = g_new0(gboolean, MAX(cands->len, 1));
+  for (guint i = 0; i < cands->len; i++) {
+    pp_bar_candidate *a = &g_array_index(cands, pp_bar_candidate, i);
+    guint inside = 0;
+    for (guint j = 0; j < cands->len && inside < 2; j++) {
+      pp_bar_candidate *b = &g_array_index(cands, pp_bar_candidate, j);
+      inside += i != j && pp_rect_contains(a->rect, b->rect, 0.05) &&
+                pp_rect_area(b->rect) < pp_rect_area(a->rect);
+    }
+    background[i] = inside >= 2;
+  }
+  for (guint i = cands->len; i-- > 0;)
+    if (background[i])
+      g_array_remove_index(cands, i);
+  g_free(background);
+}
+
 GArray *pp_bar_candidates_collect(const pp_scene *scene, GHashTable *glyph_marks) {
   GArray *out = g_array_new(FALSE, FALSE, sizeof(pp_bar_candidate));
   collect_hatched(scene, out);
@@ -93,6 +114,7 @@ GArray *pp_bar_candidates_collect(const pp_scene *scene, GHashTable *glyph_marks
                           m->paint, FALSE};
     g_array_append_val(out, c);
   }
+  drop_backgrounds(out);
   return out;
 }
 
