@@ -84,6 +84,50 @@ static void drop_backgrounds(GArray *cands) {
   g_free(background);
 }
 
+/* Adds one rectangle of a fill as a candidate, unless it is too thin, page-sized, behind
+ * text, or a repaint (hatching, outlines) of the rectangle just added. */
+static void add_rect(const pp_scene *scene, GArray *out, guint mark, pp_rect r, double ink) {
+  const pp_mark *m = g_ptr_array_index(scene->marks, mark);
+  pp_rect clip = pp_clip_bbox(m->clip);
+  pp_rect vis = pp_rect_intersect(r, clip);
+  if (pp_rect_is_empty(vis) || pp_rect_width(vis) < 0.2 || pp_rect_height(vis) < 0.2 ||
+      page_sized(scene, vis) || behind_text(scene, vis))
+    return;
+  for (guint k = out->len; k-- > 0 && k + 8 >= out->len;) {
+    pp_bar_candidate *c = &g_array_index(out, pp_bar_candidate, k);
+    if (fabs(c->rect.x0 - vis.x0) < 0.01 && fabs(c->rect.x1 - vis.x1) < 0.01 &&
+        fabs(c->rect.y0 - vis.y0) < 0.01 && fabs(c->rect.y1 - vis.y1) < 0.01)
+      return;
+  }
+  pp_bar_candidate c = {mark, vis, clip, isnan(ink) ? pp_rect_area(vis) : ink, m->paint, FALSE};
+  g_array_append_val(out, c);
+}
+
+/* The subpaths of a path, each as a path of its own (drawn ones only). */
+static GPtrArray *split_subpaths(const pp_path *path) {
+  GPtrArray *parts = g_ptr_array_new_with_free_func((GDestroyNotify)pp_path_free);
+  pp_path *cur = NULL;
+  for (size_t i = 0; i < path->n_segs; i++) {
+    const pp_seg *s = &path->segs[i];
+    if (s->kind == PP_SEG_MOVE || !cur) {
+      cur = pp_path_new();
+      g_ptr_array_add(parts, cur);
+    }
+    switch (s->kind) {
+    case PP_SEG_MOVE: pp_path_move_to(cur, s->pt[0].x, s->pt[0].y); break;
+    case PP_SEG_LINE: pp_path_line_to(cur, s->pt[0].x, s->pt[0].y); break;
+    case PP_SEG_CURVE:
+      pp_path_curve_to(cur, s->pt[0].x, s->pt[0].y, s->pt[1].x, s->pt[1].y, s->pt[2].x, s->pt[2].y);
+      break;
+    case PP_SEG_CLOSE: pp_path_close(cur); break;
+    }
+  }
+  for (guint i = parts->len; i-- > 0;)
+    if (((pp_path *)parts->pdata[i])->n_segs < 3)
+      g_ptr_array_remove_index(parts, i);
+  return parts;
+}
+
 GArray *pp_bar_candidates_collect(const pp_scene *scene, GHashTable *glyph_marks) {
   GArray *out = g_array_new(FALSE, FALSE, sizeof(pp_bar_candidate));
   collect_hatched(scene, out);
@@ -93,26 +137,23 @@ GArray *pp_bar_candidates_collect(const pp_scene *scene, GHashTable *glyph_marks
         g_hash_table_contains(glyph_marks, GUINT_TO_POINTER(i)))
       continue;
     pp_rect r;
-    if (!pp_path_is_rectangle(m->path, 0.01, &r))
+    if (pp_path_is_rectangle(m->path, 0.01, &r)) {
+      add_rect(scene, out, i, r, m->ink);
       continue;
-    pp_rect clip = pp_clip_bbox(m->clip);
-    pp_rect vis = pp_rect_intersect(r, clip);
-    if (pp_rect_is_empty(vis) || pp_rect_width(vis) < 0.2 || pp_rect_height(vis) < 0.2 ||
-        page_sized(scene, vis) || behind_text(scene, vis))
-      continue;
-    /* Hatching and outlines repaint the same rectangle: keep the first. */
-    gboolean dup = FALSE;
-    for (guint k = out->len; k-- > 0 && k + 8 >= out->len;) {
-      pp_bar_candidate *c = &g_array_index(out, pp_bar_candidate, k);
-      if (fabs(c->rect.x0 - vis.x0) < 0.01 && fabs(c->rect.x1 - vis.x1) < 0.01 &&
-          fabs(c->rect.y0 - vis.y0) < 0.01 && fabs(c->rect.y1 - vis.y1) < 0.01)
-        dup = TRUE;
     }
-    if (dup)
+    /* One fill holding every bar of a series as its subpaths (pgfplots' ybar): each
+     * rectangle is a bar, measured on its own. */
+    if (pp_path_n_subpaths(m->path) < 2)
       continue;
-    pp_bar_candidate c = {i,        vis,  clip, isnan(m->ink) ? pp_rect_area(vis) : m->ink,
-                          m->paint, FALSE};
-    g_array_append_val(out, c);
+    GPtrArray *parts = split_subpaths(m->path);
+    gboolean all_rects = parts->len >= 2;
+    for (guint k = 0; k < parts->len && all_rects; k++)
+      all_rects = pp_path_is_rectangle(parts->pdata[k], 0.01, &r);
+    for (guint k = 0; k < parts->len && all_rects; k++) {
+      pp_path_is_rectangle(parts->pdata[k], 0.01, &r);
+      add_rect(scene, out, i, r, pp_path_clipped_area(parts->pdata[k], m->rule, m->clip));
+    }
+    g_ptr_array_unref(parts);
   }
   drop_backgrounds(out);
   return out;

@@ -24,6 +24,15 @@ static void add_label(GPtrArray *out, const char *text, pp_rect box, double size
   g_ptr_array_add(out, l);
 }
 
+/* The separator between two words of one number: none after a grouping or decimal mark
+ * ("8," then "000": TeX's kerning makes the text API see a space), else a space. */
+static const char *joiner(const char *prev, const char *next) {
+  size_t n = strlen(prev);
+  gboolean mark_end = n > 0 && strchr(",.'", prev[n - 1]) != NULL;
+  gboolean quote_end = n >= 3 && strcmp(prev + n - 3, "\u2019") == 0;
+  return (mark_end || quote_end) && g_ascii_isdigit(next[0]) ? "" : " ";
+}
+
 static gboolean same_baseline(const pp_text_run *a, const pp_text_run *b) {
   double h = fmax(pp_rect_height(a->box), 1.0);
   return a->line == b->line && fabs(a->box.y1 - b->box.y1) < 0.25 * h &&
@@ -82,7 +91,7 @@ GPtrArray *pp_labels_collect(const pp_scene *scene, GHashTable *glyph_marks) {
       if (k > 0 && !same_baseline(g_ptr_array_index(scene->words, i + k - 1), w))
         break;
       if (k > 0)
-        g_string_append_c(phrase, ' ');
+        g_string_append(phrase, joiner(phrase->str, w->text));
       g_string_append(phrase, w->text);
       pp_number num;
       if (pp_number_parse(phrase->str, PP_DECIMAL_UNKNOWN, &num)) {
@@ -102,7 +111,7 @@ GPtrArray *pp_labels_collect(const pp_scene *scene, GHashTable *glyph_marks) {
       const pp_text_run *w = g_ptr_array_index(scene->words, i + k);
       box = pp_rect_union(box, w->box);
       if (k)
-        g_string_append_c(text, ' ');
+        g_string_append(text, joiner(text->str, w->text));
       g_string_append(text, w->text);
     }
     add_label(out, text->str, box, first->font_size, first->angle, &best_num);
