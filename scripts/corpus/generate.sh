@@ -25,6 +25,12 @@ else
 	echo "skip R: Rscript not installed" >&2
 fi
 
+if command -v soffice >/dev/null 2>&1 && command -v pdftocairo >/dev/null 2>&1 && [ -x "$py" ]; then
+	"$py" "$here/gen_libreoffice.py" || status=1
+else
+	echo "skip libreoffice: soffice (or pdftocairo) not installed" >&2
+fi
+
 # The cairo generator is a C program built by meson; pass the build dir.
 # usage: generate.sh [MESON_BUILD_DIR]
 if [ $# -ge 1 ] && [ -x "$1/scripts/gen-corpus-cairo" ]; then
@@ -33,7 +39,7 @@ else
 	echo "skip cairo: pass a meson build dir containing scripts/gen-corpus-cairo" >&2
 fi
 
-for d in matplotlib gnuplot r cairo; do
+for d in matplotlib gnuplot r libreoffice pgfplots cairo; do
 	if [ -d "$root/corpus/$d" ]; then
 		"$py" "$here/truth.py" check "$root/corpus/$d" || status=1
 	fi
