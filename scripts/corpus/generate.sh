@@ -31,6 +31,12 @@ else
 	echo "skip libreoffice: soffice (or pdftocairo) not installed" >&2
 fi
 
+if command -v pdflatex >/dev/null 2>&1 && kpsewhich pgfplots.sty >/dev/null 2>&1 && [ -x "$py" ]; then
+	"$py" "$here/gen_pgfplots.py" || status=1
+else
+	echo "skip pgfplots: pdflatex or pgfplots.sty not found" >&2
+fi
+
 # The cairo generator is a C program built by meson; pass the build dir.
 # usage: generate.sh [MESON_BUILD_DIR]
 if [ $# -ge 1 ] && [ -x "$1/scripts/gen-corpus-cairo" ]; then
