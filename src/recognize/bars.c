@@ -190,18 +190,29 @@ static char *find_category(const pp_scene *scene, pp_rect bar, pp_rect plot, gbo
   }
   if (!best)
     return NULL;
-  /* Multi-word categories ("North Sea") continue on the same line. */
+  /* Multi-word categories ("North Sea") continue on the same line: to the right under a
+   * column, to the left (towards the margin) beside a horizontal bar. */
   GString *s = g_string_new(best->text);
-  for (guint i = 0; i < scene->words->len; i++) {
-    const pp_text_run *w = g_ptr_array_index(scene->words, i);
-    if (w == best || w->line != best->line || w->box.x0 < best->box.x1 ||
-        w->box.x0 - best->box.x1 > 0.6 * best->font_size)
-      continue;
-    if (vertical && (w->box.x0 > bar.x1 + 0.6 * (bar.x1 - bar.x0)))
-      continue;
-    g_string_append_c(s, ' ');
-    g_string_append(s, w->text);
-    break;
+  const pp_text_run *edge = best;
+  for (gboolean grew = TRUE; grew;) {
+    grew = FALSE;
+    for (guint i = 0; i < scene->words->len && !grew; i++) {
+      const pp_text_run *w = g_ptr_array_index(scene->words, i);
+      double gap = vertical ? w->box.x0 - edge->box.x1 : edge->box.x0 - w->box.x1;
+      if (w == edge || w->line != best->line || gap < -0.5 || gap > 0.6 * best->font_size)
+        continue;
+      if (vertical && w->box.x0 > bar.x1 + 0.6 * (bar.x1 - bar.x0))
+        continue;
+      if (vertical) {
+        g_string_append_c(s, ' ');
+        g_string_append(s, w->text);
+      } else {
+        g_string_prepend_c(s, ' ');
+        g_string_prepend(s, w->text);
+      }
+      edge = w;
+      grew = TRUE;
+    }
   }
   return g_string_free(s, FALSE);
 }

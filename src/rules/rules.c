@@ -78,12 +78,14 @@ static const char *name_of(const pp_finding *f, guint i, char *buf, gsize len) {
 
 /* "the 2022 bar uses 3.1× the ink of 2019 for 1.1× the value" for the pair that
  * shows the departure best: first/last when they do, else the worst pair. */
-static char *comparison(const pp_finding *f, const char *noun, const pp_thresholds *t) {
+static char *comparison(const pp_finding *f, const char *noun, const pp_thresholds *t,
+                        gboolean *worst_pair) {
   const pp_measures *m = &f->measures;
   guint a = m->first, b = m->last;
-  gboolean fl_ok = isfinite(m->lie_factor) &&
-                   (m->lie_factor < t->lie_band_low || m->lie_factor > t->lie_band_high);
-  if (!fl_ok && isfinite(m->max_pair_departure)) {
+  gboolean ends_depart = isfinite(m->lie_factor) &&
+                         (m->lie_factor < t->lie_band_low || m->lie_factor > t->lie_band_high);
+  *worst_pair = !ends_depart && isfinite(m->max_pair_departure);
+  if (*worst_pair) {
     a = m->pair_j;
     b = m->pair_i;
   }
@@ -155,14 +157,20 @@ static void emit(GPtrArray *findings, pp_finding *f, const pp_thresholds *t, cha
     return;
   }
   f->severity = grade(&f->measures, t);
-  char *cmp = comparison(f, noun, t);
-  char lf[64] = "", gdi[64] = "";
+  gboolean worst_pair;
+  char *cmp = comparison(f, noun, t, &worst_pair);
+  char lf[64] = "", gdi[64] = "", pair[64] = "";
+  /* When the first and last marks happen to agree, the sentence shows the worst pair and
+   * says so, so that its numbers and the lie factor do not seem to contradict. */
+  if (worst_pair)
+    g_snprintf(pair, sizeof pair,
+               "the worst pair departs %.2f×; first to last: ", f->measures.max_pair_departure);
   if (isfinite(f->measures.lie_factor))
     g_snprintf(lf, sizeof lf, f->measures.lie_factor < 0.1 ? "lie factor %.2g" : "lie factor %.2f",
                f->measures.lie_factor);
   if (isfinite(f->measures.gdi))
     g_snprintf(gdi, sizeof gdi, ", GDI %+.0f%%", f->measures.gdi);
-  f->message = g_strdup_printf("%s: %s (%s%s)", lead, cmp, lf, gdi);
+  f->message = g_strdup_printf("%s: %s (%s%s%s)", lead, cmp, pair, lf, gdi);
   g_free(cmp);
   g_free(lead);
   g_ptr_array_add(findings, f);
