@@ -12,8 +12,17 @@ import sys
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
 import truth  # noqa: E402
 
-ROOT = os.path.dirname(os.path.dirname(os.path.dirname(
-    os.path.abspath(__file__))))
+# PP_CORPUS_ROOT and PP_CORPUS_SEED_OFFSET make a held-out corpus elsewhere: the same
+# kinds of charts with other invented data (scripts/holdout).
+ROOT = os.environ.get("PP_CORPUS_ROOT") or os.path.dirname(os.path.dirname(
+    os.path.dirname(os.path.abspath(__file__))))
+SEED_OFFSET = int(os.environ.get("PP_CORPUS_SEED_OFFSET", "0"))
+
+
+def rng_of(seed):
+    return random.Random(seed + SEED_OFFSET)
+
+
 OUT = os.path.join(ROOT, "corpus", "gnuplot")
 W_IN, H_IN = 6.0, 4.0
 W, H = W_IN * 72.0, H_IN * 72.0
@@ -384,24 +393,24 @@ def main():
     ]
     for name, fmt, style, labels, lo, hi, dec in families:
         seed += 1
-        vals = make_values(random.Random(seed), len(labels), lo, hi, dec)
+        vals = make_values(rng_of(seed), len(labels), lo, hi, dec)
         for trunc, suf in (("none", "honest"), ("mild", "trunc_mild"),
                            ("severe", "trunc_severe")):
             total += columns("%s_%s" % (name, suf), seed, vals, labels, trunc,
                              fmt, style)
     seed += 1
-    vals = make_values(random.Random(seed), 44, 500, 1500)
+    vals = make_values(rng_of(seed), 44, 500, 1500)
     labs = ["%d" % i for i in range(44)]
     for trunc in ("none", "severe"):
         total += columns("gp_boxes_many_%s" % trunc, seed, vals, labs, trunc,
                          "plain", ["many-bars"])
     seed += 1
-    vals = make_values(random.Random(seed), 6, 200, 700)
+    vals = make_values(rng_of(seed), 6, 200, 700)
     for trunc in ("none", "mild", "severe"):
         total += hbars("gp_hbars_%s" % trunc, seed, vals, PIERS, trunc)
     for mode, style in (("y0", []), ("x1", ["alpha", "gridlines"])):
         seed += 1
-        vals = make_values(random.Random(seed), 8, 300, 900)
+        vals = make_values(rng_of(seed), 8, 300, 900)
         for trunc in ("none", "mild", "severe"):
             if mode == "x1" and trunc == "none":
                 continue  # x1 on a zero-based axis is the y0 honest case
@@ -411,17 +420,17 @@ def main():
         seed += 1
         for trunc in ("none", "severe"):
             total += histo("gp_histo_%s_%s" % (mode, trunc), seed,
-                           random.Random(seed), YEARS[:6], trunc, mode)
+                           rng_of(seed), YEARS[:6], trunc, mode)
     for k in range(2):
         seed += 1
-        rng = random.Random(seed)
+        rng = rng_of(seed)
         vals = sorted(int(10 ** rng.uniform(1.6, 3.6)) for _ in range(6))
         total += log_boxes("gp_log_boxes_%d" % k, seed, vals, YEARS[:6])
         total += columns("gp_log_boxes_%d_honest_linear" % k, seed, vals,
                          YEARS[:6], "none", "plain", [])
     for k, hidden in enumerate((True, False)):
         seed += 1
-        labs = make_values(random.Random(seed), 5, 400, 900)
+        labs = make_values(rng_of(seed), 5, 400, 900)
         drawn = [int(labs[0] * 0.45 + (d - labs[0]) * 1.6) for d in labs]
         total += labelled("gp_labels_%d_liar" % k, seed, labs, drawn,
                           YEARS[:5], hidden)
@@ -429,12 +438,12 @@ def main():
                           YEARS[:5], hidden)
     for k, (trunc, pts) in enumerate((("severe", False), ("mild", True))):
         seed += 1
-        vals = make_values(random.Random(seed), 8, 90, 99, 1)
+        vals = make_values(rng_of(seed), 8, 90, 99, 1)
         total += line("gp_line_%d" % k, seed, vals, YEARS, trunc, pts)
     seed += 1
-    total += band("gp_band", seed, random.Random(seed), YEARS)
+    total += band("gp_band", seed, rng_of(seed), YEARS)
     seed += 1
-    total += multiplot("gp_multiplot", seed, random.Random(seed))
+    total += multiplot("gp_multiplot", seed, rng_of(seed))
     print("gnuplot: %d figures" % total)
 
 

@@ -19,8 +19,17 @@ from matplotlib.ticker import FuncFormatter  # noqa: E402
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
 import truth  # noqa: E402
 
-ROOT = os.path.dirname(os.path.dirname(os.path.dirname(
-    os.path.abspath(__file__))))
+# PP_CORPUS_ROOT and PP_CORPUS_SEED_OFFSET make a held-out corpus elsewhere: the same
+# kinds of charts with other invented data (scripts/holdout).
+ROOT = os.environ.get("PP_CORPUS_ROOT") or os.path.dirname(os.path.dirname(
+    os.path.dirname(os.path.abspath(__file__))))
+SEED_OFFSET = int(os.environ.get("PP_CORPUS_SEED_OFFSET", "0"))
+
+
+def rng_of(seed):
+    return random.Random(seed + SEED_OFFSET)
+
+
 OUT = os.path.join(ROOT, "corpus", "matplotlib")
 PRODUCER = "matplotlib " + matplotlib.__version__
 # Fixed metadata keeps reruns byte-stable apart from matplotlib internals.
@@ -237,7 +246,7 @@ def draw_area(fig, ax, spec):
 
 def draw_band(fig, ax, spec):
     """Area between two series: encodes a spread, not a magnitude."""
-    rng = random.Random(spec["seed"])
+    rng = rng_of(spec["seed"])
     v = spec["values"]
     low = [round(d * rng.uniform(0.6, 0.8)) for d in v]
     x = list(range(len(v)))
@@ -332,7 +341,7 @@ def draw_labelled(fig, ax, spec):
 
 
 def draw_stacked(fig, ax, spec):
-    rng = random.Random(spec["seed"])
+    rng = rng_of(spec["seed"])
     labels, style = spec["labels"], list(spec["style"])
     names = ["Passenger", "Freight", "Charter"]
     series = [make_values(rng, len(labels), a, b, 0)
@@ -363,7 +372,7 @@ def draw_stacked(fig, ax, spec):
 
 
 def draw_grouped(fig, ax, spec):
-    rng = random.Random(spec["seed"])
+    rng = rng_of(spec["seed"])
     cats, style = spec["labels"], list(spec["style"])
     names = ["Ferry", "Bus link"]
     series = [make_values(rng, len(cats), 400, 900, 0),
@@ -428,7 +437,7 @@ def draw_line(fig, ax, spec):
     lo = axis_floor(v, spec["trunc"])
     x = list(range(len(v)))
     if "scatter" in style:
-        rng = random.Random(spec["seed"])
+        rng = rng_of(spec["seed"])
         xs = [rng.uniform(0, 10) for _ in v]
         ax.scatter(xs, v, s=14, color="#2b6c8f")
         ax.set_xlim(0, 10)
@@ -554,7 +563,7 @@ def main():
     seed = 100
     for name, draw, fmt, style, labels, n, ft in twin_families():
         seed += 1
-        rng = random.Random(seed)
+        rng = rng_of(seed)
         fmt = fmt or "plain"
         lo, hi, dec = RANGES[fmt]
         vals = make_values(rng, n, lo, hi, dec)
@@ -573,7 +582,7 @@ def main():
             ("logcol", 42, []), ("logcol", 3, ["gridlines"]),
             ("logbar", 42, []), ("logcol", 42, ["bottom-at-axis-min"]))):
         seed += 1
-        rng = random.Random(seed)
+        rng = rng_of(seed)
         vals = [int(10 ** rng.uniform(1.6, 3.6)) for _ in range(6)]
         vals.sort()
         labs = ROUTES if draw == "logbar" else YEARS[:6]
@@ -616,7 +625,7 @@ def main():
             ("percent", ["data-labels-only", "edge-strokes"], 3),
             ("thousands", [], 3))):
         seed += 1
-        rng = random.Random(seed)
+        rng = rng_of(seed)
         lo, hi, dec = RANGES[fmt]
         lab = make_values(rng, 5, lo, hi, dec)
         # Exaggerate growth: drawn = first label scaled down, last kept.
@@ -633,7 +642,7 @@ def main():
     # negative values (honest)
     for k, horiz in enumerate((False, True, False)):
         seed += 1
-        rng = random.Random(seed)
+        rng = rng_of(seed)
         vals = [round(rng.uniform(-40, 60)) for _ in range(7)]
         vals[0] = vals[0] or 5
         spec = {"draw": "negative", "values": vals, "horizontal": horiz,
@@ -646,7 +655,7 @@ def main():
     # bands between two series
     for k in range(2):
         seed += 1
-        rng = random.Random(seed)
+        rng = rng_of(seed)
         vals = make_values(rng, 8, 300, 900, 0)
         spec = {"draw": "band", "values": vals, "labels": YEARS, "style": [],
                 "seed": seed, "title": "Marrowgate Water - daily range"}
@@ -658,7 +667,7 @@ def main():
             ([], "percent", "severe"), (["scatter"], "plain", "severe"),
             (["scatter", "gridlines"], "thousands", "mild"))):
         seed += 1
-        rng = random.Random(seed)
+        rng = rng_of(seed)
         lo, hi, dec = RANGES[fmt]
         n = 30 if "scatter" in style else 8
         vals = make_values(rng, n, lo, hi, dec)
@@ -689,7 +698,7 @@ def main():
             (["right-axis"], "none"), (["right-axis"], "mild"),
             (["twin-axis"], "none"), (["twin-axis"], "severe"))):
         seed = 9100 + k  # own seeds: the cases above keep theirs
-        rng = random.Random(seed)
+        rng = rng_of(seed)
         lo, hi, dec = RANGES["plain"]
         spec = {"draw": "column", "fmt": "plain", "style": extra,
                 "values": make_values(rng, 6, lo, hi, dec), "labels": YEARS[:6],
@@ -704,7 +713,7 @@ def main():
 def grid_page(seed, variant):
     """2x2 subplots on one page, one truth entry per axes."""
     def build():
-        rng = random.Random(seed)
+        rng = rng_of(seed)
         fig = new_fig(8.27, 6.5)
         axs = fig.subplots(2, 2)
         fig.subplots_adjust(left=0.14 if variant else 0.09, right=0.97, bottom=0.08, top=0.93,
@@ -734,7 +743,7 @@ def grid_page(seed, variant):
 
 def report_pages(seed):
     """A4 report: prose page, then chart pages with text around them."""
-    rng = random.Random(seed)
+    rng = rng_of(seed)
 
     def prose():
         fig = new_fig(8.27, 11.69)
@@ -787,7 +796,7 @@ def text_truth(fig, texts):
 def text_page(seed):
     def build():
         fig = new_fig(8.27, 11.69)
-        rng = random.Random(seed)
+        rng = rng_of(seed)
         texts = [fig.text(0.1, 0.9, "Kestrel Orchards - Harvest Notes",
                           fontsize=16)]
         for i in range(12):
@@ -802,7 +811,7 @@ def text_page(seed):
 
 def table_page(seed):
     def build():
-        rng = random.Random(seed)
+        rng = rng_of(seed)
         fig = new_fig(8.27, 5.0)
         ax = fig.add_axes((0.1, 0.15, 0.8, 0.7))
         rows = [["Route", "2021", "2022", "2023"]] + [
@@ -830,7 +839,7 @@ def raster_page(seed, report=False):
     """A truncated column chart rendered to PNG and placed as an image;
     report=True puts it on an A4 page between paragraphs of text."""
     def build():
-        rng = random.Random(seed)
+        rng = rng_of(seed)
         vals = make_values(rng, 6, 300, 900, 0)
         src = plt.figure(figsize=(5, 3.5), dpi=100)
         ax = src.add_axes((0.13, 0.14, 0.82, 0.76))

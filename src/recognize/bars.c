@@ -199,7 +199,9 @@ static char *find_category(const pp_scene *scene, pp_rect bar, pp_rect plot, gbo
     for (guint i = 0; i < scene->words->len && !grew; i++) {
       const pp_text_run *w = g_ptr_array_index(scene->words, i);
       double gap = vertical ? w->box.x0 - edge->box.x1 : edge->box.x0 - w->box.x1;
-      if (w == edge || w->line != best->line || gap < -0.5 || gap > 0.6 * best->font_size)
+      pp_number num; /* "2017" "2018" side by side are two categories, not one name */
+      if (w == edge || w->line != best->line || gap < -0.5 || gap > 0.6 * best->font_size ||
+          pp_number_parse(w->text, PP_DECIMAL_UNKNOWN, &num))
         continue;
       if (vertical && w->box.x0 > bar.x1 + 0.6 * (bar.x1 - bar.x0))
         continue;

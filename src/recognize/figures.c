@@ -226,6 +226,12 @@ pp_page_charts *pp_page_charts_find(const pp_scene *scene) {
   GArray *bars = pp_bar_candidates_collect(scene, glyph_marks);
   GPtrArray *areas = pp_area_candidates_collect(scene);
 
+  /* Year rows name categories: their labels are never data labels of a bar. */
+  for (guint i = 0; i < axes->len; i++) {
+    pp_axis_candidate *c = g_ptr_array_index(axes, i);
+    for (guint k = 0; c->category && k < c->labels->len; k++)
+      ((pp_label *)g_ptr_array_index(c->labels, k))->on_axis = TRUE;
+  }
   /* First every axis on the side its labels face, then the ones still empty on the
    * other side: with two value axes, the bars go to the axis that faces them. */
   gboolean *figured = g_new0(gboolean, MAX(axes->len, 1));
