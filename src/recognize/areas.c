@@ -59,7 +59,7 @@ static void column_extent(GArray *pts, double x, double *top, double *bottom) {
 }
 
 pp_figure *pp_area_figure_build(const pp_scene *scene, GPtrArray *areas,
-                                const pp_axis_candidate *cand, int side) {
+                                const pp_axis_candidate *cand, int side, GPtrArray *all_axes) {
   const pp_axis *axis = cand->axis;
   if (!axis->vertical)
     return NULL;
@@ -70,10 +70,11 @@ pp_figure *pp_area_figure_build(const pp_scene *scene, GPtrArray *areas,
     if (a->used)
       continue;
     /* The area must lie beside the labels, within the axis' reach along y. */
-    /* Beside the labels on the given side, within the axis' reach along y. */
-    gboolean beside = side > 0 ? a->rect.x0 >= axis->box.x1 - 1 && a->rect.x0 - axis->box.x1 < 400
-                               : a->rect.x1 <= axis->box.x0 + 1 && axis->box.x0 - a->rect.x1 < 400;
-    if (!beside)
+    /* Beside the labels on the given side, before the next axis, within reach along y. */
+    double lo, hi;
+    pp_axis_reach(cand, all_axes, side, &lo, &hi);
+    if (a->rect.x0 < lo || a->rect.x1 > hi ||
+        fabs(side > 0 ? a->rect.x0 - axis->box.x1 : axis->box.x0 - a->rect.x1) > 400)
       continue;
     if (a->rect.y0 < cand->span0 - 0.6 * span - 20 || a->rect.y1 > cand->span1 + 0.6 * span + 20)
       continue;

@@ -411,3 +411,28 @@ GPtrArray *pp_axes_find(const pp_scene *scene, GPtrArray *labels) {
   g_array_unref(vert);
   return out;
 }
+
+/* The reach ends where another fitted axis of the same orientation, overlapping this
+ * one along the axis, takes over. */
+void pp_axis_reach(const pp_axis_candidate *axis, GPtrArray *all_axes, int side, double *lo,
+                   double *hi) {
+  gboolean vertical = axis->axis->vertical;
+  pp_rect box = axis->axis->box;
+  double edge = vertical ? (side > 0 ? box.x1 : box.x0) : (side > 0 ? box.y1 : box.y0);
+  *lo = side > 0 ? edge - 1 : -INFINITY;
+  *hi = side > 0 ? INFINITY : edge + 1;
+  for (guint i = 0; i < all_axes->len; i++) {
+    const pp_axis_candidate *o = g_ptr_array_index(all_axes, i);
+    if (o == axis || o->fit_failed || o->axis->vertical != vertical)
+      continue;
+    /* only axes whose span overlaps ours along u */
+    if (o->span1 < axis->span0 - 20 || o->span0 > axis->span1 + 20)
+      continue;
+    pp_rect ob = o->axis->box;
+    double o_lo = vertical ? ob.x0 : ob.y0, o_hi = vertical ? ob.x1 : ob.y1;
+    if (side > 0 && o_lo > edge + 2)
+      *hi = fmin(*hi, o_lo);
+    if (side < 0 && o_hi < edge - 2)
+      *lo = fmax(*lo, o_hi);
+  }
+}

@@ -22,31 +22,6 @@ static double label_w(const pp_label *l, gboolean vertical) {
   return vertical ? l->centre.x : l->centre.y;
 }
 
-/* Which side of the label row/column holds the plot, and how far it may reach
- * before another axis of the same orientation takes over. */
-static void across_limits(const pp_axis_candidate *axis, GPtrArray *all_axes, int side, double *lo,
-                          double *hi) {
-  gboolean vertical = axis->axis->vertical;
-  pp_rect box = axis->axis->box;
-  double edge = vertical ? (side > 0 ? box.x1 : box.x0) : (side > 0 ? box.y1 : box.y0);
-  *lo = side > 0 ? edge - 1 : -INFINITY;
-  *hi = side > 0 ? INFINITY : edge + 1;
-  for (guint i = 0; i < all_axes->len; i++) {
-    const pp_axis_candidate *o = g_ptr_array_index(all_axes, i);
-    if (o == axis || o->fit_failed || o->axis->vertical != vertical)
-      continue;
-    /* only axes whose span overlaps ours along u */
-    if (o->span1 < axis->span0 - 20 || o->span0 > axis->span1 + 20)
-      continue;
-    pp_rect ob = o->axis->box;
-    double o_lo = vertical ? ob.x0 : ob.y0, o_hi = vertical ? ob.x1 : ob.y1;
-    if (side > 0 && o_lo > edge + 2)
-      *hi = fmin(*hi, o_lo);
-    if (side < 0 && o_hi < edge - 2)
-      *lo = fmax(*lo, o_hi);
-  }
-}
-
 static GArray *select_bars(GArray *bars, const pp_axis_candidate *axis, double lo, double hi) {
   gboolean vertical = axis->axis->vertical;
   double span = axis->span1 - axis->span0;
@@ -404,7 +379,7 @@ static gboolean legend_like(const pp_scene *scene, const pp_figure *fig) {
 pp_figure *pp_bar_figure_build(const pp_scene *scene, GArray *bars, const pp_axis_candidate *axis,
                                int side, GPtrArray *labels, GPtrArray *all_axes) {
   double lo, hi, base;
-  across_limits(axis, all_axes, side, &lo, &hi);
+  pp_axis_reach(axis, all_axes, side, &lo, &hi);
   GArray *sel = select_bars(bars, axis, lo, hi);
   g_debug("  side %d: %u bars between %.1f and %.1f", side, sel->len, lo, hi);
   pp_figure *fig = NULL;

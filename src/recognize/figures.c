@@ -117,10 +117,12 @@ static gboolean is_line_mark(const pp_mark *m) {
 }
 
 /* Lines and markers beside a fitted axis: a line chart, honest at any baseline. */
-static pp_figure *line_figure(const pp_scene *scene, const pp_axis_candidate *cand) {
+static pp_figure *line_figure(const pp_scene *scene, const pp_axis_candidate *cand,
+                              GPtrArray *all_axes) {
   pp_rect box = pp_rect_empty();
   const pp_axis *axis = cand->axis;
-  double span = cand->span1 - cand->span0;
+  double span = cand->span1 - cand->span0, lo, hi;
+  pp_axis_reach(cand, all_axes, cand->side ? cand->side : +1, &lo, &hi);
   for (guint i = 0; i < scene->marks->len; i++) {
     const pp_mark *m = g_ptr_array_index(scene->marks, i);
     if (!is_line_mark(m))
@@ -129,10 +131,8 @@ static pp_figure *line_figure(const pp_scene *scene, const pp_axis_candidate *ca
     double u0 = axis->vertical ? r.y0 : r.x0, u1 = axis->vertical ? r.y1 : r.x1;
     if (u0 < cand->span0 - 0.6 * span - 10 || u1 > cand->span1 + 0.6 * span + 10)
       continue;
-    gboolean beside = axis->vertical
-                          ? (cand->side > 0 ? r.x0 >= axis->box.x1 - 1 : r.x1 <= axis->box.x0 + 1)
-                          : TRUE;
-    if (beside)
+    double w0 = axis->vertical ? r.x0 : r.y0, w1 = axis->vertical ? r.x1 : r.y1;
+    if (w0 >= lo && w1 <= hi) /* beside the labels, before the next axis */
       box = pp_rect_union(box, r);
   }
   if (pp_rect_is_empty(box))
@@ -251,7 +251,7 @@ pp_page_charts *pp_page_charts_find(const pp_scene *scene) {
         ((pp_label *)g_ptr_array_index(c->labels, k))->on_axis = TRUE;
       pp_figure *f = pp_bar_figure_build(scene, bars, c, side, labels, axes);
       if (!f)
-        f = pp_area_figure_build(scene, areas, c, side);
+        f = pp_area_figure_build(scene, areas, c, side, axes);
       g_debug("axis %s %u labels [%s..%s] side %d: %s",
               c->axis->vertical ? "vertical" : "horizontal", c->labels->len,
               ((pp_label *)g_ptr_array_index(c->labels, 0))->text,
@@ -273,7 +273,7 @@ pp_page_charts *pp_page_charts_find(const pp_scene *scene) {
     pp_axis_candidate *c = g_ptr_array_index(axes, i);
     if (c->fit_failed || figured[i] || !c->axis->vertical)
       continue;
-    pp_figure *f = line_figure(scene, c);
+    pp_figure *f = line_figure(scene, c, axes);
     if (f)
       add_figure(out, scene, f, c);
   }

@@ -37,6 +37,11 @@ typedef struct {
 
 GPtrArray *pp_axes_find(const pp_scene *scene, GPtrArray *labels);
 
+/* How far across the axis its plot may reach on one side (+1 towards larger x, or y for
+ * a horizontal axis): from the labels to the next fitted axis of the same orientation. */
+void pp_axis_reach(const pp_axis_candidate *axis, GPtrArray *all_axes, int side, double *lo,
+                   double *hi);
+
 /* A filled axis-aligned rectangle that could be a bar. */
 typedef struct {
   guint mark;
@@ -70,6 +75,6 @@ pp_figure *pp_bar_figure_build(const pp_scene *scene, GArray *bars, const pp_axi
                                int side, GPtrArray *labels, GPtrArray *all_axes);
 pp_figure *pp_bar_figure_from_labels(const pp_scene *scene, GArray *bars, GPtrArray *labels);
 pp_figure *pp_area_figure_build(const pp_scene *scene, GPtrArray *areas,
-                                const pp_axis_candidate *axis, int side);
+                                const pp_axis_candidate *axis, int side, GPtrArray *all_axes);
 
 void pp_figure_set_fingerprint(pp_figure *figure);
