@@ -52,6 +52,15 @@ FORMATS = {
     "percent": lambda v: "%.0f%%" % v,
     "comma": lambda v: ("%.1f" % v).replace(".", ","),
 }
+# Decimals each format prints: a printed data label stands for the rounded number.
+PRINTED_DECIMALS = {"thousands": 0, "usd": 0, "eur": 0, "percent": 0, "comma": 1}
+
+
+def as_printed(fmt, v):
+    d = PRINTED_DECIMALS.get(fmt)
+    return v if d is None else round(v, d)
+
+
 FORMAT_TAGS = {
     "plain": [], "thousands": ["thousands-sep"],
     "usd": ["currency", "thousands-sep"],
@@ -627,7 +636,7 @@ def main():
         seed += 1
         rng = rng_of(seed)
         lo, hi, dec = RANGES[fmt]
-        lab = make_values(rng, 5, lo, hi, dec)
+        lab = [as_printed(fmt, v) for v in make_values(rng, 5, lo, hi, dec)]
         # Exaggerate growth: drawn = first label scaled down, last kept.
         drawn = [round(lab[0] * 0.45 + (d - lab[0]) * 1.6, dec) for d in lab]
         drawn = [d if dec else int(d) for d in drawn]

@@ -261,6 +261,22 @@ static void fit_or_split(GPtrArray *run, gboolean vertical, GArray *segs, double
     g_ptr_array_add(out, c);
     return;
   }
+  /* An end label cut by the page edge ("100" for 1000) spoils an otherwise clean
+   * scale: drop the first or the last label if the rest then fits. */
+  for (int end = 0; end < 2 && !c->category; end++) {
+    GPtrArray *rest = g_ptr_array_new();
+    for (guint i = 0; i < run->len; i++)
+      if (i != (end ? run->len - 1 : 0))
+        g_ptr_array_add(rest, g_ptr_array_index(run, i));
+    pp_axis_candidate *r = make_candidate(rest, vertical, segs, edge);
+    g_ptr_array_unref(rest);
+    if (!r->fit_failed) {
+      candidate_free(c);
+      g_ptr_array_add(out, r);
+      return;
+    }
+    candidate_free(r);
+  }
   guint cut = 0;
   double widest = -1;
   for (guint i = 1; i + 1 < run->len; i++) {
