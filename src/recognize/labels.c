@@ -24,13 +24,18 @@ static void add_label(GPtrArray *out, const char *text, pp_rect box, double size
   g_ptr_array_add(out, l);
 }
 
-/* The separator between two words of one number: none after a grouping or decimal mark
- * ("8," then "000": TeX's kerning makes the text API see a space), else a space. */
+/* The separator between two words of one number: none when the second continues a digit
+ * group after a grouping mark ("8," then "000": TeX's kerning reaches the text API as a
+ * space), else a space, so "(1," "2)" stays a pair and never becomes −1,2. */
 static const char *joiner(const char *prev, const char *next) {
   size_t n = strlen(prev);
   gboolean mark_end = n > 0 && strchr(",.'", prev[n - 1]) != NULL;
   gboolean quote_end = n >= 3 && strcmp(prev + n - 3, "\u2019") == 0;
-  return (mark_end || quote_end) && g_ascii_isdigit(next[0]) ? "" : " ";
+  size_t digits = strspn(next, "0123456789");
+  return (mark_end || quote_end) && n >= 2 && g_ascii_isdigit(prev[n - (quote_end ? 4 : 2)]) &&
+                 digits == 3
+             ? ""
+             : " ";
 }
 
 static gboolean same_baseline(const pp_text_run *a, const pp_text_run *b) {

@@ -11,6 +11,7 @@
 #include <glib/gstdio.h>
 
 #include "geometry/geometry.h"
+#include "recognize/internal.h"
 #include "recognize/recognize.h"
 
 /* The chart: a plot box, a linear value axis [lo, hi] mapped onto it, bars of known
@@ -199,12 +200,42 @@ static void test_negative_bars_path_minus(void **state) {
   pp_document_free(doc);
 }
 
+static void add_word(pp_scene *s, const char *text, double x0, double x1) {
+  pp_text_run *w = g_new0(pp_text_run, 1);
+  w->text = g_strdup(text);
+  w->box = (pp_rect){x0, 100, x1, 110};
+  w->font_size = 10;
+  w->font_name = g_strdup("");
+  g_ptr_array_add(s->words, w);
+}
+
+/* Words split by the text API: "8," "000" is one number (TeX kerns after the comma;
+ * CLDR en grouping is groups of three), "(1," "2)" a pair of cell indices, not the
+ * accounting negative −1,2. */
+static void test_split_numbers(void **state) {
+  (void)state;
+  pp_scene *s = pp_scene_new(0, 595, 842);
+  add_word(s, "8,", 100, 107);
+  add_word(s, "000", 109, 124);
+  add_word(s, "(1,", 300, 310);
+  add_word(s, "2)", 312, 320);
+  GHashTable *glyphs = g_hash_table_new(NULL, NULL);
+  GPtrArray *labels = pp_labels_collect(s, glyphs);
+  assert_int_equal(labels->len, 1);
+  const pp_label *l = g_ptr_array_index(labels, 0);
+  assert_true(l->number.value == 8000);
+  g_ptr_array_unref(labels);
+  g_hash_table_unref(glyphs);
+  pp_scene_free(s);
+}
+
 int main(void) {
   const struct CMUnitTest tests[] = {
       cmocka_unit_test(test_truncated_columns_clipped),
       cmocka_unit_test(test_horizontal_bars),
       cmocka_unit_test(test_rotated_tick_labels),
       cmocka_unit_test(test_negative_bars_path_minus),
+      cmocka_unit_test(test_split_numbers),
   };
   return cmocka_run_group_tests_name("recognize/charts", tests, NULL, NULL);
 }
