@@ -128,9 +128,9 @@ const pp_document_info *pp_document_get_info(const pp_document *doc) {
   return &doc->info;
 }
 
-/* poppler-glib has no /Rotate getter; the crop box is unrotated, the page size is
- * rotated, so a W/H swap reveals 90/270 on non-square pages. 0 versus 180 and
- * 90 versus 270 cannot be told apart this way; we take 0 and 90 (documented). */
+/* A first guess at the way back to PDF space, before the page is drawn: poppler-glib has
+ * no /Rotate getter, and a W/H swap against the crop box reveals only 90/270 on non-square
+ * pages. The tap replaces it with poppler's own base matrix as soon as it sees it. */
 static void set_pdf_mapping(PopplerPage *page, pp_scene *scene) {
   PopplerRectangle crop;
   poppler_page_get_crop_box(page, &crop);

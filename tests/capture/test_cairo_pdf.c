@@ -278,9 +278,17 @@ static void check_re_page(const char *media_box, const char *extra, double pw, d
   /* The page-space box of the same rectangle, from the MediaBox origin (100, 150) and
    * ISO 32000-1 §8.3.2.3 (y up) or, rotated, §7.7.3.3 /Rotate 90 = clockwise. */
   pp_rect page = cu_path_bbox(m->path);
-  pp_rect want = rotation == 0 ? (pp_rect){30, 450 - 250, 70, 450 - 160}
-                               : (pp_rect){160 - 150, 130 - 100, 250 - 150, 170 - 100};
-  assert_true(cu_rect_near(page, want, TOL));
+  /* ISO 32000-1 §7.7.3.3: /Rotate turns the displayed page clockwise by the angle. With
+   * the MediaBox [100 150 500 450] the rectangle x 130..170, y 160..250 shows at: */
+  pp_rect want;
+  switch (rotation) {
+  case 0: want = (pp_rect){30, 450 - 250, 70, 450 - 160}; break;
+  case 90: want = (pp_rect){160 - 150, 130 - 100, 250 - 150, 170 - 100}; break;
+  case 180: want = (pp_rect){500 - 170, 160 - 150, 500 - 130, 250 - 150}; break;
+  default: want = (pp_rect){450 - 250, 500 - 170, 450 - 160, 500 - 130}; break;
+  }
+  if (!cu_rect_near(page, want, TOL))
+    fail_msg("rotation %d: page box [%g %g %g %g]", rotation, page.x0, page.y0, page.x1, page.y1);
 }
 
 static void test_to_pdf_offset_media_box(void **state) {
@@ -291,6 +299,8 @@ static void test_to_pdf_offset_media_box(void **state) {
 static void test_to_pdf_rotated(void **state) {
   (void)state;
   check_re_page("100 150 500 450", "/Rotate 90", 300, 400, 90);
+  check_re_page("100 150 500 450", "/Rotate 180", 400, 300, 180);
+  check_re_page("100 150 500 450", "/Rotate 270", 300, 400, 270);
 }
 
 static void test_image(void **state) {
