@@ -14,7 +14,7 @@ typedef struct {
   double size;
   double angle;
   pp_number number;
-  gboolean on_axis; /* claimed by a value axis */
+  guint index; /* position in the page's label list: the ledger's key */
 } pp_label;
 
 /* Every numeric phrase of the page, words merged where a number was split by
@@ -49,7 +49,6 @@ typedef struct {
   pp_rect clip; /* clip bbox (infinite when unclipped) */
   double ink;
   pp_paint paint;
-  gboolean used;
 } pp_bar_candidate;
 
 /* glyph_marks: mark indices that are parts of text, never bars. */
@@ -63,7 +62,6 @@ typedef struct {
   pp_rect clip;
   double ink;
   pp_paint paint;
-  gboolean used;
 } pp_area_candidate;
 
 GPtrArray *pp_area_candidates_collect(const pp_scene *scene);
@@ -78,3 +76,54 @@ pp_figure *pp_area_figure_build(const pp_scene *scene, GPtrArray *areas,
                                 const pp_axis_candidate *axis, int side, GPtrArray *all_axes);
 
 void pp_figure_set_fingerprint(pp_figure *figure);
+
+/* ---- The claims ledger -------------------------------------------------------------
+ * Every mark of the scene and every label of the page can belong to at most one figure
+ * (or one axis). Recognizers claim through the ledger, inside a transaction that they
+ * commit when their figure is accepted and roll back when it is rejected, so a later
+ * recognizer can still use what a failed attempt touched. Transactions nest. */
+typedef struct pp_claims pp_claims;
+
+pp_claims *pp_claims_new(guint n_marks, guint n_labels);
+void pp_claims_free(pp_claims *claims);
+G_DEFINE_AUTOPTR_CLEANUP_FUNC(pp_claims, pp_claims_free)
+
+gboolean pp_claims_mark_free(const pp_claims *claims, guint mark);
+gboolean pp_claims_label_free(const pp_claims *claims, guint label);
+/* Who holds it: the static owner string given at claim time, NULL when free. */
+const char *pp_claims_mark_owner(const pp_claims *claims, guint mark);
+const char *pp_claims_label_owner(const pp_claims *claims, guint label);
+/* Claiming what is already held is a programmer error (g_return_if_fail). */
+void pp_claims_take_mark(pp_claims *claims, guint mark, const char *owner);
+void pp_claims_take_label(pp_claims *claims, guint label, const char *owner);
+void pp_claims_begin(pp_claims *claims);
+void pp_claims_commit(pp_claims *claims);
+void pp_claims_rollback(pp_claims *claims);
+
+/* ---- What every recognizer sees ------------------------------------------------------ */
+typedef struct {
+  const pp_scene *scene;
+  GHashTable *glyph_marks;   /* marks that are parts of text (path-drawn minus signs) */
+  GPtrArray *labels;         /* pp_label*, every numeric phrase */
+  GPtrArray *axes;           /* pp_axis_candidate*, fitted or not */
+  GArray *bars;              /* pp_bar_candidate */
+  GPtrArray *areas;          /* pp_area_candidate* */
+  pp_claims *claims;         /* the ledger */
+  pp_page_charts *out;       /* figures found so far */
+} pp_recognize_ctx;
+
+/* A recognizer finds every figure of its family on the page, claiming marks and labels
+ * through ctx->claims, and hands each accepted figure to pp_figure_finish(). */
+typedef struct {
+  pp_recognizer_info info;
+  void (*run)(pp_recognize_ctx *ctx);
+} pp_recognizer;
+
+/* The table, in priority order (recognizers.c). */
+extern const pp_recognizer pp_recognizers[];
+extern const guint pp_n_recognizers;
+
+/* Titles, fingerprint, scale range, evidence → confidence; adds it to ctx->out
+ * (figure.c). scale_source may be NULL. */
+void pp_figure_finish(pp_recognize_ctx *ctx, pp_figure *figure,
+                      const pp_axis_candidate *scale_source);
