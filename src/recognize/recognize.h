@@ -92,12 +92,12 @@ const char *pp_value_source_name(pp_value_source source);
 /* What a mark is to its element: a 3D bar's front, cap and side faces, a tilted pie's
  * top and rim, a stacked segment, or just the mark. */
 typedef enum {
-  PP_PART_BODY,  /* the mark that carries the value (a flat bar, a wedge, a bubble) */
-  PP_PART_FRONT, /* front face of a 3D bar */
-  PP_PART_CAP,   /* top or end cap (parallelogram, ellipse) */
-  PP_PART_SIDE,  /* side face */
-  PP_PART_TOP,   /* top face of a tilted pie slice */
-  PP_PART_RIM,   /* side wall of a tilted pie slice */
+  PP_PART_BODY,    /* the mark that carries the value (a flat bar, a wedge, a bubble) */
+  PP_PART_FRONT,   /* front face of a 3D bar */
+  PP_PART_CAP,     /* top or end cap (parallelogram, ellipse) */
+  PP_PART_SIDE,    /* side face */
+  PP_PART_TOP,     /* top face of a tilted pie slice */
+  PP_PART_RIM,     /* side wall of a tilted pie slice */
   PP_PART_SEGMENT, /* one segment of a stacked bar */
 } pp_part_role;
 
@@ -112,12 +112,12 @@ typedef struct {
 /* The geometry of an element in the form its family needs. */
 typedef enum {
   PP_SHAPE_NONE,
-  PP_SHAPE_RECT,      /* rect */
-  PP_SHAPE_SAMPLE,    /* a vertical slice of a filled area at x: rect.x0 == rect.x1 */
-  PP_SHAPE_SECTOR,    /* sector */
-  PP_SHAPE_QUAD,      /* quad: trapezoid, parallelogram, triangle (p[3] == p[0]) */
-  PP_SHAPE_CIRCLE,    /* circle */
-  PP_SHAPE_POLYGON,   /* only box and ink are known */
+  PP_SHAPE_RECT,    /* rect */
+  PP_SHAPE_SAMPLE,  /* a vertical slice of a filled area at x: rect.x0 == rect.x1 */
+  PP_SHAPE_SECTOR,  /* sector */
+  PP_SHAPE_QUAD,    /* quad: trapezoid, parallelogram, triangle (p[3] == p[0]) */
+  PP_SHAPE_CIRCLE,  /* circle */
+  PP_SHAPE_POLYGON, /* only box and ink are known */
 } pp_shape_kind;
 
 typedef struct {
@@ -126,11 +126,11 @@ typedef struct {
     pp_rect rect;
     struct {
       pp_point centre;
-      double rx, ry;       /* outer radii; rx == ry for a circle, ry < rx when tilted */
-      double inner;        /* inner radius as a fraction of the outer one (donut), 0 for a pie */
-      double a0, a1;       /* parametric start and sweep end, radians, a1 > a0 (the angle in the
-                            * un-tilted circle, not the apparent one) */
-      double offset;       /* explosion: distance of the centre from the pie's common centre */
+      double rx, ry; /* outer radii; rx == ry for a circle, ry < rx when tilted */
+      double inner;  /* inner radius as a fraction of the outer one (donut), 0 for a pie */
+      double a0, a1; /* parametric start and sweep end, radians, a1 > a0 (the angle in the
+                      * un-tilted circle, not the apparent one) */
+      double offset; /* explosion: distance of the centre from the pie's common centre */
     } sector;
     struct {
       pp_point p[4]; /* corners in drawing order */
@@ -157,11 +157,11 @@ typedef struct {
   char *label_text;       /* as printed ("€100m", "12.5%"), NULL if none */
   double share;           /* printed or implied share of the whole, 0–1, NAN if not a share */
 
-  double ink;    /* visible ink of all parts, pt² */
-  double extent; /* visible length along the scale (bars), mean height (areas), sweep (angles,
-                  * radians), radius (symbols): the size the encoding reads */
-  char *category; /* category or slice name, NULL if none was found */
-  guint series;   /* colour group, 0-based */
+  double ink;       /* visible ink of all parts, pt² */
+  double extent;    /* visible length along the scale (bars), mean height (areas), sweep (angles,
+                     * radians), radius (symbols): the size the encoding reads */
+  char *category;   /* category or slice name, NULL if none was found */
+  guint series;     /* colour group, 0-based */
   gboolean stacked; /* sits on another element of its column */
 } pp_element;
 
@@ -188,7 +188,7 @@ typedef struct {
   const char *recognizer; /* static: the recognizer that built it */
   pp_rect bbox;           /* plot region, page points */
   pp_scale *scale;        /* NULL when the chart has no readable value scale */
-  GArray *elements;       /* of pp_element, category order (left→right, top→bottom, clockwise) */
+  GArray *elements; /* of pp_element, category order (left→right, top→bottom, clockwise) */
   guint n_series;
   pp_projection projection;
   GArray *evidence;  /* of pp_evidence */
