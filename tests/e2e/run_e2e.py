@@ -165,6 +165,13 @@ for w in drawn["words"]:
 rc, out, err = run("scene", good, "--page", "3")
 check(rc == 2 and out == "", "scene of a page that does not exist fails with 2")
 one_error_line(err, good, "page", "scene --page 3")
+# Debug output goes to stderr only: stdout stays one JSON document.
+rc, out, err = run("charts", good, "--page", "1", env={"G_MESSAGES_DEBUG": "all"})
+try:
+    json.loads(out)
+    check("plotproof-recognize" in err, "debug output is on stderr")
+except ValueError:
+    check(False, "charts with debug output on: stdout is not JSON")
 rc, out, err = run("charts", good, "--page", "2")
 check(rc == 0 and "figures" in json.loads(out), "charts prints JSON with a figures list")
 
