@@ -84,12 +84,26 @@ static void elements_table(GString *o, JsonObject *f) {
   (void)sum_v, (void)sum_g;
 }
 
-static void legend(GString *o) {
+/* Element boxes are drawn only when the findings carry them. */
+static gboolean has_element_boxes(JsonObject *f) {
+  JsonArray *els = pp_rv_arr(f, "elements");
+  double r[4];
+  for (guint i = 0; els && i < json_array_get_length(els); i++) {
+    JsonObject *e = json_array_get_object_element(els, i);
+    if (pp_rv_rect(e, "bbox", r) || pp_rv_rect(e, "box", r))
+      return TRUE;
+  }
+  return FALSE;
+}
+
+static void legend(GString *o, JsonObject *f) {
   g_string_append(o, "<figcaption class=\"legend\">"
                      "<span><i class=\"key\" style=\"border:2px dashed #e07b00\"></i>plot area "
-                     "measured</span>"
-                     "<span><i class=\"key\" style=\"border:2px solid #1f5fbf\"></i>marks "
-                     "measured</span>"
+                     "measured</span>");
+  if (has_element_boxes(f))
+    g_string_append(o, "<span><i class=\"key\" style=\"border:2px solid #1f5fbf\"></i>marks "
+                       "measured</span>");
+  g_string_append(o, ""
                      "<span><i class=\"key\" style=\"background:#c0161d;height:3px\"></i>"
                      "drawing's baseline</span>"
                      "<span><i class=\"key\" style=\"border-top:3px dashed #138a36\"></i>"
@@ -163,7 +177,7 @@ static void finding_section(GString *o, const char *dir, const char *stem, guint
                            "<figure><img class=\"crop\" src=\"%s\" width=\"%d\" height=\"%d\" "
                            "alt=\"the figure on page %" G_GINT64_FORMAT " with overlays\">\n",
                            crop_name, (w * 2) / 3, (h * 2) / 3, pp_rv_int(f, "page"));
-    legend(o);
+    legend(o, f);
     g_string_append(o, "</figure>\n");
   } else {
     g_string_append(o, "<p class=\"note\">No crop: ");
