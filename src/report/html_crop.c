@@ -20,7 +20,8 @@
 /* More rows than this make the share chart unreadable; the table still lists all. */
 #define PP_SHARES_MAX_ROWS 24
 
-static const double orange[3] = {0.88, 0.48, 0.0}, blue[3] = {0.12, 0.37, 0.75},
+/* Element boxes in magenta over a white halo: charts are rarely drawn in magenta. */
+static const double orange[3] = {0.88, 0.48, 0.0}, blue[3] = {0.75, 0.0, 0.55},
                     red[3] = {0.75, 0.09, 0.11}, green[3] = {0.07, 0.54, 0.21},
                     grey[3] = {0.55, 0.57, 0.62};
 
@@ -55,7 +56,8 @@ typedef struct {
 static axis_info read_axis(JsonObject *doc, JsonObject *finding) {
   axis_info a = {0};
   JsonObject *fig = pp_rv_finding_figure(doc, finding);
-  JsonObject *ax = pp_rv_obj(fig, "value_axis");
+  /* Format 1 wrote "value_axis" with a "log" flag, format 2 "scale" with a "kind". */
+  JsonObject *ax = pp_rv_obj(fig, "scale") ? pp_rv_obj(fig, "scale") : pp_rv_obj(fig, "value_axis");
   JsonArray *range = pp_rv_arr(ax, "range");
   if (!ax || !range || json_array_get_length(range) != 2)
     return a;
@@ -63,8 +65,9 @@ static axis_info read_axis(JsonObject *doc, JsonObject *finding) {
   a.max = json_array_get_double_element(range, 1);
   const char *o = pp_rv_str(ax, "orientation");
   a.vertical = !o || g_strcmp0(o, "horizontal") != 0;
-  JsonNode *lg = json_object_get_member(ax, "log");
-  a.log = lg && JSON_NODE_HOLDS_VALUE(lg) && json_node_get_boolean(lg);
+  JsonNode *lg = json_object_has_member(ax, "log") ? json_object_get_member(ax, "log") : NULL;
+  a.log = (lg && JSON_NODE_HOLDS_VALUE(lg) && json_node_get_boolean(lg)) ||
+          g_strcmp0(pp_rv_str(ax, "kind"), "log") == 0;
   a.have = isfinite(a.min) && isfinite(a.max) && a.max > a.min;
   return a;
 }
@@ -96,9 +99,12 @@ static void draw_elements(cairo_t *cr, JsonObject *finding) {
     double r[4];
     if (!pp_rv_rect(e, "bbox", r) && !pp_rv_rect(e, "box", r))
       continue;
+    cairo_rectangle(cr, r[0], r[1], r[2] - r[0], r[3] - r[1]);
+    cairo_set_source_rgb(cr, 1, 1, 1);
+    cairo_set_line_width(cr, 4.0 / PP_CROP_SCALE);
+    cairo_stroke_preserve(cr);
     rgb(cr, blue);
     cairo_set_line_width(cr, 2.0 / PP_CROP_SCALE);
-    cairo_rectangle(cr, r[0], r[1], r[2] - r[0], r[3] - r[1]);
     cairo_stroke(cr);
     char num[16];
     g_snprintf(num, sizeof num, "%u", i + 1);

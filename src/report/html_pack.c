@@ -101,7 +101,7 @@ static void legend(GString *o, JsonObject *f) {
                      "<span><i class=\"key\" style=\"border:2px dashed #e07b00\"></i>plot area "
                      "measured</span>");
   if (has_element_boxes(f))
-    g_string_append(o, "<span><i class=\"key\" style=\"border:2px solid #1f5fbf\"></i>marks "
+    g_string_append(o, "<span><i class=\"key\" style=\"border:2px solid #bf008c\"></i>marks "
                        "measured</span>");
   g_string_append(o, ""
                      "<span><i class=\"key\" style=\"background:#c0161d;height:3px\"></i>"
