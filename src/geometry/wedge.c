@@ -313,8 +313,31 @@ static gboolean ellipse_about(GArray *pts, pp_point c, const pp_ellipse *shape, 
 }
 
 /* The ellipse through pts with its centre unknown: the general fit, or a circle. */
+/* With the shape known, un-squeezing the points makes them a circle: its centre is the
+ * ellipse's, whatever short arc they span. */
+static gboolean centre_for_shape(GArray *pts, const pp_ellipse *shape, pp_point *centre) {
+  double c = cos(shape->rot), s = sin(shape->rot), k = shape->ry / shape->rx;
+  g_autoptr(GArray) u = g_array_sized_new(FALSE, FALSE, sizeof(pp_point), pts->len);
+  for (guint i = 0; i < pts->len; i++) {
+    pp_point p = g_array_index(pts, pp_point, i);
+    double x = p.x, y = -p.y; /* y up */
+    pp_point q = {c * x + s * y, (-s * x + c * y) / k};
+    g_array_append_val(u, q);
+  }
+  pp_point qc;
+  double r;
+  if (!pp_circle_fit((const pp_point *)u->data, u->len, &qc, &r))
+    return FALSE;
+  double x = qc.x, y = qc.y * k; /* back to the rotated y-up frame, then to the page */
+  *centre = (pp_point){c * x - s * y, -(s * x + c * y)};
+  return TRUE;
+}
+
 static gboolean ellipse_free(GArray *pts, const pp_ellipse *shape, pp_ellipse *e,
                              gboolean *fitted) {
+  pp_point sc;
+  if (shape && centre_for_shape(pts, shape, &sc))
+    return ellipse_about(pts, sc, shape, e, fitted);
   pp_point cc;
   double cr;
   if (pp_circle_fit((const pp_point *)pts->data, pts->len, &cc, &cr)) {
