@@ -31,6 +31,7 @@ class Doc:
         self.path = os.path.join(OUT, name + ".pdf")
         self.surface = cairo.PDFSurface(self.path, W, H)
         self.surface.set_metadata(cairo.PDFMetadata.CREATOR, PRODUCER)
+        self.surface.set_metadata(cairo.PDFMetadata.CREATE_DATE, "2031-03-01T00:00:00Z")
         self.cr = cairo.Context(self.surface)
         self.cr.select_font_face("DejaVu Sans")
 
