@@ -256,7 +256,7 @@ def diagram(name):
         cr.fill()
         d.text(s, bx, by, 10)
     d.text("Asset management cycle", cx, 20, 11)
-    d.finish([{"bbox": [cx - r - 26, cy - r - 26, cx + r + 26, cy + r + 26], "kind": "shape",
+    d.finish([{"bbox": [cx - r - 26, cy - r - 26, cx + r + 26, cy + r + 26], "kind": "other",
                "rule": None, "values": [], "labels": [], "data_labels": None,
                "style": ["diagram"]}])
 

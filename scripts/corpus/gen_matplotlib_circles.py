@@ -223,7 +223,7 @@ def lookalikes():
     ax.set_xlim(-1.1, 1.1)
     ax.set_ylim(-1.1, 1.1)
     bb = box(fig, [track])
-    save(fig, "circ_progress_ring", [figure("shape", bb, [], [], None,
+    save(fig, "circ_progress_ring", [figure("other", bb, [], [], None,
                                             style=["progress-ring"])])
     # A gauge: half ring in three bands and a needle (honest).
     fig = new_fig(5.0, 3.2)
@@ -242,7 +242,7 @@ def lookalikes():
     ax.set_xlim(-1.2, 1.2)
     ax.set_ylim(-0.35, 1.1)
     bb = box(fig, parts)
-    save(fig, "circ_gauge", [figure("shape", bb, [], [], None, style=["gauge"])])
+    save(fig, "circ_gauge", [figure("other", bb, [], [], None, style=["gauge"])])
     # A circular logo (three ring segments and a dot) beside a letterhead.
     fig = new_fig(6.0, 2.0)
     ax = fig.add_axes([0.02, 0.05, 0.3, 0.9])
@@ -259,7 +259,7 @@ def lookalikes():
     fig.text(0.38, 0.55, "Fjordhaven Ferries ASA", fontsize=16)
     fig.text(0.38, 0.35, "Annual report 2031 · Sustainability supplement", fontsize=9)
     bb = box(fig, parts)
-    save(fig, "circ_logo", [figure("shape", bb, [], [], None, style=["logo"])])
+    save(fig, "circ_logo", [figure("other", bb, [], [], None, style=["logo"])])
 
 
 def main():

@@ -8,11 +8,14 @@ import math
 import os
 import sys
 
-KINDS = {"column", "bar", "area", "line", "raster", "table", "text"}
-RULES = {"bars-off-zero", "area-off-zero", "bars-on-log", "bars-vs-labels", None}
+sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
+import truth_shapes  # noqa: E402  (3D bars, pyramids, bubbles)
+
+KINDS = {"column", "bar", "area", "line", "raster", "table", "text", "other"} | truth_shapes.KINDS
+RULES = {"bars-off-zero", "area-off-zero", "bars-on-log", "bars-vs-labels",
+         None} | truth_shapes.RULES
 INK_KINDS = {"column", "bar", "area"}
-# Circle charts (truth_circles.py): their kinds, the honest lookalike "shape" (a logo,
-# gauge, progress ring or diagram with arcs: no chart to judge) and their rules.
+# Circle charts (truth_circles.py): pies, tilted pies, radial bars, polar areas.
 import truth_circles  # noqa: E402
 KINDS |= truth_circles.KINDS
 RULES |= truth_circles.RULES
@@ -48,6 +51,8 @@ def expected_measures(fig):
 
     Lie Factor: Tufte (1983), The Visual Display of Quantitative Information,
     p.57. GDI = 100(a/b - 1): Steinbart (1989), Beattie & Jones (1992)."""
+    if fig["kind"] in truth_shapes.KINDS:
+        return truth_shapes.expected(fig)
     if fig["kind"] in truth_circles.KINDS:
         return truth_circles.expected(fig)
     if fig["kind"] not in INK_KINDS or fig.get("baseline") is None:

@@ -18,7 +18,7 @@ carries a "circle" object (docs/corpus.md, "Circle charts"). Formulas:
 
 import math
 
-KINDS = {"pie", "tilted-pie", "radial-bar", "polar-area", "shape"}
+KINDS = {"pie", "tilted-pie", "radial-bar", "polar-area"}
 RULES = {"wedges-vs-labels", "shares-not-100", "tilted-pie-ink", "radial-ring-ink",
          "polar-radius"}
 
@@ -156,7 +156,7 @@ def _polar(fig, c):
 
 def expected(fig):
     c = fig.get("circle")
-    if fig["kind"] == "shape" or not c or not fig.get("values"):
+    if not c or not fig.get("values"):
         return None
     return {"pie": _pie, "tilted-pie": _tilted, "radial-bar": _radial,
             "polar-area": _polar}[fig["kind"]](fig, c)
@@ -164,7 +164,7 @@ def expected(fig):
 
 def validate(fig, where):
     errs = []
-    if fig.get("kind") in KINDS - {"shape"}:
+    if fig.get("kind") in KINDS:
         c = fig.get("circle")
         if not isinstance(c, dict):
             return ["%s: circle charts need a circle object" % where]
