@@ -44,8 +44,8 @@ def main():
     skipped = [d for d in committed if d not in producers and d != "demo"]
     print(f"corpus: {same} files identical (dates blanked in PDFs); regenerated "
           f"{', '.join(producers) or 'nothing'}")
-    if skipped:
-        print("SKIP: not regenerated here (producer not installed): " + ", ".join(skipped))
+    for d in skipped:
+        print(f"SKIP: corpus/{d} not regenerated here (its producer is not installed)")
     for title, rows in (("differ from the committed file", differ),
                         ("generated but not committed", missing)):
         if rows:
