@@ -8,8 +8,12 @@ import math
 import os
 import sys
 
-KINDS = {"column", "bar", "area", "line", "raster", "table", "text"}
-RULES = {"bars-off-zero", "area-off-zero", "bars-on-log", "bars-vs-labels", None}
+sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
+import truth_shapes  # noqa: E402  (3D bars, pyramids, bubbles)
+
+KINDS = {"column", "bar", "area", "line", "raster", "table", "text", "other"} | truth_shapes.KINDS
+RULES = {"bars-off-zero", "area-off-zero", "bars-on-log", "bars-vs-labels",
+         None} | truth_shapes.RULES
 INK_KINDS = {"column", "bar", "area"}
 
 
@@ -43,6 +47,8 @@ def expected_measures(fig):
 
     Lie Factor: Tufte (1983), The Visual Display of Quantitative Information,
     p.57. GDI = 100(a/b - 1): Steinbart (1989), Beattie & Jones (1992)."""
+    if fig["kind"] in truth_shapes.KINDS:
+        return truth_shapes.expected(fig)
     if fig["kind"] not in INK_KINDS or fig.get("baseline") is None:
         return None
     if not fig["values"]:

@@ -53,4 +53,53 @@ GPtrArray *pp_path_flatten(const pp_path *path, double tolerance); /* of GArray<
  * (fills and images by clipped area, strokes by width × clipped length). */
 void pp_scene_measure(pp_scene *scene);
 
+/* ---- Faces and solids (quads.c, power_fit.c) ---- */
+
+typedef enum {
+  PP_QUAD_NONE,
+  PP_QUAD_TRIANGLE,      /* p[3] == p[0] */
+  PP_QUAD_RECTANGLE,     /* right angles, any rotation */
+  PP_QUAD_PARALLELOGRAM, /* both pairs of sides parallel: oblique caps and sides */
+  PP_QUAD_TRAPEZOID,     /* p[0]p[1] ∥ p[3]p[2]: pyramid slices, perspective faces */
+  PP_QUAD_CONVEX,        /* any other convex quadrilateral */
+} pp_quad_kind;
+
+const char *pp_quad_kind_name(pp_quad_kind kind);
+
+typedef struct {
+  pp_quad_kind kind;
+  pp_point p[4]; /* corners in drawing order */
+  double area;   /* pt², by the shoelace formula */
+} pp_quad;
+
+/* If the path is one convex subpath with 3 or 4 corners (straight curves, repeated and
+ * collinear points within tol tolerated), classify it and store its corners. */
+gboolean pp_path_as_quad(const pp_path *path, double tol, pp_quad *out);
+double pp_quad_area(const pp_quad *quad);
+
+/* Do two faces meet along an edge (collinear within tol, overlapping over most of the
+ * shorter one)? */
+gboolean pp_quads_share_edge(const pp_quad *a, const pp_quad *b, double tol);
+/* Faces joined by shared edges, transitively: group[i] for each face, numbered in order
+ * of first appearance. Returns the number of groups. */
+guint pp_quads_group_by_edges(const pp_quad *quads, guint n, double tol, guint *group);
+
+/* size = exp(log_coeff) · value^exponent, least squares on logs over the positive pairs. */
+typedef struct {
+  double exponent, log_coeff;
+  double r2; /* coefficient of determination of the log-log fit */
+  guint n;   /* pairs used */
+} pp_power_fit;
+
+/* FALSE with fewer than two usable pairs or when the values do not vary. */
+gboolean pp_power_fit_compute(const double *x, const double *y, guint n, pp_power_fit *out);
+
+typedef enum {
+  PP_SOLID_CONE,           /* base_* are radii */
+  PP_SOLID_SQUARE_PYRAMID, /* base_* are half-sides */
+} pp_solid_kind;
+
+/* Volume of the solid's slice between two parallel cuts of the given half-widths. */
+double pp_frustum_volume(pp_solid_kind kind, double base_top, double base_bottom, double height);
+
 G_END_DECLS
