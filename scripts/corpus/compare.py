@@ -28,7 +28,9 @@ def normalised(path):
 def main():
     fresh, repo = (os.path.abspath(p) for p in sys.argv[1:3])
     differ, missing, same = [], [], 0
-    producers = sorted(os.listdir(os.path.join(fresh, "corpus")))
+    # a producer counts as regenerated only when it wrote something
+    producers = sorted(d for d in os.listdir(os.path.join(fresh, "corpus"))
+                       if os.listdir(os.path.join(fresh, "corpus", d)))
     for prod in producers:
         for name in sorted(os.listdir(os.path.join(fresh, "corpus", prod))):
             got = os.path.join(fresh, "corpus", prod, name)
