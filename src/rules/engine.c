@@ -113,16 +113,17 @@ static gboolean outside_band(const pp_measures *m, const pp_thresholds *t) {
 
 /* The severity follows the distortion alone, so findings are ordered by how much they
  * misstate: ink off by 2× or more is severe, by more than the GDI's 10% major, less minor. */
+pp_severity pp_rule_severity_of(double distortion, const pp_thresholds *t) {
+  double d = isfinite(distortion) ? distortion : 1;
+  if (d >= t->severe_factor)
+    return PP_SEVERITY_SEVERE;
+  return d > 1 + t->gdi_limit / 100 ? PP_SEVERITY_MAJOR : PP_SEVERITY_MINOR;
+}
+
 gboolean pp_rule_grade(const pp_measures *m, const pp_thresholds *t, pp_severity *severity) {
   if (!outside_band(m, t))
     return FALSE;
-  double d = isfinite(m->distortion) ? m->distortion : 1;
-  if (d >= t->severe_factor)
-    *severity = PP_SEVERITY_SEVERE;
-  else if (d > 1 + t->gdi_limit / 100)
-    *severity = PP_SEVERITY_MAJOR;
-  else
-    *severity = PP_SEVERITY_MINOR;
+  *severity = pp_rule_severity_of(pp_measures_distortion(m), t);
   return TRUE;
 }
 
@@ -212,9 +213,30 @@ static char *relative_words(double r, gboolean folds) {
   return s;
 }
 
+/* "the Harbour slice takes 41% of the ink for 25% of the value": one element's shares. */
+static char *share_headline(const pp_finding *f, guint i) {
+  double sv = 0, sg = 0;
+  for (guint k = 0; k < f->elements->len; k++) {
+    const pp_finding_element *e = &g_array_index(f->elements, pp_finding_element, k);
+    sv += fabs(e->value), sg += e->ink;
+  }
+  const pp_finding_element *e = &g_array_index(f->elements, pp_finding_element, i);
+  char buf[32];
+  const char *noun = strstr(pp_figure_kind_name(f->figure_kind), "pie") ? "slice" : "element";
+  return g_strdup_printf("the %s %s takes %.0f%% of the ink for %.0f%% of the value",
+                         name_of(f, i, buf, sizeof buf), noun, 100 * e->ink / sg,
+                         100 * fabs(e->value) / sv);
+}
+
 char *pp_rule_headline(const pp_finding *f, const pp_thresholds *t) {
   guint a, b;
   gboolean worst;
+  const pp_measures *m = &f->measures;
+  /* Only a whole is measured (printed shares against 100%): say so. */
+  if (!isfinite(m->lie_factor) && !isfinite(m->max_pair_departure) && isfinite(m->growth_ratio))
+    return g_strdup_printf("the printed shares add up to %.0f%%, not 100%%", 100 * m->growth_ratio);
+  if (m->first == m->last && m->first < f->elements->len)
+    return share_headline(f, m->first);
   if (!shown_pair(f, t, &a, &b, &worst))
     return g_strdup("the ink is not proportional to the values");
   const pp_finding_element *ea = &g_array_index(f->elements, pp_finding_element, a);
@@ -289,10 +311,18 @@ void pp_rules_check_figure(const pp_figure *fig, const pp_thresholds *t, GPtrArr
       pp_finding_free(f);
       continue;
     }
+    /* Rules may set their own measures after the shared ones: the distortion follows them. */
+    f->measures.distortion = pp_measures_distortion(&f->measures);
     /* The first rule that applies judges the figure, whatever it finds. */
     if (r->severity(&f->measures, t, &f->severity)) {
       f->headline = pp_rule_headline(f, t);
-      f->message = r->sentence(fig, f, t);
+      char *sentence = r->sentence(fig, f, t);
+      /* Every message opens with its headline; rules with their own sentence get it here. */
+      f->message = g_str_has_prefix(sentence, f->headline)
+                       ? sentence
+                       : g_strdup_printf("%s: %s", f->headline, sentence);
+      if (f->message != sentence)
+        g_free(sentence);
       g_ptr_array_add(findings, f);
     } else {
       pp_finding_free(f);

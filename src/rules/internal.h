@@ -55,6 +55,10 @@ gboolean pp_rule_grade(const pp_measures *m, const pp_thresholds *t, pp_severity
 /* "HEADLINE: LEAD; 2027 (€118.2m) to 2031 (€140.2m): ink ×2.21 for value ×1.19 (Lie Factor
  * 6.49, GDI +549%)"; noun names an element ("bar", "point"). Takes lead. */
 char *pp_rule_sentence(const pp_finding *f, const pp_thresholds *t, char *lead, const char *noun);
+/* The severity word of a distortion: the one scale every rule uses. */
+pp_severity pp_rule_severity_of(double distortion, const pp_thresholds *t);
+/* max(worst pair, growth ratio, 1/growth ratio); NAN when neither is known. */
+double pp_measures_distortion(const pp_measures *m);
 /* The plain headline: "shows 19% growth as 121% growth", "shows Lowfield 17% above
  * Nordvik as 109% above", from the pair the sentence shows. */
 char *pp_rule_headline(const pp_finding *f, const pp_thresholds *t);
@@ -87,8 +91,7 @@ gboolean pp_rule_radial_ring_ink_measure(const pp_figure *fig, const pp_threshol
                                          pp_finding *f);
 char *pp_rule_radial_ring_ink_sentence(const pp_figure *fig, const pp_finding *f,
                                        const pp_thresholds *t);
-gboolean pp_rule_polar_radius_measure(const pp_figure *fig, const pp_thresholds *t,
-                                      pp_finding *f);
+gboolean pp_rule_polar_radius_measure(const pp_figure *fig, const pp_thresholds *t, pp_finding *f);
 char *pp_rule_polar_radius_sentence(const pp_figure *fig, const pp_finding *f,
                                     const pp_thresholds *t);
 gboolean pp_rule_bars_vs_labels_measure(const pp_figure *fig, const pp_thresholds *t,

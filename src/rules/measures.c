@@ -70,8 +70,16 @@ void pp_measures_compute(const double *values, const double *inks, const guint *
       }
     }
   out->max_pair_departure = worst;
-  /* One number for the severity scale: the largest factor by which the ink of one element
-   * is too large or too small against another's. */
-  double g = isfinite(out->growth_ratio) && out->growth_ratio > 0 ? out->growth_ratio : 1;
-  out->distortion = fmax(fmax(g, 1 / g), isfinite(worst) ? worst : 1);
+  out->distortion = pp_measures_distortion(out);
+}
+
+/* One number for the severity scale: the largest factor by which the ink of one element
+ * is too large or too small against another's (or the whole against 100%). */
+double pp_measures_distortion(const pp_measures *m) {
+  gboolean g_ok = isfinite(m->growth_ratio) && m->growth_ratio > 0;
+  gboolean p_ok = isfinite(m->max_pair_departure);
+  if (!g_ok && !p_ok)
+    return NAN;
+  double g = g_ok ? m->growth_ratio : 1;
+  return fmax(fmax(g, 1 / g), p_ok ? m->max_pair_departure : 1);
 }
