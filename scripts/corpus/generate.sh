@@ -72,6 +72,9 @@ fi
 if command -v gnuplot >/dev/null 2>&1 && [ -x "$py" ]; then
 	"$py" "$here/gen_gnuplot_circles.py" || status=1
 fi
+if command -v Rscript >/dev/null 2>&1 && [ -x "$py" ]; then
+	Rscript "$here/gen_r_circles.R" || status=1
+fi
 if [ -x "$py" ] && "$py" -c 'import cairo' 2>/dev/null; then
 	"$py" "$here/gen_cairo_circles.py" || status=1
 else
