@@ -181,6 +181,10 @@ static const unit_token unit_tokens[] = {
 enum { SEP_NONE = 0, SEP_POINT = '.', SEP_COMMA = ',', SEP_SPACE = ' ', SEP_APOS = '\'' };
 
 #define MAX_GROUPS 32
+/* A bare four-digit integer in this range may be a year (the span of dated series in
+ * reports, with room ahead; common practice, no source). */
+#define PP_YEAR_FIRST 1800
+#define PP_YEAR_LAST 2199
 
 static gunichar char_at(const char *p, const char *end, size_t *len) {
   if (p >= end) {
@@ -519,7 +523,8 @@ static gboolean parse_strict(const char *s, const char *end, pp_decimal_mark con
 
   out->year_like = !out->has_grouping && ndec == 0 && !has_exp && nint == 1 && glen[0] == 4 &&
                    !st.signed_ && !st.paren_open && !out->currency[0] && out->multiplier == 1.0 &&
-                   !out->percent && !out->permille && out->value >= 1800 && out->value <= 2199;
+                   !out->percent && !out->permille && out->value >= PP_YEAR_FIRST &&
+                   out->value <= PP_YEAR_LAST;
   ok = TRUE;
 done:
   g_string_free(digits, TRUE);
