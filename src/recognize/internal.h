@@ -149,6 +149,11 @@ void pp_figure_finish(pp_recognize_ctx *ctx, pp_figure *figure,
  * (producers' rounding; common practice, no source). */
 #define PP_RECT_TOL 0.01
 
+/* Bars whose lengths all agree within this, pt, while carrying different printed numbers
+ * are cells, swatches or shaded rows with numbers in them (heatmaps, colour keys, tables),
+ * not bars standing for those numbers (common practice, no source). */
+#define PP_EQUAL_LENGTH_TOL 0.5
+
 gboolean pp_same_edge(double a, double b);
 /* One of the two edges u0, u1 is the edge c. */
 gboolean pp_on_edge(double u0, double u1, double c);
@@ -186,7 +191,6 @@ gboolean pp_bars_legend_like(const pp_scene *scene, const pp_figure *fig);
 void pp_axis_claim_labels(pp_recognize_ctx *ctx, const pp_axis_candidate *axis);
 /* An axis is taken when every one of its labels is held (by a figure built on it). */
 gboolean pp_axis_taken(const pp_recognize_ctx *ctx, const pp_axis_candidate *axis);
-
 
 /* ---- Circles (wedges.c): shared by the pie, tilted-pie and radial recognizers -------- */
 /* A filled mark's subpath read as a wedge, with its share of the mark's ink. */
