@@ -242,11 +242,17 @@ static char *check_years(const pp_figure *fig) {
   double step = steps[n_steps / 2];
   for (guint k = 1; k < n; k++) {
     int missing = order[k] - order[k - 1] - 1;
-    if (missing > 0 && fabs(centre[k] - centre[k - 1]) < (1 + missing - PP_FUND_GAP_SLACK) * step)
-      return g_strdup_printf("%d to %d: %d year%s left out with no empty slot, so the years "
-                             "read as consecutive; a year without data is shown as a gap "
-                             "(" REG ", Article 15, from memory)",
-                             order[k - 1] + 1, order[k] - 1, missing, missing == 1 ? "" : "s");
+    if (missing <= 0 || fabs(centre[k] - centre[k - 1]) >= (1 + missing - PP_FUND_GAP_SLACK) * step)
+      continue;
+    char *years_out = missing == 1
+                          ? g_strdup_printf("%d is", order[k - 1] + 1)
+                          : g_strdup_printf("%d to %d are", order[k - 1] + 1, order[k] - 1);
+    char *s = g_strdup_printf("%s left out with no empty slot between %d and %d, so the years "
+                              "read as consecutive; a year without data is shown as a gap "
+                              "(" REG ", Article 15, from memory)",
+                              years_out, order[k - 1], order[k]);
+    g_free(years_out);
+    return s;
   }
   return NULL;
 }

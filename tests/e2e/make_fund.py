@@ -27,12 +27,13 @@ def pct(v, decimals=1):
 
 
 def draw(path, fund=FUND, bench=BENCH, labels=None, decimals=1, log=False, floor=None,
-         ylim=None, drop_label=None):
+         ylim=None, drop_label=None, years=YEARS, slots=None):
+    """slots: the x slot of each year (default 0, 1, 2, ...); years: the printed years."""
     fig = plt.figure(figsize=(9.5, 5.2))
     fig.text(0.08, 0.95, "Past performance", fontsize=14, weight="bold")
     fig.text(0.08, 0.91, "Aurelian Meadow Balanced Fund, class A (invented)", fontsize=8)
     ax = fig.add_axes([0.09, 0.2, 0.86, 0.65])
-    xs = list(range(len(YEARS)))
+    xs = slots if slots is not None else list(range(len(years)))
     w = 0.38
     base = floor if floor is not None else 0
     hf = [v - base for v in fund]
@@ -60,8 +61,14 @@ def draw(path, fund=FUND, bench=BENCH, labels=None, decimals=1, log=False, floor
             ax.annotate(pct(v, decimals), (b.get_x() + b.get_width() / 2, y),
                         xytext=(0, off), textcoords="offset points", ha="center",
                         va="bottom" if top >= 0 else "top", fontsize=6)
-    ax.set_xticks(xs)
-    ax.set_xticklabels([str(y) for y in YEARS], fontsize=7)
+    # Every slot gets its year; an empty slot the year after its left neighbour's.
+    ticks = list(range(min(xs), max(xs) + 1))
+    names = {x: y for x, y in zip(xs, years)}
+    for t in ticks:
+        if t not in names:
+            names[t] = names[t - 1] + 1
+    ax.set_xticks(ticks)
+    ax.set_xticklabels([str(names[t]) for t in ticks], fontsize=7)
     ax.tick_params(axis="y", labelsize=7)
     if not log:
         ax.axhline(0 if floor is None else floor, color="black", linewidth=0.8)
@@ -103,6 +110,16 @@ def main():
     # are cut by the plot frame; their labels still say the loss.
     draw(os.path.join(out, "fund-clipped.pdf"), ylim=(-5, 16))
     cases["fund-clipped"] = "fund-bar-clipped"
+    # Article 15 (from memory): a year without data stays on the axis as a blank slot. 2024
+    # is blank here: compliant.
+    keep = [i for i, y in enumerate(YEARS) if y != 2024]
+    sub = dict(fund=[FUND[i] for i in keep], bench=[BENCH[i] for i in keep],
+               years=[YEARS[i] for i in keep])
+    draw(os.path.join(out, "fund-gap-shown.pdf"), slots=keep, **sub)
+    cases["fund-gap-shown"] = None
+    # The same data with 2024 dropped from the axis: 2023 and 2025 read as neighbours.
+    draw(os.path.join(out, "fund-gap-dropped.pdf"), slots=list(range(len(keep))), **sub)
+    cases["fund-gap-dropped"] = "fund-years"
     with open(os.path.join(out, "cases.json"), "w") as f:
         json.dump(cases, f, indent=1)
 
