@@ -297,16 +297,15 @@ gboolean pp_rule_fund_measure(const pp_figure *fig, const pp_thresholds *t, pp_f
   return TRUE;
 }
 
-gboolean pp_rule_fund_material(const pp_measures *m, const pp_thresholds *t,
-                               pp_severity *severity) {
+gboolean pp_rule_fund_major(const pp_measures *m, const pp_thresholds *t, pp_severity *severity) {
   (void)m, (void)t;
-  *severity = PP_SEVERITY_MATERIAL;
+  *severity = PP_SEVERITY_MAJOR;
   return TRUE;
 }
 
-gboolean pp_rule_fund_note(const pp_measures *m, const pp_thresholds *t, pp_severity *severity) {
+gboolean pp_rule_fund_minor(const pp_measures *m, const pp_thresholds *t, pp_severity *severity) {
   (void)m, (void)t;
-  *severity = PP_SEVERITY_NOTE;
+  *severity = PP_SEVERITY_MINOR;
   return TRUE;
 }
 

@@ -8,26 +8,26 @@
 
 const pp_opt_in_rule pp_opt_in_rules[] = {
     {FUND("fund-log-axis", "past-performance bars on a log axis (583/2010 Annex III pt 1)",
-          pp_rule_fund_material),
+          pp_rule_fund_major),
      "bars-on-log"},
     {FUND("fund-axis-off-zero", "past-performance bars not rising from 0% (Annex III pt 3)",
-          pp_rule_fund_material),
+          pp_rule_fund_major),
      "bars-off-zero"},
     {FUND("fund-label-missing", "a past-performance bar without its printed return (pt 4)",
-          pp_rule_fund_material),
+          pp_rule_fund_major),
      NULL},
     {FUND("fund-label-decimals", "past-performance labels not rounded to one decimal (pt 5)",
-          pp_rule_fund_note),
+          pp_rule_fund_minor),
      NULL},
     /* A cut bar disagrees with its label; the cut is the finding, not the label. */
     {FUND("fund-bar-clipped", "a past-performance bar cut by the plot frame (Annex III pt 2)",
-          pp_rule_fund_material),
+          pp_rule_fund_major),
      "bars-vs-labels"},
     {FUND("fund-label-vs-bar", "a past-performance label that disagrees with its bar (pt 4)",
-          pp_rule_fund_material),
+          pp_rule_fund_major),
      "bars-vs-labels"},
     {FUND("fund-years", "past-performance years: more than ten, or a year dropped (Art. 15)",
-          pp_rule_fund_note),
+          pp_rule_fund_minor),
      NULL},
 };
 
