@@ -3,6 +3,7 @@
 #include <stdio.h>
 #include <string.h>
 
+#include "cli.h"
 #include "report/report.h"
 #include "summary.h"
 
@@ -49,8 +50,11 @@ static void print_coverage(JsonArray *pages) {
     JsonObject *p = json_array_get_object_element(pages, i);
     gint64 page = member_int(p, "page");
     const char *error = member_string(p, "error");
-    if (error)
-      printf("  page %" G_GINT64_FORMAT ": not analysed: %s\n", page, error);
+    if (error) {
+      char *safe = pp_cli_escape(error);
+      printf("  page %" G_GINT64_FORMAT ": not analysed: %s\n", page, safe);
+      g_free(safe);
+    }
     JsonArray *r = member_array(p, "raster_images_not_analysed");
     JsonArray *s = member_array(p, "scale_failures");
     if (r && json_array_get_length(r) > 0) {
@@ -78,7 +82,7 @@ void pp_summary_print_document(JsonObject *report, const char *path, const char 
   JsonObject *totals = member_object(report, "totals");
   gint64 pages = member_int(totals, "pages"), figures = member_int(totals, "figures");
   gint64 findings = member_int(totals, "findings");
-  char *name = g_filename_display_name(path);
+  char *name = pp_cli_escape(path);
   printf("%s: %" G_GINT64_FORMAT " %s, %" G_GINT64_FORMAT " %s, ", name, pages,
          plural(pages, "page", "pages"), figures, plural(figures, "figure", "figures"));
   if (findings == 0)
@@ -86,7 +90,7 @@ void pp_summary_print_document(JsonObject *report, const char *path, const char 
   else
     printf("%" G_GINT64_FORMAT " %s", findings, plural(findings, "finding", "findings"));
   if (output_file) {
-    char *out = g_filename_display_name(output_file);
+    char *out = pp_cli_escape(output_file);
     printf("  -> %s", out);
     g_free(out);
   }
@@ -95,10 +99,13 @@ void pp_summary_print_document(JsonObject *report, const char *path, const char 
   JsonArray *list = member_array(report, "findings");
   for (guint i = 0; list && i < json_array_get_length(list); i++) {
     JsonObject *f = json_array_get_object_element(list, i);
+    /* Messages quote category names and titles: text from the PDF. */
+    char *msg = pp_cli_escape(member_string(f, "message") ? member_string(f, "message") : "");
+    char *rule = pp_cli_escape(member_string(f, "rule") ? member_string(f, "rule") : "?");
     printf("  page %-3" G_GINT64_FORMAT " %-8s %s: %s\n", member_int(f, "page"),
-           member_string(f, "severity") ? member_string(f, "severity") : "?",
-           member_string(f, "rule") ? member_string(f, "rule") : "?",
-           member_string(f, "message") ? member_string(f, "message") : "");
+           member_string(f, "severity") ? member_string(f, "severity") : "?", rule, msg);
+    g_free(msg);
+    g_free(rule);
   }
   print_coverage(member_array(report, "pages"));
 }

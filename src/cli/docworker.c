@@ -1,0 +1,123 @@
+/* docworker.c — inside a batch worker: limits, stderr caught for the findings file's
+ * warnings, the document opened once, each page forked under the page budget. A page
+ * child inherits the opened document (copy-on-write), so nothing is parsed twice. */
+#include <signal.h>
+#include <string.h>
+#include <sys/mman.h>
+#include <unistd.h>
+
+#include "analyse.h"
+#include "docworker.h"
+#include "worker.h"
+
+/* A page process that dies by signal after using more than this share of the memory
+ * budget is taken as out of memory (RLIMIT_AS makes allocations fail, and poppler and
+ * GLib then abort). Common practice, no source. */
+#define PP_DOCWORKER_MEMORY_SHARE 0.5
+
+static void send_line(int fd, const char *line) {
+  char *with_nl = g_strconcat(line, "\n", NULL);
+  if (!pp_worker_write_all(fd, with_nl, strlen(with_nl)))
+    _exit(3); /* the scheduler is gone */
+  g_free(with_nl);
+}
+
+/* Library messages go to a memory file instead of the terminal; each page child reads
+ * its own and files them among its page's warnings. */
+static int catch_stderr(void) {
+  int mfd = memfd_create("plotproof-messages", 0);
+  if (mfd < 0 || dup2(mfd, STDERR_FILENO) < 0)
+    return -1;
+  close(mfd);
+  return STDERR_FILENO;
+}
+
+static gboolean messages_mention_memory(int fd) {
+  char buf[4097];
+  ssize_t n = fd >= 0 ? pread(fd, buf, sizeof buf - 1, 0) : -1;
+  if (n <= 0)
+    return FALSE;
+  buf[n] = '\0';
+  return strstr(buf, "alloc") || strstr(buf, "memory");
+}
+
+/* The page entry's reason for a page child that gave no result. */
+static char *page_failure(const pp_worker_result *r, const pp_cli_options *opt, int messages_fd) {
+  if (r->outcome == PP_WORKER_TIMED_OUT ||
+      (r->outcome == PP_WORKER_SIGNALLED && (r->signal == SIGALRM || r->signal == SIGXCPU)))
+    return g_strdup_printf("too complex: over the page budget of %u s", opt->page_s);
+  gboolean limited = pp_worker_memory_limit_applies();
+  double budget_kib = opt->memory_mib * 1024.0;
+  if (r->outcome == PP_WORKER_SIGNALLED &&
+      (messages_mention_memory(messages_fd) ||
+       (limited && r->max_rss_kib > PP_DOCWORKER_MEMORY_SHARE * budget_kib)))
+    return g_strdup_printf("too complex: over the memory budget of %u MiB", opt->memory_mib);
+  if (r->outcome == PP_WORKER_SIGNALLED)
+    return g_strdup_printf("damaged: the page's capture crashed (signal %d)", r->signal);
+  if (r->outcome == PP_WORKER_NO_FORK)
+    return g_strdup_printf("not analysed: %s", r->payload->str);
+  return g_strdup_printf("damaged: the page's capture ended without a result (exit status %d)",
+                         r->exit_status);
+}
+
+G_NORETURN void pp_docworker_main(int fd, const pp_docworker_job *job, pid_t parent) {
+  const pp_cli_options *opt = job->opt;
+  pp_worker_limits doc_limits = {opt->timeout_s, opt->cpu_s,
+                                 (guint64)opt->memory_mib * 1024 * 1024};
+  pp_worker_child_setup(&doc_limits, parent);
+  int messages_fd = catch_stderr();
+  GError *error = NULL;
+  pp_document *doc = pp_document_open(job->path, job->password, &error);
+  if (!doc) {
+    char *payload = pp_analyse_gerror_payload(error);
+    send_line(fd, payload);
+    _exit(0);
+  }
+  const pp_document_info *info = pp_document_get_info(doc);
+  pp_report *empty = pp_report_new(info, &opt->thresholds);
+  char *header = pp_report_to_string(empty, FALSE, NULL);
+  pp_report_free(empty);
+  char *line = g_strdup_printf("{\"open\":%s}", header);
+  send_line(fd, line);
+  g_free(line);
+  g_free(header);
+
+  pp_worker_limits page_limits = {opt->page_s, opt->page_s + 1, doc_limits.memory_bytes};
+  double cpu_used = 0;
+  for (guint i = 0; i < info->n_pages; i++) {
+    line = g_strdup_printf("{\"start\":%u}", i);
+    send_line(fd, line);
+    g_free(line);
+    pp_analyse_job page = {job->path, job->password, opt, FALSE, doc, i, messages_fd};
+    pp_worker_result r;
+    pp_worker_run(pp_analyse_report_page, &page, &page_limits, &r);
+    cpu_used += r.cpu_s;
+    if (r.outcome == PP_WORKER_DONE && r.payload->str[0] == '{') {
+      line = g_strdup_printf("{\"page\":%u,\"rss_kib\":%ld,\"report\":%s}", i, r.max_rss_kib,
+                             r.payload->str);
+    } else {
+      char *why = page_failure(&r, opt, messages_fd);
+      JsonNode *s = json_node_new(JSON_NODE_VALUE);
+      json_node_set_string(s, why);
+      char *quoted = json_to_string(s, FALSE);
+      line =
+          g_strdup_printf("{\"page\":%u,\"rss_kib\":%ld,\"error\":%s}", i, r.max_rss_kib, quoted);
+      g_free(quoted);
+      json_node_unref(s);
+      g_free(why);
+    }
+    g_string_free(r.payload, TRUE);
+    send_line(fd, line);
+    g_free(line);
+    if (messages_fd >= 0 && ftruncate(messages_fd, 0) == 0)
+      lseek(messages_fd, 0, SEEK_SET);
+    if (opt->cpu_s && cpu_used > opt->cpu_s && i + 1 < info->n_pages) {
+      line =
+          g_strdup_printf("{\"stop\":\"over the document's limit of %u CPU seconds\"}", opt->cpu_s);
+      send_line(fd, line);
+      _exit(0);
+    }
+  }
+  send_line(fd, "{\"end\":true}");
+  _exit(0);
+}
