@@ -35,6 +35,20 @@ void pp_assembly_free(pp_assembly *as) {
   g_free(as);
 }
 
+/* The array member name of o, or NULL (json-glib warns on a missing member). */
+static JsonArray *array_member(JsonObject *o, const char *name) {
+  JsonNode *n = o ? json_object_get_member(o, name) : NULL;
+  return n && JSON_NODE_HOLDS_ARRAY(n) ? json_node_get_array(n) : NULL;
+}
+
+/* The page entry's error text, NULL when the page was analysed. */
+static const char *page_error(JsonObject *page) {
+  JsonNode *n = json_object_get_member(page, "error");
+  return n && JSON_NODE_HOLDS_VALUE(n) && json_node_get_value_type(n) == G_TYPE_STRING
+             ? json_node_get_string(n)
+             : NULL;
+}
+
 static JsonNode *failed_page(guint index, const char *reason) {
   JsonObject *o = json_object_new();
   json_object_set_int_member(o, "page", index + 1);
@@ -66,7 +80,7 @@ static void set_page(pp_assembly *as, guint index, JsonNode *node, const char *e
 
 /* The one page entry of a one-page findings object, with its findings beside it. */
 static void take_report(pp_assembly *as, guint index, JsonObject *report) {
-  JsonArray *pages = json_object_get_array_member(report, "pages");
+  JsonArray *pages = array_member(report, "pages");
   if (!pages || json_array_get_length(pages) != 1) {
     set_page(as, index, failed_page(index, "damaged: the page's result was unreadable"),
              "damaged: the page's result was unreadable");
@@ -74,10 +88,8 @@ static void take_report(pp_assembly *as, guint index, JsonObject *report) {
   }
   JsonNode *page = json_node_copy(json_array_get_element(pages, 0));
   JsonObject *po = json_node_get_object(page);
-  const char *error = json_object_get_null_member(po, "error")
-                          ? NULL
-                          : json_object_get_string_member_with_default(po, "error", NULL);
-  JsonArray *findings = json_object_get_array_member(report, "findings");
+  const char *error = page_error(po);
+  JsonArray *findings = array_member(report, "findings");
   /* Findings ride with their page so that a page reported twice replaces both. */
   json_object_set_array_member(po, "_findings",
                                findings ? json_array_ref(findings) : json_array_new());
@@ -132,7 +144,8 @@ void pp_assembly_feed(pp_assembly *as, const char *line, gsize len) {
 static guint header_pages(const pp_assembly *as) {
   if (!as->header)
     return 0;
-  JsonObject *doc = json_object_get_object_member(json_node_get_object(as->header), "document");
+  JsonNode *d = json_object_get_member(json_node_get_object(as->header), "document");
+  JsonObject *doc = d && JSON_NODE_HOLDS_OBJECT(d) ? json_node_get_object(d) : NULL;
   gint64 n = doc ? json_object_get_int_member_with_default(doc, "pages", 0) : 0;
   return n > 0 && n < (1 << 24) ? (guint)n : 0;
 }
@@ -164,7 +177,7 @@ JsonNode *pp_assembly_finish(pp_assembly *as, const char *interrupted_reason, co
   for (guint i = 0; i < as->pages->len; i++) {
     JsonNode *page = json_node_copy(g_ptr_array_index(as->pages, i));
     JsonObject *po = json_node_get_object(page);
-    JsonArray *pf = json_object_get_array_member(po, "_findings");
+    JsonArray *pf = array_member(po, "_findings");
     for (guint k = 0; pf && k < json_array_get_length(pf); k++) {
       JsonNode *f = json_array_get_element(pf, k);
       json_array_add_element(findings, json_node_copy(f));
@@ -175,11 +188,11 @@ JsonNode *pp_assembly_finish(pp_assembly *as, const char *interrupted_reason, co
     }
     if (json_object_has_member(po, "_findings"))
       json_object_remove_member(po, "_findings");
-    if (!json_object_get_null_member(po, "error"))
+    if (page_error(po))
       failed++;
-    JsonArray *figs = json_object_get_array_member(po, "figures");
-    JsonArray *ras = json_object_get_array_member(po, "raster_images_not_analysed");
-    JsonArray *sca = json_object_get_array_member(po, "scale_failures");
+    JsonArray *figs = array_member(po, "figures");
+    JsonArray *ras = array_member(po, "raster_images_not_analysed");
+    JsonArray *sca = array_member(po, "scale_failures");
     figures += figs ? json_array_get_length(figs) : 0;
     raster += ras ? json_array_get_length(ras) : 0;
     scale += sca ? json_array_get_length(sca) : 0;

@@ -316,3 +316,10 @@ guint pp_inputs_shard_of(const char *sha256, guint n) {
   guint64 v = g_ascii_strtoull(head, NULL, 16);
   return n ? (guint)(v % n) + 1 : 1;
 }
+
+void pp_input_retag(pp_input *in) {
+  char *tag = short_tag(in->canonical);
+  g_free(in->output_name);
+  in->output_name = relative_name(in, tag);
+  g_free(tag);
+}

@@ -23,9 +23,13 @@ void pp_input_free(pp_input *input);
  * named, with duplicates marked. Returns NULL when the --from list cannot be read. */
 GPtrArray *pp_inputs_collect(char **paths, int n_paths, const char *from, guint *n_failed);
 
+/* Gives the input the "-<hash>" form of its name (when an earlier run into the same
+ * directory used the plain name for another document). */
+void pp_input_retag(pp_input *input);
+
 /* The stable shard (1..n) of a document, from its SHA-256. */
 guint pp_inputs_shard_of(const char *sha256, guint n);
 
 /* "<base>.findings.json" for a file named path: .pdf dropped, the base cut at
- * PP_INPUTS_BASE_MAX bytes (on a UTF-8 boundary) plus "-<tag>" when longer. */
+ * 200 bytes (on a UTF-8 boundary), "-<tag>" added when tag is not NULL. */
 char *pp_inputs_output_base(const char *path, const char *tag);

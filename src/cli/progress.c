@@ -57,6 +57,7 @@ void pp_progress_document(pp_progress *p, const char *path, const char *status, 
     fflush(stderr);
     g_free(name);
   }
+  pp_progress_draw(p);
 }
 
 void pp_progress_draw(pp_progress *p) {

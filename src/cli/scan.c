@@ -278,6 +278,30 @@ static void record_duplicate(scan *s, guint idx) {
   }
 }
 
+/* An earlier run into this directory may have used this name for another document (same
+ * base name, other folder): then this one takes the "-<hash>" name instead. */
+static void avoid_earlier_runs(scan *s, pp_input *in) {
+  JsonObject *p = s->previous ? g_hash_table_lookup(s->previous, in->output_name) : NULL;
+  char *valid = g_utf8_make_valid(in->path, -1);
+  const char *other = NULL;
+  g_autoptr(JsonParser) parser = json_parser_new();
+  if (p) {
+    other = json_object_get_string_member_with_default(p, "path", NULL);
+  } else {
+    char *out = output_path(s, in);
+    if (g_file_test(out, G_FILE_TEST_EXISTS) && json_parser_load_from_file(parser, out, NULL) &&
+        JSON_NODE_HOLDS_OBJECT(json_parser_get_root(parser))) {
+      JsonObject *doc = json_object_get_object_member(
+          json_node_get_object(json_parser_get_root(parser)), "document");
+      other = doc ? json_object_get_string_member_with_default(doc, "path", NULL) : NULL;
+    }
+    g_free(out);
+  }
+  if (other && strcmp(other, valid) != 0)
+    pp_input_retag(in);
+  g_free(valid);
+}
+
 static int open_records(const scan *s) {
   char *path = g_build_filename(s->opt->output_dir, PP_RECORD_FILE, NULL);
   int fd = open(path, O_WRONLY | O_CREAT | O_APPEND | O_CLOEXEC, 0644);
@@ -297,6 +321,10 @@ static int open_records(const scan *s) {
   return fd;
 }
 
+static int compare_strings(gconstpointer a, gconstpointer b) {
+  return strcmp(*(const char *const *)a, *(const char *const *)b);
+}
+
 /* batch.jsonl rewritten at the end: one line per input of this run (or the earlier run's
  * line when this run did not reach it), then the summary. */
 static gboolean write_records(scan *s, guint inputs_total, gboolean interrupted) {
@@ -314,6 +342,31 @@ static gboolean write_records(scan *s, guint inputs_total, gboolean interrupted)
       g_free(line);
       json_node_unref(n);
     }
+  }
+  /* Documents of earlier runs into this directory that this run did not name keep
+   * their lines, so that one directory can collect several runs. */
+  if (s->previous) {
+    GHashTable *mine = g_hash_table_new(g_str_hash, g_str_equal);
+    for (guint i = 0; i < s->inputs->len; i++)
+      g_hash_table_add(mine, ((pp_input *)g_ptr_array_index(s->inputs, i))->output_name);
+    GPtrArray *others = g_ptr_array_new();
+    GHashTableIter it;
+    gpointer key;
+    g_hash_table_iter_init(&it, s->previous);
+    while (g_hash_table_iter_next(&it, &key, NULL))
+      if (!g_hash_table_contains(mine, key))
+        g_ptr_array_add(others, key);
+    g_ptr_array_sort(others, compare_strings);
+    for (guint i = 0; i < others->len; i++) {
+      JsonNode *n = json_node_new(JSON_NODE_OBJECT);
+      json_node_set_object(n, g_hash_table_lookup(s->previous, g_ptr_array_index(others, i)));
+      char *line = json_to_string(n, FALSE);
+      g_string_append_printf(all, "%s\n", line);
+      g_free(line);
+      json_node_unref(n);
+    }
+    g_ptr_array_unref(others);
+    g_hash_table_unref(mine);
   }
   g_autoptr(JsonBuilder) b = json_builder_new();
   json_builder_begin_object(b);
@@ -425,6 +478,8 @@ int pp_cli_scan(char **paths, int n_paths, const pp_cli_options *opt) {
     g_free(rec);
     s.records_fd = open_records(&s);
   }
+  for (guint i = 0; s.write_files && i < n; i++)
+    avoid_earlier_runs(&s, g_ptr_array_index(s.inputs, i));
   GArray *items = g_array_new(FALSE, TRUE, sizeof(pp_batch_item));
   GArray *mine = g_array_new(FALSE, FALSE, sizeof(guint));
   for (guint i = 0; i < n; i++) {
