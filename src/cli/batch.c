@@ -8,6 +8,8 @@
 #include <sys/wait.h>
 #include <unistd.h>
 
+#include <gio/gio.h>
+#include <gio/gunixinputstream.h>
 #include <glib-unix.h>
 
 #include "assemble.h"
@@ -22,9 +24,9 @@ typedef struct batch batch;
 typedef struct {
   batch *b;
   const pp_batch_item *item;
-  pid_t pid;
-  int fd;
-  guint fd_source, child_source, timeout_source;
+  GSubprocess *proc;
+  int fd; /* the worker's stdout, owned by proc's stream */
+  guint fd_source, timeout_source;
   GString *buf;
   pp_assembly *as;
   gboolean eof, exited, timed_out, killed;
@@ -35,6 +37,7 @@ typedef struct {
 
 struct batch {
   const pp_cli_options *opt;
+  char *self; /* this program, from /proc/self/exe */
   const GArray *items;
   guint next;
   GPtrArray *running;
@@ -119,6 +122,8 @@ static void finish(task *t) {
   g_ptr_array_remove(b->running, t);
   pp_assembly_free(t->as);
   g_string_free(t->buf, TRUE);
+  if (t->proc)
+    g_object_unref(t->proc);
   g_free(t);
   launch_more(b);
 }
@@ -142,7 +147,6 @@ static gboolean on_readable(int fd, GIOCondition cond, gpointer data) {
     break; /* end of file or an error: the worker is gone */
   }
   feed_lines(t);
-  close(fd);
   t->fd = -1;
   t->eof = TRUE;
   t->fd_source = 0;
@@ -151,24 +155,24 @@ static gboolean on_readable(int fd, GIOCondition cond, gpointer data) {
   return G_SOURCE_REMOVE;
 }
 
-static void on_child_exit(GPid pid, int status, gpointer data) {
-  task *t = data;
-  t->status = status;
-  t->exited = TRUE;
-  t->child_source = 0;
-  g_spawn_close_pid(pid);
-  if (t->eof)
-    finish(t);
-}
-
 static gboolean on_deadline(gpointer data) {
   task *t = data;
   t->timed_out = TRUE;
   t->timeout_source = 0;
-  kill(t->pid, SIGKILL);
+  g_subprocess_force_exit(t->proc);
   return G_SOURCE_REMOVE;
 }
 
+static void on_wait(GObject *source, GAsyncResult *result, gpointer data) {
+  task *t = data;
+  g_subprocess_wait_finish(G_SUBPROCESS(source), result, NULL);
+  t->status = g_subprocess_get_status(t->proc);
+  t->exited = TRUE;
+  if (t->eof)
+    finish(t);
+}
+
+/* A worker is this same program run as `plotproof __worker`, its job on its stdin. */
 static void start(batch *b, const pp_batch_item *item) {
   task *t = g_new0(task, 1);
   t->b = b;
@@ -176,29 +180,29 @@ static void start(batch *b, const pp_batch_item *item) {
   t->buf = g_string_new(NULL);
   t->as = pp_assembly_new();
   t->start_us = g_get_monotonic_time();
-  int fds[2];
-  pid_t parent = getpid();
-  fflush(stdout);
-  fflush(stderr);
-  pid_t pid = pipe2(fds, O_CLOEXEC) == 0 ? fork() : -1;
-  if (pid == 0) {
-    close(fds[0]);
-    pp_docworker_job job = {item->path, item->password, b->opt};
-    pp_docworker_main(fds[1], &job, parent);
-  }
   g_ptr_array_add(b->running, t);
-  if (pid < 0) { /* no process: reported like a worker that ended without a result */
+  GError *error = NULL;
+  t->proc = g_subprocess_new(G_SUBPROCESS_FLAGS_STDIN_PIPE | G_SUBPROCESS_FLAGS_STDOUT_PIPE, &error,
+                             b->self, "__worker", NULL);
+  if (t->proc) {
+    pp_docworker_job job = {item->path, item->password, b->opt};
+    char *text = pp_docworker_job_to_json(&job, getpid());
+    GOutputStream *in = g_subprocess_get_stdin_pipe(t->proc);
+    g_output_stream_write_all(in, text, strlen(text), NULL, NULL, NULL);
+    g_output_stream_close(in, NULL, NULL);
+    g_free(text);
+  }
+  if (!t->proc) { /* no process: reported like a worker that ended without a result */
+    g_clear_error(&error);
     t->eof = t->exited = TRUE;
     t->status = 1 << 8;
     finish(t);
     return;
   }
-  close(fds[1]);
-  t->pid = pid;
-  t->fd = fds[0];
+  t->fd = g_unix_input_stream_get_fd(G_UNIX_INPUT_STREAM(g_subprocess_get_stdout_pipe(t->proc)));
   g_unix_set_fd_nonblocking(t->fd, TRUE, NULL);
   t->fd_source = g_unix_fd_add(t->fd, G_IO_IN | G_IO_HUP | G_IO_ERR, on_readable, t);
-  t->child_source = g_child_watch_add(pid, on_child_exit, t);
+  g_subprocess_wait_async(t->proc, NULL, on_wait, t);
   t->timeout_source = g_timeout_add_seconds(b->opt->timeout_s, on_deadline, t);
 }
 
@@ -215,7 +219,8 @@ static gboolean on_signal(gpointer data) {
   for (guint i = 0; i < b->running->len; i++) {
     task *t = g_ptr_array_index(b->running, i);
     t->killed = TRUE;
-    kill(t->pid, SIGKILL);
+    if (t->proc)
+      g_subprocess_force_exit(t->proc);
   }
   if (b->running->len == 0)
     g_main_loop_quit(b->loop);
@@ -229,8 +234,14 @@ static gboolean on_tick(gpointer data) {
 
 gboolean pp_batch_run(const pp_cli_options *opt, const GArray *items, pp_batch_done_func done,
                       gpointer user_data, pp_progress *progress) {
-  batch b = {opt,   items, 0,         g_ptr_array_new(), g_main_loop_new(NULL, FALSE),
-             FALSE, done,  user_data, progress};
+  batch b = {.opt = opt,
+             .self = g_file_read_link("/proc/self/exe", NULL),
+             .items = items,
+             .running = g_ptr_array_new(),
+             .loop = g_main_loop_new(NULL, FALSE),
+             .done = done,
+             .user_data = user_data,
+             .progress = progress};
   guint sig[3] = {g_unix_signal_add(SIGINT, on_signal, &b),
                   g_unix_signal_add(SIGTERM, on_signal, &b),
                   g_unix_signal_add(SIGHUP, on_signal, &b)};
@@ -242,6 +253,7 @@ gboolean pp_batch_run(const pp_cli_options *opt, const GArray *items, pp_batch_d
   for (int i = 0; i < 3; i++)
     g_source_remove(sig[i]);
   g_main_loop_unref(b.loop);
+  g_free(b.self);
   g_ptr_array_unref(b.running);
   return b.interrupted;
 }

@@ -2,6 +2,7 @@
  * warnings, the document opened once, each page forked under the page budget. A page
  * child inherits the opened document (copy-on-write), so nothing is parsed twice. */
 #include <signal.h>
+#include <stdio.h>
 #include <string.h>
 #include <sys/mman.h>
 #include <unistd.h>
@@ -120,4 +121,83 @@ G_NORETURN void pp_docworker_main(int fd, const pp_docworker_job *job, pid_t par
   }
   send_line(fd, "{\"end\":true}");
   _exit(0);
+}
+
+char *pp_docworker_job_to_json(const pp_docworker_job *job, pid_t parent) {
+  const pp_cli_options *o = job->opt;
+  g_autoptr(JsonBuilder) b = json_builder_new();
+  json_builder_begin_object(b);
+  /* Hex, because a file name is bytes and need not be UTF-8, which JSON strings must be. */
+  GString *hex = g_string_new(NULL);
+  for (const guchar *p = (const guchar *)job->path; *p; p++)
+    g_string_append_printf(hex, "%02x", *p);
+  json_builder_set_member_name(b, "path_hex");
+  json_builder_add_string_value(b, hex->str);
+  g_string_free(hex, TRUE);
+  json_builder_set_member_name(b, "password");
+  if (job->password)
+    json_builder_add_string_value(b, job->password);
+  else
+    json_builder_add_null_value(b);
+  const char *names[] = {"parent", "timeout_s", "cpu_s", "page_s", "memory_mib"};
+  gint64 values[] = {parent, o->timeout_s, o->cpu_s, o->page_s, o->memory_mib};
+  for (guint i = 0; i < G_N_ELEMENTS(names); i++) {
+    json_builder_set_member_name(b, names[i]);
+    json_builder_add_int_value(b, values[i]);
+  }
+  const char *tn[] = {"lie_band_low", "lie_band_high", "gdi_material", "gross_factor",
+                      "label_tolerance"};
+  double tv[] = {o->thresholds.lie_band_low, o->thresholds.lie_band_high,
+                 o->thresholds.gdi_material, o->thresholds.gross_factor,
+                 o->thresholds.label_tolerance};
+  for (guint i = 0; i < G_N_ELEMENTS(tn); i++) {
+    json_builder_set_member_name(b, tn[i]);
+    json_builder_add_double_value(b, tv[i]); /* %.17g: read back exactly */
+  }
+  json_builder_end_object(b);
+  JsonNode *root = json_builder_get_root(b);
+  char *text = json_to_string(root, FALSE);
+  json_node_unref(root);
+  return text;
+}
+
+static double number(JsonObject *o, const char *name, double fallback) {
+  JsonNode *n = json_object_get_member(o, name);
+  return n && JSON_NODE_HOLDS_VALUE(n) ? json_node_get_double(n) : fallback;
+}
+
+G_NORETURN void pp_docworker_run_stdin(void) {
+  GString *in = g_string_new(NULL);
+  char buf[4096];
+  ssize_t n;
+  while ((n = read(STDIN_FILENO, buf, sizeof buf)) != 0) {
+    if (n < 0)
+      _exit(2);
+    g_string_append_len(in, buf, n);
+  }
+  g_autoptr(JsonParser) parser = json_parser_new();
+  if (!json_parser_load_from_data(parser, in->str, (gssize)in->len, NULL) ||
+      !JSON_NODE_HOLDS_OBJECT(json_parser_get_root(parser)))
+    _exit(2);
+  JsonObject *o = json_node_get_object(json_parser_get_root(parser));
+  pp_cli_options opt = {0};
+  opt.thresholds = pp_thresholds_default();
+  opt.timeout_s = (guint)number(o, "timeout_s", 600);
+  opt.cpu_s = (guint)number(o, "cpu_s", 600);
+  opt.page_s = (guint)number(o, "page_s", 30);
+  opt.memory_mib = (guint)number(o, "memory_mib", 2048);
+  opt.thresholds.lie_band_low = number(o, "lie_band_low", opt.thresholds.lie_band_low);
+  opt.thresholds.lie_band_high = number(o, "lie_band_high", opt.thresholds.lie_band_high);
+  opt.thresholds.gdi_material = number(o, "gdi_material", opt.thresholds.gdi_material);
+  opt.thresholds.gross_factor = number(o, "gross_factor", opt.thresholds.gross_factor);
+  opt.thresholds.label_tolerance = number(o, "label_tolerance", opt.thresholds.label_tolerance);
+  JsonNode *pw = json_object_get_member(o, "password");
+  const char *hex = json_object_get_string_member_with_default(o, "path_hex", "");
+  GString *path = g_string_new(NULL);
+  for (size_t i = 0; hex[i] && hex[i + 1]; i += 2)
+    g_string_append_c(path,
+                      (char)(g_ascii_xdigit_value(hex[i]) * 16 + g_ascii_xdigit_value(hex[i + 1])));
+  pp_docworker_job job = {path->str,
+                          pw && JSON_NODE_HOLDS_VALUE(pw) ? json_node_get_string(pw) : NULL, &opt};
+  pp_docworker_main(STDOUT_FILENO, &job, (pid_t)number(o, "parent", 0));
 }

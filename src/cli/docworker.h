@@ -1,4 +1,6 @@
-/* docworker.h — the batch worker: one process per document, forked by the scheduler.
+/* docworker.h — the batch worker: one process per document, started by the scheduler as
+ * `plotproof __worker` (a fresh process: the scheduler has GLib threads, and a fork of a
+ * threaded process may inherit a held lock), with its job as JSON on standard input.
  * It opens the document and runs each page in a page child of its own under the page
  * budget, streaming one JSON line per event to the scheduler, so that every page
  * finished before a crash or a timeout reaches the findings file. */
@@ -22,3 +24,9 @@ typedef struct {
  *   {"end": true}                                all pages done
  * Never returns: the process ends with _exit(). */
 G_NORETURN void pp_docworker_main(int fd, const pp_docworker_job *job, pid_t parent);
+
+/* The job as the scheduler writes it to the worker's standard input (password included,
+ * so it never shows on a command line). */
+char *pp_docworker_job_to_json(const pp_docworker_job *job, pid_t parent);
+/* `plotproof __worker`: reads the job from stdin, writes the event lines to stdout. */
+G_NORETURN void pp_docworker_run_stdin(void);

@@ -8,6 +8,7 @@
 #include <string.h>
 
 #include "cli.h"
+#include "docworker.h"
 
 #include <unistd.h>
 
@@ -327,6 +328,8 @@ static int run(int argc, char **argv, pp_cli_options *opt) {
 int main(int argc, char **argv) {
   /* A closed stdout pipe (plotproof ... | head) must end in an error, not a signal. */
   signal(SIGPIPE, SIG_IGN);
+  if (argc == 2 && strcmp(argv[1], "__worker") == 0) /* started by the batch scheduler */
+    pp_docworker_run_stdin();
   pp_cli_options opt = {0};
   opt.output_dir = g_strdup(".");
   opt.timeout_s = DEFAULT_TIMEOUT_S;
