@@ -9,12 +9,14 @@ status=0
 
 if [ -x "$py" ] && "$py" -c 'import matplotlib' 2>/dev/null; then
 	"$py" "$here/gen_matplotlib.py" || status=1
+	"$py" "$here/gen_shapes_matplotlib.py" || status=1
 else
 	echo "skip matplotlib: /usr/bin/python3 with matplotlib not found" >&2
 fi
 
 if command -v gnuplot >/dev/null 2>&1 && [ -x "$py" ]; then
 	"$py" "$here/gen_gnuplot.py" || status=1
+	"$py" "$here/gen_shapes_gnuplot.py" || status=1
 else
 	echo "skip gnuplot: gnuplot not installed" >&2
 fi
@@ -43,6 +45,25 @@ if [ $# -ge 1 ] && [ -x "$1/scripts/gen-corpus-cairo" ]; then
 	(cd "$root" && "$1/scripts/gen-corpus-cairo" corpus/cairo) || status=1
 else
 	echo "skip cairo: pass a meson build dir containing scripts/gen-corpus-cairo" >&2
+fi
+if [ -x "$py" ] && "$py" -c 'import cairo' 2>/dev/null; then
+	"$py" "$here/gen_shapes_cairo.py" || status=1
+else
+	echo "skip cairo shapes: /usr/bin/python3 with pycairo (python3-cairo) not found" >&2
+fi
+
+# Circle charts (pies, donuts, tilted pies, radial bars, lookalikes): last, because the
+# generators above empty their directories first.
+if [ -x "$py" ] && "$py" -c 'import matplotlib' 2>/dev/null; then
+	"$py" "$here/gen_matplotlib_circles.py" || status=1
+fi
+if command -v gnuplot >/dev/null 2>&1 && [ -x "$py" ]; then
+	"$py" "$here/gen_gnuplot_circles.py" || status=1
+fi
+if [ -x "$py" ] && "$py" -c 'import cairo' 2>/dev/null; then
+	"$py" "$here/gen_cairo_circles.py" || status=1
+else
+	echo "skip cairo circles: python3-cairo not installed" >&2
 fi
 
 for d in matplotlib gnuplot r libreoffice pgfplots cairo; do

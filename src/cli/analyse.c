@@ -77,7 +77,7 @@ static void analyse_page(pp_report *report, pp_scene *scene, const pp_thresholds
   pp_page_charts *charts = pp_page_charts_find(scene);
   GPtrArray *findings = g_ptr_array_new_with_free_func((GDestroyNotify)pp_finding_free);
   for (guint i = 0; charts && charts->figures && i < charts->figures->len; i++)
-    pp_rules_check_figure(g_ptr_array_index(charts->figures, i), scene, t, findings);
+    pp_rules_check_figure(g_ptr_array_index(charts->figures, i), t, findings);
   pp_report_add_page(report, scene, charts, findings);
   g_ptr_array_unref(findings);
   pp_page_charts_free(charts);

@@ -40,6 +40,9 @@ gboolean pp_matrix_invert(pp_matrix m, pp_matrix *out);
 pp_point pp_matrix_apply(pp_matrix m, pp_point p);
 /* Apply only the linear part (for distances and pen widths). */
 pp_point pp_matrix_apply_distance(pp_matrix m, pp_point d);
+/* The bounding box of a box mapped through m (page points → PDF user space); empty when
+ * r is empty or not finite. The one place boxes change coordinate systems. */
+pp_rect pp_rect_transform(pp_rect r, pp_matrix m);
 
 typedef enum {
   PP_FILL_NONZERO,

@@ -76,3 +76,16 @@ pp_point pp_matrix_apply(pp_matrix m, pp_point p) {
 pp_point pp_matrix_apply_distance(pp_matrix m, pp_point d) {
   return (pp_point){m.xx * d.x + m.xy * d.y, m.yx * d.x + m.yy * d.y};
 }
+
+/* The box of the four mapped corners: exact for the quarter turns and flips that map
+ * page points to PDF user space (ISO 32000-1 §8.3.2.3, /Rotate). */
+pp_rect pp_rect_transform(pp_rect r, pp_matrix m) {
+  if (pp_rect_is_empty(r) || !isfinite(r.x0) || !isfinite(r.y0) || !isfinite(r.x1) ||
+      !isfinite(r.y1))
+    return pp_rect_empty();
+  pp_point corners[4] = {{r.x0, r.y0}, {r.x1, r.y0}, {r.x1, r.y1}, {r.x0, r.y1}};
+  pp_rect out = pp_rect_empty();
+  for (int i = 0; i < 4; i++)
+    out = pp_rect_add_point(out, pp_matrix_apply(m, corners[i]));
+  return out;
+}

@@ -1,11 +1,25 @@
-/* areas.c — filled areas under a series: a polygon whose top is a polyline and whose
- * bottom is flat (the drawn baseline), or which lies on another series (stacked).
- * Values are read at the top vertices; ink per unit width is the visible height. */
+/* areas.c — recognizer: filled areas under a series beside a vertical value axis. A
+ * polygon whose bottom is flat (the drawn baseline) or which lies on another series
+ * (stacked). Elements are vertical samples: value read at the top, ink per unit width
+ * is the visible height. */
 #include <math.h>
 
 #include "internal.h"
 
+#define OWNER "areas"
+
+/* Samples across each area: enough to follow a polyline top of a few dozen vertices
+ * (common practice, no source). */
 #define PP_AREA_MAX_SAMPLES 64
+/* Areas may reach this far beyond the end ticks beyond the axis' share, pt (common
+ * practice, no source). */
+#define PP_AREA_REACH_SLACK 20.0
+/* ...and start at most this far from the tick labels across the axis, pt (common
+ * practice, no source). */
+#define PP_AREA_MAX_DISTANCE 400.0
+/* A bottom within this of the lowest point at both ends is flat, pt (common practice,
+ * no source). */
+#define PP_AREA_FLAT_TOL 0.3
 
 /* Sutherland–Hodgman against the clip box: the visible outline. */
 static GArray *clip_polygon(GArray *pts, pp_rect box) {
@@ -58,25 +72,23 @@ static void column_extent(GArray *pts, double x, double *top, double *bottom) {
   }
 }
 
-pp_figure *pp_area_figure_build(const pp_scene *scene, GPtrArray *areas,
-                                const pp_axis_candidate *cand, int side, GPtrArray *all_axes) {
-  const pp_axis *axis = cand->axis;
-  if (!axis->vertical)
-    return NULL;
+/* The area figure on one side of a vertical axis, or NULL; claims inside the caller's
+ * transaction. */
+static pp_figure *build_on_axis(pp_recognize_ctx *ctx, const pp_axis_candidate *cand, int side) {
+  const pp_scale *axis = cand->scale;
   pp_figure *fig = NULL;
-  double span = cand->span1 - cand->span0;
-  for (guint i = 0; i < areas->len; i++) {
-    pp_area_candidate *a = g_ptr_array_index(areas, i);
-    if (a->used)
+  double lo, hi;
+  pp_axis_reach(cand, ctx->axes, side, &lo, &hi);
+  for (guint i = 0; i < ctx->areas->len; i++) {
+    pp_area_candidate *a = g_ptr_array_index(ctx->areas, i);
+    if (!pp_claims_mark_free(ctx->claims, a->mark))
       continue;
-    /* The area must lie beside the labels, within the axis' reach along y. */
     /* Beside the labels on the given side, before the next axis, within reach along y. */
-    double lo, hi;
-    pp_axis_reach(cand, all_axes, side, &lo, &hi);
     if (a->rect.x0 < lo || a->rect.x1 > hi ||
-        fabs(side > 0 ? a->rect.x0 - axis->box.x1 : axis->box.x0 - a->rect.x1) > 400)
+        fabs(side > 0 ? a->rect.x0 - axis->box.x1 : axis->box.x0 - a->rect.x1) >
+            PP_AREA_MAX_DISTANCE)
       continue;
-    if (a->rect.y0 < cand->span0 - 0.6 * span - 20 || a->rect.y1 > cand->span1 + 0.6 * span + 20)
+    if (!pp_within_reach(cand, a->rect.y0, a->rect.y1, PP_AREA_REACH_SLACK, 0))
       continue;
     GArray *vis = clip_polygon(a->points, isfinite(a->clip.x0) ? a->clip : a->rect);
     if (vis->len < 3) {
@@ -91,12 +103,12 @@ pp_figure *pp_area_figure_build(const pp_scene *scene, GPtrArray *areas,
     double xe0 = vb.x0 + 1e-6 * (vb.x1 - vb.x0), xe1 = vb.x1 - 1e-6 * (vb.x1 - vb.x0);
     column_extent(vis, xe0, &t0, &b0);
     column_extent(vis, xe1, &t1, &b1);
-    gboolean flat = fabs(b0 - vb.y1) < 0.3 && fabs(b1 - vb.y1) < 0.3;
+    gboolean flat = fabs(b0 - vb.y1) < PP_AREA_FLAT_TOL && fabs(b1 - vb.y1) < PP_AREA_FLAT_TOL;
     if (!fig) {
       fig = pp_figure_new(PP_FIGURE_AREA);
-      fig->bbox = pp_rect_empty();
+      fig->recognizer = OWNER;
     }
-    a->used = TRUE;
+    pp_claims_take_mark(ctx->claims, a->mark, OWNER);
     guint samples = MIN(PP_AREA_MAX_SAMPLES, MAX(2u, vis->len));
     for (guint s = 0; s < samples; s++) {
       double x = xe0 + (xe1 - xe0) * s / (samples - 1);
@@ -104,30 +116,53 @@ pp_figure *pp_area_figure_build(const pp_scene *scene, GPtrArray *areas,
       column_extent(vis, x, &top, &bottom);
       if (!isfinite(top) || bottom - top <= 0)
         continue;
-      pp_element e = {0};
-      e.kind = PP_ELEMENT_AREA;
-      e.mark_index = a->mark;
-      e.box = (pp_rect){x, top, x, bottom};
+      pp_element e = pp_element_init(PP_ENCODING_LENGTH);
+      e.shape.kind = PP_SHAPE_SAMPLE;
+      e.shape.rect = e.box = (pp_rect){x, top, x, bottom};
       e.extent = bottom - top;
       e.ink = e.extent; /* ink per unit width at x */
-      e.label_value = NAN;
+      pp_element_add_part(&e, a->mark, PP_PART_BODY, e.ink);
       e.series = fig->n_series;
+      e.scale_value = pp_scale_value_at(axis, top);
+      e.source = PP_VALUE_SCALE;
       if (flat) {
-        e.tip_value = pp_axis_value_at(axis, top);
-        e.base_value = pp_axis_value_at(axis, vb.y1);
+        e.base_value = pp_scale_value_at(axis, vb.y1);
+        e.value = e.scale_value;
       } else {
         /* Between two series: the thickness is the value, drawn from its own floor. */
-        e.tip_value = pp_axis_value_at(axis, top) - pp_axis_value_at(axis, bottom);
-        e.base_value = 0;
+        e.base_value = pp_scale_value_at(axis, bottom);
+        e.value = e.scale_value - e.base_value;
         e.stacked = TRUE;
       }
       g_array_append_val(fig->elements, e);
     }
     fig->n_series++;
     fig->bbox = pp_rect_union(fig->bbox, vb);
-    if (isfinite(a->clip.x0) && pp_rect_area(a->clip) < 0.6 * scene->width * scene->height)
+    if (isfinite(a->clip.x0) && !pp_page_sized(ctx->scene, a->clip))
       fig->bbox = pp_rect_union(fig->bbox, a->clip);
     g_array_unref(vis);
   }
+  if (fig)
+    pp_figure_add_evidence(fig, "scale-fits", 1);
   return fig;
+}
+
+/* Vertical axes only, on the side their labels face first, then on the other. */
+void pp_recognize_areas(pp_recognize_ctx *ctx) {
+  for (int pass = 0; pass < 2; pass++)
+    for (guint i = 0; i < ctx->axes->len; i++) {
+      const pp_axis_candidate *c = g_ptr_array_index(ctx->axes, i);
+      if (c->fit_failed || !c->scale->vertical || pp_axis_taken(ctx, c))
+        continue;
+      int side = c->side ? (pass ? -c->side : c->side) : (pass ? +1 : -1);
+      pp_claims_begin(ctx->claims);
+      pp_axis_claim_labels(ctx, c);
+      pp_figure *f = build_on_axis(ctx, c, side);
+      if (!f) {
+        pp_claims_rollback(ctx->claims);
+        continue;
+      }
+      pp_claims_commit(ctx->claims);
+      pp_figure_finish(ctx, f, c);
+    }
 }

@@ -16,34 +16,6 @@ typedef struct {
   double lo, hi; /* extent across */
 } tick_seg;
 
-double pp_axis_value_at(const pp_axis *axis, double pos) {
-  double v = axis->offset + axis->slope * pos;
-  return axis->log ? pow(10, v) : v;
-}
-
-double pp_axis_pos_of(const pp_axis *axis, double value) {
-  double v = axis->log ? log10(value) : value;
-  return (v - axis->offset) / axis->slope;
-}
-
-pp_axis *pp_axis_new(gboolean vertical) {
-  pp_axis *axis = g_new0(pp_axis, 1);
-  axis->vertical = vertical;
-  axis->ticks = g_array_new(FALSE, FALSE, sizeof(pp_tick));
-  axis->box = pp_rect_empty();
-  return axis;
-}
-
-void pp_axis_free(pp_axis *axis) {
-  if (!axis)
-    return;
-  for (guint i = 0; axis->ticks && i < axis->ticks->len; i++)
-    g_free(g_array_index(axis->ticks, pp_tick, i).label);
-  if (axis->ticks)
-    g_array_unref(axis->ticks);
-  g_free(axis);
-}
-
 /* Straight segments of strokes that could be ticks or gridlines: horizontal ones
  * (marking positions on a vertical axis) and vertical ones. */
 static void collect_segments(const pp_scene *scene, GArray *horiz, GArray *vert) {
@@ -141,7 +113,7 @@ static int cmp_pos(gconstpointer a, gconstpointer b, gpointer vertical) {
 
 static void candidate_free(gpointer p) {
   pp_axis_candidate *c = p;
-  pp_axis_free(c->axis);
+  pp_scale_free(c->scale);
   g_free(c->reason);
   g_ptr_array_unref(c->labels);
   g_free(c);
@@ -163,8 +135,8 @@ static pp_axis_candidate *make_candidate(GPtrArray *run, gboolean vertical, GArr
   pp_axis_candidate *c = g_new0(pp_axis_candidate, 1);
   c->labels = g_ptr_array_new();
   c->label_edge = edge;
-  pp_axis *axis = pp_axis_new(vertical);
-  c->axis = axis;
+  pp_scale *axis = pp_scale_new(vertical);
+  c->scale = axis;
   for (guint i = 0; i < n; i++) {
     pp_label *l = g_ptr_array_index(run, i);
     /* Every label parsed on its own; the series reading wins where it exists. */
@@ -215,7 +187,7 @@ static pp_axis_candidate *make_candidate(GPtrArray *run, gboolean vertical, GArr
     axis->offset = a, axis->slope = b;
     axis->rms_residual = rms;
   } else if (lg && lrel <= PP_AXIS_MAX_RESIDUAL) {
-    axis->log = TRUE;
+    axis->kind = PP_SCALE_LOG;
     axis->offset = la, axis->slope = lb;
     axis->rms_residual = lrms;
   } else {
@@ -228,8 +200,8 @@ static pp_axis_candidate *make_candidate(GPtrArray *run, gboolean vertical, GArr
     c->span0 = fmin(pos[0], pos[m - 1]);
     c->span1 = fmax(pos[0], pos[m - 1]);
     if (!c->fit_failed) {
-      axis->min_value = pp_axis_value_at(axis, c->span0);
-      axis->max_value = pp_axis_value_at(axis, c->span1);
+      axis->min_value = pp_scale_value_at(axis, c->span0);
+      axis->max_value = pp_scale_value_at(axis, c->span1);
       if (axis->min_value > axis->max_value) {
         double t = axis->min_value;
         axis->min_value = axis->max_value;
@@ -407,11 +379,11 @@ GPtrArray *pp_axes_find(const pp_scene *scene, GPtrArray *labels) {
   for (guint k = first_left; k < out->len; k++) {
     pp_axis_candidate *c = g_ptr_array_index(out, k);
     c->side = -1;
-    c->label_edge = c->axis->box.x0;
+    c->label_edge = c->scale->box.x0;
   }
   for (guint k = 0; k < first_left; k++) {
     pp_axis_candidate *c = g_ptr_array_index(out, k);
-    c->label_edge = c->axis->box.x1;
+    c->label_edge = c->scale->box.x1;
   }
   guint first_h = out->len;
   /* Horizontal axes: labels on one baseline row. */
@@ -419,7 +391,7 @@ GPtrArray *pp_axes_find(const pp_scene *scene, GPtrArray *labels) {
   for (guint k = first_h; k < out->len; k++) {
     pp_axis_candidate *c = g_ptr_array_index(out, k);
     c->side = 0; /* decided by where the bars are */
-    c->label_edge = (c->axis->box.y0 + c->axis->box.y1) / 2;
+    c->label_edge = (c->scale->box.y0 + c->scale->box.y1) / 2;
   }
   g_hash_table_unref(taken_v);
   g_hash_table_unref(taken_h);
@@ -432,19 +404,19 @@ GPtrArray *pp_axes_find(const pp_scene *scene, GPtrArray *labels) {
  * one along the axis, takes over. */
 void pp_axis_reach(const pp_axis_candidate *axis, GPtrArray *all_axes, int side, double *lo,
                    double *hi) {
-  gboolean vertical = axis->axis->vertical;
-  pp_rect box = axis->axis->box;
+  gboolean vertical = axis->scale->vertical;
+  pp_rect box = axis->scale->box;
   double edge = vertical ? (side > 0 ? box.x1 : box.x0) : (side > 0 ? box.y1 : box.y0);
   *lo = side > 0 ? edge - 1 : -INFINITY;
   *hi = side > 0 ? INFINITY : edge + 1;
   for (guint i = 0; i < all_axes->len; i++) {
     const pp_axis_candidate *o = g_ptr_array_index(all_axes, i);
-    if (o == axis || o->fit_failed || o->axis->vertical != vertical)
+    if (o == axis || o->fit_failed || o->scale->vertical != vertical)
       continue;
     /* only axes whose span overlaps ours along u */
     if (o->span1 < axis->span0 - 20 || o->span0 > axis->span1 + 20)
       continue;
-    pp_rect ob = o->axis->box;
+    pp_rect ob = o->scale->box;
     double o_lo = vertical ? ob.x0 : ob.y0, o_hi = vertical ? ob.x1 : ob.y1;
     if (side > 0 && o_lo > edge + 2)
       *hi = fmin(*hi, o_lo);

@@ -26,10 +26,6 @@ static gboolean behind_text(const pp_scene *scene, pp_rect r) {
   return FALSE;
 }
 
-static gboolean page_sized(const pp_scene *scene, pp_rect r) {
-  return pp_rect_area(r) > 0.6 * scene->width * scene->height;
-}
-
 /* Hatch lines inside an outlined rectangle: single slanted strokes whose box lies within
  * it. Slanted, because ticks and gridlines inside a plot frame are axis-aligned. */
 static guint count_hatching(const pp_scene *scene, pp_rect r) {
@@ -56,9 +52,9 @@ static void collect_hatched(const pp_scene *scene, GArray *out) {
       continue;
     pp_rect clip = pp_clip_bbox(m->clip);
     pp_rect vis = pp_rect_intersect(r, clip);
-    if (pp_rect_is_empty(vis) || page_sized(scene, vis))
+    if (pp_rect_is_empty(vis) || pp_page_sized(scene, vis))
       continue;
-    pp_bar_candidate c = {i, vis, clip, pp_rect_area(vis), m->paint, FALSE};
+    pp_bar_candidate c = {i, vis, clip, pp_rect_area(vis), m->paint};
     g_array_append_val(out, c);
   }
 }
@@ -91,7 +87,7 @@ static void add_rect(const pp_scene *scene, GArray *out, guint mark, pp_rect r, 
   pp_rect clip = pp_clip_bbox(m->clip);
   pp_rect vis = pp_rect_intersect(r, clip);
   if (pp_rect_is_empty(vis) || pp_rect_width(vis) < 0.2 || pp_rect_height(vis) < 0.2 ||
-      page_sized(scene, vis) || behind_text(scene, vis))
+      pp_page_sized(scene, vis) || behind_text(scene, vis))
     return;
   for (guint k = out->len; k-- > 0 && k + 8 >= out->len;) {
     pp_bar_candidate *c = &g_array_index(out, pp_bar_candidate, k);
@@ -99,7 +95,7 @@ static void add_rect(const pp_scene *scene, GArray *out, guint mark, pp_rect r, 
         fabs(c->rect.y0 - vis.y0) < 0.01 && fabs(c->rect.y1 - vis.y1) < 0.01)
       return;
   }
-  pp_bar_candidate c = {mark, vis, clip, isnan(ink) ? pp_rect_area(vis) : ink, m->paint, FALSE};
+  pp_bar_candidate c = {mark, vis, clip, isnan(ink) ? pp_rect_area(vis) : ink, m->paint};
   g_array_append_val(out, c);
 }
 
@@ -190,7 +186,7 @@ GPtrArray *pp_area_candidates_collect(const pp_scene *scene) {
     a->rect = pp_rect_intersect(m->bbox, a->clip);
     a->ink = ink;
     a->paint = m->paint;
-    if (page_sized(scene, a->rect) || pp_rect_is_empty(a->rect)) {
+    if (pp_page_sized(scene, a->rect) || pp_rect_is_empty(a->rect)) {
       pp_area_candidate_free(a);
       continue;
     }

@@ -1,5 +1,6 @@
 /* internal.h — shared by the recognition stage's files only.
- * Labels → axes → bar and area groups → figures; each file is one of those steps. */
+ * Labels → axes → candidates → the recognizer table (one file per chart family, each
+ * claiming marks and labels through the ledger) → figures (figure.c). */
 #pragma once
 
 #include "geometry/geometry.h"
@@ -14,7 +15,7 @@ typedef struct {
   double size;
   double angle;
   pp_number number;
-  gboolean on_axis; /* claimed by a value axis */
+  guint index; /* position in the page's label list: the ledger's key */
 } pp_label;
 
 /* Every numeric phrase of the page, words merged where a number was split by
@@ -22,10 +23,11 @@ typedef struct {
  * to be parts of labels (a minus sign drawn as a path) are added to glyph_marks. */
 GPtrArray *pp_labels_collect(const pp_scene *scene, GHashTable *glyph_marks);
 
-/* Value-axis candidates (pp_axis*, fitted or not) from aligned labels. Labels used
- * get on_axis. Candidates whose fit failed carry fit_failed and a reason. */
+/* Value-axis candidates (fitted or not) from aligned labels. Candidates whose fit
+ * failed carry fit_failed and a reason. The labels are claimed only when a figure is
+ * built on the axis. */
 typedef struct {
-  pp_axis *axis;
+  pp_scale *scale;
   gboolean fit_failed;
   gboolean category; /* consecutive years: labels of categories, never a value scale */
   char *reason;
@@ -49,7 +51,6 @@ typedef struct {
   pp_rect clip; /* clip bbox (infinite when unclipped) */
   double ink;
   pp_paint paint;
-  gboolean used;
 } pp_bar_candidate;
 
 /* glyph_marks: mark indices that are parts of text, never bars. */
@@ -63,18 +64,127 @@ typedef struct {
   pp_rect clip;
   double ink;
   pp_paint paint;
-  gboolean used;
 } pp_area_candidate;
 
 GPtrArray *pp_area_candidates_collect(const pp_scene *scene);
 void pp_area_candidate_free(gpointer p);
 
-/* Builds a figure from the bars on one side of an axis (+1: towards larger x, or y for
- * a horizontal axis; −1: smaller). Returns NULL when no bar group is found there. */
-pp_figure *pp_bar_figure_build(const pp_scene *scene, GArray *bars, const pp_axis_candidate *axis,
-                               int side, GPtrArray *labels, GPtrArray *all_axes);
-pp_figure *pp_bar_figure_from_labels(const pp_scene *scene, GArray *bars, GPtrArray *labels);
-pp_figure *pp_area_figure_build(const pp_scene *scene, GPtrArray *areas,
-                                const pp_axis_candidate *axis, int side, GPtrArray *all_axes);
+/* ---- The claims ledger -------------------------------------------------------------
+ * Every mark of the scene and every label of the page can belong to at most one figure
+ * (or one axis). Recognizers claim through the ledger, inside a transaction that they
+ * commit when their figure is accepted and roll back when it is rejected, so a later
+ * recognizer can still use what a failed attempt touched. Transactions nest. */
+typedef struct pp_claims pp_claims;
 
-void pp_figure_set_fingerprint(pp_figure *figure);
+pp_claims *pp_claims_new(guint n_marks, guint n_labels);
+void pp_claims_free(pp_claims *claims);
+G_DEFINE_AUTOPTR_CLEANUP_FUNC(pp_claims, pp_claims_free)
+
+gboolean pp_claims_mark_free(const pp_claims *claims, guint mark);
+gboolean pp_claims_label_free(const pp_claims *claims, guint label);
+/* Who holds it: the static owner string given at claim time, NULL when free. */
+const char *pp_claims_mark_owner(const pp_claims *claims, guint mark);
+const char *pp_claims_label_owner(const pp_claims *claims, guint label);
+/* Claiming what is already held is a programmer error (g_return_if_fail). */
+void pp_claims_take_mark(pp_claims *claims, guint mark, const char *owner);
+void pp_claims_take_label(pp_claims *claims, guint label, const char *owner);
+/* TRUE when it was free and is now held by owner. */
+gboolean pp_claims_take_mark_if_free(pp_claims *claims, guint mark, const char *owner);
+gboolean pp_claims_take_label_if_free(pp_claims *claims, guint label, const char *owner);
+void pp_claims_begin(pp_claims *claims);
+void pp_claims_commit(pp_claims *claims);
+void pp_claims_rollback(pp_claims *claims);
+/* Open transactions (0 outside any). */
+guint pp_claims_depth(const pp_claims *claims);
+
+/* ---- What every recognizer sees ------------------------------------------------------ */
+typedef struct {
+  const pp_scene *scene;
+  GHashTable *glyph_marks; /* marks that are parts of text (path-drawn minus signs) */
+  GPtrArray *labels;       /* pp_label*, every numeric phrase */
+  GPtrArray *axes;         /* pp_axis_candidate*, fitted or not */
+  GArray *bars;            /* pp_bar_candidate */
+  GPtrArray *areas;        /* pp_area_candidate* */
+  pp_claims *claims;       /* the ledger */
+  pp_page_charts *out;     /* figures found so far */
+} pp_recognize_ctx;
+
+/* A recognizer finds every figure of its family on the page, claiming marks and labels
+ * through ctx->claims, and hands each accepted figure to pp_figure_finish(). */
+typedef struct {
+  pp_recognizer_info info;
+  void (*run)(pp_recognize_ctx *ctx);
+} pp_recognizer;
+
+/* The table, in priority order (recognizers.c). */
+extern const pp_recognizer pp_recognizers[];
+extern const guint pp_n_recognizers;
+
+/* Titles, fingerprint, scale range, evidence → confidence; adds it to ctx->out
+ * (figure.c). scale_source may be NULL. */
+void pp_figure_finish(pp_recognize_ctx *ctx, pp_figure *figure,
+                      const pp_axis_candidate *scale_source);
+
+/* ---- Shared concepts (concepts.c): one definition each ---------------------------- */
+
+/* Two edge coordinates are the same drawn edge: producers write coordinates to a few
+ * hundredths of a point (LibreOffice rounds to 1/100 mm, 0.028 pt), so closer than
+ * this is one edge (common practice, no source). */
+#define PP_SAME_EDGE_TOL 0.05
+/* Two bars are in the same column when both their sides agree this well, pt: wider than
+ * PP_SAME_EDGE_TOL because stacked segments are often drawn with their own outline
+ * rounding (common practice, no source). */
+#define PP_SAME_COLUMN_TOL 0.2
+/* A segment sits on the one below when the gap between them is under this, pt: a thin
+ * white separator stroke is not a gap (common practice, no source). */
+#define PP_STACK_GAP 0.3
+/* A box covering more than this share of the page is a page background or frame, not a
+ * mark that stands for a value (common practice, no source). */
+#define PP_PAGE_SIZED_SHARE 0.6
+/* Marks belong to an axis when they lie within this share of its tick span beyond its
+ * end ticks (plots extend past the last labelled tick; common practice, no source). */
+#define PP_AXIS_REACH_SHARE 0.6
+
+gboolean pp_same_edge(double a, double b);
+/* One of the two edges u0, u1 is the edge c. */
+gboolean pp_on_edge(double u0, double u1, double c);
+gboolean pp_page_sized(const pp_scene *scene, pp_rect r);
+/* Along the axis: [u0, u1] lies within the axis' tick span widened on each side by
+ * PP_AXIS_REACH_SHARE of it plus slack points, and by at least floor points. */
+gboolean pp_within_reach(const pp_axis_candidate *axis, double u0, double u1, double slack,
+                         double floor);
+
+/* A rectangle in an axis' frame: u along the value axis, w across it. */
+typedef struct {
+  double u0, u1, w0, w1;
+} pp_frame_rect;
+
+pp_frame_rect pp_frame_of(pp_rect r, gboolean vertical);
+/* Both sides across the axis agree within PP_SAME_COLUMN_TOL. */
+gboolean pp_same_column(pp_frame_rect a, pp_frame_rect b);
+
+/* ---- Bars (bar_group.c): shared by the bar recognizers ------------------------------ */
+
+/* Ledger owners (static strings). */
+#define PP_OWNER_VALUE_AXIS "value-axis"
+#define PP_OWNER_CATEGORY_AXIS "category-axis"
+#define PP_OWNER_DATA_LABEL "data-label"
+
+/* The figure of the selected bars (indices into ctx->bars) standing on base: one element
+ * per column with its stacked segments as parts, series by colour, category labels,
+ * data labels at the tips. Values read on scale when it is not NULL. Claims the bars'
+ * marks and the data labels for owner; the caller runs it inside a transaction. */
+pp_figure *pp_bars_build(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *scale,
+                         gboolean vertical, double base, const char *owner);
+/* Legend keys: swatches of one size, each named beside it. */
+gboolean pp_bars_legend_like(const pp_scene *scene, const pp_figure *fig);
+/* Claims the free labels of an axis for a figure built on it. */
+void pp_axis_claim_labels(pp_recognize_ctx *ctx, const pp_axis_candidate *axis);
+/* An axis is taken when every one of its labels is held (by a figure built on it). */
+gboolean pp_axis_taken(const pp_recognize_ctx *ctx, const pp_axis_candidate *axis);
+
+/* ---- The recognizers (one file each; listed in recognizers.c) ----------------------- */
+void pp_recognize_bars(pp_recognize_ctx *ctx);          /* bars.c */
+void pp_recognize_areas(pp_recognize_ctx *ctx);         /* areas.c */
+void pp_recognize_labelled_bars(pp_recognize_ctx *ctx); /* labelled.c */
+void pp_recognize_lines(pp_recognize_ctx *ctx);         /* lines.c */

@@ -21,6 +21,7 @@ static void add_label(GPtrArray *out, const char *text, pp_rect box, double size
   l->size = size > 0 ? size : pp_rect_height(box);
   l->angle = angle;
   l->number = *num;
+  l->index = out->len;
   g_ptr_array_add(out, l);
 }
 

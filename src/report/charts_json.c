@@ -1,17 +1,20 @@
-/* charts_json.c — `plotproof charts`: the recognised figures of one page in full
- * (axis fit, ticks, every element), for developers tuning the recognition stage. */
+/* charts_json.c — `plotproof charts`: the recognised figures of one page in full (the
+ * recognizer that built each, its scale fit and ticks, every element with its encoding,
+ * parts, value and where it came from), for developers tuning the recognition stage. */
+#include <math.h>
+
 #include "json_util.h"
 #include "report.h"
 
-static void add_axis(JsonBuilder *b, const pp_axis *a) {
-  json_builder_set_member_name(b, "axis");
+static void add_scale(JsonBuilder *b, const pp_scale *a) {
+  json_builder_set_member_name(b, "scale");
   if (!a) {
     json_builder_add_null_value(b);
     return;
   }
   json_builder_begin_object(b);
   pp_json_member_string(b, "orientation", a->vertical ? "vertical" : "horizontal");
-  pp_json_member_bool(b, "log", a->log);
+  pp_json_member_string(b, "kind", a->kind == PP_SCALE_LOG ? "log" : "linear");
   pp_json_member_number(b, "offset", a->offset);
   pp_json_member_number(b, "slope", a->slope);
   pp_json_member_number(b, "rms_residual", a->rms_residual);
@@ -32,32 +35,116 @@ static void add_axis(JsonBuilder *b, const pp_axis *a) {
   json_builder_end_object(b);
 }
 
+static void add_point(JsonBuilder *b, const char *name, pp_point p) {
+  json_builder_set_member_name(b, name);
+  json_builder_begin_array(b);
+  pp_json_add_number(b, p.x);
+  pp_json_add_number(b, p.y);
+  json_builder_end_array(b);
+}
+
+static void add_shape(JsonBuilder *b, const pp_shape *s) {
+  static const char *const kinds[] = {"none", "rect",   "sample", "sector",
+                                      "quad", "circle", "polygon"};
+  json_builder_set_member_name(b, "shape");
+  json_builder_begin_object(b);
+  pp_json_member_string(b, "kind", (guint)s->kind < G_N_ELEMENTS(kinds) ? kinds[s->kind] : "none");
+  switch (s->kind) {
+  case PP_SHAPE_RECT:
+  case PP_SHAPE_SAMPLE: pp_json_member_rect(b, "rect", s->rect); break;
+  case PP_SHAPE_SECTOR:
+    add_point(b, "centre", s->sector.centre);
+    pp_json_member_number(b, "rx", s->sector.rx);
+    pp_json_member_number(b, "ry", s->sector.ry);
+    pp_json_member_number(b, "inner", s->sector.inner);
+    pp_json_member_number(b, "a0", s->sector.a0);
+    pp_json_member_number(b, "a1", s->sector.a1);
+    pp_json_member_number(b, "offset", s->sector.offset);
+    break;
+  case PP_SHAPE_QUAD:
+    json_builder_set_member_name(b, "points");
+    json_builder_begin_array(b);
+    for (int i = 0; i < 4; i++) {
+      json_builder_begin_array(b);
+      pp_json_add_number(b, s->quad.p[i].x);
+      pp_json_add_number(b, s->quad.p[i].y);
+      json_builder_end_array(b);
+    }
+    json_builder_end_array(b);
+    break;
+  case PP_SHAPE_CIRCLE:
+    add_point(b, "centre", s->circle.centre);
+    pp_json_member_number(b, "r", s->circle.r);
+    break;
+  default: break;
+  }
+  json_builder_end_object(b);
+}
+
 static void add_element(JsonBuilder *b, const pp_element *e) {
   json_builder_begin_object(b);
-  pp_json_member_string(b, "kind", e->kind == PP_ELEMENT_BAR ? "bar" : "area");
-  pp_json_member_int(b, "mark_index", e->mark_index);
+  pp_json_member_string(b, "encoding", pp_encoding_name(e->encoding));
+  add_shape(b, &e->shape);
+  json_builder_set_member_name(b, "parts");
+  json_builder_begin_array(b);
+  for (guint i = 0; e->parts && i < e->parts->len; i++) {
+    const pp_part *p = &g_array_index(e->parts, pp_part, i);
+    json_builder_begin_object(b);
+    pp_json_member_int(b, "mark", p->mark);
+    pp_json_member_string(b, "role", pp_part_role_name(p->role));
+    pp_json_member_number(b, "ink", p->ink);
+    json_builder_end_object(b);
+  }
+  json_builder_end_array(b);
   pp_json_member_rect(b, "box", e->box);
-  pp_json_member_number(b, "tip_value", e->tip_value);
+  pp_json_member_number(b, "value", e->value);
+  pp_json_member_string(b, "source", pp_value_source_name(e->source));
+  pp_json_member_number(b, "scale_value", e->scale_value);
   pp_json_member_number(b, "base_value", e->base_value);
-  pp_json_member_number(b, "ink", e->ink);
-  pp_json_member_number(b, "extent", e->extent);
   pp_json_member_number(b, "label_value", e->label_value);
   pp_json_member_string(b, "label_text", e->label_text);
+  pp_json_member_number(b, "share", e->share);
+  pp_json_member_number(b, "ink", e->ink);
+  pp_json_member_number(b, "extent", e->extent);
   pp_json_member_string(b, "category", e->category);
   pp_json_member_int(b, "series", e->series);
   pp_json_member_bool(b, "stacked", e->stacked);
   json_builder_end_object(b);
 }
 
+static void add_evidence(JsonBuilder *b, const pp_figure *f) {
+  json_builder_set_member_name(b, "evidence");
+  json_builder_begin_array(b);
+  for (guint i = 0; f->evidence && i < f->evidence->len; i++) {
+    const pp_evidence *ev = &g_array_index(f->evidence, pp_evidence, i);
+    json_builder_begin_object(b);
+    pp_json_member_string(b, "what", ev->what);
+    pp_json_member_number(b, "score", ev->score);
+    json_builder_end_object(b);
+  }
+  json_builder_end_array(b);
+}
+
 static void add_figure(JsonBuilder *b, const pp_scene *scene, const pp_figure *f) {
+  static const char *const projections[] = {"flat", "oblique", "perspective", "tilted"};
   json_builder_begin_object(b);
   pp_json_member_string(b, "id", f->fingerprint);
   pp_json_member_string(b, "kind", pp_figure_kind_name(f->kind));
+  pp_json_member_string(b, "recognizer", f->recognizer);
   pp_json_member_string(b, "title", f->title);
   pp_json_member_rect(b, "bbox", f->bbox);
-  pp_json_member_mapped_rect(b, "pdf_bbox", f->bbox, scene->to_pdf);
+  pp_json_member_rect(b, "pdf_bbox", pp_rect_transform(f->bbox, scene->to_pdf));
   pp_json_member_int(b, "series", f->n_series);
-  add_axis(b, f->axis);
+  pp_json_member_string(b, "projection",
+                        (guint)f->projection.kind < G_N_ELEMENTS(projections)
+                            ? projections[f->projection.kind]
+                            : "flat");
+  pp_json_member_number(b, "projection_ratio", f->projection.ratio);
+  pp_json_member_bool(b, "judged", f->judged);
+  pp_json_member_string(b, "not_judged_reason", f->not_judged_reason);
+  pp_json_member_number(b, "confidence", f->confidence);
+  add_evidence(b, f);
+  add_scale(b, f->scale);
   json_builder_set_member_name(b, "elements");
   json_builder_begin_array(b);
   for (guint i = 0; f->elements && i < f->elements->len; i++)

@@ -1,5 +1,6 @@
-/* findings.c — the findings file, version 1: document identity, per-page coverage and
- * findings, accumulated as small JSON nodes so scenes can be freed page by page.
+/* findings.c — the findings file, version 2: document identity, per-page coverage and
+ * findings, accumulated as small JSON nodes so scenes can be freed page by page. Boxes
+ * are mapped to PDF space here (pp_rect_transform), never by the rules.
  * The layout is specified in docs/findings-format.md and docs/findings.schema.json. */
 #include <math.h>
 
@@ -69,22 +70,29 @@ static void add_mark_counts(JsonBuilder *b, const pp_scene *scene) {
   json_builder_end_object(b);
 }
 
-static void add_value_axis(JsonBuilder *b, const pp_axis *axis) {
-  json_builder_set_member_name(b, "value_axis");
-  if (!axis) {
+static void add_scale(JsonBuilder *b, const pp_scale *scale) {
+  json_builder_set_member_name(b, "scale");
+  if (!scale) {
     json_builder_add_null_value(b);
     return;
   }
   json_builder_begin_object(b);
-  pp_json_member_string(b, "orientation", axis->vertical ? "vertical" : "horizontal");
-  pp_json_member_bool(b, "log", axis->log);
-  pp_json_member_int(b, "ticks", axis->ticks ? axis->ticks->len : 0);
+  pp_json_member_string(b, "orientation", scale->vertical ? "vertical" : "horizontal");
+  pp_json_member_string(b, "kind", scale->kind == PP_SCALE_LOG ? "log" : "linear");
+  pp_json_member_int(b, "ticks", scale->ticks ? scale->ticks->len : 0);
   json_builder_set_member_name(b, "range");
   json_builder_begin_array(b);
-  pp_json_add_number(b, axis->min_value);
-  pp_json_add_number(b, axis->max_value);
+  pp_json_add_number(b, scale->min_value);
+  pp_json_add_number(b, scale->max_value);
   json_builder_end_array(b);
   json_builder_end_object(b);
+}
+
+/* Both boxes of one region: page points as found, PDF user space through the page's
+ * mapping. */
+static void add_boxes(JsonBuilder *b, pp_rect r, const pp_scene *scene) {
+  pp_json_member_rect(b, "bbox", r);
+  pp_json_member_rect(b, "pdf_bbox", pp_rect_transform(r, scene->to_pdf));
 }
 
 static void add_figures(JsonBuilder *b, const pp_scene *scene, const pp_page_charts *charts) {
@@ -95,12 +103,15 @@ static void add_figures(JsonBuilder *b, const pp_scene *scene, const pp_page_cha
     json_builder_begin_object(b);
     pp_json_member_string(b, "id", f->fingerprint);
     pp_json_member_string(b, "kind", pp_figure_kind_name(f->kind));
+    pp_json_member_string(b, "recognizer", f->recognizer);
     pp_json_member_string(b, "title", f->title);
-    pp_json_member_rect(b, "bbox", f->bbox);
-    pp_json_member_mapped_rect(b, "pdf_bbox", f->bbox, scene->to_pdf);
-    add_value_axis(b, f->axis);
+    add_boxes(b, f->bbox, scene);
+    add_scale(b, f->scale);
     pp_json_member_int(b, "elements", f->elements ? f->elements->len : 0);
     pp_json_member_int(b, "series", f->n_series);
+    pp_json_member_bool(b, "judged", f->judged);
+    pp_json_member_number(b, "confidence", f->confidence);
+    pp_json_member_string(b, "not_judged_reason", f->judged ? NULL : f->not_judged_reason);
     json_builder_end_object(b);
   }
   json_builder_end_array(b);
@@ -112,8 +123,7 @@ static void add_not_analysed(JsonBuilder *b, const pp_scene *scene, const pp_pag
   for (guint i = 0; charts && charts->raster_images && i < charts->raster_images->len; i++) {
     pp_rect r = g_array_index(charts->raster_images, pp_rect, i);
     json_builder_begin_object(b);
-    pp_json_member_rect(b, "bbox", r);
-    pp_json_member_mapped_rect(b, "pdf_bbox", r, scene->to_pdf);
+    add_boxes(b, r, scene);
     json_builder_end_object(b);
   }
   json_builder_end_array(b);
@@ -122,8 +132,7 @@ static void add_not_analysed(JsonBuilder *b, const pp_scene *scene, const pp_pag
   for (guint i = 0; charts && charts->scale_failures && i < charts->scale_failures->len; i++) {
     const pp_scale_failure *s = g_ptr_array_index(charts->scale_failures, i);
     json_builder_begin_object(b);
-    pp_json_member_rect(b, "bbox", s->bbox);
-    pp_json_member_mapped_rect(b, "pdf_bbox", s->bbox, scene->to_pdf);
+    add_boxes(b, s->bbox, scene);
     pp_json_member_string(b, "reason", s->reason ? s->reason : "unknown");
     json_builder_end_object(b);
   }
@@ -174,35 +183,34 @@ static void add_measures(JsonBuilder *b, const pp_measures *m) {
   json_builder_end_object(b);
 }
 
-static void add_elements(JsonBuilder *b, const pp_finding *f) {
+static void add_elements(JsonBuilder *b, const pp_finding *f, const pp_scene *scene) {
   json_builder_set_member_name(b, "elements");
   json_builder_begin_array(b);
-  guint n = f->values ? f->values->len : 0;
-  for (guint i = 0; i < n; i++) {
+  for (guint i = 0; f->elements && i < f->elements->len; i++) {
+    const pp_finding_element *e = &g_array_index(f->elements, pp_finding_element, i);
     json_builder_begin_object(b);
-    const char *cat =
-        f->categories && i < f->categories->len ? g_ptr_array_index(f->categories, i) : NULL;
+    char *cat = e->category ? g_utf8_make_valid(e->category, -1) : NULL;
     pp_json_member_string(b, "category", cat);
-    pp_json_member_number(b, "value", g_array_index(f->values, double, i));
-    double ink = f->inks && i < f->inks->len ? g_array_index(f->inks, double, i) : NAN;
-    pp_json_member_number(b, "ink", ink);
+    g_free(cat);
+    pp_json_member_number(b, "value", e->value);
+    pp_json_member_number(b, "ink", e->ink);
+    add_boxes(b, e->box, scene);
     json_builder_end_object(b);
   }
   json_builder_end_array(b);
 }
 
-static JsonNode *finding_node(const pp_finding *f) {
+static JsonNode *finding_node(const pp_finding *f, const pp_scene *scene) {
   g_autoptr(JsonBuilder) b = json_builder_new();
   json_builder_begin_object(b);
   pp_json_member_string(b, "id", f->id ? f->id : "");
-  pp_json_member_int(b, "page", f->page);
-  pp_json_member_rect(b, "bbox", f->bbox);
-  pp_json_member_rect(b, "pdf_bbox", f->pdf_bbox);
+  pp_json_member_int(b, "page", scene->page_index + 1);
+  add_boxes(b, f->bbox, scene);
   pp_json_member_string(b, "figure_kind", pp_figure_kind_name(f->figure_kind));
   pp_json_member_string(b, "rule", f->rule ? f->rule : "unknown");
   pp_json_member_string(b, "severity", pp_severity_name(f->severity));
   add_measures(b, &f->measures);
-  add_elements(b, f);
+  add_elements(b, f, scene);
   pp_json_member_string(b, "message", f->message ? f->message : "");
   json_builder_end_object(b);
   return json_builder_get_root(b);
@@ -218,7 +226,7 @@ void pp_report_add_page(pp_report *r, const pp_scene *scene, const pp_page_chart
   }
   for (guint i = 0; findings && i < findings->len; i++) {
     const pp_finding *f = g_ptr_array_index((GPtrArray *)findings, i);
-    json_array_add_element(r->findings, finding_node(f));
+    json_array_add_element(r->findings, finding_node(f, scene));
     if (f->severity <= PP_SEVERITY_GROSS)
       r->by_severity[f->severity]++;
   }

@@ -1,5 +1,5 @@
 /* report.h — contract of the report stage: the findings file (format "plotproof-findings",
- * version 1, see docs/findings-format.md) built page by page, plus developer JSON views of
+ * version 2, see docs/findings-format.md) built page by page, plus developer JSON views of
  * one page's scene and recognised charts. Everything is written with json-glib. */
 #pragma once
 
@@ -10,7 +10,7 @@
 G_BEGIN_DECLS
 
 #define PP_REPORT_FORMAT "plotproof-findings"
-#define PP_REPORT_VERSION 1
+#define PP_REPORT_VERSION 2
 #define PP_REPORT_DISCLAIMER                                                                       \
   "These verdicts are an aid to a reviewer, not an audit opinion; the applicable reporting "       \
   "standards and regulator rules prevail."

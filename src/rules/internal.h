@@ -1,4 +1,6 @@
-/* internal.h — shared by the scoring stage's files only. */
+/* internal.h — shared by the scoring stage's files only: the rule table's entry type,
+ * the helpers every rule uses (measures over elements, band, severity, sentence) and
+ * one run function per rule file. */
 #pragma once
 
 #include "rules.h"
@@ -8,3 +10,63 @@ void pp_measures_compute(const double *values, const double *inks, const guint *
 
 /* "30,000", "1.25", "0.004": a value as a reviewer reads it (en grouping). */
 char *pp_format_value(double v);
+
+#define PP_KIND_BIT(k) (1u << (PP_FIGURE_##k))
+
+/* One rule. Rules are tried in table order (table.c); the first whose kinds include the
+ * figure's and whose measure() says it applies judges the figure, alone. */
+typedef struct {
+  const char *id;
+  const char *summary;
+  const char *doc; /* anchor in docs/rules.md */
+  guint32 kinds;   /* PP_KIND_BIT mask of the figure kinds it judges */
+  /* Applies to this figure? Then fills f's elements and measures and returns TRUE. */
+  gboolean (*measure)(const pp_figure *fig, const pp_thresholds *t, pp_finding *f);
+  /* Outside the faithful band? Then sets *severity and returns TRUE (no finding else). */
+  gboolean (*severity)(const pp_measures *m, const pp_thresholds *t, pp_severity *severity);
+  /* The one sentence a reviewer reads (newly allocated). */
+  char *(*sentence)(const pp_figure *fig, const pp_finding *f, const pp_thresholds *t);
+} pp_rule;
+
+extern const pp_rule pp_rules[];
+extern const guint pp_n_rules;
+
+/* ---- Helpers shared by the rules (engine.c) ---------------------------------------- */
+
+/* Which value of an element a rule judges. */
+typedef enum {
+  PP_JUDGE_VALUE, /* e->value: the scale reading (or the label on labels-only charts) */
+  PP_JUDGE_LABEL, /* e->label_value: the printed data label */
+} pp_judge;
+
+/* Fills f->elements from the figure (value per judge, ink, box, category) and computes
+ * the measures; per_series compares each series' own ends (areas), else the first and
+ * last elements whatever their series (the GDI convention for bars). */
+void pp_rule_measure_elements(const pp_figure *fig, pp_finding *f, pp_judge judge,
+                              gboolean per_series, double baseline);
+/* The value where the ink starts: the first element's base (first unstacked one when
+ * skip_stacked), NAN when unknown. */
+double pp_rule_baseline(const pp_figure *fig, gboolean skip_stacked);
+/* Zero lies within PP_ZERO_SHARE of the scale's span from base. */
+gboolean pp_rule_baseline_is_zero(const pp_figure *fig, double base);
+/* The default severity: outside the band (Tufte's lie factor band, the GDI materiality
+ * limit, or the worst pair), graded note / material / gross. */
+gboolean pp_rule_grade(const pp_measures *m, const pp_thresholds *t, pp_severity *severity);
+/* "LEAD: the 2022 bar uses 3.1× the ink of 2019 for 1.1× the value (lie factor 2.8,
+ * GDI +180%)"; noun names an element ("bar", "point"). Takes lead. */
+char *pp_rule_sentence(const pp_finding *f, const pp_thresholds *t, char *lead, const char *noun);
+
+/* ---- The rules (one file each, listed in table.c) ---------------------------------- */
+gboolean pp_rule_bars_vs_labels_measure(const pp_figure *fig, const pp_thresholds *t,
+                                        pp_finding *f);
+char *pp_rule_bars_vs_labels_sentence(const pp_figure *fig, const pp_finding *f,
+                                      const pp_thresholds *t);
+gboolean pp_rule_bars_on_log_measure(const pp_figure *fig, const pp_thresholds *t, pp_finding *f);
+char *pp_rule_bars_on_log_sentence(const pp_figure *fig, const pp_finding *f,
+                                   const pp_thresholds *t);
+gboolean pp_rule_bars_off_zero_measure(const pp_figure *fig, const pp_thresholds *t, pp_finding *f);
+char *pp_rule_bars_off_zero_sentence(const pp_figure *fig, const pp_finding *f,
+                                     const pp_thresholds *t);
+gboolean pp_rule_area_off_zero_measure(const pp_figure *fig, const pp_thresholds *t, pp_finding *f);
+char *pp_rule_area_off_zero_sentence(const pp_figure *fig, const pp_finding *f,
+                                     const pp_thresholds *t);

@@ -41,31 +41,44 @@ double pp_lie_factor_growth(double v1, double v2, double g1, double g2);
 double pp_lie_factor_change(double v1, double v2, double g1, double g2);
 double pp_gdi(double v1, double v2, double g1, double g2);
 
+/* One element as the rule judged it: the value it stands for under the rule, its ink
+ * and where it is (page points), so outputs can draw overlays. */
 typedef struct {
-  char *id;         /* fingerprint of figure + rule */
-  guint page;       /* 1-based */
-  pp_rect bbox;     /* page points, top-left origin */
-  pp_rect pdf_bbox; /* PDF user space, bottom-left origin */
+  double value;
+  double ink;     /* visible ink, pt² (areas: per unit width) */
+  pp_rect box;    /* page points, top-left origin */
+  char *category; /* NULL if none */
+} pp_finding_element;
+
+/* What a rule found in one figure. Page and PDF-space boxes are the report's business:
+ * rules do not see the scene. */
+typedef struct {
+  char *id;     /* fingerprint of figure + rule */
+  pp_rect bbox; /* the figure's plot region, page points, top-left origin */
   pp_figure_kind figure_kind;
   const char *rule; /* rule id, static string */
   pp_severity severity;
   pp_measures measures;
-  GArray *values;        /* of double: the values the marks stand for */
-  GArray *inks;          /* of double: their visible ink, pt² */
-  GPtrArray *categories; /* of char* (may hold NULL) */
-  char *message;         /* one plain sentence with the numbers */
+  GArray *elements; /* of pp_finding_element, the figure's order */
+  char *message;    /* one plain sentence with the numbers */
 } pp_finding;
 
+/* An empty finding of one figure under one rule (no elements yet). */
+pp_finding *pp_finding_new(const pp_figure *figure, const char *rule);
 void pp_finding_free(pp_finding *f);
+G_DEFINE_AUTOPTR_CLEANUP_FUNC(pp_finding, pp_finding_free)
 
-/* Appends to findings (of pp_finding*) what the rules find in one figure. */
-void pp_rules_check_figure(const pp_figure *figure, const pp_scene *scene,
-                           const pp_thresholds *thresholds, GPtrArray *findings);
+/* Appends to findings (of pp_finding*) what the rules find in one figure: the first rule
+ * of the table that judges the figure's kind and applies to it decides (see
+ * docs/rules.md); figures seen but not judged get none. */
+void pp_rules_check_figure(const pp_figure *figure, const pp_thresholds *thresholds,
+                           GPtrArray *findings);
 
 /* Stable list of rule ids with one-line descriptions, for --help and docs. */
 typedef struct {
   const char *id;
   const char *summary;
+  const char *doc; /* anchor in docs/rules.md */
 } pp_rule_info;
 const pp_rule_info *pp_rules_list(guint *n);
 

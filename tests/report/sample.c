@@ -45,19 +45,21 @@ static pp_page_charts *sample_charts(void) {
   pp_page_charts *c = pp_page_charts_new();
   pp_figure *f = pp_figure_new(PP_FIGURE_COLUMN);
   f->bbox = (pp_rect){10, 20, 110, 120};
-  f->axis = pp_axis_new(TRUE);
-  f->axis->min_value = 35;
-  f->axis->max_value = 75;
+  f->recognizer = "bars";
+  f->scale = pp_scale_new(TRUE);
+  f->scale->min_value = 35;
+  f->scale->max_value = 75;
   for (int v = 40; v <= 70; v += 10) {
     pp_tick t = {250.0 - v, v, g_strdup_printf("%d", v)};
-    g_array_append_val(f->axis->ticks, t);
+    g_array_append_val(f->scale->ticks, t);
   }
   for (int i = 0; i < 3; i++) {
-    pp_element e = {0};
-    e.kind = PP_ELEMENT_BAR;
-    e.mark_index = (guint)i;
-    e.tip_value = 40 + 15 * i;
-    e.label_value = NAN;
+    pp_element e = pp_element_init(PP_ENCODING_LENGTH);
+    pp_element_add_part(&e, (guint)i, PP_PART_BODY, 1250 + 3750 * i);
+    e.shape.kind = PP_SHAPE_RECT;
+    e.shape.rect = e.box = (pp_rect){20 + 30 * i, 100 - 15 * i, 40 + 30 * i, 120};
+    e.value = e.scale_value = 40 + 15 * i;
+    e.source = PP_VALUE_SCALE;
     g_array_append_val(f->elements, e);
   }
   f->n_series = 1;
@@ -74,26 +76,22 @@ static pp_page_charts *sample_charts(void) {
 }
 
 static pp_finding *sample_finding(double lie_factor, double gdi) {
-  pp_finding *f = g_new0(pp_finding, 1);
-  f->id = g_strdup("fig-0123abcd/bars-off-zero");
-  f->page = 1;
-  f->bbox = (pp_rect){10, 20, 110, 120};
-  f->pdf_bbox = (pp_rect){10, 180, 110, 280};
-  f->figure_kind = PP_FIGURE_COLUMN;
-  f->rule = "bars-off-zero";
+  pp_figure *fig = pp_figure_new(PP_FIGURE_COLUMN);
+  fig->fingerprint = g_strdup("fig-0123abcd");
+  fig->bbox = (pp_rect){10, 20, 110, 120};
+  pp_finding *f = pp_finding_new(fig, "bars-off-zero");
+  pp_figure_free(fig);
   f->severity = PP_SEVERITY_GROSS;
   f->measures = (pp_measures){lie_factor, 2.0, gdi, 35, 3.5, 0, 2, 0, 2};
-  f->values = g_array_new(FALSE, FALSE, sizeof(double));
-  f->inks = g_array_new(FALSE, FALSE, sizeof(double));
-  f->categories = g_ptr_array_new_with_free_func(g_free);
   const double values[] = {40, 55, 70}, inks[] = {1250, 5000, 8750};
   const char *cats[] = {"2021", NULL,
                         "20\xff"
                         "23"}; /* a missing and a non-UTF-8 label */
   for (int i = 0; i < 3; i++) {
-    g_array_append_val(f->values, values[i]);
-    g_array_append_val(f->inks, inks[i]);
-    g_ptr_array_add(f->categories, g_strdup(cats[i]));
+    pp_finding_element e = {values[i], inks[i],
+                            (pp_rect){20 + 30 * i, 100 - 15 * i, 40 + 30 * i, 120},
+                            g_strdup(cats[i])};
+    g_array_append_val(f->elements, e);
   }
   f->message = g_strdup("The columns start at 35, not 0: the last is drawn 7.0 times the first "
                         "for a 1.75 times larger value.");

@@ -104,8 +104,9 @@ static void test_figure_boxes_and_coverage(void **state) {
   /* ISO 32000-1 §8.3.2.3: default user space has its origin at the lower left, y up, so
    * on a 300 pt page top-left y=20..120 is y=180..280. */
   assert_rect(json_object_get_array_member(fig, "pdf_bbox"), 10, 180, 110, 280);
-  JsonObject *axis = json_object_get_object_member(fig, "value_axis");
-  assert_int_equal(json_object_get_int_member(axis, "ticks"), 4);
+  JsonObject *scale = json_object_get_object_member(fig, "scale");
+  assert_int_equal(json_object_get_int_member(scale, "ticks"), 4);
+  assert_string_equal(json_object_get_string_member(scale, "kind"), "linear");
   assert_int_equal(json_object_get_int_member(fig, "elements"), 3);
   JsonObject *marks = json_object_get_object_member(p1, "marks");
   assert_int_equal(json_object_get_int_member(marks, "fill"), 2);
@@ -161,7 +162,7 @@ static void test_schema_required_fields(void **state) {
     check_required(json_object_get_object_member(props, objects[i]),
                    json_object_get_object_member(doc, objects[i]), objects[i]);
   assert_string_equal(json_object_get_string_member(doc, "format"), "plotproof-findings");
-  assert_int_equal(json_object_get_int_member(doc, "version"), 1);
+  assert_int_equal(json_object_get_int_member(doc, "version"), 2);
   JsonObject *finding_schema = json_object_get_object_member(defs, "finding");
   JsonObject *f = first_finding(root);
   check_required(finding_schema, f, "finding");
@@ -252,11 +253,34 @@ static void test_scene_json(void **state) {
   json_node_unref(node);
   root = parse_or_fail(text);
   JsonArray *figs = json_object_get_array_member(json_node_get_object(root), "figures");
-  JsonObject *axis = json_object_get_object_member(json_array_get_object_element(figs, 0), "axis");
+  JsonObject *axis = json_object_get_object_member(json_array_get_object_element(figs, 0), "scale");
   assert_int_equal(json_array_get_length(json_object_get_array_member(axis, "ticks")), 4);
   json_node_unref(root);
   g_free(text);
   pp_sample_free(s);
+}
+
+/* The schema's list of figure kinds is the one list in recognize.h (PP_FIGURE_KINDS),
+ * in the same order, and names round-trip through pp_figure_kind_from_name(). */
+static void test_schema_kinds_match_model(void **state) {
+  (void)state;
+  assert_non_null(schema_path);
+  g_autoptr(JsonParser) sp = json_parser_new();
+  assert_true(json_parser_load_from_file(sp, schema_path, NULL));
+  JsonObject *defs =
+      json_object_get_object_member(json_node_get_object(json_parser_get_root(sp)), "$defs");
+  JsonArray *kinds =
+      json_object_get_array_member(json_object_get_object_member(defs, "figure_kind"), "enum");
+  assert_int_equal(json_array_get_length(kinds), PP_FIGURE_N_KINDS);
+  for (guint i = 0; i < PP_FIGURE_N_KINDS; i++) {
+    const char *name = json_array_get_string_element(kinds, i);
+    assert_string_equal(name, pp_figure_kind_name((pp_figure_kind)i));
+    pp_figure_kind back;
+    assert_true(pp_figure_kind_from_name(name, &back));
+    assert_int_equal(back, i);
+  }
+  pp_figure_kind none;
+  assert_false(pp_figure_kind_from_name("donut-chart", &none));
 }
 
 int main(int argc, char **argv) {
@@ -268,6 +292,7 @@ int main(int argc, char **argv) {
       cmocka_unit_test(test_schema_required_fields),
       cmocka_unit_test(test_write_file),
       cmocka_unit_test(test_scene_json),
+      cmocka_unit_test(test_schema_kinds_match_model),
   };
   return cmocka_run_group_tests(tests, NULL, NULL);
 }

@@ -1,0 +1,222 @@
+#!/usr/bin/python3
+"""Expected measures for the shape families of the corpus (docs/corpus.md): 3D bars,
+pyramids and funnels, bubbles and scaled symbols. Computed from the values and the drawn
+geometry the generator chose from them (in data units: every face of a figure shares one
+affine map to the page, so area ratios are the same on paper), with textbook formulas.
+
+Sources: Lie Factor, Tufte (1983) p.57; trapezoid area (a+b)h/2 and frustum volume
+h/3(A1 + sqrt(A1 A2) + A2) (prismoid formula; from memory); pinhole perspective scale
+f/(f+z) (textbook projective geometry); least squares on logs for the power law
+size = c * value^k (textbook regression)."""
+
+import math
+
+KINDS = {"bar-3d", "pyramid", "bubble"}
+RULES = {"bars-3d-ink", "slices-vs-values", "symbols-not-by-area"}
+
+
+def _r(x):
+    return None if x is None else float("%.9g" % x)
+
+
+def _shoelace(pts):
+    s = 0.0
+    for i in range(len(pts)):
+        x0, y0 = pts[i]
+        x1, y1 = pts[(i + 1) % len(pts)]
+        s += x0 * y1 - x1 * y0
+    return abs(s) / 2
+
+
+def _lie_largest_smallest(v, ink):
+    """(ink of the largest value / ink of the smallest) / (largest / smallest)."""
+    pairs = [(vi, gi) for vi, gi in zip(v, ink) if vi > 0 and gi > 0]
+    if len(pairs) < 2:
+        return None
+    hi = max(pairs, key=lambda p: p[0])
+    lo = min(pairs, key=lambda p: p[0])
+    if hi[0] == lo[0]:
+        return None
+    return (hi[1] / lo[1]) / (hi[0] / lo[0])
+
+
+def _max_pair(v, g):
+    pos = [(vi, gi) for vi, gi in zip(v, g) if vi > 0 and gi > 0]
+    if len(pos) < 2:
+        return None
+    worst = 1.0
+    for i in range(len(pos)):
+        for j in range(i + 1, len(pos)):
+            r = (pos[i][1] / pos[j][1]) / (pos[i][0] / pos[j][0])
+            worst = max(worst, r, 1 / r)
+    return worst
+
+
+def perspective_point(p, eye, f):
+    """One-point perspective of (x, y, z): scale f/(f+z) towards the eye point."""
+    s = f / (f + p[2])
+    return (eye[0] + (p[0] - eye[0]) * s, eye[1] + (p[1] - eye[1]) * s)
+
+
+def bar3d_faces(solid, v):
+    """Per bar: (front, constant, total) ink in data units².
+
+    oblique: front w*(v-b); side |dx|*(v-b) (a parallelogram of base v-b and width |dx|);
+    cap w*|dy| (base w, height |dy|): the cap is the same on every bar. Stacked segments
+    (solid["segment_base"] given): height v, and the cap only where solid["capped"].
+    cylinder: body w*(v-b) plus the lower half ellipse pi*(w/2)*e/2 and the top ellipse
+    pi*(w/2)*e (e = the ellipse's vertical semi-axis): both ellipse parts are constant.
+    perspective: the box x0..x1, y from base to value, z 0..depth projected towards the eye
+    point; the front at depth z0 (each bar's own), the cap when the top is below the eye
+    (y up here: top < eye y), the side facing the eye; faces by the shoelace formula."""
+    proj = solid["projection"]
+    b = solid.get("base", 0.0)
+    out = []
+    for i, vi in enumerate(v):
+        h = vi - b if "segment_base" not in solid else vi  # a segment's own height
+        if proj == "oblique":
+            w, (dx, dy) = solid["front_width"], solid["depth"]
+            front = w * h
+            side = abs(dx) * h
+            # stacked: only the top segment shows a cap (the others' are covered)
+            const = w * abs(dy) if solid.get("capped", [True] * len(v))[i] else 0.0
+            out.append((front, const, front + side + const))
+        elif proj == "cylinder":
+            w, e = solid["front_width"], solid["ellipse"]
+            front = w * h
+            const = math.pi * (w / 2) * e + math.pi * (w / 2) * e / 2
+            out.append((front, const, front + const))
+        elif proj == "perspective":
+            eye, f = solid["eye"], solid["focal"]
+            x0 = solid["x"][i]
+            x1 = x0 + solid["front_width"]
+            z0 = solid["z"][i]
+            z1 = z0 + solid["depth"]
+            P = lambda x, y, z: perspective_point((x, y, z), eye, f)  # noqa: E731
+            front = _shoelace([P(x0, b, z0), P(x1, b, z0), P(x1, vi, z0), P(x0, vi, z0)])
+            const = 0.0
+            if vi < eye[1]:  # y up: a top below the eye is seen from above
+                const += _shoelace([P(x0, vi, z0), P(x1, vi, z0), P(x1, vi, z1), P(x0, vi, z1)])
+            xs = x1 if x1 < eye[0] else (x0 if x0 > eye[0] else None)
+            side = 0.0
+            if xs is not None:
+                side = _shoelace([P(xs, b, z0), P(xs, vi, z0), P(xs, vi, z1), P(xs, b, z1)])
+            # A side face in perspective is a trapezoid whose size depends on the bar's place
+            # relative to the eye, not on its value alone: counted as not proportional.
+            out.append((front, const + side, front + const + side))
+        else:
+            raise ValueError("unknown projection %r" % proj)
+    return out
+
+
+def _bar3d(fig):
+    v = fig["values"]
+    faces = bar3d_faces(fig["solid"], v)
+    total = [t for _, _, t in faces]
+    front = [f for f, _, _ in faces]
+    return {
+        "lie_factor_growth": _r(_lie_largest_smallest(v, total)),
+        "nonprop_share": _r(max(c / t for _, c, t in faces if t > 0)),
+        "front_departure": _r(_max_pair(v, front)),
+        "max_pair_departure": _r(_max_pair(v, total)),
+        "baseline": fig["solid"].get("base", 0.0),
+    }
+
+
+def slice_areas(slices):
+    """Trapezoid slices [top_width, bottom_width, height]: area (a+b)h/2."""
+    return [(a + b) * h / 2 for a, b, h in slices]
+
+
+def slice_volumes(slices, solid):
+    """The same slices read as a solid of revolution (cone: half-widths are radii) or a
+    square pyramid (half-widths are half-sides): frustum volumes h/3(A1 + sqrt(A1A2) + A2)."""
+    out = []
+    for a, b, h in slices:
+        r1, r2 = a / 2, b / 2
+        base = h / 3 * (r1 * r1 + r1 * r2 + r2 * r2)
+        out.append(math.pi * base if solid == "cone" else 4 * base)
+    return out
+
+
+def _inflation(v, sizes):
+    tv, ts = sum(v), sum(sizes)
+    return [(s / ts) / (x / tv) for x, s in zip(v, sizes)]
+
+
+def _pyramid(fig):
+    v = fig["values"]
+    sl = fig["slices"]
+    areas = slice_areas(sl["shape"])
+    infl = _inflation(v, areas)
+    most = max(range(len(v)), key=lambda i: infl[i])
+    least = min(range(len(v)), key=lambda i: infl[i])
+    vols = slice_volumes(sl["shape"], sl.get("solid", "cone"))
+    vinfl = _inflation(v, vols)
+    tv, ta, tvol = sum(v), sum(areas), sum(vols)
+    return {
+        "lie_factor_growth": _r(infl[most] / infl[least]),
+        "most_inflated": most,
+        "least_inflated": least,
+        "area_share": [_r(a / ta) for a in areas],
+        "value_share": [_r(x / tv) for x in v],
+        "solid": sl.get("solid", "cone"),
+        "volume_share": [_r(x / tvol) for x in vols],
+        "volume_lie_factor": _r(max(vinfl) / min(vinfl)),
+        "baseline": None,
+    }
+
+
+def symbol_areas(sym):
+    """Drawn size → area: 'area' sizes are areas (matplotlib's s, pt²), 'radius' or 'side'
+    sizes give areas ∝ size² (pi r², s²: textbook)."""
+    m = sym["measure"]
+    if m == "area":
+        return list(sym["sizes"])
+    if m in ("radius", "side"):
+        return [s * s for s in sym["sizes"]]
+    raise ValueError("unknown symbol measure %r" % m)
+
+
+def power_fit(x, y):
+    """Least squares of log y on log x: (exponent, r2)."""
+    lx = [math.log(a) for a in x]
+    ly = [math.log(b) for b in y]
+    n = len(lx)
+    mx, my = sum(lx) / n, sum(ly) / n
+    sxx = sum((a - mx) ** 2 for a in lx)
+    sxy = sum((a - mx) * (b - my) for a, b in zip(lx, ly))
+    syy = sum((b - my) ** 2 for b in ly)
+    k = sxy / sxx
+    r2 = 1.0 if syy == 0 else sxy * sxy / (sxx * syy)
+    return k, r2
+
+
+def _bubble(fig):
+    v = fig["values"]
+    areas = symbol_areas(fig["symbols"])
+    k, r2 = power_fit(v, areas)
+    return {
+        "lie_factor_growth": _r(_lie_largest_smallest(v, areas)),
+        "size_exponent": _r(k),
+        "size_r2": _r(r2),
+        "max_pair_departure": _r(_max_pair(v, areas)),
+        "baseline": None,
+    }
+
+
+def expected(fig):
+    if not fig.get("values"):
+        return None
+    if fig["kind"] == "bar-3d":
+        return _bar3d(fig)
+    if fig["kind"] == "pyramid":
+        return _pyramid(fig)
+    if fig["kind"] == "bubble":
+        return _bubble(fig)
+    return None
+
+
+def in_band(lie_factor, low=0.95, high=1.05):
+    """Tufte's faithful band (1983, p.57)."""
+    return lie_factor is not None and low <= lie_factor <= high

@@ -1,0 +1,237 @@
+/* bar_group.c — what the bar recognizers share: a group of bars standing on one
+ * baseline becomes a figure (stacks merged, series by colour, categories, data labels).
+ * Works in the axis frame: u runs along the value axis, w across it, so one routine
+ * serves vertical and horizontal bars. Marks and labels are claimed through the ledger. */
+#include <math.h>
+#include <string.h>
+
+#define G_LOG_DOMAIN "plotproof-recognize"
+#include "internal.h"
+
+pp_frame_rect pp_frame_of(pp_rect r, gboolean vertical) {
+  return vertical ? (pp_frame_rect){r.y0, r.y1, r.x0, r.x1}
+                  : (pp_frame_rect){r.x0, r.x1, r.y0, r.y1};
+}
+
+static double label_u(const pp_label *l, gboolean vertical) {
+  return vertical ? l->centre.y : l->centre.x;
+}
+static double label_w(const pp_label *l, gboolean vertical) {
+  return vertical ? l->centre.x : l->centre.y;
+}
+
+static int paint_series(GArray *colours, const pp_paint *p) {
+  for (guint i = 0; i < colours->len; i++) {
+    pp_paint *c = &g_array_index(colours, pp_paint, i);
+    if (c->kind == p->kind && fabs(c->r - p->r) < 0.02 && fabs(c->g - p->g) < 0.02 &&
+        fabs(c->b - p->b) < 0.02)
+      return (int)i;
+  }
+  g_array_append_val(colours, *p);
+  return (int)colours->len - 1;
+}
+
+static int cmp_element(gconstpointer a, gconstpointer b, gpointer vertical) {
+  const pp_element *ea = a, *eb = b;
+  /* category order: left to right for columns, top to bottom for horizontal bars */
+  double pa = GPOINTER_TO_INT(vertical) ? ea->box.x0 : ea->box.y0;
+  double pb = GPOINTER_TO_INT(vertical) ? eb->box.x0 : eb->box.y0;
+  return (pa > pb) - (pa < pb);
+}
+
+/* Category label: the nearest word outside the plot, beyond the baseline, centred on
+ * (or, when rotated, ending at) the bar. */
+static char *find_category(const pp_scene *scene, pp_rect bar, pp_rect plot, gboolean vertical) {
+  const pp_text_run *best = NULL;
+  double best_d = INFINITY;
+  for (guint i = 0; i < scene->words->len; i++) {
+    const pp_text_run *w = g_ptr_array_index(scene->words, i);
+    double cx = (w->box.x0 + w->box.x1) / 2, cy = (w->box.y0 + w->box.y1) / 2;
+    double d;
+    if (vertical) {
+      gboolean over = (cx >= bar.x0 - 1 && cx <= bar.x1 + 1) ||
+                      (w->angle != 0 && w->box.x1 >= bar.x0 && w->box.x1 <= bar.x1 + 2);
+      if (!over || w->box.y0 < plot.y1 - 0.5)
+        continue;
+      d = w->box.y0 - plot.y1;
+    } else {
+      if (cy < bar.y0 - 1 || cy > bar.y1 + 1 || w->box.x1 > plot.x0 + 0.5)
+        continue;
+      d = plot.x0 - w->box.x1;
+    }
+    if (d < best_d && d < 60) {
+      best_d = d;
+      best = w;
+    }
+  }
+  if (!best)
+    return NULL;
+  /* Multi-word categories ("North Sea") continue on the same line: to the right under a
+   * column, to the left (towards the margin) beside a horizontal bar. */
+  GString *s = g_string_new(best->text);
+  const pp_text_run *edge = best;
+  for (gboolean grew = TRUE; grew;) {
+    grew = FALSE;
+    for (guint i = 0; i < scene->words->len && !grew; i++) {
+      const pp_text_run *w = g_ptr_array_index(scene->words, i);
+      double gap = vertical ? w->box.x0 - edge->box.x1 : edge->box.x0 - w->box.x1;
+      pp_number num; /* "2017" "2018" side by side are two categories, not one name */
+      if (w == edge || w->line != best->line || gap < -0.5 || gap > 0.6 * best->font_size ||
+          pp_number_parse(w->text, PP_DECIMAL_UNKNOWN, &num))
+        continue;
+      if (vertical && w->box.x0 > bar.x1 + 0.6 * (bar.x1 - bar.x0))
+        continue;
+      if (vertical) {
+        g_string_append_c(s, ' ');
+        g_string_append(s, w->text);
+      } else {
+        g_string_prepend_c(s, ' ');
+        g_string_prepend(s, w->text);
+      }
+      edge = w;
+      grew = TRUE;
+    }
+  }
+  return g_string_free(s, FALSE);
+}
+
+/* A data label sits at the bar's tip, just beyond it or just inside it; never at
+ * the baseline end, where category labels live. */
+static void attach_data_labels(pp_recognize_ctx *ctx, pp_figure *fig, gboolean vertical,
+                               double base) {
+  GPtrArray *labels = ctx->labels;
+  for (guint i = 0; i < fig->elements->len; i++) {
+    pp_element *e = &g_array_index(fig->elements, pp_element, i);
+    pp_frame_rect f = pp_frame_of(e->box, vertical);
+    double tip = fabs(f.u0 - base) > fabs(f.u1 - base) ? f.u0 : f.u1;
+    double dir = tip < base ? -1 : 1; /* from base towards tip */
+    pp_label *best = NULL;
+    double best_d = INFINITY;
+    for (guint k = 0; k < labels->len; k++) {
+      pp_label *l = g_ptr_array_index(labels, k);
+      if (!pp_claims_label_free(ctx->claims, l->index))
+        continue;
+      double lw = label_w(l, vertical), lu = label_u(l, vertical);
+      if (lw < f.w0 - 0.5 || lw > f.w1 + 0.5)
+        continue;
+      double beyond = (lu - tip) * dir; /* > 0 outside the bar, < 0 inside */
+      double from_base = (lu - base) * dir;
+      if (from_base <= 0 || beyond > 2.5 * l->size || beyond < -3.0 * l->size)
+        continue;
+      double d = fabs(beyond);
+      if (d < best_d) {
+        best_d = d;
+        best = l;
+      }
+    }
+    if (best) {
+      e->label_value = best->number.value;
+      e->label_text = g_strdup(best->text);
+      pp_claims_take_label(ctx->claims, best->index, PP_OWNER_DATA_LABEL);
+    }
+  }
+}
+
+/* Bars touching the baseline, then whatever stacks on them in their column: one
+ * element per column, its segments kept as parts. scale may be NULL (labels-only
+ * charts). Claims every bar and data label it uses, for owner. */
+pp_figure *pp_bars_build(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *scale,
+                         gboolean vertical, double base, const char *owner) {
+  const pp_scene *scene = ctx->scene;
+  GArray *bars = ctx->bars;
+  GArray *colours = g_array_new(FALSE, FALSE, sizeof(pp_paint));
+  pp_figure *fig = pp_figure_new(vertical ? PP_FIGURE_COLUMN : PP_FIGURE_BAR);
+  fig->recognizer = owner;
+  gboolean *in = g_new0(gboolean, MAX(sel->len, 1));
+  pp_rect plot = pp_rect_empty();
+  for (guint i = 0; i < sel->len; i++) {
+    pp_bar_candidate *b = &g_array_index(bars, pp_bar_candidate, g_array_index(sel, guint, i));
+    pp_frame_rect f = pp_frame_of(b->rect, vertical);
+    if (in[i] || !pp_on_edge(f.u0, f.u1, base))
+      continue;
+    in[i] = TRUE;
+    pp_claims_take_mark_if_free(ctx->claims, b->mark, owner);
+    gboolean down = pp_same_edge(f.u0, base); /* grows towards larger u */
+    double tip = down ? f.u1 : f.u0;
+    pp_element e = pp_element_init(PP_ENCODING_LENGTH);
+    pp_element_add_part(&e, b->mark, PP_PART_BODY, b->ink);
+    double ink = b->ink;
+    pp_rect box = b->rect;
+    for (gboolean grew = TRUE; grew;) {
+      grew = FALSE;
+      for (guint j = 0; j < sel->len; j++) {
+        pp_bar_candidate *s = &g_array_index(bars, pp_bar_candidate, g_array_index(sel, guint, j));
+        pp_frame_rect g = pp_frame_of(s->rect, vertical);
+        if (in[j] || !pp_same_column(f, g))
+          continue;
+        double near = down ? g.u0 : g.u1, far = down ? g.u1 : g.u0;
+        if (fabs(near - tip) < PP_STACK_GAP) {
+          in[j] = TRUE;
+          pp_claims_take_mark_if_free(ctx->claims, s->mark, owner);
+          pp_element_add_part(&e, s->mark, PP_PART_SEGMENT, s->ink);
+          tip = far;
+          ink += s->ink;
+          box = pp_rect_union(box, s->rect);
+          e.stacked = grew = TRUE;
+        }
+      }
+    }
+    if (e.stacked) /* every piece of a stack is a segment, the first included */
+      g_array_index(e.parts, pp_part, 0).role = PP_PART_SEGMENT;
+    e.shape.kind = PP_SHAPE_RECT;
+    e.shape.rect = box;
+    e.box = box;
+    e.ink = ink;
+    e.extent = fabs(tip - base);
+    e.series = (guint)paint_series(colours, &b->paint);
+    if (scale) {
+      e.scale_value = pp_scale_value_at(scale, tip);
+      e.base_value = pp_scale_value_at(scale, base);
+      e.value = e.scale_value;
+      e.source = PP_VALUE_SCALE;
+    }
+    g_array_append_val(fig->elements, e);
+    plot = pp_rect_union(plot, box);
+    if (!pp_rect_is_empty(b->clip) && isfinite(b->clip.x0) && isfinite(b->clip.x1) &&
+        !pp_page_sized(scene, b->clip))
+      plot = pp_rect_union(plot, b->clip);
+  }
+  g_free(in);
+  fig->n_series = colours->len;
+  g_array_unref(colours);
+  g_array_sort_with_data(fig->elements, cmp_element, GINT_TO_POINTER(vertical));
+  fig->bbox = plot;
+  for (guint i = 0; i < fig->elements->len; i++) {
+    pp_element *e = &g_array_index(fig->elements, pp_element, i);
+    e->category = find_category(scene, e->box, plot, vertical);
+  }
+  attach_data_labels(ctx, fig, vertical, base);
+  return fig;
+}
+
+/* Legend keys: swatches of one size, each with a series name beside, above or below
+ * it. They share edges like bars do but stand for no value. */
+gboolean pp_bars_legend_like(const pp_scene *scene, const pp_figure *fig) {
+  pp_rect first = g_array_index(fig->elements, pp_element, 0).box;
+  for (guint i = 0; i < fig->elements->len; i++) {
+    pp_rect b = g_array_index(fig->elements, pp_element, i).box;
+    if (fabs(pp_rect_width(b) - pp_rect_width(first)) > 0.5 ||
+        fabs(pp_rect_height(b) - pp_rect_height(first)) > 0.5 || pp_rect_width(b) > 40 ||
+        pp_rect_height(b) > 40)
+      return FALSE;
+    double reach = fmin(pp_rect_width(b), pp_rect_height(b)) + 6;
+    gboolean named = FALSE;
+    for (guint k = 0; k < scene->words->len && !named; k++) {
+      const pp_text_run *word = g_ptr_array_index(scene->words, k);
+      pp_rect w = word->box;
+      gboolean right = w.x0 >= b.x1 - 0.5 && w.x0 <= b.x1 + reach && w.y0 < b.y1 && w.y1 > b.y0;
+      gboolean below = w.y0 >= b.y1 - 0.5 && w.y0 <= b.y1 + reach && w.x0 < b.x1 && w.x1 > b.x0;
+      gboolean above = w.y1 <= b.y0 + 0.5 && w.y1 >= b.y0 - reach && w.x0 < b.x1 && w.x1 > b.x0;
+      pp_number num; /* a number beside a bar is its data label, not a series name */
+      named = (right || below || above) && !pp_number_parse(word->text, PP_DECIMAL_UNKNOWN, &num);
+    }
+    if (!named)
+      return FALSE;
+  }
+  return TRUE;
+}

@@ -1,0 +1,80 @@
+/* labelled.c — recognizer: bar charts with no value axis, read from their data labels
+ * alone. Bars of one width sharing a baseline edge, each carrying its own printed
+ * number; the printed numbers are the values. */
+#include <math.h>
+
+#include "internal.h"
+
+#define OWNER "labelled-bars"
+
+/* Bars of one chart have one width, within this share of it plus PP_LABELLED_WIDTH_SLACK
+ * points (producers' rounding; common practice, no source). */
+#define PP_LABELLED_WIDTH_SHARE 0.05
+#define PP_LABELLED_WIDTH_SLACK 0.1
+
+/* The free bars standing on edge c that have the width of the first. */
+static GArray *select_on_edge(const pp_recognize_ctx *ctx, gboolean vertical, double c,
+                              double width) {
+  GArray *sel = g_array_new(FALSE, FALSE, sizeof(guint));
+  for (guint j = 0; j < ctx->bars->len; j++) {
+    pp_bar_candidate *b = &g_array_index(ctx->bars, pp_bar_candidate, j);
+    pp_frame_rect fb = pp_frame_of(b->rect, vertical);
+    if (pp_claims_mark_free(ctx->claims, b->mark) && pp_on_edge(fb.u0, fb.u1, c) &&
+        fabs((fb.w1 - fb.w0) - width) < PP_LABELLED_WIDTH_SHARE * width + PP_LABELLED_WIDTH_SLACK)
+      g_array_append_val(sel, j);
+  }
+  return sel;
+}
+
+/* Every element carries a printed number, and the group is not a legend. */
+static gboolean all_labelled(const pp_recognize_ctx *ctx, pp_figure *fig) {
+  guint labelled = 0;
+  for (guint k = 0; k < fig->elements->len; k++)
+    labelled += !isnan(g_array_index(fig->elements, pp_element, k).label_value);
+  return labelled == fig->elements->len && labelled >= 2 && !pp_bars_legend_like(ctx->scene, fig);
+}
+
+/* One labels-only figure, committed and finished; FALSE when there is none left. */
+static gboolean find_one(pp_recognize_ctx *ctx) {
+  for (int orient = 0; orient < 2; orient++) {
+    gboolean vertical = orient == 0;
+    for (guint i = 0; i < ctx->bars->len; i++) {
+      pp_bar_candidate *a = &g_array_index(ctx->bars, pp_bar_candidate, i);
+      if (!pp_claims_mark_free(ctx->claims, a->mark))
+        continue;
+      pp_frame_rect fa = pp_frame_of(a->rect, vertical);
+      double edges[2] = {fa.u0, fa.u1};
+      for (int e = 0; e < 2; e++) {
+        GArray *sel = select_on_edge(ctx, vertical, edges[e], fa.w1 - fa.w0);
+        if (sel->len < 2) {
+          g_array_unref(sel);
+          continue;
+        }
+        pp_claims_begin(ctx->claims);
+        pp_figure *fig = pp_bars_build(ctx, sel, NULL, vertical, edges[e], OWNER);
+        g_array_unref(sel);
+        if (!all_labelled(ctx, fig)) {
+          pp_claims_rollback(ctx->claims);
+          pp_figure_free(fig);
+          continue;
+        }
+        pp_claims_commit(ctx->claims);
+        for (guint k = 0; k < fig->elements->len; k++) {
+          pp_element *el = &g_array_index(fig->elements, pp_element, k);
+          el->value = el->label_value;
+          el->source = PP_VALUE_DATA_LABEL;
+        }
+        pp_figure_add_evidence(fig, "shared-baseline", 1);
+        pp_figure_add_evidence(fig, "data-labels", 1);
+        pp_figure_finish(ctx, fig, NULL);
+        return TRUE;
+      }
+    }
+  }
+  return FALSE;
+}
+
+void pp_recognize_labelled_bars(pp_recognize_ctx *ctx) {
+  while (find_one(ctx))
+    ;
+}

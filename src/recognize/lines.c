@@ -1,0 +1,93 @@
+/* lines.c — recognizer: line charts and scatter plots beside a value axis that no bar
+ * or area figure took. Their ink does not stand for their numbers, so they are counted
+ * (the reviewer sees the chart was read) and never judged by an ink rule. */
+#include <math.h>
+
+#include "internal.h"
+
+#define OWNER "lines"
+
+/* A filled marker of a scatter plot is smaller than this on both sides, pt (common
+ * practice, no source). */
+#define PP_LINE_MARKER_MAX 15.0
+/* Lines may reach this far beyond the axis' share past its end ticks, pt (common
+ * practice, no source). */
+#define PP_LINE_REACH_SLACK 10.0
+/* The data must start within this of the tick labels, pt, not in the next chart over
+ * (common practice, no source). */
+#define PP_LINE_MAX_DISTANCE 60.0
+
+/* A mark that draws data without standing for a number by its ink: a polyline, or a
+ * small marker of a scatter plot. */
+static gboolean is_line_mark(const pp_mark *m) {
+  pp_rect r = m->bbox;
+  if (m->kind == PP_MARK_STROKE)
+    return m->path->n_segs >= 4 && pp_rect_width(r) >= 1 && pp_rect_height(r) >= 1;
+  pp_rect rect;
+  return m->kind == PP_MARK_FILL && m->path->n_segs >= 4 && pp_rect_width(r) < PP_LINE_MARKER_MAX &&
+         pp_rect_height(r) < PP_LINE_MARKER_MAX && pp_rect_area(r) > 1 &&
+         !pp_path_is_rectangle(m->path, 0.01, &rect);
+}
+
+/* Lines and markers beside a fitted axis, claimed; NULL when there are none. */
+static pp_figure *build_on_axis(pp_recognize_ctx *ctx, const pp_axis_candidate *cand) {
+  const pp_scene *scene = ctx->scene;
+  pp_rect box = pp_rect_empty();
+  const pp_scale *axis = cand->scale;
+  double lo, hi;
+  pp_axis_reach(cand, ctx->axes, cand->side ? cand->side : +1, &lo, &hi);
+  GArray *taken = g_array_new(FALSE, FALSE, sizeof(guint));
+  for (guint i = 0; i < scene->marks->len; i++) {
+    const pp_mark *m = g_ptr_array_index(scene->marks, i);
+    if (!pp_claims_mark_free(ctx->claims, i) || !is_line_mark(m))
+      continue;
+    pp_rect r = m->bbox;
+    double u0 = axis->vertical ? r.y0 : r.x0, u1 = axis->vertical ? r.y1 : r.x1;
+    if (!pp_within_reach(cand, u0, u1, PP_LINE_REACH_SLACK, 0))
+      continue;
+    double w0 = axis->vertical ? r.x0 : r.y0, w1 = axis->vertical ? r.x1 : r.y1;
+    if (w0 >= lo && w1 <= hi) { /* beside the labels, before the next axis */
+      box = pp_rect_union(box, r);
+      g_array_append_val(taken, i);
+    }
+  }
+  double dist = INFINITY;
+  if (!pp_rect_is_empty(box))
+    dist = axis->vertical ? fabs((cand->side > 0 ? box.x0 : box.x1) -
+                                 (cand->side > 0 ? axis->box.x1 : axis->box.x0))
+                          : fmin(fabs(box.y1 - axis->box.y0), fabs(box.y0 - axis->box.y1));
+  if (dist > PP_LINE_MAX_DISTANCE) {
+    g_array_unref(taken);
+    return NULL;
+  }
+  for (guint k = 0; k < taken->len; k++)
+    pp_claims_take_mark(ctx->claims, g_array_index(taken, guint, k), OWNER);
+  g_array_unref(taken);
+  /* The plot spans the axis' ticks, however flat the line. */
+  if (axis->vertical)
+    box.y0 = fmin(box.y0, cand->span0), box.y1 = fmax(box.y1, cand->span1);
+  else
+    box.x0 = fmin(box.x0, cand->span0), box.x1 = fmax(box.x1, cand->span1);
+  pp_figure *f = pp_figure_new(PP_FIGURE_LINE);
+  f->recognizer = OWNER;
+  f->bbox = box;
+  pp_figure_add_evidence(f, "scale-fits", 1);
+  return f;
+}
+
+void pp_recognize_lines(pp_recognize_ctx *ctx) {
+  for (guint i = 0; i < ctx->axes->len; i++) {
+    const pp_axis_candidate *c = g_ptr_array_index(ctx->axes, i);
+    if (c->fit_failed || !c->scale->vertical || pp_axis_taken(ctx, c))
+      continue;
+    pp_claims_begin(ctx->claims);
+    pp_axis_claim_labels(ctx, c);
+    pp_figure *f = build_on_axis(ctx, c);
+    if (!f) {
+      pp_claims_rollback(ctx->claims);
+      continue;
+    }
+    pp_claims_commit(ctx->claims);
+    pp_figure_finish(ctx, f, c);
+  }
+}

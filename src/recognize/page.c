@@ -1,0 +1,139 @@
+/* page.c — the stage's entry point: labels, axes and candidates of one page, the
+ * recognizer table run over them with one claims ledger, then what could not be read
+ * (scale failures, raster images) for the coverage. */
+#include <math.h>
+
+#define G_LOG_DOMAIN "plotproof-recognize"
+#include "internal.h"
+
+/* An image at least this big (pt²) could be a chart drawn as a picture (about 5×5 cm,
+ * common practice, no source); smaller ones are logos and icons. */
+#define PP_RASTER_FIGURE_MIN_AREA 2000.0
+/* A failed scale matters when unread bars stand within this of its labels, pt (common
+ * practice, no source). */
+#define PP_FAILED_SCALE_BAR_REACH 150.0
+/* ...at least this many sharing an edge (fewer are a legend or a stray pair; common
+ * practice, no source)... */
+#define PP_FAILED_SCALE_MIN_BARS 3
+/* ...differing in length by more than this, pt (equal rows are table shading; common
+ * practice, no source)... */
+#define PP_FAILED_SCALE_MIN_SPREAD 0.5
+/* ...the longest at least this share of the tick span (common practice, no source). */
+#define PP_FAILED_SCALE_MIN_LONGEST 0.1
+
+void pp_scale_failure_free(pp_scale_failure *s) {
+  if (!s)
+    return;
+  g_free(s->reason);
+  g_free(s);
+}
+
+pp_page_charts *pp_page_charts_new(void) {
+  pp_page_charts *out = g_new0(pp_page_charts, 1);
+  out->figures = g_ptr_array_new_with_free_func((GDestroyNotify)pp_figure_free);
+  out->scale_failures = g_ptr_array_new_with_free_func((GDestroyNotify)pp_scale_failure_free);
+  out->raster_images = g_array_new(FALSE, FALSE, sizeof(pp_rect));
+  return out;
+}
+
+void pp_page_charts_free(pp_page_charts *charts) {
+  if (!charts)
+    return;
+  g_ptr_array_unref(charts->figures);
+  g_ptr_array_unref(charts->scale_failures);
+  g_array_unref(charts->raster_images);
+  g_free(charts);
+}
+
+/* Is there an unread bar chart beside this axis? Then its failed scale matters: a few
+ * unclaimed bars within reach that share an edge along the axis and differ in length.
+ * Tables (rules, equal row shading) have labels too, but no such bars. */
+static gboolean has_bars_beside(const pp_recognize_ctx *ctx, const pp_axis_candidate *c) {
+  gboolean vertical = c->scale->vertical;
+  pp_rect ab = c->scale->box;
+  GArray *near = g_array_new(FALSE, FALSE, sizeof(pp_rect));
+  for (guint i = 0; i < ctx->bars->len; i++) {
+    pp_bar_candidate *b = &g_array_index(ctx->bars, pp_bar_candidate, i);
+    double d = vertical ? fmin(fabs(b->rect.x0 - ab.x1), fabs(ab.x0 - b->rect.x1))
+                        : fmin(fabs(b->rect.y1 - ab.y0), fabs(ab.y1 - b->rect.y0));
+    if (pp_claims_mark_free(ctx->claims, b->mark) && d < PP_FAILED_SCALE_BAR_REACH)
+      g_array_append_val(near, b->rect);
+  }
+  gboolean found = FALSE;
+  for (guint i = 0; i < near->len && !found; i++) {
+    pp_frame_rect a = pp_frame_of(g_array_index(near, pp_rect, i), vertical);
+    double edges[2] = {a.u0, a.u1};
+    for (int e = 0; e < 2 && !found; e++) {
+      guint sharing = 0;
+      double shortest = INFINITY, longest = 0;
+      for (guint j = 0; j < near->len; j++) {
+        pp_frame_rect r = pp_frame_of(g_array_index(near, pp_rect, j), vertical);
+        if (pp_on_edge(r.u0, r.u1, edges[e])) {
+          sharing++;
+          shortest = fmin(shortest, r.u1 - r.u0);
+          longest = fmax(longest, r.u1 - r.u0);
+        }
+      }
+      found = sharing >= PP_FAILED_SCALE_MIN_BARS &&
+              longest - shortest > PP_FAILED_SCALE_MIN_SPREAD &&
+              longest >= PP_FAILED_SCALE_MIN_LONGEST * (c->span1 - c->span0);
+    }
+  }
+  g_array_unref(near);
+  return found;
+}
+
+static void add_scale_failures(pp_recognize_ctx *ctx) {
+  for (guint i = 0; i < ctx->axes->len; i++) {
+    pp_axis_candidate *c = g_ptr_array_index(ctx->axes, i);
+    if (!c->fit_failed || c->category || c->labels->len < 3 || !has_bars_beside(ctx, c))
+      continue;
+    pp_scale_failure *s = g_new0(pp_scale_failure, 1);
+    s->bbox = c->scale->box;
+    s->reason = g_strdup(c->reason);
+    g_ptr_array_add(ctx->out->scale_failures, s);
+  }
+}
+
+static void add_raster_images(const pp_scene *scene, pp_page_charts *out) {
+  for (guint i = 0; i < scene->marks->len; i++) {
+    const pp_mark *m = g_ptr_array_index(scene->marks, i);
+    if (m->kind == PP_MARK_IMAGE && pp_rect_area(m->visible_bbox) >= PP_RASTER_FIGURE_MIN_AREA)
+      g_array_append_val(out->raster_images, m->visible_bbox);
+  }
+}
+
+pp_page_charts *pp_page_charts_find(const pp_scene *scene) {
+  pp_recognize_ctx ctx = {0};
+  ctx.scene = scene;
+  ctx.out = pp_page_charts_new();
+  ctx.glyph_marks = g_hash_table_new(NULL, NULL);
+  ctx.labels = pp_labels_collect(scene, ctx.glyph_marks);
+  ctx.axes = pp_axes_find(scene, ctx.labels);
+  ctx.bars = pp_bar_candidates_collect(scene, ctx.glyph_marks);
+  ctx.areas = pp_area_candidates_collect(scene);
+  ctx.claims = pp_claims_new(scene->marks->len, ctx.labels->len);
+
+  /* Year rows name categories: their labels are never data labels of a bar. */
+  for (guint i = 0; i < ctx.axes->len; i++) {
+    const pp_axis_candidate *c = g_ptr_array_index(ctx.axes, i);
+    for (guint k = 0; c->category && k < c->labels->len; k++) {
+      const pp_label *l = g_ptr_array_index(c->labels, k);
+      pp_claims_take_label_if_free(ctx.claims, l->index, PP_OWNER_CATEGORY_AXIS);
+    }
+  }
+  for (guint i = 0; i < pp_n_recognizers; i++) {
+    pp_recognizers[i].run(&ctx);
+    g_assert(pp_claims_depth(ctx.claims) == 0); /* every transaction closed */
+  }
+  add_scale_failures(&ctx);
+  add_raster_images(scene, ctx.out);
+
+  pp_claims_free(ctx.claims);
+  g_ptr_array_unref(ctx.areas);
+  g_array_unref(ctx.bars);
+  g_hash_table_unref(ctx.glyph_marks);
+  g_ptr_array_unref(ctx.axes);
+  g_ptr_array_unref(ctx.labels);
+  return ctx.out;
+}

@@ -1,0 +1,35 @@
+/* recognizers.c — the table of recognizers, in the order they run: the one place that
+ * says which chart families exist and which gets first claim on a page's marks and
+ * labels. A new family is one file with its run function and one line here. */
+#include "internal.h"
+
+/* Axis-bound families first (their labels are a scale, not data labels), then charts
+ * read from their labels alone, then lines, which take what is left beside an axis.
+ * The name is also the ledger owner and the figure's "recognizer". */
+const pp_recognizer pp_recognizers[] = {
+    {{"bars", "bars and columns standing on a shared baseline beside a fitted value axis",
+      "a fitted linear or log scale; two or more bars sharing a baseline edge, not legend "
+      "keys, not overlapping across the axis, the longest at least a tenth of the tick span"},
+     pp_recognize_bars},
+    {{"areas", "filled areas under a series beside a fitted vertical value axis",
+      "a fitted scale; a filled non-rectangular polygon beside its labels, within its reach"},
+     pp_recognize_areas},
+    {{"labelled-bars", "bars with no value axis, each carrying its own printed number",
+      "two or more bars of one width sharing a baseline edge, every one with a data label at "
+      "its tip, not legend keys"},
+     pp_recognize_labelled_bars},
+    {{"lines", "unfilled lines and scatter markers beside a fitted vertical value axis",
+      "a fitted scale that took no bars or areas; polylines or small markers beside its "
+      "labels. Counted, never judged"},
+     pp_recognize_lines},
+};
+
+const guint pp_n_recognizers = G_N_ELEMENTS(pp_recognizers);
+
+const pp_recognizer_info *pp_recognizers_list(guint *n) {
+  static pp_recognizer_info infos[G_N_ELEMENTS(pp_recognizers)];
+  for (guint i = 0; i < G_N_ELEMENTS(pp_recognizers); i++)
+    infos[i] = pp_recognizers[i].info;
+  *n = G_N_ELEMENTS(pp_recognizers);
+  return infos;
+}

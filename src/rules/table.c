@@ -1,0 +1,23 @@
+/* table.c — the rule table, in priority order: the first rule that applies to a figure
+ * judges it. A new rule is one file (its measure and sentence) and one line here, with
+ * its section in docs/rules.md. */
+#include "internal.h"
+
+#define BARS (PP_KIND_BIT(COLUMN) | PP_KIND_BIT(BAR))
+
+const pp_rule pp_rules[] = {
+    /* Printed labels outrank a scale reading: a chart that disagrees with its own labels
+     * is judged against them. */
+    {"bars-vs-labels", "bar ink that disagrees with the bars' own printed data labels",
+     "bars-vs-labels", BARS, pp_rule_bars_vs_labels_measure, pp_rule_grade,
+     pp_rule_bars_vs_labels_sentence},
+    {"bars-on-log", "bars on a logarithmic value axis, where length cannot be proportional",
+     "bars-on-log", BARS, pp_rule_bars_on_log_measure, pp_rule_grade, pp_rule_bars_on_log_sentence},
+    {"bars-off-zero", "bars drawn from a value axis that does not start at zero", "bars-off-zero",
+     BARS, pp_rule_bars_off_zero_measure, pp_rule_grade, pp_rule_bars_off_zero_sentence},
+    {"area-off-zero", "a filled area whose floor is not the value zero", "area-off-zero",
+     PP_KIND_BIT(AREA), pp_rule_area_off_zero_measure, pp_rule_grade,
+     pp_rule_area_off_zero_sentence},
+};
+
+const guint pp_n_rules = G_N_ELEMENTS(pp_rules);
