@@ -65,6 +65,9 @@ def _pie(fig, c):
         dec = c.get("decimals", 0)
         out["percent_sum"] = _r(sum(printed))
         out["percent_allowance"] = _r(len(printed) * 0.5 * 10 ** -dec)
+        if fig.get("rule") == "shares-not-100":
+            # The headline of that rule: the whole the labels claim over the 100% drawn.
+            out["lie_factor_growth"] = _r(sum(printed) / 100.0)
     return out
 
 

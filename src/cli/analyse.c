@@ -72,12 +72,14 @@ void pp_analyse_take_messages(int fd, GPtrArray *warnings) {
     lseek(fd, 0, SEEK_SET);
 }
 
-static void analyse_page(pp_report *report, pp_scene *scene, const pp_thresholds *t) {
+static void analyse_page(pp_report *report, pp_scene *scene, const pp_thresholds *t,
+                         const pp_cli_options *opt) {
   pp_scene_measure(scene);
   pp_page_charts *charts = pp_page_charts_find(scene);
   GPtrArray *findings = g_ptr_array_new_with_free_func((GDestroyNotify)pp_finding_free);
   for (guint i = 0; charts && charts->figures && i < charts->figures->len; i++)
     pp_rules_check_figure(g_ptr_array_index(charts->figures, i), t, findings);
+  pp_cli_filter_findings(opt, findings); /* rules switched off by the configuration */
   pp_report_add_page(report, scene, charts, findings);
   g_ptr_array_unref(findings);
   pp_page_charts_free(charts);
@@ -105,7 +107,7 @@ char *pp_analyse_report_page(gpointer data) {
     g_free(msg);
   } else {
     pp_analyse_take_messages(job->messages_fd, scene->warnings);
-    analyse_page(report, scene, &job->opt->thresholds);
+    analyse_page(report, scene, &job->opt->thresholds, job->opt);
   }
   if (scene)
     pp_scene_free(scene);
@@ -137,6 +139,36 @@ char *pp_analyse_page(gpointer data) {
   char *payload = pp_report_node_to_string(node, TRUE, NULL);
   json_node_unref(node);
   pp_scene_free(scene);
+  pp_document_free(doc);
+  return payload;
+}
+
+char *pp_analyse_document(gpointer data) {
+  const pp_analyse_job *job = data;
+  GError *error = NULL;
+  pp_document *doc = pp_document_open(job->path, job->password, &error);
+  if (!doc)
+    return pp_analyse_gerror_payload(error);
+  const pp_document_info *info = pp_document_get_info(doc);
+  pp_report *report = pp_report_new(info, &job->opt->thresholds);
+  for (guint i = 0; i < info->n_pages; i++) {
+    pp_scene *scene = pp_document_capture_page(doc, i, &error);
+    if (!scene) {
+      pp_report_add_failed_page(report, i, error->message);
+      g_clear_error(&error);
+    } else if (!usable_box(scene)) {
+      pp_report_add_failed_page(report, i, "the page box is empty or not finite");
+    } else {
+      analyse_page(report, scene, &job->opt->thresholds, job->opt);
+    }
+    if (scene)
+      pp_scene_free(scene);
+  }
+  char *payload = pp_report_n_pages_failed(report) == info->n_pages
+                      ? pp_analyse_error_payload(PP_CAPTURE_ERROR_DAMAGED, "damaged",
+                                                 "none of its pages could be analysed")
+                      : pp_report_to_string(report, FALSE, NULL);
+  pp_report_free(report);
   pp_document_free(doc);
   return payload;
 }

@@ -19,6 +19,9 @@ typedef struct {
 /* Payload: the compact findings object of page job->page_index alone, its library
  * messages among the page's warnings. Never NULL. */
 char *pp_analyse_report_page(gpointer job);
+/* Payload: the compact findings object of the whole document, pages in this process
+ * (for `compare`, which scans one PDF at a time), or the error object. */
+char *pp_analyse_document(gpointer job);
 /* Payload: the pretty scene or charts object, or the error object. */
 char *pp_analyse_page(gpointer job);
 

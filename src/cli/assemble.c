@@ -4,6 +4,7 @@
 #include <string.h>
 
 #include "assemble.h"
+#include "rules/rules.h"
 
 struct pp_assembly {
   JsonNode *header; /* from {"open": ...} */
@@ -173,7 +174,7 @@ JsonNode *pp_assembly_finish(pp_assembly *as, const char *interrupted_reason, co
   JsonObject *ro = json_node_get_object(root);
   JsonArray *pages = json_array_new(), *findings = json_array_new();
   gint64 figures = 0, raster = 0, scale = 0, failed = 0, sev[3] = {0};
-  static const char *sev_names[3] = {"note", "material", "gross"};
+  const char *sev_names[3] = {pp_severity_name(0), pp_severity_name(1), pp_severity_name(2)};
   for (guint i = 0; i < as->pages->len; i++) {
     JsonNode *page = json_node_copy(g_ptr_array_index(as->pages, i));
     JsonObject *po = json_node_get_object(page);

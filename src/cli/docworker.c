@@ -145,14 +145,23 @@ char *pp_docworker_job_to_json(const pp_docworker_job *job, pid_t parent) {
     json_builder_set_member_name(b, names[i]);
     json_builder_add_int_value(b, values[i]);
   }
-  const char *tn[] = {"lie_band_low", "lie_band_high", "gdi_material", "gross_factor",
+  const char *tn[] = {"lie_band_low", "lie_band_high", "gdi_limit", "severe_factor",
                       "label_tolerance"};
-  double tv[] = {o->thresholds.lie_band_low, o->thresholds.lie_band_high,
-                 o->thresholds.gdi_material, o->thresholds.gross_factor,
-                 o->thresholds.label_tolerance};
+  double tv[] = {o->thresholds.lie_band_low, o->thresholds.lie_band_high, o->thresholds.gdi_limit,
+                 o->thresholds.severe_factor, o->thresholds.label_tolerance};
   for (guint i = 0; i < G_N_ELEMENTS(tn); i++) {
     json_builder_set_member_name(b, tn[i]);
     json_builder_add_double_value(b, tv[i]); /* %.17g: read back exactly */
+  }
+  /* The rule policy of the configuration (review_cli.c filters each page's findings). */
+  GPtrArray *lists[] = {o->disabled_rules, o->min_severity};
+  const char *list_names[] = {"disabled_rules", "min_severity"};
+  for (guint k = 0; k < 2; k++) {
+    json_builder_set_member_name(b, list_names[k]);
+    json_builder_begin_array(b);
+    for (guint i = 0; lists[k] && i < lists[k]->len; i++)
+      json_builder_add_string_value(b, g_ptr_array_index(lists[k], i));
+    json_builder_end_array(b);
   }
   json_builder_end_object(b);
   JsonNode *root = json_builder_get_root(b);
@@ -188,9 +197,21 @@ G_NORETURN void pp_docworker_run_stdin(void) {
   opt.memory_mib = (guint)number(o, "memory_mib", 2048);
   opt.thresholds.lie_band_low = number(o, "lie_band_low", opt.thresholds.lie_band_low);
   opt.thresholds.lie_band_high = number(o, "lie_band_high", opt.thresholds.lie_band_high);
-  opt.thresholds.gdi_material = number(o, "gdi_material", opt.thresholds.gdi_material);
-  opt.thresholds.gross_factor = number(o, "gross_factor", opt.thresholds.gross_factor);
+  opt.thresholds.gdi_limit = number(o, "gdi_limit", opt.thresholds.gdi_limit);
+  opt.thresholds.severe_factor = number(o, "severe_factor", opt.thresholds.severe_factor);
   opt.thresholds.label_tolerance = number(o, "label_tolerance", opt.thresholds.label_tolerance);
+  const char *list_names[] = {"disabled_rules", "min_severity"};
+  GPtrArray **lists[] = {&opt.disabled_rules, &opt.min_severity};
+  for (guint k = 0; k < 2; k++) {
+    JsonNode *a = json_object_get_member(o, list_names[k]);
+    for (guint i = 0;
+         a && JSON_NODE_HOLDS_ARRAY(a) && i < json_array_get_length(json_node_get_array(a)); i++) {
+      if (!*lists[k])
+        *lists[k] = g_ptr_array_new_with_free_func(g_free);
+      g_ptr_array_add(*lists[k],
+                      g_strdup(json_array_get_string_element(json_node_get_array(a), i)));
+    }
+  }
   JsonNode *pw = json_object_get_member(o, "password");
   const char *hex = json_object_get_string_member_with_default(o, "path_hex", "");
   GString *path = g_string_new(NULL);

@@ -30,6 +30,7 @@ typedef struct {
   pp_summary_totals totals;
   guint n_partial, n_resumed, n_duplicates, n_interrupted, n_docs;
   pp_passwords *passwords;
+  pp_cli_review *review; /* baseline, HTML, annotated copies, CSV, SARIF (review_cli.c) */
 } scan;
 
 /* The settings that change a findings file; a rerun with other values rescans. */
@@ -38,9 +39,16 @@ static char *settings_key(const pp_cli_options *opt) {
   char *text = g_strdup_printf(
       "band=%.17g:%.17g gdi=%.17g gross=%.17g label=%.17g page_s=%u memory_mib=%u cpu_s=%u "
       "timeout_s=%u",
-      t->lie_band_low, t->lie_band_high, t->gdi_material, t->gross_factor, t->label_tolerance,
+      t->lie_band_low, t->lie_band_high, t->gdi_limit, t->severe_factor, t->label_tolerance,
       opt->page_s, opt->memory_mib, opt->cpu_s, opt->timeout_s);
-  char *hash = g_compute_checksum_for_string(G_CHECKSUM_SHA256, text, -1);
+  GString *all = g_string_new(text);
+  GPtrArray *lists[] = {opt->disabled_rules, opt->min_severity};
+  for (guint k = 0; k < 2; k++)
+    for (guint i = 0; lists[k] && i < lists[k]->len; i++)
+      g_string_append_printf(all, " %s=%s", k ? "min" : "off",
+                             (const char *)g_ptr_array_index(lists[k], i));
+  char *hash = g_compute_checksum_for_string(G_CHECKSUM_SHA256, all->str, -1);
+  g_string_free(all, TRUE);
   char *key = g_strdup_printf("%s/%.16s", PP_VERSION, hash);
   g_free(hash);
   g_free(text);
@@ -192,6 +200,7 @@ static void on_done(const pp_batch_result *res, gpointer data) {
     }
     s->n_docs++;
     add_record(s, res->id, &r);
+    pp_cli_review_document(s->review, root, in->path, in->output_name);
     show(s, in, root, &r);
     s->roots[res->id] = json_node_ref(root);
   }
@@ -243,6 +252,7 @@ static void resume(scan *s, guint idx, JsonNode *root, JsonObject *prev) {
   s->n_resumed++;
   s->n_docs++;
   add_record(s, idx, &r);
+  pp_cli_review_document(s->review, root, in->path, in->output_name);
   show(s, in, root, &r);
   s->roots[idx] = root;
   pp_progress_document(s->progress, in->path, r.status, (guint)r.pages, (guint)r.findings, 0);
@@ -460,6 +470,13 @@ int pp_cli_scan(char **paths, int n_paths, const pp_cli_options *opt) {
     g_free(s.key);
     return PP_EXIT_USAGE;
   }
+  int review_rc = PP_EXIT_CLEAN;
+  s.review = pp_cli_review_begin(opt, &review_rc);
+  if (!s.review) {
+    pp_passwords_free(s.passwords);
+    g_free(s.key);
+    return review_rc;
+  }
   guint n_failed = 0;
   s.inputs = pp_inputs_collect(paths, n_paths, opt->from, &n_failed);
   if (!s.inputs) {
@@ -520,7 +537,7 @@ int pp_cli_scan(char **paths, int n_paths, const pp_cli_options *opt) {
     pp_summary_print_total(&s.totals);
     pp_output_stdout_flush();
   }
-  int rc = exit_code(&s, interrupted, records_ok);
+  int rc = pp_cli_review_end(s.review, exit_code(&s, interrupted, records_ok));
   for (guint i = 0; i < n; i++) {
     g_free(s.lines[i]);
     if (s.roots[i])

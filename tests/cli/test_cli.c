@@ -111,7 +111,7 @@ static void assembly_totals(void **state) {
   feed(as, "{\"open\":{\"document\":{\"pages\":3},\"pages\":[],\"findings\":[],\"totals\":{}}}");
   feed(as, "{\"start\":0}");
   feed(as, "{\"page\":0,\"rss_kib\":900,\"report\":{\"pages\":[{\"page\":1,\"error\":null,"
-           "\"figures\":[{},{}]}],\"findings\":[{\"severity\":\"gross\"}]}}");
+           "\"figures\":[{},{}]}],\"findings\":[{\"severity\":\"severe\"}]}}");
   feed(as, "{\"start\":1}");
   feed(as, "{\"page\":1,\"error\":\"too complex: over the page budget of 1 s\"}");
   feed(as, "{\"start\":2}");
@@ -126,7 +126,7 @@ static void assembly_totals(void **state) {
   assert_int_equal(json_object_get_int_member(t, "figures"), 2);
   assert_int_equal(json_object_get_int_member(t, "findings"), 1);
   assert_int_equal(
-      json_object_get_int_member(json_object_get_object_member(t, "by_severity"), "gross"), 1);
+      json_object_get_int_member(json_object_get_object_member(t, "by_severity"), "severe"), 1);
   JsonArray *pages = json_object_get_array_member(json_node_get_object(root), "pages");
   assert_string_equal(
       json_object_get_string_member(json_array_get_object_element(pages, 2), "error"),
