@@ -417,6 +417,9 @@ static int run(int argc, char **argv, pp_cli_options *opt) {
 int main(int argc, char **argv) {
   /* A closed stdout pipe (plotproof ... | head) must end in an error, not a signal. */
   signal(SIGPIPE, SIG_IGN);
+  /* Debug output (G_MESSAGES_DEBUG=plotproof-recognize) goes to stderr, never into the
+   * JSON on stdout; GLib sends debug to stdout by default. */
+  g_log_writer_default_set_use_stderr(TRUE);
   if (argc == 2 && strcmp(argv[1], "__worker") == 0) /* started by the batch scheduler */
     pp_docworker_run_stdin();
   pp_cli_options opt = {0};
