@@ -145,14 +145,14 @@ char *pp_docworker_job_to_json(const pp_docworker_job *job, pid_t parent) {
     json_builder_set_member_name(b, names[i]);
     json_builder_add_int_value(b, values[i]);
   }
-  const char *tn[] = {"lie_band_low", "lie_band_high", "gdi_limit", "severe_factor",
-                      "label_tolerance"};
-  double tv[] = {o->thresholds.lie_band_low, o->thresholds.lie_band_high, o->thresholds.gdi_limit,
-                 o->thresholds.severe_factor, o->thresholds.label_tolerance};
-  for (guint i = 0; i < G_N_ELEMENTS(tn); i++) {
-    json_builder_set_member_name(b, tn[i]);
-    json_builder_add_double_value(b, tv[i]); /* %.17g: read back exactly */
-  }
+  /* The thresholds as their bytes: the worker is this same program, so the layout is
+   * the same, and every member (opt-in rule bits included) arrives exactly. */
+  GString *thr = g_string_new(NULL);
+  for (size_t i = 0; i < sizeof o->thresholds; i++)
+    g_string_append_printf(thr, "%02x", ((const guchar *)&o->thresholds)[i]);
+  json_builder_set_member_name(b, "thresholds_hex");
+  json_builder_add_string_value(b, thr->str);
+  g_string_free(thr, TRUE);
   /* The rule policy of the configuration (review_cli.c filters each page's findings). */
   GPtrArray *lists[] = {o->disabled_rules, o->min_severity};
   const char *list_names[] = {"disabled_rules", "min_severity"};
@@ -195,11 +195,11 @@ G_NORETURN void pp_docworker_run_stdin(void) {
   opt.cpu_s = (guint)number(o, "cpu_s", 600);
   opt.page_s = (guint)number(o, "page_s", 30);
   opt.memory_mib = (guint)number(o, "memory_mib", 2048);
-  opt.thresholds.lie_band_low = number(o, "lie_band_low", opt.thresholds.lie_band_low);
-  opt.thresholds.lie_band_high = number(o, "lie_band_high", opt.thresholds.lie_band_high);
-  opt.thresholds.gdi_limit = number(o, "gdi_limit", opt.thresholds.gdi_limit);
-  opt.thresholds.severe_factor = number(o, "severe_factor", opt.thresholds.severe_factor);
-  opt.thresholds.label_tolerance = number(o, "label_tolerance", opt.thresholds.label_tolerance);
+  const char *thr = json_object_get_string_member_with_default(o, "thresholds_hex", "");
+  if (strlen(thr) == 2 * sizeof opt.thresholds)
+    for (size_t i = 0; i < sizeof opt.thresholds; i++)
+      ((guchar *)&opt.thresholds)[i] =
+          (guchar)(g_ascii_xdigit_value(thr[2 * i]) * 16 + g_ascii_xdigit_value(thr[2 * i + 1]));
   const char *list_names[] = {"disabled_rules", "min_severity"};
   GPtrArray **lists[] = {&opt.disabled_rules, &opt.min_severity};
   for (guint k = 0; k < 2; k++) {

@@ -42,6 +42,7 @@ static char *settings_key(const pp_cli_options *opt) {
       t->lie_band_low, t->lie_band_high, t->gdi_limit, t->severe_factor, t->label_tolerance,
       opt->page_s, opt->memory_mib, opt->cpu_s, opt->timeout_s);
   GString *all = g_string_new(text);
+  g_string_append_printf(all, " opt_in=%" G_GINT64_MODIFIER "x", (guint64)t->opt_in);
   GPtrArray *lists[] = {opt->disabled_rules, opt->min_severity};
   for (guint k = 0; k < 2; k++)
     for (guint i = 0; lists[k] && i < lists[k]->len; i++)
