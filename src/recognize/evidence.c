@@ -68,12 +68,82 @@ static double thickness(const pp_figure *f, const pp_element *e) {
   return f->kind == PP_FIGURE_COLUMN ? pp_rect_width(e->box) : pp_rect_height(e->box);
 }
 
+/* Bar thickness is a design constant of a chart: one mark thinner than a line makes the
+ * group rules, frame sides or stems. */
 static const char *thin_marks(const pp_figure *f) {
-  guint thin = 0;
   for (guint i = 0; i < f->elements->len; i++)
-    thin += thickness(f, &g_array_index(f->elements, pp_element, i)) < PP_EVIDENCE_MIN_THICKNESS;
-  return thin * 2 > f->elements->len ? "marks thinner than a line: rules, frame sides or stems"
-                                     : NULL;
+    if (thickness(f, &g_array_index(f->elements, pp_element, i)) < PP_EVIDENCE_MIN_THICKNESS)
+      return "marks thinner than a line: rules, frame sides or stems";
+  return NULL;
+}
+
+/* The edge every element touches, along the value axis (the baseline), and whether the
+ * elements grow from it both ways. */
+static gboolean both_ways(const pp_figure *f) {
+  gboolean vertical = f->kind == PP_FIGURE_COLUMN;
+  pp_frame_rect a = pp_frame_of(g_array_index(f->elements, pp_element, 0).box, vertical);
+  for (int side = 0; side < 2; side++) {
+    double c = side ? a.u1 : a.u0;
+    gboolean all = TRUE, lower = FALSE, upper = FALSE;
+    for (guint i = 0; i < f->elements->len && all; i++) {
+      pp_frame_rect r = pp_frame_of(g_array_index(f->elements, pp_element, i).box, vertical);
+      all = pp_on_edge(r.u0, r.u1, c);
+      lower |= pp_same_edge(r.u1, c);
+      upper |= pp_same_edge(r.u0, c);
+    }
+    if (all)
+      return lower && upper;
+  }
+  return FALSE;
+}
+
+/* Bars read from their labels alone that grow both ways from their baseline stand for
+ * numbers of both signs; printed numbers of one sign on them are not their values. */
+static const char *directions_disagree(const pp_figure *f) {
+  if (f->scale || !both_ways(f))
+    return NULL;
+  guint pos = 0, neg = 0;
+  for (guint i = 0; i < f->elements->len; i++) {
+    double v = g_array_index(f->elements, pp_element, i).label_value;
+    pos += v > 0, neg += v < 0;
+  }
+  return pos == 0 || neg == 0 ? "marks grow both ways from one edge but their numbers share a "
+                                "sign: cells or boxes side by side, not bars"
+                              : NULL;
+}
+
+/* Bars of a chart start near their scale: the gap from the tick labels to the nearest
+ * bar is at most PP_EVIDENCE_AXIS_GAP_SHARE of the width the bars span, or
+ * PP_EVIDENCE_AXIS_GAP_MIN pt (common practice, no source). */
+#define PP_EVIDENCE_AXIS_GAP_SHARE 1.0
+#define PP_EVIDENCE_AXIS_GAP_MIN 40.0
+
+static const char *far_from_scale(const pp_figure *f) {
+  if (!f->scale)
+    return NULL;
+  gboolean vertical = f->kind == PP_FIGURE_COLUMN; /* value axis vertical: labels beside */
+  pp_rect ab = f->scale->box, span = pp_rect_empty();
+  for (guint i = 0; i < f->elements->len; i++)
+    span = pp_rect_union(span, g_array_index(f->elements, pp_element, i).box);
+  double gap =
+      vertical ? fmax(span.x0 - ab.x1, ab.x0 - span.x1) : fmax(span.y0 - ab.y1, ab.y0 - span.y1);
+  double across = vertical ? pp_rect_width(span) : pp_rect_height(span);
+  return gap > PP_EVIDENCE_AXIS_GAP_MIN && gap > PP_EVIDENCE_AXIS_GAP_SHARE * across
+             ? "marks far from the scale they were read on: not its bars"
+             : NULL;
+}
+
+/* Two marks are a chart only when each is named or labelled: a pair of boxes is the
+ * commonest coincidence on a page. */
+static const char *unnamed_pair(const pp_figure *f) {
+  if (f->elements->len > 2)
+    return NULL;
+  for (guint i = 0; i < f->elements->len; i++) {
+    const pp_element *e = &g_array_index(f->elements, pp_element, i);
+    if (!e->category && isnan(e->label_value))
+      return "two marks without category names or data labels";
+  }
+  return NULL;
 }
 
 static const char *equal_lengths(const pp_figure *f) {
@@ -236,8 +306,9 @@ void pp_figure_weigh(pp_recognize_ctx *ctx, pp_figure *f) {
   const char *reason = NULL;
   if (is_bar_figure(f)) {
     if (!(reason = thin_marks(f)) && !(reason = equal_lengths(f)) && !(reason = uneven_widths(f)) &&
-        !(reason = text_on_marks(ctx->scene, f)) && !(reason = body_text(ctx->scene, f)) &&
-        !(reason = shadows(ctx, f)))
+        !(reason = directions_disagree(f)) && !(reason = far_from_scale(f)) &&
+        !(reason = unnamed_pair(f)) && !(reason = text_on_marks(ctx->scene, f)) &&
+        !(reason = body_text(ctx->scene, f)) && !(reason = shadows(ctx, f)))
       reason = label_doubts(ctx, f);
   } else if (f->kind == PP_FIGURE_AREA) {
     if (!(reason = flat_area(f)))
