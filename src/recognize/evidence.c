@@ -263,10 +263,10 @@ static const char *label_doubts(const pp_recognize_ctx *ctx, const pp_figure *f)
       break;
     }
   }
-  if (n >= 3 && counting + 1 == n)
-    return "labels count 1, 2, 3…: line or row numbers, not values";
   if (n >= 2 && years == n)
     return "labels are years: category names, not values";
+  if (n >= 3 && counting + 1 == n)
+    return "labels count 1, 2, 3…: line or row numbers, not values";
   return NULL;
 }
 
