@@ -20,6 +20,7 @@ static void figure_free(gpointer p)
   }
   g_ptr_array_unref(fig->styles);
   g_free(fig->note);
+  g_free(fig->extra_json);
   g_free(fig);
 }
 
@@ -274,6 +275,8 @@ static void json_figure(GString *s, const pp_gen_figure *f)
     g_string_append(s, ",\n      \"notes\": ");
     json_string(s, f->note);
   }
+  if (f->extra_json)
+    g_string_append_printf(s, ",\n      %s", f->extra_json);
   g_string_append(s, "\n    }");
 }
 

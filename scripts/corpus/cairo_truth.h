@@ -34,6 +34,7 @@ typedef struct {
   GPtrArray *series_values; /* GArray* of double, parallel to series_names */
   GPtrArray *styles;
   char *note; /* written as "notes" (docs/corpus.md) */
+  char *extra_json; /* raw members written last ("\"circle\": {...}"), NULL = none */
 } pp_gen_figure;
 
 typedef struct {

@@ -38,7 +38,7 @@ static void print_help(FILE *out) {
           "                         files are then written only if --output is given\n"
           "      --timeout SECONDS  per document (default %d)\n"
           "      --lie-band LOW:HIGH  Lie Factor band taken as faithful (default 0.95:1.05)\n"
-          "      --gdi-limit PCT    Graph Discrepancy Index materiality, percent (default 10)\n"
+          "      --gdi-limit PCT    Graph Discrepancy Index limit, percent (default 10)\n"
           "      --html DIR         review pack: index, one page per document with crops\n"
           "      --annotate         DIR/<name>.annotated.pdf with a note on each flagged figure\n"
           "      --csv FILE         one row per finding for the batch (spreadsheet-safe)\n"
@@ -213,7 +213,7 @@ static int parse_options(int argc, char **argv, command cmd, pp_cli_options *opt
       scan_only = TRUE;
       if (!parse_double(optarg, &v) || v <= 0)
         return usage_error("--gdi-limit wants a positive percentage, not '%s'", optarg);
-      opt->thresholds.gdi_material = v;
+      opt->thresholds.gdi_limit = v;
       break;
     }
     case OPT_PAGE:
@@ -300,6 +300,9 @@ static int run(int argc, char **argv, pp_cli_options *opt) {
 int main(int argc, char **argv) {
   /* A closed stdout pipe (plotproof ... | head) must end in an error, not a signal. */
   signal(SIGPIPE, SIG_IGN);
+  /* Debug output (G_MESSAGES_DEBUG=plotproof-recognize) goes to stderr, never into the
+   * JSON on stdout; GLib sends debug to stdout by default. */
+  g_log_writer_default_set_use_stderr(TRUE);
   pp_cli_options opt = {0};
   opt.output_dir = g_strdup(".");
   opt.timeout_s = DEFAULT_TIMEOUT_S;
