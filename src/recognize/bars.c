@@ -136,20 +136,6 @@ static gboolean too_short(const pp_figure *fig, const pp_axis_candidate *axis) {
   return longest < PP_BARS_MIN_LONGEST * (axis->span1 - axis->span0);
 }
 
-/* All bars of one length, their data labels not all equal: a heatmap row, a colour key or
- * a shaded table, whose numbers the lengths were never meant to show. */
-static gboolean cells_with_numbers(const pp_figure *fig) {
-  double shortest = INFINITY, longest = 0, lo = INFINITY, hi = -INFINITY;
-  for (guint i = 0; i < fig->elements->len; i++) {
-    const pp_element *e = &g_array_index(fig->elements, pp_element, i);
-    shortest = fmin(shortest, e->extent);
-    longest = fmax(longest, e->extent);
-    if (!isnan(e->label_value))
-      lo = fmin(lo, e->label_value), hi = fmax(hi, e->label_value);
-  }
-  return longest - shortest <= PP_EQUAL_LENGTH_TOL && hi > lo;
-}
-
 /* The bar figure on one side of an axis (+1: towards larger x, or y for a horizontal
  * axis), or NULL. Claims inside the caller's transaction. */
 static pp_figure *build_on_axis(pp_recognize_ctx *ctx, const pp_axis_candidate *axis, int side) {
@@ -170,11 +156,6 @@ static pp_figure *build_on_axis(pp_recognize_ctx *ctx, const pp_axis_candidate *
   if (fig) {
     pp_figure_add_evidence(fig, "scale-fits", 1);
     pp_figure_add_evidence(fig, "shared-baseline", 1);
-    if (cells_with_numbers(fig)) {
-      fig->judged = FALSE;
-      fig->not_judged_reason = g_strdup("bars of one length carrying different printed numbers: "
-                                        "cells or swatches, not bars standing for them");
-    }
   }
   return fig;
 }

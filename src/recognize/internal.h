@@ -153,11 +153,6 @@ void pp_figure_weigh(pp_recognize_ctx *ctx, pp_figure *figure);
  * (producers' rounding; common practice, no source). */
 #define PP_RECT_TOL 0.01
 
-/* Bars whose lengths all agree within this, pt, while carrying different printed numbers
- * are cells, swatches or shaded rows with numbers in them (heatmaps, colour keys, tables),
- * not bars standing for those numbers (common practice, no source). */
-#define PP_EQUAL_LENGTH_TOL 0.5
-
 gboolean pp_same_edge(double a, double b);
 /* One of the two edges u0, u1 is the edge c. */
 gboolean pp_on_edge(double u0, double u1, double c);

@@ -26,19 +26,12 @@ static GArray *select_on_edge(const pp_recognize_ctx *ctx, gboolean vertical, do
   return sel;
 }
 
-/* Every element carries a printed number, their lengths differ, and the group is not a
- * legend. */
+/* Every element carries a printed number, and the group is not a legend. */
 static gboolean all_labelled(const pp_recognize_ctx *ctx, pp_figure *fig) {
   guint labelled = 0;
-  double shortest = INFINITY, longest = 0;
-  for (guint k = 0; k < fig->elements->len; k++) {
-    const pp_element *e = &g_array_index(fig->elements, pp_element, k);
-    labelled += !isnan(e->label_value);
-    shortest = fmin(shortest, e->extent);
-    longest = fmax(longest, e->extent);
-  }
-  return labelled == fig->elements->len && labelled >= 2 &&
-         longest - shortest > PP_EQUAL_LENGTH_TOL && !pp_bars_legend_like(ctx->scene, fig);
+  for (guint k = 0; k < fig->elements->len; k++)
+    labelled += !isnan(g_array_index(fig->elements, pp_element, k).label_value);
+  return labelled == fig->elements->len && labelled >= 2 && !pp_bars_legend_like(ctx->scene, fig);
 }
 
 /* One labels-only figure, committed and finished; FALSE when there is none left. */
