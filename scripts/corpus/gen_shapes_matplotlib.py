@@ -184,7 +184,7 @@ def pyramid(seed, honest, inverted=False, percent=False):
             xs = [-a1, a1, a2, -a2]
             ax.fill(xs, ys, color=HUES[i % 4][0], edgecolor="white", linewidth=1.0)
             mid = H - (h1 + h2) / 2
-            txt = ("%.0f%%" % (100 * x / tot)) if percent else "%d" % x
+            txt = ("%.1f%%" % (100 * x / tot)) if percent else "%d" % x
             ax.text(0, mid, txt, ha="center", va="center", fontsize=9, color="white")
             ax.text(Wb / 2 + 0.3, mid, names[i], ha="left", va="center", fontsize=9)
             shape.append([2 * a1, 2 * a2, h2 - h1])
@@ -198,7 +198,7 @@ def pyramid(seed, honest, inverted=False, percent=False):
         d = {"kind": "pyramid", "misleading": not honest,
              "rule": None if honest else "slices-vs-values", "values": v, "labels": names,
              "axis": None, "baseline": None,
-             "data_labels": [round(100 * x / tot) for x in v] if percent else list(v),
+             "data_labels": [round(100 * x / tot, 1) for x in v] if percent else list(v),
              "slices": {"shape": shape, "solid": "cone", "order": "top-to-bottom"},
              "style": ["triangle"] + (["inverted"] if inverted else []) +
                       (["percent"] if percent else [])}

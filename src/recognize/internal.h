@@ -188,3 +188,6 @@ void pp_recognize_bars(pp_recognize_ctx *ctx);          /* bars.c */
 void pp_recognize_areas(pp_recognize_ctx *ctx);         /* areas.c */
 void pp_recognize_labelled_bars(pp_recognize_ctx *ctx); /* labelled.c */
 void pp_recognize_lines(pp_recognize_ctx *ctx);         /* lines.c */
+void pp_recognize_solid_bars(pp_recognize_ctx *ctx);    /* solids.c */
+void pp_recognize_pyramids(pp_recognize_ctx *ctx);      /* pyramids.c */
+void pp_recognize_symbols(pp_recognize_ctx *ctx);       /* symbols.c */

@@ -7,10 +7,26 @@
  * read from their labels alone, then lines, which take what is left beside an axis.
  * The name is also the ledger owner and the figure's "recognizer". */
 const pp_recognizer pp_recognizers[] = {
+    /* Solids first: their front faces are rectangles the flat bar recognizers would read
+     * without their caps and sides, on the wrong plane. */
+    {{"solid-bars", "3D bars: front faces with caps and sides (oblique or perspective)",
+      "two or more bars whose front rectangle shares edges with cap or side faces; a fitted "
+      "vertical scale beside them (read on the front plane or the back wall), or a number "
+      "above every bar"},
+     pp_recognize_solid_bars},
     {{"bars", "bars and columns standing on a shared baseline beside a fitted value axis",
       "a fitted linear or log scale; two or more bars sharing a baseline edge, not legend "
       "keys, not overlapping across the axis, the longest at least a tenth of the tick span"},
      pp_recognize_bars},
+    /* Before areas and lines: bubbles beside an axis are neither. */
+    {{"symbols", "bubbles and scaled symbols: circles or copies of one icon sized by value",
+      "three or more circles (or copies of one outline) of one colour whose sizes differ by "
+      "at least 1.3x, each with a number on or under it, or a size key beside them"},
+     pp_recognize_symbols},
+    {{"pyramids", "pyramids and funnels: stacked triangle and trapezoid slices",
+      "three or more slices stacked edge to edge on one centre line, widening or narrowing "
+      "throughout, at least one with sloped sides, every one with a number on its row"},
+     pp_recognize_pyramids},
     {{"areas", "filled areas under a series beside a fitted vertical value axis",
       "a fitted scale; a filled non-rectangular polygon beside its labels, within its reach"},
      pp_recognize_areas},

@@ -56,7 +56,25 @@ gboolean pp_rule_grade(const pp_measures *m, const pp_thresholds *t, pp_severity
  * GDI +180%)"; noun names an element ("bar", "point"). Takes lead. */
 char *pp_rule_sentence(const pp_finding *f, const pp_thresholds *t, char *lead, const char *noun);
 
+/* Measures between elements a and b (Lie Factor, Tufte's form, GDI) and the worst pair
+ * over positive values (shape_measures.c). */
+void pp_measures_between(const double *v, const double *g, guint n, guint a, guint b,
+                         pp_measures *m);
+/* The smallest and largest positive values with ink; FALSE when they are equal or absent. */
+gboolean pp_measures_extremes(const double *v, const double *g, guint n, guint *lo, guint *hi);
+
 /* ---- The rules (one file each, listed in table.c) ---------------------------------- */
+gboolean pp_rule_bars_3d_ink_measure(const pp_figure *fig, const pp_thresholds *t, pp_finding *f);
+char *pp_rule_bars_3d_ink_sentence(const pp_figure *fig, const pp_finding *f,
+                                   const pp_thresholds *t);
+gboolean pp_rule_slices_vs_values_measure(const pp_figure *fig, const pp_thresholds *t,
+                                          pp_finding *f);
+char *pp_rule_slices_vs_values_sentence(const pp_figure *fig, const pp_finding *f,
+                                        const pp_thresholds *t);
+gboolean pp_rule_symbols_not_by_area_measure(const pp_figure *fig, const pp_thresholds *t,
+                                             pp_finding *f);
+char *pp_rule_symbols_not_by_area_sentence(const pp_figure *fig, const pp_finding *f,
+                                           const pp_thresholds *t);
 gboolean pp_rule_bars_vs_labels_measure(const pp_figure *fig, const pp_thresholds *t,
                                         pp_finding *f);
 char *pp_rule_bars_vs_labels_sentence(const pp_figure *fig, const pp_finding *f,

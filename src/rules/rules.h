@@ -24,6 +24,8 @@ typedef struct {
 
 pp_thresholds pp_thresholds_default(void);
 
+#define PP_MEASURES_MAX_EXTRA 6
+
 /* The measures for one figure: ink versus value of its first and last elements
  * and of the worst pair. NAN where undefined. */
 typedef struct {
@@ -34,7 +36,17 @@ typedef struct {
   double max_pair_departure; /* max over pairs of (ink_i/ink_j)/(v_i/v_j) ≥ 1 */
   guint first, last;         /* element indices used */
   guint pair_i, pair_j;      /* the worst pair */
+  /* Measures particular to one rule (a size exponent, the inflated slices), written after
+   * the common ones; names are static strings listed in docs/findings.schema.json. */
+  guint n_extra;
+  struct {
+    const char *name;
+    double value;
+  } extra[PP_MEASURES_MAX_EXTRA];
 } pp_measures;
+
+/* Appends a rule's own measure (ignored beyond PP_MEASURES_MAX_EXTRA). */
+void pp_measures_add_extra(pp_measures *m, const char *name, double value);
 
 /* Lie factors from two values and two ink amounts (exposed for tests). */
 double pp_lie_factor_growth(double v1, double v2, double g1, double g2);

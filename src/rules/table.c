@@ -18,6 +18,15 @@ const pp_rule pp_rules[] = {
     {"area-off-zero", "a filled area whose floor is not the value zero", "area-off-zero",
      PP_KIND_BIT(AREA), pp_rule_area_off_zero_measure, pp_rule_grade,
      pp_rule_area_off_zero_sentence},
+    {"bars-3d-ink", "3D bars whose caps and sides add ink that does not follow the values",
+     "bars-3d-ink", PP_KIND_BIT(BAR_3D), pp_rule_bars_3d_ink_measure, pp_rule_grade,
+     pp_rule_bars_3d_ink_sentence},
+    {"slices-vs-values", "pyramid or funnel slices whose areas do not follow their values",
+     "slices-vs-values", PP_KIND_BIT(PYRAMID), pp_rule_slices_vs_values_measure, pp_rule_grade,
+     pp_rule_slices_vs_values_sentence},
+    {"symbols-not-by-area", "bubbles or symbols whose area is not proportional to their values",
+     "symbols-not-by-area", PP_KIND_BIT(BUBBLE), pp_rule_symbols_not_by_area_measure, pp_rule_grade,
+     pp_rule_symbols_not_by_area_sentence},
 };
 
 const guint pp_n_rules = G_N_ELEMENTS(pp_rules);
