@@ -34,6 +34,10 @@ typedef struct {
   GPtrArray *series_values; /* GArray* of double, parallel to series_names */
   GPtrArray *styles;
   char *note; /* written as "notes" (docs/corpus.md) */
+  /* Shape figures (docs/corpus.md, "Shape charts"): members written verbatim before
+   * "expected" ("\"solid\": {...}"), and the expected object itself; NULL = none. */
+  char *shape_json;
+  char *expected_json;
 } pp_gen_figure;
 
 typedef struct {

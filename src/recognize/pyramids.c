@@ -20,6 +20,9 @@
 /* The edges where two slices meet have one width within this share plus 1 pt. */
 #define PP_SLICE_WIDTH_SHARE 0.05
 #define PP_SLICE_MIN_COUNT 3
+/* Centred bars make a stepped funnel only when the widest is this much wider than the
+ * narrowest (a column of equal cells is a table; common practice, no source). */
+#define PP_SLICE_STEP_SHARE 0.2
 /* A label on a slice's row sits at most this far beside it, pt (common practice). */
 #define PP_SLICE_LABEL_REACH 150.0
 
@@ -89,7 +92,8 @@ static gboolean continues(const slice *a, const slice *b) {
   double wide = fmax(fmax(a->w0, a->w1), fmax(b->w0, b->w1));
   return gap >= -1.0 && gap <= PP_SLICE_GAP_SHARE * thin + 1.5 &&
          fabs(a->xc - b->xc) <= PP_SLICE_CENTRE_SHARE * wide + 1 &&
-         fabs(a->w1 - b->w0) <= PP_SLICE_WIDTH_SHARE * wide + 1;
+         (fabs(a->w1 - b->w0) <= PP_SLICE_WIDTH_SHARE * wide + 1 ||
+          (a->straight && b->straight)); /* a stepped funnel of centred bars */
 }
 
 /* The free number on the slice: inside its box, else on its row beside it, nearest. */
@@ -121,8 +125,26 @@ static void build(pp_recognize_ctx *ctx, GArray *slices, guint from, guint to) {
     widening &= s->w1 >= s->w0 - PP_SLICE_TOL;
     narrowing &= s->w1 <= s->w0 + PP_SLICE_TOL;
   }
-  if (n < PP_SLICE_MIN_COUNT || !sloped || !(widening || narrowing))
+  /* all straight: a stepped funnel only when the widths really change */
+  double wmin = INFINITY, wmax = 0;
+  for (guint i = from; i < to; i++) {
+    const slice *s = &g_array_index(slices, slice, i);
+    wmin = fmin(wmin, s->w0), wmax = fmax(wmax, s->w0);
+  }
+  gboolean stepped = !sloped && wmax > (1 + PP_SLICE_STEP_SHARE) * wmin;
+  if (n < PP_SLICE_MIN_COUNT || !(sloped || stepped))
     return;
+  if (sloped && !(widening || narrowing))
+    return;
+  if (stepped) { /* each bar no wider than the one above (funnel) or each wider (pyramid) */
+    for (guint i = from + 1; i < to; i++) {
+      const slice *a = &g_array_index(slices, slice, i - 1), *b = &g_array_index(slices, slice, i);
+      widening &= b->w0 >= a->w0 - PP_SLICE_TOL;
+      narrowing &= b->w0 <= a->w0 + PP_SLICE_TOL;
+    }
+    if (!(widening || narrowing))
+      return;
+  }
   g_autoptr(GHashTable) used = g_hash_table_new(NULL, NULL);
   guint percent = 0;
   for (guint i = from; i < to; i++) {

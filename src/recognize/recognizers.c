@@ -14,6 +14,10 @@ const pp_recognizer pp_recognizers[] = {
       "vertical scale beside them (read on the front plane or the back wall), or a number "
       "above every bar"},
      pp_recognize_solid_bars},
+    {{"cylinder-bars", "3D bars drawn as cylinders: a body and an elliptical cap",
+      "two or more bodies with straight vertical sides on one floor, each with an ellipse of "
+      "its width on its top edge; a fitted vertical scale beside them"},
+     pp_recognize_cylinders},
     {{"bars", "bars and columns standing on a shared baseline beside a fitted value axis",
       "a fitted linear or log scale; two or more bars sharing a baseline edge, not legend "
       "keys, not overlapping across the axis, the longest at least a tenth of the tick span"},

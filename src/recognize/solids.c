@@ -134,7 +134,7 @@ static gboolean make_solid(GArray *faces, const guint *group, guint g, solid *s)
 }
 
 /* The value axis beside the solids: fitted, linear, vertical, free, nearest. */
-static const pp_axis_candidate *find_axis(const pp_recognize_ctx *ctx, pp_rect all) {
+const pp_axis_candidate *pp_solid_value_axis(const pp_recognize_ctx *ctx, pp_rect all) {
   const pp_axis_candidate *best = NULL;
   double best_d = INFINITY;
   for (guint i = 0; i < ctx->axes->len; i++) {
@@ -154,33 +154,34 @@ static const pp_axis_candidate *find_axis(const pp_recognize_ctx *ctx, pp_rect a
   return best;
 }
 
+/* A number over the bar: above its front, on its cap or just above the whole solid. */
 static const pp_label *label_above(const pp_recognize_ctx *ctx, const solid *s) {
   const pp_label *best = NULL;
   for (guint k = 0; k < ctx->labels->len; k++) {
     const pp_label *l = g_ptr_array_index(ctx->labels, k);
     double gap = s->box.y0 - l->box.y1;
     if (pp_claims_label_free(ctx->claims, l->index) && l->centre.x >= s->box.x0 - 2 &&
-        l->centre.x <= s->box.x1 + 2 && gap >= -2 && gap <= PP_SOLID_LABEL_REACH * l->size &&
-        (!best || l->box.y1 > best->box.y1))
+        l->centre.x <= s->box.x1 + 2 && l->centre.y < s->top &&
+        gap <= PP_SOLID_LABEL_REACH * l->size && (!best || l->box.y1 > best->box.y1))
       best = l;
   }
   return best;
 }
 
 /* A word under the floor, centred on the front: the category. */
-static char *category_below(const pp_scene *scene, const face *front, double base) {
+char *pp_solid_category(const pp_scene *scene, pp_rect front, double base) {
   const pp_text_run *best = NULL;
   for (guint i = 0; i < scene->words->len; i++) {
     const pp_text_run *w = g_ptr_array_index(scene->words, i);
     double cx = (w->box.x0 + w->box.x1) / 2;
-    if (cx >= front->box.x0 - 2 && cx <= front->box.x1 + 2 && w->box.y0 >= base - 1 &&
+    if (cx >= front.x0 - 2 && cx <= front.x1 + 2 && w->box.y0 >= base - 1 &&
         w->box.y0 - base < 40 && (!best || w->box.y0 < best->box.y0))
       best = w;
   }
   return best ? g_strdup(best->text) : NULL;
 }
 
-static pp_rect frame_around(const pp_scene *scene, pp_rect all) {
+pp_rect pp_solid_frame(const pp_scene *scene, pp_rect all) {
   pp_rect best = all;
   double best_a = INFINITY;
   for (guint i = 0; i < scene->marks->len; i++) {
@@ -192,6 +193,20 @@ static pp_rect frame_around(const pp_scene *scene, pp_rect all) {
       continue;
     if (pp_rect_area(r) < best_a)
       best_a = pp_rect_area(r), best = r;
+  }
+  return best;
+}
+
+/* The segment a side face belongs to: the front its height range overlaps most (a side
+ * rises by the depth above its own front, so it overlaps the one above only a little). */
+static guint side_owner(GArray *faces, const solid *s, const face *side) {
+  guint best = 0;
+  double best_o = -INFINITY;
+  for (guint k = 0; k < s->fronts->len; k++) {
+    const face *fr = &g_array_index(faces, face, g_array_index(s->fronts, guint, k));
+    double o = fmin(fr->box.y1, side->box.y1) - fmax(fr->box.y0, side->box.y0);
+    if (o > best_o)
+      best_o = o, best = k;
   }
   return best;
 }
@@ -220,7 +235,7 @@ static void build(pp_recognize_ctx *ctx, GArray *faces, GArray *solids) {
   pp_rect all = pp_rect_empty();
   for (guint i = 0; i < solids->len; i++)
     all = pp_rect_union(all, g_array_index(solids, solid, i).box);
-  const pp_axis_candidate *axis = shared ? find_axis(ctx, all) : NULL;
+  const pp_axis_candidate *axis = shared ? pp_solid_value_axis(ctx, all) : NULL;
   double shift = 0;
   if (axis) { /* front plane, or the back wall the caps recede to */
     double depth = 0;
@@ -263,11 +278,7 @@ static void build(pp_recognize_ctx *ctx, GArray *faces, GArray *solids) {
       e.box = fr->box;
       for (guint j = 0; j < s->sides->len; j++) {
         const face *sd = &g_array_index(faces, face, g_array_index(s->sides, guint, j));
-        double cy = (sd->box.y0 + sd->box.y1) / 2;
-        /* a side belongs to the segment its middle is level with (sides rise by the depth) */
-        if (cy >= fr->box.y0 - s->depth &&
-            cy < fr->box.y1 - s->depth + PP_SOLID_EDGE_TOL + (k == s->fronts->len - 1 ? 1e9 : 0) &&
-            pp_claims_mark_free(ctx->claims, sd->mark)) {
+        if (side_owner(faces, s, sd) == k && pp_claims_mark_free(ctx->claims, sd->mark)) {
           pp_element_add_part(&e, sd->mark, PP_PART_SIDE, sd->ink);
           pp_claims_take_mark(ctx->claims, sd->mark, OWNER);
           e.ink += sd->ink, e.box = pp_rect_union(e.box, sd->box);
@@ -284,9 +295,9 @@ static void build(pp_recognize_ctx *ctx, GArray *faces, GArray *solids) {
       e.extent = pp_rect_height(fr->box);
       e.stacked = k + 1 < s->fronts->len;
       e.series = s->fronts->len - 1 - k;
-      e.category = category_below(
+      e.category = pp_solid_category(
           ctx->scene,
-          &g_array_index(faces, face, g_array_index(s->fronts, guint, s->fronts->len - 1)),
+          g_array_index(faces, face, g_array_index(s->fronts, guint, s->fronts->len - 1)).box,
           s->base);
       if (axis) {
         double top = pp_scale_value_at(axis->scale, fr->box.y0 - shift);
@@ -311,7 +322,7 @@ static void build(pp_recognize_ctx *ctx, GArray *faces, GArray *solids) {
   fig->n_series = 1;
   for (guint i = 0; i < fig->elements->len; i++)
     fig->n_series = MAX(fig->n_series, g_array_index(fig->elements, pp_element, i).series + 1);
-  fig->bbox = frame_around(ctx->scene, all);
+  fig->bbox = pp_solid_frame(ctx->scene, all);
   pp_figure_add_evidence(fig, "faces-share-edges", 1);
   pp_figure_add_evidence(fig, shared ? "shared-baseline" : "data-labels", 1);
   if (axis) {

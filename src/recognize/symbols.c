@@ -22,6 +22,14 @@
  * for anything: equal markers (scatter, dot plot) make no figure (common practice, no
  * source). */
 #define PP_SYMBOL_MIN_SPREAD 1.3
+/* A polygon of this many sides or more may be a circle: a regular 16-gon holds 97.4% of
+ * its circumcircle's area, outside PP_SYMBOL_ROUND_SHARE, so only finer ones pass the area
+ * test (n/2·sin(2π/n)/π; textbook). */
+#define PP_SYMBOL_MIN_POLYGON 16
+/* Labels overlap where bubbles crowd: a family is read from its labels when at least this
+ * share of its symbols carry one; the others are claimed but not judged (common practice,
+ * no source). */
+#define PP_SYMBOL_MIN_LABELLED 0.75
 /* Fewest symbols that make a chart rather than a pair of decorations (common practice). */
 #define PP_SYMBOL_MIN_COUNT 3
 /* Symbols smaller than this, pt², are dots and glyph parts, not sized symbols. */
@@ -48,17 +56,19 @@ static gboolean same_colour(const pp_paint *a, const pp_paint *b) {
          fabs(a->b - b->b) < PP_SYMBOL_COLOUR_TOL;
 }
 
-/* One closed subpath of curves (short straight joins allowed) whose box is square and
- * whose area is that of the inscribed circle. */
+/* One closed subpath of curves, or of many short lines (gnuplot draws small circles as
+ * polygons), whose box is square and whose area is that of the inscribed circle. */
 static gboolean is_circle(const pp_mark *m) {
   const pp_path *p = m->path;
-  guint curves = 0, moves = 0;
+  guint curves = 0, lines = 0, moves = 0;
   for (size_t i = 0; i < p->n_segs; i++) {
     curves += p->segs[i].kind == PP_SEG_CURVE;
+    lines += p->segs[i].kind == PP_SEG_LINE;
     moves += p->segs[i].kind == PP_SEG_MOVE;
   }
   double w = pp_rect_width(m->bbox), h = pp_rect_height(m->bbox);
-  if (curves < 4 || moves != 1 || !(w > 0) || fabs(w - h) > PP_SYMBOL_ROUND_SHARE * w)
+  if ((curves < 2 && lines < PP_SYMBOL_MIN_POLYGON) || moves != 1 || !(w > 0) ||
+      fabs(w - h) > PP_SYMBOL_ROUND_SHARE * w)
     return FALSE;
   double area = pp_path_fill_area(p, m->rule);
   return fabs(area - G_PI * w * h / 4) <= PP_SYMBOL_ROUND_SHARE * area;
@@ -151,7 +161,7 @@ static const pp_label *label_of(const pp_recognize_ctx *ctx, GArray *syms, const
                                    (pp_rect){s->centre.x, s->centre.y, s->centre.x, s->centre.y}, 0)
             : pp_rect_contains(s->box, l->box, 0.5);
     double h = pp_rect_height(s->box);
-    gboolean below = !on && l->centre.x >= s->box.x0 && l->centre.x <= s->box.x1 &&
+    gboolean below = !on && !s->circle && l->centre.x >= s->box.x0 && l->centre.x <= s->box.x1 &&
                      l->box.y0 >= s->box.y1 - 0.5 &&
                      l->box.y0 - s->box.y1 <= fmax(PP_SYMBOL_BELOW_REACH * h, 2 * l->size);
     if (!on && !below)
@@ -262,8 +272,14 @@ static void build(pp_recognize_ctx *ctx, GArray *syms, int family, int n_familie
   }
   if (n < PP_SYMBOL_MIN_COUNT || hi < PP_SYMBOL_MIN_SPREAD * lo)
     return;
-  /* values: a number on every symbol, else a size key */
+  /* values: a number on every symbol, else a size key; tick labels of a fitted axis are
+   * never a symbol's number */
   g_autoptr(GHashTable) used = g_hash_table_new(NULL, NULL);
+  for (guint i = 0; i < ctx->axes->len; i++) {
+    const pp_axis_candidate *a = g_ptr_array_index(ctx->axes, i);
+    for (guint k = 0; !a->fit_failed && k < a->labels->len; k++)
+      g_hash_table_add(used, g_ptr_array_index(a->labels, k));
+  }
   guint labelled = 0;
   for (guint i = 0; i < syms->len; i++) {
     symbol *s = &g_array_index(syms, symbol, i);
@@ -278,7 +294,7 @@ static void build(pp_recognize_ctx *ctx, GArray *syms, int family, int n_familie
   pp_power_fit key = {0};
   g_autoptr(GArray) key_members = g_array_new(FALSE, FALSE, sizeof(guint));
   gboolean by_key = FALSE;
-  if (labelled < n) {
+  if (labelled < n && labelled < PP_SYMBOL_MIN_LABELLED * n) {
     if (labelled > 0 || !find_key(ctx, syms, family, n_families, &key, key_members))
       return;
     by_key = TRUE;
@@ -286,15 +302,15 @@ static void build(pp_recognize_ctx *ctx, GArray *syms, int family, int n_familie
   pp_claims_begin(ctx->claims);
   pp_figure *fig = pp_figure_new(PP_FIGURE_BUBBLE);
   fig->recognizer = OWNER;
-  const pp_mark *first = NULL;
   for (guint i = 0; i < syms->len; i++) {
     symbol *s = &g_array_index(syms, symbol, i);
     if (s->family != family)
       continue;
-    first = first ? first : g_ptr_array_index(ctx->scene->marks, s->mark);
+    pp_claims_take_mark(ctx->claims, s->mark, OWNER);
+    if (!by_key && !s->label)
+      continue; /* part of the chart, but its number is hidden: no element */
     pp_element e = pp_element_init(PP_ENCODING_AREA);
     pp_element_add_part(&e, s->mark, PP_PART_BODY, s->ink);
-    pp_claims_take_mark(ctx->claims, s->mark, OWNER);
     e.ink = s->ink;
     e.box = s->box;
     e.extent = sqrt(s->ink / G_PI);
