@@ -52,6 +52,20 @@ else
 	echo "skip cairo shapes: /usr/bin/python3 with pycairo (python3-cairo) not found" >&2
 fi
 
+# Circle charts (pies, donuts, tilted pies, radial bars, lookalikes): last, because the
+# generators above empty their directories first.
+if [ -x "$py" ] && "$py" -c 'import matplotlib' 2>/dev/null; then
+	"$py" "$here/gen_matplotlib_circles.py" || status=1
+fi
+if command -v gnuplot >/dev/null 2>&1 && [ -x "$py" ]; then
+	"$py" "$here/gen_gnuplot_circles.py" || status=1
+fi
+if [ -x "$py" ] && "$py" -c 'import cairo' 2>/dev/null; then
+	"$py" "$here/gen_cairo_circles.py" || status=1
+else
+	echo "skip cairo circles: python3-cairo not installed" >&2
+fi
+
 for d in matplotlib gnuplot r libreoffice pgfplots cairo; do
 	if [ -d "$root/corpus/$d" ]; then
 		"$py" "$here/truth.py" check "$root/corpus/$d" || status=1

@@ -15,6 +15,10 @@ KINDS = {"column", "bar", "area", "line", "raster", "table", "text", "other"} | 
 RULES = {"bars-off-zero", "area-off-zero", "bars-on-log", "bars-vs-labels",
          None} | truth_shapes.RULES
 INK_KINDS = {"column", "bar", "area"}
+# Circle charts (truth_circles.py): pies, tilted pies, radial bars, polar areas.
+import truth_circles  # noqa: E402
+KINDS |= truth_circles.KINDS
+RULES |= truth_circles.RULES
 
 
 def _graphic_sizes(fig):
@@ -49,6 +53,8 @@ def expected_measures(fig):
     p.57. GDI = 100(a/b - 1): Steinbart (1989), Beattie & Jones (1992)."""
     if fig["kind"] in truth_shapes.KINDS:
         return truth_shapes.expected(fig)
+    if fig["kind"] in truth_circles.KINDS:
+        return truth_circles.expected(fig)
     if fig["kind"] not in INK_KINDS or fig.get("baseline") is None:
         return None
     if not fig["values"]:
@@ -125,6 +131,7 @@ def validate(truth):
             errs.append("%s: values/labels length differ" % where)
         if fig["rule"] == "bars-vs-labels" and "drawn_values" not in fig:
             errs.append("%s: bars-vs-labels needs drawn_values" % where)
+        errs.extend(truth_circles.validate(fig, where))
         ax = fig.get("axis")
         if ax is not None:
             for k in ("min", "max", "scale", "orientation"):

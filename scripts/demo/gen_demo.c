@@ -1,6 +1,9 @@
 /* Generates corpus/demo/fjordhaven-annual-report-2031.pdf, a 20-page annual
  * report of an invented ferry operator, and its truth JSON (one entry per
- * chart, photo, table and text block). Usage: gen-demo [OUT_DIR] */
+ * chart, photo, table and text block). Usage: gen-demo [OUT_DIR] [--draft2]
+ * --draft2 writes <name>-draft2.pdf, a later draft for `plotproof compare`: one page
+ * inserted after the letter (every later figure moves a page), the fuel chart fixed
+ * (axis from 0), the 2031 revenue restated, and a new truncated operating-profit chart. */
 #include <math.h>
 #include <stdio.h>
 
@@ -19,6 +22,8 @@
 #define CONTENT_W (PAGE_W - 2 * MARGIN)
 #define COMPANY "Fjordhaven Coastal Lines ASA"
 #define NAME "fjordhaven-annual-report-2031"
+
+static gboolean draft2; /* see the usage above */
 
 typedef struct {
   pp_gen_doc *doc;
@@ -230,7 +235,9 @@ static void page_ceo(demo *d)
   double y = heading(d, "Chief executive's review", 60);
   y = body(d, MARGIN, y, CONTENT_W, 4);
   /* Misleading: severe truncation makes 19% growth look like a fourfold rise. */
-  static const double rev[] = {118.2, 123.6, 129.1, 134.7, 140.2};
+  static const double rev1[] = {118.2, 123.6, 129.1, 134.7, 140.2};
+  static const double rev2[] = {118.2, 123.6, 129.1, 134.7, 141.0};
+  const double *rev = draft2 ? rev2 : rev1;
   pp_gen_chart c = {.title = "Revenue (EUR m)", .n = 5, .cats = years5, .values = rev,
                     .x = MARGIN + 60, .y = y + 30, .w = CONTENT_W - 80, .h = 220,
                     .fmt = PP_GEN_FMT_CURRENCY_M, .gridlines = TRUE, .data_labels = TRUE};
@@ -257,6 +264,9 @@ static void page_highlights(demo *d)
                     .x = MARGIN + 40, .y = y2, .w = 185, .h = 200,
                     .fmt = PP_GEN_FMT_CURRENCY_M, .bar_style = PP_GEN_BAR_PATH4};
   pp_gen_chart_fit_axis(&a, 0);
+  if (draft2) { /* the new misleading chart: bars cut at 8 */
+    a.axis_min = 8, a.axis_max = 14, a.tick_step = 2, a.bar_from = 8;
+  }
   chart(d, &a);
   static const double dps[] = {0.42, 0.45, 0.46, 0.50, 0.54};
   pp_gen_chart b = {.title = "Dividend per share (EUR)", .n = 5, .cats = years5, .values = dps,
@@ -282,6 +292,8 @@ static void page_operations(demo *d)
                     .mark = PP_GEN_MARK_AREA, .gridlines = TRUE, .x = MARGIN + 40, .y = y + 25,
                     .w = CONTENT_W - 50, .h = 170, .axis_min = 45, .axis_max = 65, .tick_step = 5,
                     .bar_from = 45};
+  if (draft2) /* fixed in the later draft */
+    a.axis_min = 0, a.axis_max = 70, a.tick_step = 10, a.bar_from = 0;
   pp_gen_figure_add_style(chart(d, &a), "multi-chart-page");
   static const double heads[] = {412, 236, 188, 74, 132};
   static const char *divisions[] = {"Deck crew", "Engineering", "Terminals", "Freight sales",
@@ -555,18 +567,21 @@ static void page_back(demo *d)
 int main(int argc, char **argv)
 {
   const char *out_dir = argc > 1 ? argv[1] : "corpus/demo";
+  draft2 = argc > 2 && g_strcmp0(argv[2], "--draft2") == 0;
   if (g_mkdir_with_parents(out_dir, 0755) != 0) {
     fprintf(stderr, "gen-demo: cannot create %s\n", out_dir);
     return 1;
   }
   demo d = {0};
   pp_gen_rng_init(&d.rng, SEED);
-  d.doc = pp_gen_doc_new(out_dir, "corpus/demo", NAME, SEED, PAGE_W, PAGE_H,
+  d.doc = pp_gen_doc_new(out_dir, "corpus/demo", draft2 ? NAME "-draft2" : NAME, SEED, PAGE_W, PAGE_H,
                          COMPANY " Annual Report 2031");
   d.cr = d.doc->cr;
   page_cover(&d);
   page_contents(&d);
   page_letter(&d);
+  if (draft2)
+    page_text(&d, "The year in brief", 3);
   page_ceo(&d);
   page_highlights(&d);
   page_operations(&d);
@@ -592,6 +607,7 @@ int main(int argc, char **argv)
     g_error_free(error);
     return 1;
   }
-  printf("gen-demo: wrote %d pages to %s/%s.pdf\n", pages, out_dir, NAME);
+  printf("gen-demo: wrote %d pages to %s/%s.pdf\n", pages, out_dir,
+         draft2 ? NAME "-draft2" : NAME);
   return 0;
 }

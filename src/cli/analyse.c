@@ -33,12 +33,14 @@ static char *gerror_payload(GError *error) {
   return s;
 }
 
-static void analyse_page(pp_report *report, pp_scene *scene, const pp_thresholds *t) {
+static void analyse_page(pp_report *report, pp_scene *scene, const pp_thresholds *t,
+                         const pp_cli_options *opt) {
   pp_scene_measure(scene);
   pp_page_charts *charts = pp_page_charts_find(scene);
   GPtrArray *findings = g_ptr_array_new_with_free_func((GDestroyNotify)pp_finding_free);
   for (guint i = 0; charts && charts->figures && i < charts->figures->len; i++)
     pp_rules_check_figure(g_ptr_array_index(charts->figures, i), t, findings);
+  pp_cli_filter_findings(opt, findings); /* rules switched off by the configuration */
   pp_report_add_page(report, scene, charts, findings);
   g_ptr_array_unref(findings);
   pp_page_charts_free(charts);
@@ -62,7 +64,7 @@ char *pp_analyse_document(gpointer data) {
       g_clear_error(&error);
       continue;
     }
-    analyse_page(report, scene, &job->opt->thresholds);
+    analyse_page(report, scene, &job->opt->thresholds, job->opt);
     pp_scene_free(scene);
   }
   char *payload = NULL;

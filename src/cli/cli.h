@@ -12,6 +12,11 @@ typedef struct {
   guint timeout_s;
   guint page; /* 1-based; scene and charts only */
   pp_thresholds thresholds;
+  /* Reviewer outputs and policy (review_cli.c, config.c); NULL/FALSE when not asked for. */
+  char *html_dir, *csv_file, *sarif_file, *baseline_file, *who, *why;
+  gboolean annotate;
+  GPtrArray *disabled_rules; /* of char*: rule ids whose findings are dropped */
+  GPtrArray *min_severity;   /* of char* "RULE=WORD": findings below WORD dropped */
 } pp_cli_options;
 
 /* `plotproof: FILE: WORD (MESSAGE)` on one line, newlines in MESSAGE flattened. */
@@ -27,3 +32,24 @@ enum {
 
 int pp_cli_scan(char **paths, int n_paths, const pp_cli_options *opt);
 int pp_cli_inspect(const char *path, gboolean charts, const pp_cli_options *opt);
+
+/* review_cli.c: the reviewer's outputs of a scan, and the commands around them. */
+typedef struct pp_cli_review pp_cli_review;
+/* NULL with *rc set when the options cannot be honoured (unreadable baseline). */
+pp_cli_review *pp_cli_review_begin(const pp_cli_options *opt, int *rc);
+/* Applies the baseline to root (so the summary and exit code count new findings only)
+ * and writes this document's HTML page, annotated copy and CSV/SARIF rows. */
+void pp_cli_review_document(pp_cli_review *rv, JsonNode *root, const char *pdf_path,
+                            const char *output_name);
+/* Writes the batch outputs, prints accepted findings and stale baseline entries. */
+int pp_cli_review_end(pp_cli_review *rv, int rc);
+/* Drops the findings (of pp_finding*) of disabled rules or below a rule's minimum. */
+void pp_cli_filter_findings(const pp_cli_options *opt, GPtrArray *findings);
+int pp_cli_compare(const char *old_path, const char *new_path, const pp_cli_options *opt);
+int pp_cli_explain(const char *rule_id);
+int pp_cli_rules(void);
+int pp_cli_accept(const char *findings_file, char **ids, int n_ids, const pp_cli_options *opt);
+
+/* config.c: a GLib key file turned into command-line options placed before the user's
+ * own, so the command line wins. Returns a new argv (g_strfreev) or NULL on error. */
+char **pp_cli_config_argv(int argc, char **argv, int *new_argc);

@@ -16,6 +16,9 @@ static void print_help(FILE *out) {
           "Usage: plotproof scan [OPTIONS] PATH...\n"
           "       plotproof scene FILE [--page N] [--password PW]\n"
           "       plotproof charts FILE [--page N] [--password PW]\n"
+          "       plotproof compare OLD NEW [--json] [--html FILE]\n"
+          "       plotproof explain RULE | plotproof rules\n"
+          "       plotproof accept FINDINGS.json ID... --baseline FILE [--who NAME] [--why TEXT]\n"
           "       plotproof --help | --version\n"
           "\n"
           "Finds charts in PDF reports whose ink is not proportional to the values it\n"
@@ -36,6 +39,19 @@ static void print_help(FILE *out) {
           "      --timeout SECONDS  per document (default %d)\n"
           "      --lie-band LOW:HIGH  Lie Factor band taken as faithful (default 0.95:1.05)\n"
           "      --gdi-limit PCT    Graph Discrepancy Index materiality, percent (default 10)\n"
+          "      --html DIR         review pack: index, one page per document with crops\n"
+          "      --annotate         DIR/<name>.annotated.pdf with a note on each flagged figure\n"
+          "      --csv FILE         one row per finding for the batch (spreadsheet-safe)\n"
+          "      --sarif FILE       the findings as SARIF 2.1.0\n"
+          "      --baseline FILE    accepted findings (key file): report only new ones\n"
+          "      --disable-rule ID  drop a rule's findings (repeatable)\n"
+          "      --min-severity RULE=WORD  drop a rule's findings below WORD\n"
+          "      --config FILE      options from a key file (default: $XDG_CONFIG_HOME/\n"
+          "                         plotproof/config); the command line wins. --no-config\n"
+          "\n"
+          "compare: findings of two drafts (PDFs or findings files): new, resolved,\n"
+          "unchanged. explain: a rule's page. rules: the rules. accept: add findings to\n"
+          "a baseline file with who, why and today's date.\n"
           "\n"
           "scene: the captured scene of one page (marks, paths, clips, words) as JSON.\n"
           "charts: the figures recognised on one page (axes, ticks, elements) as JSON.\n"
@@ -99,7 +115,7 @@ static gboolean parse_band(const char *s, pp_thresholds *t) {
   return ok;
 }
 
-enum { OPT_JSON = 256, OPT_TIMEOUT, OPT_LIE_BAND, OPT_GDI_LIMIT, OPT_PAGE };
+enum { OPT_JSON = 256, OPT_TIMEOUT, OPT_LIE_BAND, OPT_GDI_LIMIT, OPT_PAGE, OPT_REVIEW };
 
 static const struct option long_options[] = {
     {"help", no_argument, NULL, 'h'},
@@ -112,10 +128,55 @@ static const struct option long_options[] = {
     {"lie-band", required_argument, NULL, OPT_LIE_BAND},
     {"gdi-limit", required_argument, NULL, OPT_GDI_LIMIT},
     {"page", required_argument, NULL, OPT_PAGE},
+    /* reviewer outputs (review_cli.c), all OPT_REVIEW + index below */
+    {"html", required_argument, NULL, OPT_REVIEW + 0},
+    {"csv", required_argument, NULL, OPT_REVIEW + 1},
+    {"sarif", required_argument, NULL, OPT_REVIEW + 2},
+    {"baseline", required_argument, NULL, OPT_REVIEW + 3},
+    {"annotate", no_argument, NULL, OPT_REVIEW + 4},
+    {"disable-rule", required_argument, NULL, OPT_REVIEW + 5},
+    {"min-severity", required_argument, NULL, OPT_REVIEW + 6},
+    {"who", required_argument, NULL, OPT_REVIEW + 7},
+    {"why", required_argument, NULL, OPT_REVIEW + 8},
+    {"config", required_argument, NULL, OPT_REVIEW + 9},
+    {"no-config", no_argument, NULL, OPT_REVIEW + 10},
     {NULL, 0, NULL, 0},
 };
 
-typedef enum { CMD_NONE, CMD_SCAN, CMD_SCENE, CMD_CHARTS } command;
+typedef enum {
+  CMD_NONE,
+  CMD_SCAN,
+  CMD_SCENE,
+  CMD_CHARTS,
+  CMD_COMPARE,
+  CMD_EXPLAIN,
+  CMD_RULES,
+  CMD_ACCEPT
+} command;
+
+/* The reviewer options: stored as given (later ones win); checked where used. */
+static gboolean review_option(int c, const char *arg, pp_cli_options *opt) {
+  char **slot[] = {&opt->html_dir, &opt->csv_file, &opt->sarif_file, &opt->baseline_file};
+  int k = c - OPT_REVIEW;
+  if (k >= 0 && k < 4) {
+    g_free(*slot[k]);
+    *slot[k] = g_strdup(arg);
+  } else if (k == 4) {
+    opt->annotate = TRUE;
+  } else if (k == 5 || k == 6) {
+    GPtrArray **list = k == 5 ? &opt->disabled_rules : &opt->min_severity;
+    if (!*list)
+      *list = g_ptr_array_new_with_free_func(g_free);
+    g_ptr_array_add(*list, g_strdup(arg));
+  } else if (k == 7 || k == 8) {
+    char **s = k == 7 ? &opt->who : &opt->why;
+    g_free(*s);
+    *s = g_strdup(arg);
+  } else if (k != 9 && k != 10) {
+    return FALSE;
+  }
+  return TRUE;
+}
 
 /* Returns -1 to go on, or an exit code (help, version, usage error). */
 static int parse_options(int argc, char **argv, command cmd, pp_cli_options *opt) {
@@ -161,12 +222,15 @@ static int parse_options(int argc, char **argv, command cmd, pp_cli_options *opt
         return usage_error("--page wants a page number from 1, not '%s'", optarg);
       break;
     case ':': return usage_error("option '%s' needs a value", argv[optind - 1]);
-    default: return usage_error("unknown option '%s'", argv[optind - 1]);
+    default:
+      if (c >= OPT_REVIEW && review_option(c, optarg, opt))
+        break;
+      return usage_error("unknown option '%s'", argv[optind - 1]);
     }
   }
   if (cmd == CMD_SCAN && page_given)
     return usage_error("%s", "--page is for 'scene' and 'charts', not 'scan'");
-  if (cmd != CMD_SCAN && cmd != CMD_NONE && scan_only)
+  if (cmd != CMD_SCAN && cmd != CMD_NONE && cmd != CMD_COMPARE && scan_only)
     return usage_error("%s",
                        "--output, --quiet, --json, --lie-band and --gdi-limit are for 'scan'");
   if (opt->quiet && opt->json)
@@ -181,6 +245,14 @@ static command command_from(const char *word) {
     return CMD_SCENE;
   if (strcmp(word, "charts") == 0)
     return CMD_CHARTS;
+  if (strcmp(word, "compare") == 0)
+    return CMD_COMPARE;
+  if (strcmp(word, "explain") == 0)
+    return CMD_EXPLAIN;
+  if (strcmp(word, "rules") == 0)
+    return CMD_RULES;
+  if (strcmp(word, "accept") == 0)
+    return CMD_ACCEPT;
   return CMD_NONE;
 }
 
@@ -208,6 +280,19 @@ static int run(int argc, char **argv, pp_cli_options *opt) {
     if (n_args != 1)
       return usage_error("%s needs exactly one FILE", argv[1]);
     return pp_cli_inspect(args[0], cmd == CMD_CHARTS, opt);
+  case CMD_COMPARE:
+    if (n_args != 2)
+      return usage_error("%s", "compare needs OLD and NEW (PDFs or findings files)");
+    return pp_cli_compare(args[0], args[1], opt);
+  case CMD_EXPLAIN:
+    if (n_args != 1)
+      return usage_error("%s", "explain needs one RULE ('plotproof rules' lists them)");
+    return pp_cli_explain(args[0]);
+  case CMD_RULES: return pp_cli_rules();
+  case CMD_ACCEPT:
+    if (n_args < 2)
+      return usage_error("%s", "accept needs a findings file and at least one finding id");
+    return pp_cli_accept(args[0], args + 1, n_args - 1, opt);
   }
   return PP_EXIT_USAGE;
 }
@@ -220,8 +305,17 @@ int main(int argc, char **argv) {
   opt.timeout_s = DEFAULT_TIMEOUT_S;
   opt.page = 1;
   opt.thresholds = pp_thresholds_default();
-  int rc = run(argc, argv, &opt);
+  int n_words = 0;
+  char **words = pp_cli_config_argv(argc, argv, &n_words);
+  int rc = words ? run(n_words, words, &opt) : PP_EXIT_USAGE;
+  g_strfreev(words);
   g_free(opt.output_dir);
   g_free(opt.password);
+  g_free(opt.html_dir), g_free(opt.csv_file), g_free(opt.sarif_file), g_free(opt.baseline_file);
+  g_free(opt.who), g_free(opt.why);
+  if (opt.disabled_rules)
+    g_ptr_array_unref(opt.disabled_rules);
+  if (opt.min_severity)
+    g_ptr_array_unref(opt.min_severity);
   return rc;
 }

@@ -73,6 +73,10 @@ int pp_cli_scan(char **paths, int n_paths, const pp_cli_options *opt) {
   gboolean write_files = !opt->json || opt->output_given;
   if (write_files && !make_output_dir(opt))
     return PP_EXIT_USAGE;
+  int review_rc = PP_EXIT_CLEAN;
+  pp_cli_review *review = pp_cli_review_begin(opt, &review_rc);
+  if (!review)
+    return review_rc;
   guint n_failed = 0;
   GPtrArray *inputs = pp_inputs_collect(paths, n_paths, &n_failed);
   pp_summary_totals totals = {0};
@@ -85,6 +89,8 @@ int pp_cli_scan(char **paths, int n_paths, const pp_cli_options *opt) {
     JsonNode *root = NULL;
     if (report_worker_failure(in->path, &res, opt->timeout_s))
       root = parse_payload(in->path, res.payload);
+    if (root) /* baseline, HTML, annotated copy, CSV and SARIF rows */
+      pp_cli_review_document(review, root, in->path, in->output_name);
     if (!root) {
       n_failed++;
     } else if (opt->json) {
@@ -106,9 +112,9 @@ int pp_cli_scan(char **paths, int n_paths, const pp_cli_options *opt) {
   if (!opt->quiet && !opt->json)
     pp_summary_print_total(&totals);
   g_ptr_array_unref(inputs);
-  if (totals.documents == 0)
-    return PP_EXIT_USAGE;
-  if (n_failed > 0)
-    return PP_EXIT_PARTIAL;
-  return totals.findings > 0 ? PP_EXIT_FINDINGS : PP_EXIT_CLEAN;
+  int rc = totals.documents == 0 ? PP_EXIT_USAGE
+           : n_failed > 0        ? PP_EXIT_PARTIAL
+           : totals.findings > 0 ? PP_EXIT_FINDINGS
+                                 : PP_EXIT_CLEAN;
+  return pp_cli_review_end(review, rc);
 }

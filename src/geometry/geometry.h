@@ -53,6 +53,67 @@ GPtrArray *pp_path_flatten(const pp_path *path, double tolerance); /* of GArray<
  * (fills and images by clipped area, strokes by width × clipped length). */
 void pp_scene_measure(pp_scene *scene);
 
+/* ---- Arcs, ellipses and wedges (conic.c, wedge.c) ------------------------------------
+ * Angles are in a y-up frame (counter-clockwise as seen on the page), radians. */
+
+/* An ellipse: semi-axis rx along direction rot (from the page's +x, counter-clockwise as
+ * seen), ry across it. A circle has rx == ry and rot 0. */
+typedef struct {
+  pp_point centre; /* page points */
+  double rx, ry;
+  double rot;
+} pp_ellipse;
+
+/* Fits whose axis ratio is above this are circles (rx = ry, rot = 0): a tilt of
+ * acos(0.995) ≈ 5.7° changes no share by more than 0.5%: derived. */
+#define PP_CIRCLE_AXIS_RATIO 0.995
+
+/* Algebraic least-squares fits (circle: Kåsa; ellipse: general conic with the trace
+ * normalised; centred: A x² + B xy + C y² = 1). FALSE when the points do not fix one. */
+gboolean pp_circle_fit(const pp_point *pts, size_t n, pp_point *centre, double *r);
+gboolean pp_ellipse_fit(const pp_point *pts, size_t n, pp_ellipse *out);
+gboolean pp_ellipse_fit_centred(const pp_point *pts, size_t n, pp_point centre, pp_ellipse *out);
+/* Parametric angle t of p, the angle in the un-tilted circle: p = centre + R(rot)·(rx cos t,
+ * ry sin t); and p's distance from the centre in units of the ellipse (1 on it). */
+double pp_ellipse_param(const pp_ellipse *e, pp_point p);
+double pp_ellipse_scale(const pp_ellipse *e, pp_point p);
+pp_point pp_ellipse_point(const pp_ellipse *e, double t);
+
+/* Closed forms: sector r²θ/2; annular sector (R² − r²)θ/2; ellipse sector between the
+ * parametric angles t1 and t2, ab(t2 − t1)/2 (the affine image of a circle's sector). */
+double pp_sector_area(double r, double theta);
+double pp_annular_sector_area(double r_outer, double r_inner, double theta);
+double pp_ellipse_sector_area(double a, double b, double t1, double t2);
+
+typedef enum {
+  PP_WEDGE_SECTOR,   /* arc and two radial edges meeting at the centre (or a half pie) */
+  PP_WEDGE_ANNULAR,  /* outer arc, inner arc and two radial edges: a donut slice */
+  PP_WEDGE_FULL,     /* a whole ellipse */
+  PP_WEDGE_ARC,      /* an open arc (a stroke) */
+  PP_WEDGE_BAND,     /* two equal arcs one above the other: a tilted pie's rim */
+} pp_wedge_kind;
+
+typedef struct {
+  pp_wedge_kind kind;
+  pp_ellipse outer;     /* the outer (band: top) arc's ellipse, centred on the wedge's apex */
+  double inner;         /* annular: inner radius / outer radius; 0 otherwise */
+  double a0, a1;        /* parametric angles, 0 ≤ a0 < 2π, a0 < a1 ≤ a0 + 2π */
+  gboolean clockwise;   /* drawn clockwise as seen on the page */
+  double fit_error;     /* max |scale − 1| of the outer arc's points: 0 for a true arc */
+  gboolean shape_fitted; /* axes fixed by this arc; FALSE: a circle or the given shape */
+  pp_point depth;       /* band: offset of the bottom arc's centre from the top's */
+  guint subpath;        /* which subpath of the path, from 0 */
+} pp_wedge;
+
+/* Every subpath that reads as a wedge (others are skipped). filled: subpaths close
+ * implicitly. shape, when not NULL, gives the axis ratio and rotation to use (a pie's
+ * shared ellipse), so short arcs get the angles of their tilted pie. */
+GArray *pp_path_wedges(const pp_path *path, gboolean filled, const pp_ellipse *shape);
+/* Area of a sector or annular sector, ab(1 − inner²)(a1 − a0)/2; 0 for arcs and bands. */
+double pp_wedge_area(const pp_wedge *w);
+/* Two pieces of one slice (same centre and radii within tol·radius, abutting angles
+ * within tol radians) as one wedge. */
+gboolean pp_wedge_join(const pp_wedge *a, const pp_wedge *b, double tol, pp_wedge *out);
 /* ---- Faces and solids (quads.c, power_fit.c) ---- */
 
 typedef enum {

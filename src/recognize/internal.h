@@ -183,6 +183,56 @@ void pp_axis_claim_labels(pp_recognize_ctx *ctx, const pp_axis_candidate *axis);
 /* An axis is taken when every one of its labels is held (by a figure built on it). */
 gboolean pp_axis_taken(const pp_recognize_ctx *ctx, const pp_axis_candidate *axis);
 
+
+/* ---- Circles (wedges.c): shared by the pie, tilted-pie and radial recognizers -------- */
+/* A filled mark's subpath read as a wedge, with its share of the mark's ink. */
+typedef struct {
+  guint mark;
+  pp_wedge w;
+  double ink;
+  pp_paint paint;
+  pp_rect box; /* the mark's visible box */
+} pp_wedge_candidate;
+
+/* Every free filled mark's wedges (geometry's reading, no shared shape). */
+GArray *pp_wedge_candidates_collect(const pp_recognize_ctx *ctx);
+gboolean pp_paint_same(const pp_paint *a, const pp_paint *b);
+/* a lies in [a0, a1] modulo a turn. */
+gboolean pp_angle_within(double a, double a0, double a1);
+
+#define PP_SLICE_MAX_PARTS 8
+/* One slice (a pie wedge, a ring, a tilted pie's slice with its rim) being assembled. */
+typedef struct {
+  pp_ellipse ellipse; /* outer ellipse, centred on the slice's apex */
+  double inner;       /* inner radius / outer radius (donuts, rings) */
+  double a0, a1;      /* parametric angles, y up */
+  double offset;      /* pulled out from the common centre by this, pt */
+  pp_paint paint;
+  guint n_parts;
+  guint marks[PP_SLICE_MAX_PARTS];
+  pp_part_role roles[PP_SLICE_MAX_PARTS];
+  double inks[PP_SLICE_MAX_PARTS];
+  pp_rect box;
+  const pp_label *label; /* its printed number, NULL if none */
+  char *category;        /* owned */
+} pp_slice;
+
+void pp_slice_coords(const pp_ellipse *e, pp_point p, double *angle, double *dist);
+/* Finds each slice's printed number (inside, at a leader line's end, just beyond it, or in
+ * a legend matched by colour) and claims it (and the legend swatch) for owner. Returns
+ * how many slices got one; *legend tells whether the legend was used. */
+guint pp_slices_attach_labels(pp_recognize_ctx *ctx, GArray *slices, const char *owner,
+                              gboolean *legend);
+void pp_slices_clear(GArray *slices);
+void pp_slices_sort_clockwise(GArray *slices);
+/* The slices' angles add up to a turn within tol (share of a turn) and each ends where
+ * another starts. */
+gboolean pp_slices_tile_turn(GArray *slices, double tol);
+/* The element's value, label, share and category from its slice's printed number. */
+void pp_slice_set_value(pp_element *el, const pp_slice *s);
+/* Shares of numbers printed as values (not percentages): value / sum. */
+void pp_slices_value_shares(pp_figure *fig);
+
 /* ---- The recognizers (one file each; listed in recognizers.c) ----------------------- */
 void pp_recognize_bars(pp_recognize_ctx *ctx);          /* bars.c */
 void pp_recognize_areas(pp_recognize_ctx *ctx);         /* areas.c */
@@ -197,3 +247,6 @@ char *pp_solid_category(const pp_scene *scene, pp_rect front, double base);
 pp_rect pp_solid_frame(const pp_scene *scene, pp_rect all);
 void pp_recognize_pyramids(pp_recognize_ctx *ctx); /* pyramids.c */
 void pp_recognize_symbols(pp_recognize_ctx *ctx);  /* symbols.c */
+void pp_recognize_pies(pp_recognize_ctx *ctx);          /* pies.c */
+void pp_recognize_tilted_pies(pp_recognize_ctx *ctx);   /* tilted_pies.c */
+void pp_recognize_radial(pp_recognize_ctx *ctx);        /* radial.c */

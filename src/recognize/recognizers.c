@@ -18,6 +18,26 @@ const pp_recognizer pp_recognizers[] = {
       "two or more bodies with straight vertical sides on one floor, each with an ellipse of "
       "its width on its top edge; a fitted vertical scale beside them"},
      pp_recognize_cylinders},
+    /* Circles first: their printed shares would otherwise look like a column of ticks. */
+    {{"pies", "pies and donuts: slices of one circle whose angles tile the full turn",
+      "two or more sectors (or donut slices) of one radius about one centre, pulled-out "
+      "slices allowed, tiling 360°; judged when every slice has a printed share or value "
+      "(inside, at a leader line, or in a legend matched by colour)"},
+     pp_recognize_pies},
+    {{"tilted-pies",
+      "pies drawn tilted (ellipse top faces, with or without a rim) or in "
+      "perspective",
+      "two or more non-circular sectors sharing one apex whose angles (in the un-tilted "
+      "circle, or apparent in perspective) tile 360°; judged when every slice has a printed "
+      "share or value"},
+     pp_recognize_tilted_pies},
+    {{"radial",
+      "radial bars (concentric rings with one start) and polar-area charts (equal "
+      "angles, radius per value)",
+      "rings: two or more annular sectors about one centre, one per ring, not overlapping, "
+      "starting at one angle; polar area: three or more sectors of equal angle about one "
+      "apex tiling 360° with different radii; judged when each has a printed value"},
+     pp_recognize_radial},
     {{"bars", "bars and columns standing on a shared baseline beside a fitted value axis",
       "a fitted linear or log scale; two or more bars sharing a baseline edge, not legend "
       "keys, not overlapping across the axis, the longest at least a tenth of the tick span"},

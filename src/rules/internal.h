@@ -75,6 +75,36 @@ gboolean pp_rule_symbols_not_by_area_measure(const pp_figure *fig, const pp_thre
                                              pp_finding *f);
 char *pp_rule_symbols_not_by_area_sentence(const pp_figure *fig, const pp_finding *f,
                                            const pp_thresholds *t);
+/* ---- Shares (shares.c): pies and tilted pies ------------------------------------------ */
+/* Digits after the decimal mark of a label as printed ("12.5%" → 1). */
+int pp_label_decimals(const char *text);
+/* Each element's printed share of the whole (0–1) and half a unit of its last printed digit
+ * as a share; FALSE unless every element has a share and ink. Arrays of elements->len. */
+gboolean pp_rule_shares(const pp_figure *fig, double *printed, double *half_unit);
+
+/* ---- The rules (one file each, listed in table.c) ---------------------------------- */
+gboolean pp_rule_shares_not_100_measure(const pp_figure *fig, const pp_thresholds *t,
+                                        pp_finding *f);
+gboolean pp_rule_shares_not_100_severity(const pp_measures *m, const pp_thresholds *t,
+                                         pp_severity *severity);
+char *pp_rule_shares_not_100_sentence(const pp_figure *fig, const pp_finding *f,
+                                      const pp_thresholds *t);
+gboolean pp_rule_wedges_vs_labels_measure(const pp_figure *fig, const pp_thresholds *t,
+                                          pp_finding *f);
+char *pp_rule_wedges_vs_labels_sentence(const pp_figure *fig, const pp_finding *f,
+                                        const pp_thresholds *t);
+gboolean pp_rule_tilted_pie_ink_measure(const pp_figure *fig, const pp_thresholds *t,
+                                        pp_finding *f);
+char *pp_rule_tilted_pie_ink_sentence(const pp_figure *fig, const pp_finding *f,
+                                      const pp_thresholds *t);
+gboolean pp_rule_radial_ring_ink_measure(const pp_figure *fig, const pp_thresholds *t,
+                                         pp_finding *f);
+char *pp_rule_radial_ring_ink_sentence(const pp_figure *fig, const pp_finding *f,
+                                       const pp_thresholds *t);
+gboolean pp_rule_polar_radius_measure(const pp_figure *fig, const pp_thresholds *t,
+                                      pp_finding *f);
+char *pp_rule_polar_radius_sentence(const pp_figure *fig, const pp_finding *f,
+                                    const pp_thresholds *t);
 gboolean pp_rule_bars_vs_labels_measure(const pp_figure *fig, const pp_thresholds *t,
                                         pp_finding *f);
 char *pp_rule_bars_vs_labels_sentence(const pp_figure *fig, const pp_finding *f,

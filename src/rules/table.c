@@ -27,6 +27,24 @@ const pp_rule pp_rules[] = {
     {"symbols-not-by-area", "bubbles or symbols whose area is not proportional to their values",
      "symbols-not-by-area", PP_KIND_BIT(BUBBLE), pp_rule_symbols_not_by_area_measure, pp_rule_grade,
      pp_rule_symbols_not_by_area_sentence},
+    /* Circles: printed percentages that cannot be a whole come before any slice check. */
+    {"shares-not-100", "a pie's printed percentages do not add up to 100 within rounding",
+     "shares-not-100", PP_KIND_BIT(PIE) | PP_KIND_BIT(TILTED_PIE), pp_rule_shares_not_100_measure,
+     pp_rule_shares_not_100_severity, pp_rule_shares_not_100_sentence},
+    {"wedges-vs-labels", "pie or donut slices whose angles disagree with their printed shares",
+     "wedges-vs-labels", PP_KIND_BIT(PIE), pp_rule_wedges_vs_labels_measure, pp_rule_grade,
+     pp_rule_wedges_vs_labels_sentence},
+    {"tilted-pie-ink",
+     "a tilted or perspective pie whose front slices take more ink than "
+     "their share",
+     "tilted-pie-ink", PP_KIND_BIT(TILTED_PIE), pp_rule_tilted_pie_ink_measure, pp_rule_grade,
+     pp_rule_tilted_pie_ink_sentence},
+    {"radial-ring-ink", "radial bars whose outer rings take more ink per unit of value",
+     "radial-ring-ink", PP_KIND_BIT(RADIAL_BAR), pp_rule_radial_ring_ink_measure, pp_rule_grade,
+     pp_rule_radial_ring_ink_sentence},
+    {"polar-radius", "a polar-area chart scaled by radius, so areas grow with the value squared",
+     "polar-radius", PP_KIND_BIT(POLAR_AREA), pp_rule_polar_radius_measure, pp_rule_grade,
+     pp_rule_polar_radius_sentence},
 };
 
 const guint pp_n_rules = G_N_ELEMENTS(pp_rules);

@@ -1,0 +1,293 @@
+#!/usr/bin/python3
+"""Circle charts for the corpus, drawn by matplotlib (corpus/matplotlib/circ_*.pdf):
+pies with printed percentages, donuts (wedgeprops width) with a colour-matched legend,
+polar bars as radial bars and polar-area charts, a tilted pie drawn with affine-squeezed
+wedges and a rim, and honest lookalikes (progress ring, gauge, circular logo).
+Truth: scripts/corpus/truth_circles.py computes the expected measures from the data."""
+
+import math
+import os
+import sys
+
+import matplotlib
+
+matplotlib.use("pdf")
+import matplotlib.pyplot as plt  # noqa: E402
+from matplotlib.patches import PathPatch, Wedge, Circle  # noqa: E402
+from matplotlib.path import Path  # noqa: E402
+from matplotlib.transforms import Affine2D  # noqa: E402
+
+sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
+import truth  # noqa: E402
+
+ROOT = os.environ.get("PP_CORPUS_ROOT") or os.path.dirname(os.path.dirname(
+    os.path.dirname(os.path.abspath(__file__))))
+OUT = os.path.join(ROOT, "corpus", "matplotlib")
+PRODUCER = "matplotlib " + matplotlib.__version__
+META = {"CreationDate": None, "Creator": PRODUCER}
+SEED = 4107  # the data below is fixed, invented by hand for the Fjordhaven scenario
+
+SEGMENTS = ["Ferries", "Freight", "Harbour", "Charter", "Other"]
+FUNDS = ["Tern Bond", "Skarv Equity", "Lomvi Cash", "Alke Property"]
+COLOURS = ["#3b6ea5", "#e08a2c", "#5a9e4b", "#c4453c", "#8a6bb5", "#7f7f7f"]
+
+
+def new_fig(w=5.0, h=4.0):
+    return plt.figure(figsize=(w, h), dpi=72)
+
+
+def box(fig, artists):
+    """Union of the artists' extents in PDF points, origin top-left (dpi 72)."""
+    fig.canvas.draw()
+    h = fig.get_figheight() * 72.0
+    x0 = y0 = 1e9
+    x1 = y1 = -1e9
+    for a in artists:
+        e = a.get_window_extent()
+        x0, x1 = min(x0, e.x0), max(x1, e.x1)
+        y0, y1 = min(y0, h - e.y1), max(y1, h - e.y0)
+    return [round(x0, 2), round(y0, 2), round(x1, 2), round(y1, 2)]
+
+
+def save(fig, name, figures):
+    path = os.path.join(OUT, name + ".pdf")
+    fig.savefig(path, metadata=META)
+    plt.close(fig)
+    truth.write_truth(path, PRODUCER, SEED, 1, figures, ROOT)
+
+
+def figure(kind, bbox, values, labels, rule=None, circle=None, data_labels=None,
+           style=(), notes=None):
+    f = {"page": 1, "bbox": bbox, "kind": kind, "misleading": rule is not None,
+         "rule": rule, "values": list(values), "labels": list(labels), "axis": None,
+         "baseline": None, "data_labels": data_labels, "style": list(style)}
+    if circle is not None:
+        f["circle"] = circle
+    if notes:
+        f["notes"] = notes
+    return f
+
+
+def pct_labels(values, decimals=0):
+    total = sum(values)
+    return [round(100.0 * v / total, decimals) for v in values]
+
+
+def pie(name, values, printed, drawn=None, rule=None, donut=False, legend=False,
+        title="Revenue by segment, 2031", decimals=0, notes=None):
+    """A pie (or donut) drawn from `drawn` (default values) with `printed` percentages."""
+    drawn = drawn or values
+    fig = new_fig()
+    ax = fig.add_axes([0.05, 0.08, 0.6, 0.8])
+    ax.set_aspect("equal")
+    wp = {"width": 0.38, "edgecolor": "white", "linewidth": 1.2} if donut else \
+        {"edgecolor": "white", "linewidth": 1.0}
+    labels = SEGMENTS[:len(values)]
+    fmt = "%%.%df%%%%" % decimals
+    texts = [fmt % p for p in printed]
+    wedges, *_ = ax.pie(drawn, colors=COLOURS, startangle=90, counterclock=False,
+                        wedgeprops=wp, labels=None if legend else labels,
+                        labeldistance=1.12)
+    for w, t in zip(wedges, texts):
+        mid = math.radians((w.theta1 + w.theta2) / 2)
+        rr = 0.81 if donut else 0.62
+        ax.text(rr * math.cos(mid), rr * math.sin(mid), t, ha="center", va="center",
+                fontsize=9, color="white")
+    if legend:
+        fig.legend(wedges, ["%s %s" % (l, t) for l, t in zip(labels, texts)],
+                   loc="center right", frameon=False, fontsize=9)
+    ax.set_title(title, fontsize=11)
+    bb = box(fig, wedges)
+    circle = {"drawn_values": list(drawn), "printed": list(printed),
+              "printed_kind": "percent", "decimals": decimals,
+              "start": math.pi / 2, "direction": -1, "inner": 0.62 if donut else 0.0}
+    style = ["donut"] if donut else []
+    style += ["legend"] if legend else ["labels-inside"]
+    save(fig, name, [figure("pie", bb, values, labels, rule, circle, list(printed), style,
+                            notes)])
+
+
+def radial_bars(name, values, full, rule="radial-ring-ink", width=0.8, gap=0.25, r0=1.0):
+    """Concentric rings on polar axes, clockwise from the top; ring i's sweep stands for
+    values[i] / full of a turn."""
+    fig = new_fig(5.0, 5.0)
+    ax = fig.add_axes([0.1, 0.1, 0.8, 0.78], projection="polar")
+    ax.set_theta_zero_location("N")
+    ax.set_theta_direction(-1)
+    rings, bars = [], []
+    for i, v in enumerate(values):
+        ri = r0 + i * (width + gap)
+        sweep = 2 * math.pi * v / full
+        b = ax.bar(sweep / 2, width, width=sweep, bottom=ri, color=COLOURS[i],
+                   align="center")
+        bars.extend(b.patches)
+        rings.append([ri, ri + width])
+        ax.text(-0.02, ri + width / 2, "%s  %g" % (FUNDS[i], v), ha="right", va="center",
+                fontsize=8)
+    ax.set_ylim(0, r0 + len(values) * (width + gap))
+    ax.set_xticks([])
+    ax.set_yticks([])
+    ax.spines["polar"].set_visible(False)
+    ax.set_title("Assets under management, NOK bn (full circle = %g)" % full, fontsize=10)
+    bb = box(fig, bars)
+    circle = {"rings": rings, "full_value": full, "start": math.pi / 2, "direction": -1}
+    save(fig, name, [figure("radial-bar", bb, values, FUNDS[:len(values)], rule, circle,
+                            list(values), ["polar-axes", "data-labels"])])
+
+
+def polar_area(name, values, by_radius):
+    """Equal-angle wedges; radius ∝ value (misleading) or ∝ √value (honest)."""
+    fig = new_fig(5.0, 5.0)
+    ax = fig.add_axes([0.1, 0.1, 0.8, 0.78], projection="polar")
+    n = len(values)
+    top = max(values)
+    radii = [v / top if by_radius else math.sqrt(v / top) for v in values]
+    bars = ax.bar([2 * math.pi * (i + 0.5) / n for i in range(n)], radii,
+                  width=2 * math.pi / n, bottom=0, color=COLOURS[:n], edgecolor="white")
+    for i, (v, r) in enumerate(zip(values, radii)):
+        th = 2 * math.pi * (i + 0.5) / n
+        ax.text(th, r + 0.08, "%g" % v, ha="center", va="center", fontsize=9)
+    ax.set_ylim(0, 1.15)
+    ax.set_yticks([])
+    ax.set_xticks([2 * math.pi * (i + 0.5) / n for i in range(n)])
+    ax.set_xticklabels(SEGMENTS[:n], fontsize=8)
+    ax.set_title("Passengers by route, thousands", fontsize=10)
+    bb = box(fig, bars.patches)
+    rule = "polar-radius" if by_radius else None
+    save(fig, name, [figure("polar-area", bb, values, SEGMENTS[:n], rule,
+                            {"radii": radii}, list(values),
+                            ["polar-axes", "radius" if by_radius else "sqrt-radius"])])
+
+
+def arc_path(t0, t1, rx, ry, cx, cy):
+    """Ellipse arc between parametric angles (degrees) as matplotlib Béziers."""
+    p = Path.arc(t0, t1)
+    return [(cx + rx * x, cy + ry * y) for x, y in p.vertices], list(p.codes)
+
+
+def tilted_pie(name, values, ratio, depth, rule):
+    """A '3D' pie: wedges squeezed by `ratio`, plus a rim of `depth` (radii) under the
+    front half. Parametric angles run counter-clockwise from `start`."""
+    fig = new_fig(6.0, 4.0)
+    ax = fig.add_axes([0.05, 0.05, 0.9, 0.8])
+    ax.set_aspect("equal")
+    ax.set_xlim(-1.3, 1.3)
+    ax.set_ylim(-1.0, 0.8)
+    ax.axis("off")
+    start = 20.0
+    spans = truth.truth_circles.slice_angles(values, math.radians(start), 1)
+    squeeze = Affine2D().scale(1, ratio) + ax.transData
+    artists = []
+    for i, (t0, t1) in enumerate(spans):
+        a0, a1 = math.degrees(t0), math.degrees(t1)
+        if depth > 0:
+            for lo, hi in truth.truth_circles._arc_overlap(t0, t1, math.pi, 2 * math.pi):
+                top_v, top_c = arc_path(math.degrees(lo), math.degrees(hi), 1, ratio, 0, 0)
+                bot_v, _ = arc_path(math.degrees(lo), math.degrees(hi), 1, ratio, 0, -depth)
+                verts = top_v + bot_v[::-1] + [top_v[0]]
+                codes = top_c + [Path.LINETO] + [Path.CURVE4] * (len(bot_v) - 1) + \
+                    [Path.CLOSEPOLY]
+                shade = tuple(0.7 * int(COLOURS[i][k:k + 2], 16) / 255 for k in (1, 3, 5))
+                rim = PathPatch(Path(verts, codes), facecolor=shade, edgecolor="none")
+                ax.add_patch(rim)
+                artists.append(rim)
+        w = Wedge((0, 0), 1.0, a0, a1, facecolor=COLOURS[i], edgecolor="none",
+                  transform=squeeze)
+        ax.add_patch(w)
+        artists.append(w)
+        mid = (t0 + t1) / 2
+        ax.text(0.65 * math.cos(mid), 0.65 * ratio * math.sin(mid),
+                "%.0f%%" % (100.0 * values[i] / sum(values)), ha="center", va="center",
+                fontsize=9, color="white")
+    ax.set_title("Fleet hours by service, 2031", fontsize=11)
+    bb = box(fig, artists)
+    circle = {"ratio": ratio, "depth": depth, "start": math.radians(start), "direction": 1,
+              "printed": pct_labels(values), "printed_kind": "percent", "decimals": 0}
+    style = ["tilted"] + (["rim"] if depth > 0 else [])
+    save(fig, name, [figure("tilted-pie", bb, values, SEGMENTS[:len(values)], rule, circle,
+                            pct_labels(values), style)])
+
+
+def lookalikes():
+    # A progress ring for one value: a full grey track and one arc (honest).
+    fig = new_fig(4.0, 4.0)
+    ax = fig.add_axes([0.1, 0.1, 0.8, 0.8])
+    ax.set_aspect("equal")
+    ax.axis("off")
+    track = Wedge((0, 0), 1, 0, 360, width=0.2, facecolor="#dddddd")
+    done = Wedge((0, 0), 1, 90 - 0.68 * 360, 90, width=0.2, facecolor="#3b6ea5")
+    ax.add_patch(track)
+    ax.add_patch(done)
+    ax.text(0, 0, "68%", ha="center", va="center", fontsize=22)
+    ax.text(0, -0.35, "of 2031 emissions target", ha="center", fontsize=8)
+    ax.set_xlim(-1.1, 1.1)
+    ax.set_ylim(-1.1, 1.1)
+    bb = box(fig, [track])
+    save(fig, "circ_progress_ring", [figure("other", bb, [], [], None,
+                                            style=["progress-ring"])])
+    # A gauge: half ring in three bands and a needle (honest).
+    fig = new_fig(5.0, 3.2)
+    ax = fig.add_axes([0.05, 0.05, 0.9, 0.85])
+    ax.set_aspect("equal")
+    ax.axis("off")
+    parts = []
+    for a0, a1, c in ((120, 180, "#c4453c"), (60, 120, "#e0c02c"), (0, 60, "#5a9e4b")):
+        w = Wedge((0, 0), 1, a0, a1, width=0.3, facecolor=c, edgecolor="white")
+        ax.add_patch(w)
+        parts.append(w)
+    ax.plot([0, 0.7 * math.cos(math.radians(47))], [0, 0.7 * math.sin(math.radians(47))],
+            color="black", linewidth=3)
+    ax.add_patch(Circle((0, 0), 0.06, color="black"))
+    ax.text(0, -0.2, "Customer satisfaction 74 / 100", ha="center", fontsize=10)
+    ax.set_xlim(-1.2, 1.2)
+    ax.set_ylim(-0.35, 1.1)
+    bb = box(fig, parts)
+    save(fig, "circ_gauge", [figure("other", bb, [], [], None, style=["gauge"])])
+    # A circular logo (three ring segments and a dot) beside a letterhead.
+    fig = new_fig(6.0, 2.0)
+    ax = fig.add_axes([0.02, 0.05, 0.3, 0.9])
+    ax.set_aspect("equal")
+    ax.axis("off")
+    parts = []
+    for k, c in enumerate(("#3b6ea5", "#5a9e4b", "#e08a2c")):
+        w = Wedge((0, 0), 1, 120 * k + 10, 120 * k + 110, width=0.35, facecolor=c)
+        ax.add_patch(w)
+        parts.append(w)
+    ax.add_patch(Circle((0, 0), 0.3, color="#3b6ea5"))
+    ax.set_xlim(-1.1, 1.1)
+    ax.set_ylim(-1.1, 1.1)
+    fig.text(0.38, 0.55, "Fjordhaven Ferries ASA", fontsize=16)
+    fig.text(0.38, 0.35, "Annual report 2031 · Sustainability supplement", fontsize=9)
+    bb = box(fig, parts)
+    save(fig, "circ_logo", [figure("other", bb, [], [], None, style=["logo"])])
+
+
+def main():
+    os.makedirs(OUT, exist_ok=True)
+    v = [41.0, 27.0, 16.0, 10.0, 6.0]
+    pie("circ_pie_honest", v, pct_labels(v))
+    # Labels from the true values, angles drawn from other numbers.
+    pie("circ_pie_angles_wrong", v, pct_labels(v), drawn=[30.0, 30.0, 18.0, 12.0, 10.0],
+        rule="wedges-vs-labels")
+    # Honest angles, printed percentages that sum to 108.
+    pie("circ_pie_sum_off", v, [44.0, 29.0, 17.0, 11.0, 7.0], drawn=v,
+        rule="shares-not-100", notes="percentages printed sum to 108")
+    # One decimal, honest: the sum is 100.0 within 5 x 0.05.
+    v2 = [38.4, 25.1, 17.7, 11.2, 7.6]
+    pie("circ_pie_decimals_honest", v2, pct_labels(v2, 1), decimals=1)
+    v3 = [46.0, 31.0, 15.0, 8.0]
+    pie("circ_donut_honest", v3, pct_labels(v3), donut=True, legend=True,
+        title="Fund mix, 2031")
+    pie("circ_donut_angles_wrong", v3, pct_labels(v3), drawn=[34.0, 33.0, 20.0, 13.0],
+        donut=True, legend=True, rule="wedges-vs-labels", title="Fund mix, 2031")
+    radial_bars("circ_radial_bars", [62.0, 48.0, 35.0, 21.0], 80.0)
+    polar_area("circ_polar_radius", [120.0, 80.0, 60.0, 35.0, 25.0], True)
+    polar_area("circ_polar_sqrt_honest", [120.0, 80.0, 60.0, 35.0, 25.0], False)
+    v4 = [34.0, 26.0, 18.0, 14.0, 8.0]
+    tilted_pie("circ_tilted_rim", v4, 0.42, 0.16, "tilted-pie-ink")
+    tilted_pie("circ_tilted_flat_honest", v4, 0.42, 0.0, None)
+    lookalikes()
+
+
+if __name__ == "__main__":
+    main()

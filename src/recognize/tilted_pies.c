@@ -1,0 +1,213 @@
+/* tilted_pies.c — recognizer: pies drawn tilted ("3D") or in perspective. Top faces are
+ * sectors sharing one apex; when they are ellipse sectors the tilt is the axis ratio and
+ * every slice is re-read on the pie's shared ellipse, so its angle is the angle in the
+ * un-tilted circle; when they are not (perspective) the apparent angles must still tile
+ * the turn. Rims (bands under the front half) join the slice above them. */
+#include <math.h>
+
+#include "internal.h"
+
+#define OWNER "tilted-pies"
+
+/* Top faces of one pie share their apex within this distance, pt (one point written by
+ * the producer for every slice; common practice, no source). */
+#define PP_TILT_SAME_APEX 0.5
+/* An ellipse sector fits its arc within this share of the radius; worse is perspective
+ * (arc Béziers are exact to ~1e-4; a pinhole view bends them by percents). Derived from
+ * tests/geometry and the perspective corpus pies. */
+#define PP_TILT_ELLIPSE_FIT 0.003
+/* Tiling tolerance (share of a turn): exact ellipse angles, or apparent angles read from
+ * per-slice fits in perspective. Common practice, no source. */
+#define PP_TILT_TILE_TOL 0.002
+#define PP_PERSPECTIVE_TILE_TOL 0.03
+/* A rim's top arc is centred on the pie's apex within this distance, pt. */
+#define PP_RIM_SAME_CENTRE 2.0
+
+static gboolean tilted_seed(const pp_wedge_candidate *c) {
+  return c->w.kind == PP_WEDGE_SECTOR && c->w.shape_fitted &&
+         (c->w.outer.ry / c->w.outer.rx < PP_CIRCLE_AXIS_RATIO ||
+          c->w.fit_error > PP_TILT_ELLIPSE_FIT);
+}
+
+/* The apparent angle of the slice's arc ends about its apex (perspective). */
+static void apparent_angles(const pp_wedge *w, double *a0, double *a1) {
+  pp_point p0 = pp_ellipse_point(&w->outer, w->a0), p1 = pp_ellipse_point(&w->outer, w->a1);
+  pp_point c = w->outer.centre;
+  double t0 = atan2(-(p0.y - c.y), p0.x - c.x), t1 = atan2(-(p1.y - c.y), p1.x - c.x);
+  double sweep = fmod(t1 - t0 + 4 * G_PI, 2 * G_PI);
+  t0 = fmod(t0 + 2 * G_PI, 2 * G_PI);
+  *a0 = t0;
+  *a1 = t0 + sweep;
+}
+
+static pp_slice slice_of(const pp_wedge_candidate *c, const pp_wedge *w) {
+  pp_slice s = {0};
+  s.ellipse = w->outer;
+  s.a0 = w->a0;
+  s.a1 = w->a1;
+  s.paint = c->paint;
+  s.n_parts = 1;
+  s.marks[0] = c->mark;
+  s.roles[0] = PP_PART_TOP;
+  s.inks[0] = c->ink;
+  s.box = c->box;
+  return s;
+}
+
+/* The mark's wedge of the given subpath, re-read on the pie's ellipse. */
+static gboolean reread(const pp_scene *scene, guint mark, guint subpath, const pp_ellipse *shape,
+                       pp_wedge *out) {
+  const pp_mark *m = g_ptr_array_index(scene->marks, mark);
+  g_autoptr(GArray) ws = pp_path_wedges(m->path, TRUE, shape);
+  for (guint k = 0; k < ws->len; k++)
+    if (g_array_index(ws, pp_wedge, k).subpath == subpath) {
+      *out = g_array_index(ws, pp_wedge, k);
+      return TRUE;
+    }
+  return FALSE;
+}
+
+/* Bands under the front half whose top arc lies on the pie's ellipse: each joins the
+ * slice whose angles hold its middle. */
+static void add_rims(pp_recognize_ctx *ctx, GArray *cands, GArray *slices, const pp_ellipse *shape,
+                     const gboolean *member) {
+  for (guint i = 0; i < cands->len; i++) {
+    const pp_wedge_candidate *c = &g_array_index(cands, pp_wedge_candidate, i);
+    if (member[i] || c->w.kind != PP_WEDGE_BAND || !pp_claims_mark_free(ctx->claims, c->mark))
+      continue;
+    pp_wedge w;
+    if (!reread(ctx->scene, c->mark, c->w.subpath, shape, &w) || w.kind != PP_WEDGE_BAND ||
+        hypot(w.outer.centre.x - shape->centre.x, w.outer.centre.y - shape->centre.y) >
+            PP_RIM_SAME_CENTRE)
+      continue;
+    double mid = (w.a0 + w.a1) / 2;
+    for (guint k = 0; k < slices->len; k++) {
+      pp_slice *s = &g_array_index(slices, pp_slice, k);
+      if (pp_angle_within(mid, s->a0, s->a1) && s->n_parts < PP_SLICE_MAX_PARTS) {
+        s->marks[s->n_parts] = c->mark;
+        s->roles[s->n_parts] = PP_PART_RIM;
+        s->inks[s->n_parts++] = c->ink;
+        s->box = pp_rect_union(s->box, c->box);
+        break;
+      }
+    }
+  }
+}
+
+static void build(pp_recognize_ctx *ctx, GArray *slices, gboolean perspective,
+                  const pp_ellipse *shape) {
+  pp_claims_begin(ctx->claims);
+  for (guint k = 0; k < slices->len; k++) {
+    pp_slice *s = &g_array_index(slices, pp_slice, k);
+    for (guint p = 0; p < s->n_parts; p++)
+      pp_claims_take_mark_if_free(ctx->claims, s->marks[p], OWNER);
+  }
+  gboolean legend = FALSE;
+  guint labelled = pp_slices_attach_labels(ctx, slices, OWNER, &legend);
+  pp_slices_sort_clockwise(slices);
+  pp_figure *fig = pp_figure_new(PP_FIGURE_TILTED_PIE);
+  fig->recognizer = OWNER;
+  fig->projection.kind = perspective ? PP_PROJECTION_PERSPECTIVE : PP_PROJECTION_TILTED;
+  fig->projection.ratio = shape->ry / shape->rx;
+  gboolean rim = FALSE;
+  for (guint k = 0; k < slices->len; k++) {
+    const pp_slice *s = &g_array_index(slices, pp_slice, k);
+    pp_element el = pp_element_init(PP_ENCODING_SHARE);
+    el.shape.kind = PP_SHAPE_SECTOR;
+    el.shape.sector.centre = s->ellipse.centre;
+    el.shape.sector.rx = s->ellipse.rx;
+    el.shape.sector.ry = s->ellipse.ry;
+    el.shape.sector.a0 = s->a0;
+    el.shape.sector.a1 = s->a1;
+    for (guint p = 0; p < s->n_parts; p++) {
+      pp_element_add_part(&el, s->marks[p], s->roles[p], s->inks[p]);
+      el.ink += s->inks[p];
+      rim = rim || s->roles[p] == PP_PART_RIM;
+    }
+    el.extent = s->a1 - s->a0;
+    el.box = s->box;
+    el.series = k;
+    pp_slice_set_value(&el, s);
+    fig->bbox = pp_rect_union(fig->bbox, s->box);
+    g_array_append_val(fig->elements, el);
+  }
+  pp_slices_value_shares(fig);
+  fig->n_series = fig->elements->len;
+  pp_figure_add_evidence(fig, "wedges-tile-turn", 0.9);
+  if (rim)
+    pp_figure_add_evidence(fig, "rim", 0.5);
+  if (labelled == slices->len) {
+    pp_figure_add_evidence(fig, legend ? "legend" : "percent-labels", 0.9);
+  } else {
+    fig->judged = FALSE;
+    fig->not_judged_reason = g_strdup("slices without a printed share or value");
+  }
+  pp_claims_commit(ctx->claims);
+  pp_figure_finish(ctx, fig, NULL);
+}
+
+void pp_recognize_tilted_pies(pp_recognize_ctx *ctx) {
+  g_autoptr(GArray) cands = pp_wedge_candidates_collect(ctx);
+  gboolean *used = g_new0(gboolean, MAX(cands->len, 1));
+  g_autoptr(GArray) slices = g_array_new(FALSE, FALSE, sizeof(pp_slice));
+  for (guint i = 0; i < cands->len; i++) {
+    const pp_wedge_candidate *a = &g_array_index(cands, pp_wedge_candidate, i);
+    if (used[i] || !tilted_seed(a))
+      continue;
+    gboolean *member = g_new0(gboolean, cands->len);
+    guint best = i, n = 0;
+    for (guint j = 0; j < cands->len; j++) {
+      const pp_wedge_candidate *b = &g_array_index(cands, pp_wedge_candidate, j);
+      if (used[j] || b->w.kind != PP_WEDGE_SECTOR ||
+          hypot(a->w.outer.centre.x - b->w.outer.centre.x,
+                a->w.outer.centre.y - b->w.outer.centre.y) > PP_TILT_SAME_APEX)
+        continue;
+      member[j] = used[j] = TRUE;
+      n++;
+      const pp_wedge_candidate *cb = &g_array_index(cands, pp_wedge_candidate, best);
+      if (b->w.shape_fitted && b->w.fit_error < cb->w.fit_error + 1e-3 &&
+          b->w.a1 - b->w.a0 > cb->w.a1 - cb->w.a0)
+        best = j;
+    }
+    pp_ellipse shape = g_array_index(cands, pp_wedge_candidate, best).w.outer;
+    gboolean perspective = FALSE;
+    pp_slices_clear(slices);
+    for (guint j = 0; j < cands->len && n >= 2; j++) {
+      if (!member[j])
+        continue;
+      const pp_wedge_candidate *c = &g_array_index(cands, pp_wedge_candidate, j);
+      pp_wedge w;
+      if (!reread(ctx->scene, c->mark, c->w.subpath, &shape, &w))
+        w = c->w;
+      if (w.fit_error > PP_TILT_ELLIPSE_FIT)
+        perspective = TRUE;
+      pp_slice s = slice_of(c, &w);
+      g_array_append_val(slices, s);
+    }
+    if (perspective) {
+      /* Not an ellipse: the apparent angles of each slice's own arc must tile the turn. */
+      guint k = 0;
+      for (guint j = 0; j < cands->len; j++) {
+        if (!member[j])
+          continue;
+        pp_slice *s = &g_array_index(slices, pp_slice, k++);
+        const pp_wedge *w = &g_array_index(cands, pp_wedge_candidate, j).w;
+        apparent_angles(w, &s->a0, &s->a1);
+        /* Labels are found about the apex in the page's own circle. */
+        s->ellipse = (pp_ellipse){w->outer.centre, fmax(w->outer.rx, w->outer.ry),
+                                  fmax(w->outer.rx, w->outer.ry), 0};
+      }
+    }
+    gboolean ok =
+        slices->len >= 2 &&
+        pp_slices_tile_turn(slices, perspective ? PP_PERSPECTIVE_TILE_TOL : PP_TILT_TILE_TOL);
+    if (ok) {
+      if (!perspective)
+        add_rims(ctx, cands, slices, &shape, member);
+      build(ctx, slices, perspective, &shape);
+    }
+    g_free(member);
+  }
+  pp_slices_clear(slices);
+  g_free(used);
+}
