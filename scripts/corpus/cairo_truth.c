@@ -20,8 +20,8 @@ static void figure_free(gpointer p)
   }
   g_ptr_array_unref(fig->styles);
   g_free(fig->note);
-  g_free(fig->shape_json);
   g_free(fig->expected_json);
+  g_free(fig->extra_json);
   g_free(fig);
 }
 
@@ -253,8 +253,6 @@ static void json_figure(GString *s, const pp_gen_figure *f)
     }
     g_string_append_c(s, ']');
   }
-  if (f->shape_json)
-    g_string_append_printf(s, ",\n      %s", f->shape_json);
   g_string_append(s, ",\n      \"expected\": ");
   if (f->expected_json) {
     g_string_append(s, f->expected_json);
@@ -280,6 +278,8 @@ static void json_figure(GString *s, const pp_gen_figure *f)
     g_string_append(s, ",\n      \"notes\": ");
     json_string(s, f->note);
   }
+  if (f->extra_json)
+    g_string_append_printf(s, ",\n      %s", f->extra_json);
   g_string_append(s, "\n    }");
 }
 

@@ -34,10 +34,10 @@ typedef struct {
   GPtrArray *series_values; /* GArray* of double, parallel to series_names */
   GPtrArray *styles;
   char *note; /* written as "notes" (docs/corpus.md) */
-  /* Shape figures (docs/corpus.md, "Shape charts"): members written verbatim before
-   * "expected" ("\"solid\": {...}"), and the expected object itself; NULL = none. */
-  char *shape_json;
+  /* Shape figures (docs/corpus.md, "Shape charts"): the expected object written verbatim
+   * instead of the bar measures; NULL = none. */
   char *expected_json;
+  char *extra_json; /* raw members written last ("\"circle\": {...}"), NULL = none */
 } pp_gen_figure;
 
 typedef struct {

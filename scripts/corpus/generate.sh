@@ -14,6 +14,12 @@ else
 	echo "skip matplotlib: /usr/bin/python3 with matplotlib not found" >&2
 fi
 
+if [ -x "$py" ] && "$py" -c 'import matplotlib' 2>/dev/null; then
+	"$py" "$here/gen_lookalikes.py" || status=1
+else
+	echo "skip lookalikes: /usr/bin/python3 with matplotlib not found" >&2
+fi
+
 if command -v gnuplot >/dev/null 2>&1 && [ -x "$py" ]; then
 	"$py" "$here/gen_gnuplot.py" || status=1
 	"$py" "$here/gen_shapes_gnuplot.py" || status=1
@@ -66,7 +72,7 @@ else
 	echo "skip cairo circles: python3-cairo not installed" >&2
 fi
 
-for d in matplotlib gnuplot r libreoffice pgfplots cairo; do
+for d in matplotlib gnuplot r libreoffice pgfplots cairo lookalikes; do
 	if [ -d "$root/corpus/$d" ]; then
 		"$py" "$here/truth.py" check "$root/corpus/$d" || status=1
 	fi

@@ -119,7 +119,7 @@ void pp_demo_bars_3d(cairo_t *cr, pp_gen_truth *truth, int page, double x, doubl
   f->baseline = 0;
   pp_gen_figure_add_style(f, "oblique");
   pp_gen_figure_add_style(f, "gridlines");
-  f->shape_json = g_strdup_printf("\"solid\": {\"projection\": \"oblique\", \"front_width\": %.9g, "
+  f->extra_json = g_strdup_printf("\"solid\": {\"projection\": \"oblique\", \"front_width\": %.9g, "
                                   "\"depth\": [%.9g, %.9g], \"base\": 0.0}",
                                   bw, dx, dy / k);
   double share = 0;
@@ -175,7 +175,7 @@ void pp_demo_pyramid(cairo_t *cr, pp_gen_truth *truth, int page, double x, doubl
     nums(s, shape[i], 3);
   }
   g_string_append(s, "], \"solid\": \"cone\", \"order\": \"top-to-bottom\"}");
-  f->shape_json = g_string_free(s, FALSE);
+  f->extra_json = g_string_free(s, FALSE);
   double ta = 0, tvol = 0, infl[4], vinfl[4], ashare[4], vshare[4], volshare[4];
   for (int i = 0; i < n; i++)
     ta += areas[i], tvol += vols[i];
@@ -242,7 +242,7 @@ void pp_demo_bubbles(cairo_t *cr, pp_gen_truth *truth, int page, double x, doubl
   GString *s = g_string_new("\"symbols\": {\"measure\": \"radius\", \"sizes\": ");
   nums(s, r, n);
   g_string_append(s, ", \"shape\": \"circle\"}");
-  f->shape_json = g_string_free(s, FALSE);
+  f->extra_json = g_string_free(s, FALSE);
   /* least squares of log(area) on log(value) */
   double mx = 0, my = 0, sxx = 0, sxy = 0, syy = 0;
   for (int i = 0; i < n; i++)

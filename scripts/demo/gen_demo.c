@@ -461,6 +461,137 @@ static void page_segments(demo *d)
   body(d, MARGIN, a.y + a.h + 40, CONTENT_W, 2);
 }
 
+/* A pie: slices clockwise from 12 o'clock with the angles of drawn[], the percentages
+ * printed[] inside and the names beside. Records a "pie" truth figure; expected lie factor:
+ * the worst slice's drawn share over its printed share (scripts/corpus/truth_circles.py). */
+static void pie_chart(demo *d, const char *title, double cx, double cy, double r, int n,
+                      const char *const *names, const double *values, const double *drawn,
+                      const double *printed) {
+  static const double colours[][3] = {
+      {0.07, 0.18, 0.33}, {0.18, 0.49, 0.64}, {0.55, 0.72, 0.8}, {0.85, 0.55, 0.2}};
+  cairo_t *cr = d->cr;
+  double total = 0, a = -G_PI / 2;
+  for (int i = 0; i < n; i++)
+    total += drawn[i];
+  pp_gen_font(cr, 10, TRUE);
+  set_rgb(cr, navy);
+  pp_gen_text_at(cr, title, cx - r, cy - r - 28, 0, 0);
+  int worst = 0;
+  for (int i = 0; i < n; i++) {
+    double sw = 2 * G_PI * drawn[i] / total, mid = a + sw / 2;
+    cairo_new_path(cr);
+    cairo_move_to(cr, cx, cy);
+    cairo_arc(cr, cx, cy, r, a, a + sw);
+    cairo_close_path(cr);
+    set_rgb(cr, colours[i % 4]);
+    cairo_fill(cr);
+    char buf[32];
+    g_snprintf(buf, sizeof buf, "%.0f%%", printed[i]);
+    pp_gen_font(cr, 9, TRUE);
+    cairo_set_source_rgb(cr, 1, 1, 1);
+    pp_gen_text_at(cr, buf, cx + 0.62 * r * cos(mid), cy + 0.62 * r * sin(mid), 0.5, 0.5);
+    pp_gen_font(cr, 8.5, FALSE);
+    cairo_set_source_rgb(cr, 0.2, 0.2, 0.25);
+    pp_gen_text_at(cr, names[i], cx + 1.12 * r * cos(mid), cy + 1.12 * r * sin(mid),
+                   cos(mid) >= 0 ? 0 : 1, 0.5);
+    double dw = drawn[i] / total, pw = printed[i] / 100, dw0 = drawn[worst] / total,
+           pw0 = printed[worst] / 100;
+    if (fabs(log(dw / pw)) > fabs(log(dw0 / pw0)))
+      worst = i;
+    a += sw;
+  }
+  pp_gen_figure *f = pp_gen_truth_add(d->doc->truth, d->doc->page, "pie");
+  pp_gen_figure_set_bbox(f, cx - r, cy - r, 2 * r, 2 * r);
+  f->misleading = TRUE;
+  f->rule = "wedges-vs-labels";
+  GString *circle = g_string_new("\"circle\": {\"drawn_values\": [");
+  for (int i = 0; i < n; i++) {
+    g_array_append_val(f->values, values[i]);
+    g_ptr_array_add(f->labels, g_strdup(names[i]));
+    g_string_append_printf(circle, "%s%g", i ? ", " : "", drawn[i]);
+  }
+  g_string_append(circle, "], \"printed\": [");
+  f->data_labels = g_array_new(FALSE, FALSE, sizeof(double));
+  for (int i = 0; i < n; i++) {
+    g_array_append_val(f->data_labels, printed[i]);
+    g_string_append_printf(circle, "%s%g", i ? ", " : "", printed[i]);
+  }
+  g_string_append(circle, "], \"printed_kind\": \"percent\", \"decimals\": 0}");
+  f->extra_json = g_string_free(circle, FALSE);
+  f->has_expected = TRUE;
+  f->expected =
+      (pp_gen_measures){(drawn[worst] / total) / (printed[worst] / 100), NAN, NAN, NAN, NAN};
+  pp_gen_figure_add_style(f, "multi-chart-page");
+}
+
+/* Radial bars: rings of equal width clockwise from 12 o'clock, the innermost first, each
+ * sweep value/full of a turn, "name value" printed at each ring's start. Expected lie
+ * factor: the outer ring's ink per unit over the inner's, (R₄² − r₄²)/(R₁² − r₁²). */
+static void radial_chart(demo *d, const char *title, double cx, double cy, int n,
+                         const char *const *names, const double *values, double full) {
+  cairo_t *cr = d->cr;
+  const double r0 = 34, width = 13, gap = 5;
+  pp_gen_font(cr, 10, TRUE);
+  set_rgb(cr, navy);
+  double ro = r0 + n * (width + gap) - gap;
+  pp_gen_text_at(cr, title, cx - ro, cy - ro - 28, 0, 0);
+  for (int i = 0; i < n; i++) {
+    double ri = r0 + i * (width + gap), sw = 2 * G_PI * values[i] / full;
+    cairo_new_path(cr);
+    cairo_arc(cr, cx, cy, ri + width, -G_PI / 2, -G_PI / 2 + sw);
+    cairo_arc_negative(cr, cx, cy, ri, -G_PI / 2 + sw, -G_PI / 2);
+    cairo_close_path(cr);
+    cairo_set_source_rgb(cr, 0.18 + 0.12 * i, 0.49 - 0.05 * i, 0.64 - 0.08 * i);
+    cairo_fill(cr);
+    char buf[64];
+    g_snprintf(buf, sizeof buf, "%s %g%%", names[i], values[i]);
+    pp_gen_font(cr, 7.5, FALSE);
+    cairo_set_source_rgb(cr, 0.2, 0.2, 0.25);
+    pp_gen_text_at(cr, buf, cx - 5, cy - ri - width / 2, 1, 0.5);
+  }
+  pp_gen_figure *f = pp_gen_truth_add(d->doc->truth, d->doc->page, "radial-bar");
+  pp_gen_figure_set_bbox(f, cx - ro, cy - ro, 2 * ro, 2 * ro);
+  f->misleading = TRUE;
+  f->rule = "radial-ring-ink";
+  GString *circle = g_string_new("\"circle\": {\"rings\": [");
+  f->data_labels = g_array_new(FALSE, FALSE, sizeof(double));
+  for (int i = 0; i < n; i++) {
+    double ri = r0 + i * (width + gap);
+    g_array_append_val(f->values, values[i]);
+    g_array_append_val(f->data_labels, values[i]);
+    g_ptr_array_add(f->labels, g_strdup(names[i]));
+    g_string_append_printf(circle, "%s[%g, %g]", i ? ", " : "", ri, ri + width);
+  }
+  g_string_append_printf(circle, "], \"full_value\": %g}", full);
+  f->extra_json = g_string_free(circle, FALSE);
+  double rin = r0, rout = r0 + (n - 1) * (width + gap);
+  f->has_expected = TRUE;
+  f->expected = (pp_gen_measures){((rout + width) * (rout + width) - rout * rout) /
+                                      ((rin + width) * (rin + width) - rin * rin),
+                                  NAN, NAN, NAN, NAN};
+  pp_gen_figure_add_style(f, "multi-chart-page");
+}
+
+/* Revenue mix (a pie whose angles were drawn from last year's mix: its labels are this
+ * year's) and progress on targets as radial bars; then the risk section's text. */
+static void page_mix(demo *d) {
+  next_page(d, "Revenue mix and targets");
+  double y = heading(d, "Revenue mix and targets", 60);
+  static const char *segs[] = {"Passenger", "Freight", "Harbour"};
+  static const double revenue[] = {71.8, 49.6, 18.8};
+  static const double drawn[] = {44, 34, 22};
+  static const double printed[] = {51, 35, 13};
+  pie_chart(d, "Revenue by segment, 2031", MARGIN + 110, y + 130, 85, 3, segs, revenue, drawn,
+            printed);
+  static const char *targets[] = {"Shore power", "Electric ferries", "Waste recycled",
+                                  "Biofuel share"};
+  static const double progress[] = {72, 58, 44, 30};
+  radial_chart(d, "Progress to 2035 targets (full circle = 100%)", MARGIN + 365, y + 130, 4,
+               targets, progress, 100);
+  y = heading(d, "Risk management", y + 290);
+  body(d, MARGIN, y, CONTENT_W, 4);
+}
+
 static void page_text(demo *d, const char *section, int paras)
 {
   next_page(d, section);
@@ -592,7 +723,7 @@ int main(int argc, char **argv)
   page_people(&d);
   page_five_year(&d);
   page_segments(&d);
-  page_text(&d, "Risk management", 8);
+  page_mix(&d);
   page_shareholders(&d);
   page_statements(&d);
   page_text(&d, "Notes", 9);

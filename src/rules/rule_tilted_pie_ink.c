@@ -45,7 +45,10 @@ gboolean pp_rule_tilted_pie_ink_measure(const pp_figure *fig, const pp_threshold
       if (g[i] / p[i] > g[worst] / p[worst])
         worst = i;
     m->lie_factor = g[worst] / p[worst];
-    m->lie_factor_change = m->gdi = NAN;
+    /* Tufte's change form and the GDI on the worst pair (from the printed shares' ink). */
+    guint a = m->pair_j, b = m->pair_i;
+    m->lie_factor_change = pp_lie_factor_change(p[a], p[b], g[a], g[b]);
+    m->gdi = pp_gdi(p[a], p[b], g[a], g[b]);
     m->first = m->last = worst;
   }
   g_free(p), g_free(h), g_free(g), g_free(top);

@@ -48,6 +48,10 @@ gboolean pp_rule_wedges_vs_labels_measure(const pp_figure *fig, const pp_thresho
         m->pair_j = j;
       }
     }
+  /* Tufte's change form and the GDI on the worst pair (printed → drawn). */
+  guint a = m->pair_j, b = m->pair_i;
+  m->lie_factor_change = pp_lie_factor_change(p[a], p[b], d[a], d[b]);
+  m->gdi = pp_gdi(p[a], p[b], d[a], d[b]);
   g_free(p), g_free(h), g_free(d);
   return TRUE;
 }
