@@ -162,7 +162,7 @@ def _pyramid(fig):
         "value_share": [_r(x / tv) for x in v],
         "solid": sl.get("solid", "cone"),
         "volume_share": [_r(x / tvol) for x in vols],
-        "volume_lie_factor": _r(max(vinfl) / min(vinfl)),
+        "volume_ratio": _r(max(vinfl) / min(vinfl)),
         "baseline": None,
     }
 

@@ -200,7 +200,7 @@ void pp_demo_pyramid(cairo_t *cr, pp_gen_truth *truth, int page, double x, doubl
   nums(e, vshare, n);
   g_string_append(e, ", \"solid\": \"cone\", \"volume_share\": ");
   nums(e, volshare, n);
-  g_string_append(e, ", \"volume_lie_factor\": ");
+  g_string_append(e, ", \"volume_ratio\": ");
   num(e, vmax / vmin);
   g_string_append(e, ", \"baseline\": null}");
   f->expected_json = g_string_free(e, FALSE);

@@ -7,7 +7,7 @@
  *   [output]       output=out/  html=pack/  csv=all.csv  sarif=all.sarif  annotate=true
  *   [scan]         timeout=120  baseline=accepted.ini
  *   [rules]        bars-on-log=false            (a rule off)
- *   [rule bars-off-zero]  min-severity=material (per-rule option)
+ *   [rule bars-off-zero]  min-severity=major (per-rule option)
  */
 #include <stdio.h>
 #include <string.h>

@@ -38,7 +38,7 @@ static void print_help(FILE *out) {
           "                         files are then written only if --output is given\n"
           "      --timeout SECONDS  per document (default %d)\n"
           "      --lie-band LOW:HIGH  Lie Factor band taken as faithful (default 0.95:1.05)\n"
-          "      --gdi-limit PCT    Graph Discrepancy Index materiality, percent (default 10)\n"
+          "      --gdi-limit PCT    Graph Discrepancy Index limit, percent (default 10)\n"
           "      --html DIR         review pack: index, one page per document with crops\n"
           "      --annotate         DIR/<name>.annotated.pdf with a note on each flagged figure\n"
           "      --csv FILE         one row per finding for the batch (spreadsheet-safe)\n"
@@ -213,7 +213,7 @@ static int parse_options(int argc, char **argv, command cmd, pp_cli_options *opt
       scan_only = TRUE;
       if (!parse_double(optarg, &v) || v <= 0)
         return usage_error("--gdi-limit wants a positive percentage, not '%s'", optarg);
-      opt->thresholds.gdi_material = v;
+      opt->thresholds.gdi_limit = v;
       break;
     }
     case OPT_PAGE:

@@ -37,7 +37,14 @@ void pp_summary_count_document(JsonObject *report, pp_summary_totals *t) {
   t->pages += member_int(totals, "pages");
   t->figures += member_int(totals, "figures");
   t->findings += member_int(totals, "findings");
-  for (int s = PP_SEVERITY_NOTE; s <= PP_SEVERITY_GROSS; s++)
+  JsonObject *th = member_object(report, "thresholds");
+  JsonNode *gl = th ? json_object_get_member(th, "gdi_limit_percent") : NULL;
+  JsonNode *sf = th ? json_object_get_member(th, "severe_factor") : NULL;
+  if (gl && JSON_NODE_HOLDS_VALUE(gl))
+    t->gdi_limit = json_node_get_double(gl);
+  if (sf && JSON_NODE_HOLDS_VALUE(sf))
+    t->severe_factor = json_node_get_double(sf);
+  for (int s = PP_SEVERITY_MINOR; s <= PP_SEVERITY_SEVERE; s++)
     t->by_severity[s] += member_int(sev, pp_severity_name(s));
 }
 
@@ -95,9 +102,11 @@ void pp_summary_print_document(JsonObject *report, const char *path, const char 
   JsonArray *list = member_array(report, "findings");
   for (guint i = 0; list && i < json_array_get_length(list); i++) {
     JsonObject *f = json_array_get_object_element(list, i);
-    printf("  page %-3" G_GINT64_FORMAT " %-8s %s: %s\n", member_int(f, "page"),
-           member_string(f, "severity") ? member_string(f, "severity") : "?",
-           member_string(f, "rule") ? member_string(f, "rule") : "?",
+    const char *title = member_string(f, "figure_title"), *fig = member_string(f, "figure_id");
+    printf("  page %-3" G_GINT64_FORMAT " %-8s %s %s%s%s [figure %.8s]: %s\n",
+           member_int(f, "page"), member_string(f, "severity") ? member_string(f, "severity") : "?",
+           member_string(f, "rule") ? member_string(f, "rule") : "?", title ? "\"" : "",
+           title ? title : "untitled", title ? "\"" : "", fig ? fig : "?",
            member_string(f, "message") ? member_string(f, "message") : "");
   }
   print_coverage(member_array(report, "pages"));
@@ -111,9 +120,14 @@ void pp_summary_print_total(const pp_summary_totals *t) {
          plural(t->figures, "figure", "figures"), t->findings,
          plural(t->findings, "finding", "findings"));
   if (t->findings)
-    printf(" (%u %s, %u %s, %u %s)", t->by_severity[PP_SEVERITY_GROSS],
-           pp_severity_name(PP_SEVERITY_GROSS), t->by_severity[PP_SEVERITY_MATERIAL],
-           pp_severity_name(PP_SEVERITY_MATERIAL), t->by_severity[PP_SEVERITY_NOTE],
-           pp_severity_name(PP_SEVERITY_NOTE));
-  printf(".\n%s\n", PP_REPORT_DISCLAIMER);
+    printf(" (%u %s, %u %s, %u %s)", t->by_severity[PP_SEVERITY_SEVERE],
+           pp_severity_name(PP_SEVERITY_SEVERE), t->by_severity[PP_SEVERITY_MAJOR],
+           pp_severity_name(PP_SEVERITY_MAJOR), t->by_severity[PP_SEVERITY_MINOR],
+           pp_severity_name(PP_SEVERITY_MINOR));
+  printf(".\n");
+  if (t->findings && t->severe_factor > 0)
+    printf("Severity: minor = the ink misstates a value by under %g%%, major = by %g%% up to "
+           "%g×, severe = by %g× or more (worst pair of elements).\n",
+           t->gdi_limit, t->gdi_limit, t->severe_factor, t->severe_factor);
+  printf("%s\n", PP_REPORT_DISCLAIMER);
 }

@@ -6,7 +6,8 @@
 
 typedef struct {
   guint documents, failed, pages, figures, findings;
-  guint by_severity[3]; /* indexed by pp_severity */
+  guint by_severity[3];            /* indexed by pp_severity */
+  double gdi_limit, severe_factor; /* from the findings files, for the severity line */
 } pp_summary_totals;
 
 /* Prints one document's block and adds its counts to totals. output_file may be NULL. */

@@ -14,7 +14,9 @@ static char *note_text(JsonObject *doc, JsonObject *f) {
   if (title)
     g_string_append_printf(s, "Figure: %s\n", title);
   g_string_append_printf(s, "%s\n", pp_rv_finding_headline(f));
-  char *lf = pp_rv_format_value(pp_rv_num(m, "lie_factor_change"));
+  if (pp_rv_str(f, "headline") && pp_rv_str(f, "message"))
+    g_string_append_printf(s, "%s\n", pp_rv_str(f, "message"));
+  char *lf = pp_rv_format_value(pp_rv_lie_factor(m));
   char *gdi = pp_rv_format_value(pp_rv_num(m, "gdi"));
   char *base = pp_rv_format_value(pp_rv_num(m, "baseline_value"));
   char *pair = pp_rv_format_value(pp_rv_num(m, "max_pair_departure"));

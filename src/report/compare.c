@@ -31,7 +31,7 @@ static void add_brief(JsonBuilder *b, JsonObject *doc, JsonObject *f) {
   pp_json_member_string(b, "rule", pp_rv_str(f, "rule"));
   pp_json_member_string(b, "severity", pp_rv_str(f, "severity"));
   pp_json_member_string(b, "headline", pp_rv_finding_headline(f));
-  pp_json_member_number(b, "lie_factor", pp_rv_num(pp_rv_obj(f, "measures"), "lie_factor_change"));
+  pp_json_member_number(b, "lie_factor", pp_rv_lie_factor(pp_rv_obj(f, "measures")));
   json_builder_end_object(b);
 }
 

@@ -11,10 +11,10 @@ struct pp_csv_writer {
 };
 
 static const char *const columns[] = {
-    "document",   "sha256",       "page",        "figure_id",      "figure_title",  "rule",
-    "severity",   "status",       "accepted_by", "accepted_why",   "accepted_when", "headline",
-    "lie_factor", "growth_ratio", "gdi_percent", "baseline_value", "worst_pair",    "x0",
-    "y0",         "x1",           "y1",          "finding_id",
+    "document", "sha256",     "page",         "figure_id",    "figure_title",   "rule",
+    "severity", "status",     "accepted_by",  "accepted_why", "accepted_when",  "headline",
+    "detail",   "lie_factor", "growth_ratio", "gdi_percent",  "baseline_value", "worst_pair",
+    "x0",       "y0",         "x1",           "y1",           "finding_id",
 };
 
 /* OWASP's CSV-injection guidance: a cell starting with = + - @ (or tab, CR) may be
@@ -90,8 +90,9 @@ static void add_row(pp_csv_writer *w, JsonObject *doc, JsonObject *f, const char
   add_text(row, acc ? acc->why : NULL);
   add_text(row, acc ? acc->when : NULL);
   add_text(row, pp_rv_finding_headline(f));
-  add_number(row, pp_rv_num(m, "lie_factor_change"));
-  add_number(row, pp_rv_num(m, "lie_factor"));
+  add_text(row, pp_rv_str(f, "message"));
+  add_number(row, pp_rv_lie_factor(m));
+  add_number(row, pp_rv_growth_ratio(m));
   add_number(row, pp_rv_num(m, "gdi"));
   add_number(row, pp_rv_num(m, "baseline_value"));
   add_number(row, pp_rv_num(m, "max_pair_departure"));

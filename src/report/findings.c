@@ -13,7 +13,7 @@ struct pp_report {
   JsonArray *pages;
   JsonArray *findings;
   guint n_pages_failed, n_figures, n_raster, n_scale_failures;
-  guint by_severity[PP_SEVERITY_GROSS + 1];
+  guint by_severity[PP_SEVERITY_SEVERE + 1];
 };
 
 pp_report *pp_report_new(const pp_document_info *info, const pp_thresholds *thresholds) {
@@ -176,10 +176,11 @@ static void add_measures(JsonBuilder *b, const pp_measures *m) {
   json_builder_begin_object(b);
   pp_json_member_number(b, "lie_factor", m->lie_factor);
   pp_json_member_string(b, "lie_factor_definition", PP_REPORT_LIE_FACTOR_DEFINITION);
-  pp_json_member_number(b, "lie_factor_change", m->lie_factor_change);
+  pp_json_member_number(b, "ink_growth_ratio", m->growth_ratio);
   pp_json_member_number(b, "gdi", m->gdi);
   pp_json_member_number(b, "baseline_value", m->baseline_value);
   pp_json_member_number(b, "max_pair_departure", m->max_pair_departure);
+  pp_json_member_number(b, "distortion", m->distortion);
   for (guint i = 0; i < m->n_extra; i++)
     pp_json_member_number(b, m->extra[i].name, m->extra[i].value);
   json_builder_end_object(b);
@@ -195,6 +196,7 @@ static void add_elements(JsonBuilder *b, const pp_finding *f, const pp_scene *sc
     pp_json_member_string(b, "category", cat);
     g_free(cat);
     pp_json_member_number(b, "value", e->value);
+    pp_json_member_string(b, "printed", e->printed);
     pp_json_member_number(b, "ink", e->ink);
     add_boxes(b, e->box, scene);
     json_builder_end_object(b);
@@ -208,11 +210,14 @@ static JsonNode *finding_node(const pp_finding *f, const pp_scene *scene) {
   pp_json_member_string(b, "id", f->id ? f->id : "");
   pp_json_member_int(b, "page", scene->page_index + 1);
   add_boxes(b, f->bbox, scene);
+  pp_json_member_string(b, "figure_id", f->figure_id);
+  pp_json_member_string(b, "figure_title", f->figure_title);
   pp_json_member_string(b, "figure_kind", pp_figure_kind_name(f->figure_kind));
   pp_json_member_string(b, "rule", f->rule ? f->rule : "unknown");
   pp_json_member_string(b, "severity", pp_severity_name(f->severity));
   add_measures(b, &f->measures);
   add_elements(b, f, scene);
+  pp_json_member_string(b, "headline", f->headline ? f->headline : "");
   pp_json_member_string(b, "message", f->message ? f->message : "");
   json_builder_end_object(b);
   return json_builder_get_root(b);
@@ -229,7 +234,7 @@ void pp_report_add_page(pp_report *r, const pp_scene *scene, const pp_page_chart
   for (guint i = 0; findings && i < findings->len; i++) {
     const pp_finding *f = g_ptr_array_index((GPtrArray *)findings, i);
     json_array_add_element(r->findings, finding_node(f, scene));
-    if (f->severity <= PP_SEVERITY_GROSS)
+    if (f->severity <= PP_SEVERITY_SEVERE)
       r->by_severity[f->severity]++;
   }
 }
@@ -289,8 +294,8 @@ static void add_header(JsonBuilder *b, const pp_report *r) {
   pp_json_add_number(b, r->thresholds.lie_band_low);
   pp_json_add_number(b, r->thresholds.lie_band_high);
   json_builder_end_array(b);
-  pp_json_member_number(b, "gdi_limit_percent", r->thresholds.gdi_material);
-  pp_json_member_number(b, "gross_factor", r->thresholds.gross_factor);
+  pp_json_member_number(b, "gdi_limit_percent", r->thresholds.gdi_limit);
+  pp_json_member_number(b, "severe_factor", r->thresholds.severe_factor);
   pp_json_member_number(b, "label_tolerance", r->thresholds.label_tolerance);
   json_builder_end_object(b);
 }
@@ -308,7 +313,7 @@ static JsonNode *totals_node(const pp_report *r) {
   pp_json_member_int(b, "findings", json_array_get_length(r->findings));
   json_builder_set_member_name(b, "by_severity");
   json_builder_begin_object(b);
-  for (int s = PP_SEVERITY_NOTE; s <= PP_SEVERITY_GROSS; s++)
+  for (int s = PP_SEVERITY_MINOR; s <= PP_SEVERITY_SEVERE; s++)
     pp_json_member_int(b, pp_severity_name(s), r->by_severity[s]);
   json_builder_end_object(b);
   json_builder_end_object(b);

@@ -39,14 +39,18 @@ static void measures_table(GString *o, JsonObject *f) {
   measure_row(o, "Lie Factor",
               "Tufte: relative change shown by the ink ÷ relative change of the "
               "values, first to last element; faithful within 0.95–1.05",
-              pp_rv_num(m, "lie_factor_change"));
-  measure_row(o, "Growth ratio", "(ink last ÷ ink first) ÷ (value last ÷ value first)",
-              pp_rv_num(m, "lie_factor"));
+              pp_rv_lie_factor(m));
+  measure_row(o, "Ink growth ratio",
+              "(ink last ÷ ink first) ÷ (value last ÷ value first); "
+              "not a Lie Factor",
+              pp_rv_growth_ratio(m));
   measure_row(o, "Graph Discrepancy Index, %", "100 × (Lie Factor − 1)", pp_rv_num(m, "gdi"));
   measure_row(o, "Baseline value", "the value where the drawing's ink starts",
               pp_rv_num(m, "baseline_value"));
   measure_row(o, "Worst pair", "largest (ink ratio ÷ value ratio) between any two elements",
               pp_rv_num(m, "max_pair_departure"));
+  measure_row(o, "Distortion", "how much the ink misstates: the severity scale's measure",
+              pp_rv_num(m, "distortion"));
   g_string_append(o, "</table>\n");
 }
 
@@ -73,7 +77,7 @@ static void elements_table(GString *o, JsonObject *f) {
     g_string_append(o, "</td>");
     num_cell(o, v);
     g_string_append(o, "<td>");
-    pp_html_append_escaped(o, pp_rv_str(e, "label_text") ? pp_rv_str(e, "label_text") : "–");
+    pp_html_append_escaped(o, pp_rv_str(e, "printed") ? pp_rv_str(e, "printed") : "–");
     g_string_append(o, "</td>");
     num_cell(o, g);
     num_cell(o, v / v0);
@@ -166,7 +170,13 @@ static void finding_section(GString *o, const char *dir, const char *stem, guint
   }
   g_string_append(o, "<p class=\"headline\">");
   pp_html_append_escaped(o, pp_rv_finding_headline(f));
-  g_string_append(o, "</p>\n<div class=\"cols\">\n");
+  g_string_append(o, "</p>\n");
+  if (pp_rv_str(f, "headline") && pp_rv_str(f, "message")) {
+    g_string_append(o, "<p>");
+    pp_html_append_escaped(o, pp_rv_str(f, "message"));
+    g_string_append(o, "</p>\n");
+  }
+  g_string_append(o, "<div class=\"cols\">\n");
   char *crop_name = g_strdup_printf("img/%s-%u.png", stem, k);
   char *crop_path = g_build_filename(dir, crop_name, NULL);
   int w = 0, h = 0;

@@ -1,5 +1,5 @@
 /* report.h — contract of the report stage: the findings file (format "plotproof-findings",
- * version 2, see docs/findings-format.md) built page by page, plus developer JSON views of
+ * version 3, see docs/findings-format.md) built page by page, plus developer JSON views of
  * one page's scene and recognised charts. Everything is written with json-glib. */
 #pragma once
 
@@ -10,12 +10,12 @@
 G_BEGIN_DECLS
 
 #define PP_REPORT_FORMAT "plotproof-findings"
-#define PP_REPORT_VERSION 2
+#define PP_REPORT_VERSION 3
 #define PP_REPORT_DISCLAIMER                                                                       \
   "These verdicts are an aid to a reviewer, not an audit opinion; the applicable reporting "       \
   "standards and regulator rules prevail."
 #define PP_REPORT_LIE_FACTOR_DEFINITION                                                            \
-  "growth-factor: (ink_last/ink_first)/(value_last/value_first)"
+  "Tufte: ((ink_last-ink_first)/ink_first)/((value_last-value_first)/value_first)"
 
 /* One document's findings, accumulated a page at a time so that a page's scene can be
  * freed before the next page is captured; only the small per-page JSON is kept. */

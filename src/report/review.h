@@ -28,6 +28,9 @@ const char *pp_rv_finding_title(JsonObject *doc, JsonObject *finding);
 const char *pp_rv_finding_figure_id(JsonObject *doc, JsonObject *finding);
 /* The plain one-line headline of a finding ("headline" when present, else "message"). */
 const char *pp_rv_finding_headline(JsonObject *finding);
+/* Tufte's Lie Factor and the ink growth ratio of a measures object, any format version. */
+double pp_rv_lie_factor(JsonObject *measures);
+double pp_rv_growth_ratio(JsonObject *measures);
 /* Severity rank, 0 = mildest; unknown words rank -1. */
 int pp_rv_severity_rank(const char *severity);
 /* The severity words, mildest first (NULL-terminated, static). */

@@ -116,11 +116,25 @@ const char *pp_rv_finding_headline(JsonObject *finding) {
   return h ? h : "";
 }
 
+/* Format 3 calls Tufte's measure "lie_factor" and the growth variant "ink_growth_ratio";
+ * formats 1 and 2 called them "lie_factor_change" and "lie_factor". */
+double pp_rv_lie_factor(JsonObject *m) {
+  return json_object_has_member(m, "ink_growth_ratio") ||
+                 !json_object_has_member(m, "lie_factor_change")
+             ? pp_rv_num(m, "lie_factor")
+             : pp_rv_num(m, "lie_factor_change");
+}
+
+double pp_rv_growth_ratio(JsonObject *m) {
+  return json_object_has_member(m, "ink_growth_ratio") ? pp_rv_num(m, "ink_growth_ratio")
+                                                       : pp_rv_num(m, "lie_factor");
+}
+
 /* The words come from the rules stage, so a renamed scale follows automatically. */
 const char *const *pp_rv_severity_words(void) {
-  static const char *words[PP_SEVERITY_GROSS + 2];
+  static const char *words[PP_SEVERITY_SEVERE + 2];
   if (!words[0])
-    for (int s = 0; s <= PP_SEVERITY_GROSS; s++)
+    for (int s = 0; s <= PP_SEVERITY_SEVERE; s++)
       words[s] = pp_severity_name((pp_severity)s);
   return words;
 }

@@ -52,10 +52,10 @@ static char *artifact_uri(const char *path) {
   return g_uri_escape_string(path, "/", TRUE);
 }
 
-/* gross → error, the middle word → warning, the mildest → note (SARIF §3.27.10). */
+/* severe → error, the middle word → warning, the mildest → note (SARIF §3.27.10). */
 static const char *level_of(const char *severity) {
   int r = pp_rv_severity_rank(severity);
-  return r >= PP_SEVERITY_GROSS ? "error" : r >= 1 ? "warning" : "note";
+  return r >= PP_SEVERITY_SEVERE ? "error" : r >= 1 ? "warning" : "note";
 }
 
 static void add_rect(JsonBuilder *b, const char *name, JsonObject *f, const char *member) {
@@ -113,7 +113,8 @@ static void add_result(pp_sarif_writer *w, JsonObject *doc, JsonObject *f, const
   pp_json_member_string(b, "level", level_of(pp_rv_str(f, "severity")));
   json_builder_set_member_name(b, "message");
   json_builder_begin_object(b);
-  pp_json_member_string(b, "text", pp_rv_finding_headline(f));
+  pp_json_member_string(
+      b, "text", pp_rv_str(f, "message") ? pp_rv_str(f, "message") : pp_rv_finding_headline(f));
   json_builder_end_object(b);
   add_location(b, doc, f, uri, artifact);
   json_builder_set_member_name(b, "partialFingerprints");

@@ -49,12 +49,21 @@ void pp_rule_measure_elements(const pp_figure *fig, pp_finding *f, pp_judge judg
 double pp_rule_baseline(const pp_figure *fig, gboolean skip_stacked);
 /* Zero lies within PP_ZERO_SHARE of the scale's span from base. */
 gboolean pp_rule_baseline_is_zero(const pp_figure *fig, double base);
-/* The default severity: outside the band (Tufte's lie factor band, the GDI materiality
- * limit, or the worst pair), graded note / material / gross. */
+/* The default severity: outside the band (Tufte's 0.95–1.05 on the growth ratio, the GDI
+ * limit, or the worst pair), graded minor / major / severe by the distortion alone. */
 gboolean pp_rule_grade(const pp_measures *m, const pp_thresholds *t, pp_severity *severity);
-/* "LEAD: the 2022 bar uses 3.1× the ink of 2019 for 1.1× the value (lie factor 2.8,
- * GDI +180%)"; noun names an element ("bar", "point"). Takes lead. */
+/* "HEADLINE: LEAD; 2027 (€118.2m) to 2031 (€140.2m): ink ×2.21 for value ×1.19 (Lie Factor
+ * 6.49, GDI +549%)"; noun names an element ("bar", "point"). Takes lead. */
 char *pp_rule_sentence(const pp_finding *f, const pp_thresholds *t, char *lead, const char *noun);
+/* The severity word of a distortion: the one scale every rule uses. */
+pp_severity pp_rule_severity_of(double distortion, const pp_thresholds *t);
+/* max(worst pair, growth ratio, 1/growth ratio); NAN when neither is known. */
+double pp_measures_distortion(const pp_measures *m);
+/* The plain headline: "shows 19% growth as 121% growth", "shows Lowfield 17% above
+ * Nordvik as 109% above", from the pair the sentence shows. */
+char *pp_rule_headline(const pp_finding *f, const pp_thresholds *t);
+/* A value as the chart prints it: the tick label at that value when there is one. */
+char *pp_rule_printed_value(const pp_figure *fig, double v);
 
 /* Measures between elements a and b (Lie Factor, Tufte's form, GDI) and the worst pair
  * over positive values (shape_measures.c). */
@@ -101,8 +110,7 @@ gboolean pp_rule_radial_ring_ink_measure(const pp_figure *fig, const pp_threshol
                                          pp_finding *f);
 char *pp_rule_radial_ring_ink_sentence(const pp_figure *fig, const pp_finding *f,
                                        const pp_thresholds *t);
-gboolean pp_rule_polar_radius_measure(const pp_figure *fig, const pp_thresholds *t,
-                                      pp_finding *f);
+gboolean pp_rule_polar_radius_measure(const pp_figure *fig, const pp_thresholds *t, pp_finding *f);
 char *pp_rule_polar_radius_sentence(const pp_figure *fig, const pp_finding *f,
                                     const pp_thresholds *t);
 gboolean pp_rule_bars_vs_labels_measure(const pp_figure *fig, const pp_thresholds *t,

@@ -7,7 +7,7 @@
 #include "internal.h"
 
 /* Growth-factor form: how many times the ink grows per time the value grows. */
-double pp_lie_factor_growth(double v1, double v2, double g1, double g2) {
+double pp_ink_growth_ratio(double v1, double v2, double g1, double g2) {
   if (v1 == 0 || g1 == 0 || !isfinite(v1) || !isfinite(v2))
     return NAN;
   return (g2 / g1) / (v2 / v1);
@@ -15,7 +15,7 @@ double pp_lie_factor_growth(double v1, double v2, double g1, double g2) {
 
 /* Tufte's form: size of effect in the graphic over size of effect in the data,
  * each effect the relative change from the first to the second. */
-double pp_lie_factor_change(double v1, double v2, double g1, double g2) {
+double pp_lie_factor(double v1, double v2, double g1, double g2) {
   if (v1 == 0 || g1 == 0 || v2 == v1 || !isfinite(v1) || !isfinite(v2))
     return NAN;
   return ((g2 - g1) / g1) / ((v2 - v1) / v1);
@@ -23,7 +23,7 @@ double pp_lie_factor_change(double v1, double v2, double g1, double g2) {
 
 /* a = percentage change shown in the graphic, b = percentage change in the data. */
 double pp_gdi(double v1, double v2, double g1, double g2) {
-  double lf = pp_lie_factor_change(v1, v2, g1, g2);
+  double lf = pp_lie_factor(v1, v2, g1, g2);
   return isnan(lf) ? NAN : 100.0 * (lf - 1.0);
 }
 
@@ -35,7 +35,7 @@ static gboolean comparable(double a, double b) {
 
 void pp_measures_compute(const double *values, const double *inks, const guint *series, guint n,
                          double baseline, pp_measures *out) {
-  out->lie_factor = out->lie_factor_change = out->gdi = NAN;
+  out->growth_ratio = out->lie_factor = out->gdi = out->distortion = NAN;
   out->max_pair_departure = NAN;
   out->baseline_value = baseline;
   out->first = out->last = out->pair_i = out->pair_j = 0;
@@ -53,8 +53,8 @@ void pp_measures_compute(const double *values, const double *inks, const guint *
     double v1 = fabs(values[first]), v2 = fabs(values[last]);
     out->first = (guint)first;
     out->last = (guint)last;
-    out->lie_factor = pp_lie_factor_growth(v1, v2, inks[first], inks[last]);
-    out->lie_factor_change = pp_lie_factor_change(v1, v2, inks[first], inks[last]);
+    out->growth_ratio = pp_ink_growth_ratio(v1, v2, inks[first], inks[last]);
+    out->lie_factor = pp_lie_factor(v1, v2, inks[first], inks[last]);
     out->gdi = pp_gdi(v1, v2, inks[first], inks[last]);
   }
   double worst = NAN;
@@ -70,4 +70,16 @@ void pp_measures_compute(const double *values, const double *inks, const guint *
       }
     }
   out->max_pair_departure = worst;
+  out->distortion = pp_measures_distortion(out);
+}
+
+/* One number for the severity scale: the largest factor by which the ink of one element
+ * is too large or too small against another's (or the whole against 100%). */
+double pp_measures_distortion(const pp_measures *m) {
+  gboolean g_ok = isfinite(m->growth_ratio) && m->growth_ratio > 0;
+  gboolean p_ok = isfinite(m->max_pair_departure);
+  if (!g_ok && !p_ok)
+    return NAN;
+  double g = g_ok ? m->growth_ratio : 1;
+  return fmax(fmax(g, 1 / g), p_ok ? m->max_pair_departure : 1);
 }

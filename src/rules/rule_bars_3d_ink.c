@@ -16,7 +16,8 @@ gboolean pp_rule_bars_3d_ink_measure(const pp_figure *fig, const pp_thresholds *
   double nonprop = 0;
   for (guint i = 0; i < n; i++) {
     const pp_element *e = &g_array_index(fig->elements, pp_element, i);
-    pp_finding_element fe = {e->value, e->ink, e->box, g_strdup(e->category)};
+    pp_finding_element fe = {e->value, e->ink, e->box, g_strdup(e->category),
+                             g_strdup(e->label_text)};
     g_array_append_val(f->elements, fe);
     v[i] = e->value, g[i] = e->ink, front[i] = pp_element_ink_of(e, PP_PART_FRONT);
     /* ink that does not scale with the value: caps always; sides in perspective, where

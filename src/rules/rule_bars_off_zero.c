@@ -18,8 +18,7 @@ gboolean pp_rule_bars_off_zero_measure(const pp_figure *fig, const pp_thresholds
 
 char *pp_rule_bars_off_zero_sentence(const pp_figure *fig, const pp_finding *f,
                                      const pp_thresholds *t) {
-  (void)fig;
-  char *b = pp_format_value(f->measures.baseline_value);
+  char *b = pp_rule_printed_value(fig, f->measures.baseline_value);
   char *lead = g_strdup_printf("bars start at %s, not 0", b);
   g_free(b);
   return pp_rule_sentence(f, t, lead, "bar");

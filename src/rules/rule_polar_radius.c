@@ -26,8 +26,8 @@ gboolean pp_rule_polar_radius_measure(const pp_figure *fig, const pp_thresholds 
   pp_measures *m = &f->measures;
   m->first = lo;
   m->last = hi;
-  m->lie_factor = pp_lie_factor_growth(l->value, h->value, l->ink, h->ink);
-  m->lie_factor_change = pp_lie_factor_change(l->value, h->value, l->ink, h->ink);
+  m->growth_ratio = pp_ink_growth_ratio(l->value, h->value, l->ink, h->ink);
+  m->lie_factor = pp_lie_factor(l->value, h->value, l->ink, h->ink);
   m->gdi = pp_gdi(l->value, h->value, l->ink, h->ink);
   return TRUE;
 }
@@ -38,6 +38,6 @@ char *pp_rule_polar_radius_sentence(const pp_figure *fig, const pp_finding *f,
   const pp_element *l = &g_array_index(fig->elements, pp_element, f->measures.first);
   const pp_element *h = &g_array_index(fig->elements, pp_element, f->measures.last);
   return g_strdup_printf("polar-area sectors scaled by radius: the largest value is %.2f× the "
-                         "smallest but takes %.2f× its ink (lie factor %.2f)",
+                         "smallest but takes %.2f× its ink (Lie Factor %.2f)",
                          h->value / l->value, h->ink / l->ink, f->measures.lie_factor);
 }

@@ -14,7 +14,7 @@ gboolean pp_rule_radial_ring_ink_measure(const pp_figure *fig, const pp_threshol
     return FALSE;
   /* Elements run from the innermost ring to the outermost (radial.c). */
   pp_rule_measure_elements(fig, f, PP_JUDGE_VALUE, FALSE, 0);
-  return isfinite(f->measures.lie_factor);
+  return isfinite(f->measures.growth_ratio);
 }
 
 char *pp_rule_radial_ring_ink_sentence(const pp_figure *fig, const pp_finding *f,
@@ -22,7 +22,7 @@ char *pp_rule_radial_ring_ink_sentence(const pp_figure *fig, const pp_finding *f
   (void)fig;
   (void)t;
   return g_strdup_printf("radial bars: the outer ring takes %.2f× the ink per unit of value of "
-                         "the inner ring (lie factor %.2f, worst pair %.2f)",
-                         f->measures.lie_factor, f->measures.lie_factor,
+                         "the inner ring (ink growth ratio %.2f, worst pair %.2f)",
+                         f->measures.growth_ratio, f->measures.growth_ratio,
                          f->measures.max_pair_departure);
 }

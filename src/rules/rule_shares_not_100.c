@@ -22,26 +22,21 @@ gboolean pp_rule_shares_not_100_measure(const pp_figure *fig, const pp_threshold
   pp_rule_measure_elements(fig, f, PP_JUDGE_LABEL, FALSE, NAN);
   pp_measures *m = &f->measures;
   /* The labels claim a whole of sum% of the pie: that over the 100% drawn. */
-  m->lie_factor = sum / 100;
-  m->lie_factor_change = m->gdi = m->max_pair_departure = NAN;
+  m->growth_ratio = sum / 100;
+  m->lie_factor = m->gdi = m->max_pair_departure = NAN;
   m->first = 0;
   m->last = n - 1;
   return TRUE;
 }
 
-/* Any excess beyond rounding is a finding: a note inside the Lie Factor band, material
- * outside it, gross when the labels claim twice (or half) the whole. */
+/* Any excess beyond rounding is a finding, graded on the one severity scale by how far
+ * the claimed whole departs from 100% (severe when the labels claim twice or half). */
 gboolean pp_rule_shares_not_100_severity(const pp_measures *m, const pp_thresholds *t,
                                          pp_severity *severity) {
-  double lf = m->lie_factor;
-  if (!isfinite(lf))
+  double d = pp_measures_distortion(m);
+  if (!isfinite(d))
     return FALSE;
-  if (lf >= t->gross_factor || lf <= 1 / t->gross_factor)
-    *severity = PP_SEVERITY_GROSS;
-  else if (lf < t->lie_band_low || lf > t->lie_band_high)
-    *severity = PP_SEVERITY_MATERIAL;
-  else
-    *severity = PP_SEVERITY_NOTE;
+  *severity = pp_rule_severity_of(d, t);
   return TRUE;
 }
 
@@ -57,6 +52,6 @@ char *pp_rule_shares_not_100_sentence(const pp_figure *fig, const pp_finding *f,
   }
   return g_strdup_printf("the printed percentages of the %u slices add up to %.*f%%, not 100%% "
                          "(rounding allows at most ±%.*f points)",
-                         fig->elements->len, decimals, 100 * f->measures.lie_factor, decimals + 1,
+                         fig->elements->len, decimals, 100 * f->measures.growth_ratio, decimals + 1,
                          allowance);
 }

@@ -43,7 +43,8 @@ gboolean pp_rule_slices_vs_values_measure(const pp_figure *fig, const pp_thresho
   double tv = 0, tg = 0, tvol = 0;
   for (guint i = 0; i < n; i++) {
     const pp_element *e = &g_array_index(fig->elements, pp_element, i);
-    pp_finding_element fe = {e->value, e->ink, e->box, g_strdup(e->category)};
+    pp_finding_element fe = {e->value, e->ink, e->box, g_strdup(e->category),
+                             g_strdup(e->label_text)};
     g_array_append_val(f->elements, fe);
     v[i] = e->value, g[i] = e->ink, vol[i] = cone_volume(e);
     if (!(v[i] > 0) || !(g[i] > 0))
@@ -68,7 +69,7 @@ gboolean pp_rule_slices_vs_values_measure(const pp_figure *fig, const pp_thresho
   f->measures.baseline_value = NAN;
   pp_measures_add_extra(&f->measures, "most_inflated", most);
   pp_measures_add_extra(&f->measures, "least_inflated", least);
-  pp_measures_add_extra(&f->measures, "volume_lie_factor",
+  pp_measures_add_extra(&f->measures, "volume_ratio",
                         isfinite(tvol) && vleast > 0 ? vmost / vleast : NAN);
   return TRUE;
 }

@@ -16,7 +16,8 @@ gboolean pp_rule_symbols_not_by_area_measure(const pp_figure *fig, const pp_thre
   g_autofree double *g = g_new0(double, MAX(n, 1));
   for (guint i = 0; i < n; i++) {
     const pp_element *e = &g_array_index(fig->elements, pp_element, i);
-    pp_finding_element fe = {e->value, e->ink, e->box, g_strdup(e->category)};
+    pp_finding_element fe = {e->value, e->ink, e->box, g_strdup(e->category),
+                             g_strdup(e->label_text)};
     g_array_append_val(f->elements, fe);
     v[i] = e->value, g[i] = e->ink;
   }

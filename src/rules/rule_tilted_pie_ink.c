@@ -44,10 +44,10 @@ gboolean pp_rule_tilted_pie_ink_measure(const pp_figure *fig, const pp_threshold
     for (guint i = 1; i < n; i++)
       if (g[i] / p[i] > g[worst] / p[worst])
         worst = i;
-    m->lie_factor = g[worst] / p[worst];
+    m->growth_ratio = g[worst] / p[worst];
     /* Tufte's change form and the GDI on the worst pair (from the printed shares' ink). */
     guint a = m->pair_j, b = m->pair_i;
-    m->lie_factor_change = pp_lie_factor_change(p[a], p[b], g[a], g[b]);
+    m->lie_factor = pp_lie_factor(p[a], p[b], g[a], g[b]);
     m->gdi = pp_gdi(p[a], p[b], g[a], g[b]);
     m->first = m->last = worst;
   }
@@ -68,10 +68,10 @@ char *pp_rule_tilted_pie_ink_sentence(const pp_figure *fig, const pp_finding *f,
     g_snprintf(name, sizeof name, "#%u", w + 1);
   const char *how = fig->projection.kind == PP_PROJECTION_PERSPECTIVE ? "perspective" : "tilted";
   char *s = g_strdup_printf("a %s pie gives its front slices more ink: the %s slice (%s) takes "
-                            "%.1f%% of the visible ink, %.1f%% of the top face (lie factor "
+                            "%.1f%% of the visible ink, %.1f%% of the top face (ink-to-value ratio "
                             "%.2f)",
                             how, name, e->label_text ? e->label_text : "?", 100 * g[w],
-                            100 * top[w], f->measures.lie_factor);
+                            100 * top[w], f->measures.growth_ratio);
   g_free(g), g_free(top);
   return s;
 }

@@ -35,8 +35,8 @@ gboolean pp_rule_wedges_vs_labels_measure(const pp_figure *fig, const pp_thresho
   for (guint i = 1; i < n; i++)
     if (fabs(log(d[i] / p[i])) > fabs(log(d[worst] / p[worst])))
       worst = i;
-  m->lie_factor = d[worst] / p[worst];
-  m->lie_factor_change = m->gdi = NAN;
+  m->growth_ratio = d[worst] / p[worst];
+  m->lie_factor = m->gdi = NAN;
   m->first = m->last = worst;
   m->max_pair_departure = NAN;
   for (guint i = 0; i < n; i++)
@@ -50,7 +50,7 @@ gboolean pp_rule_wedges_vs_labels_measure(const pp_figure *fig, const pp_thresho
     }
   /* Tufte's change form and the GDI on the worst pair (printed → drawn). */
   guint a = m->pair_j, b = m->pair_i;
-  m->lie_factor_change = pp_lie_factor_change(p[a], p[b], d[a], d[b]);
+  m->lie_factor = pp_lie_factor(p[a], p[b], d[a], d[b]);
   m->gdi = pp_gdi(p[a], p[b], d[a], d[b]);
   g_free(p), g_free(h), g_free(d);
   return TRUE;
@@ -68,9 +68,10 @@ char *pp_rule_wedges_vs_labels_sentence(const pp_figure *fig, const pp_finding *
   g_snprintf(name, sizeof name, "%s", e->category ? e->category : "");
   if (!*name)
     g_snprintf(name, sizeof name, "#%u", m->first + 1);
-  return g_strdup_printf("slice angles disagree with their printed shares: the %s slice is "
-                         "drawn as %.1f%% of the pie but labelled %s (lie factor %.2f; worst "
-                         "pair of slices %.2f)",
-                         name, 100 * e->extent / turn, e->label_text ? e->label_text : "?",
-                         m->lie_factor, m->max_pair_departure);
+  return g_strdup_printf(
+      "slice angles disagree with their printed shares: the %s slice is "
+      "drawn as %.1f%% of the pie but labelled %s (ink-to-value ratio %.2f; worst "
+      "pair of slices %.2f)",
+      name, 100 * e->extent / turn, e->label_text ? e->label_text : "?", m->growth_ratio,
+      m->max_pair_departure);
 }

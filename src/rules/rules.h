@@ -7,18 +7,20 @@
 
 G_BEGIN_DECLS
 
+/* One scale, ordered by how much the ink misstates the values: the distortion (see
+ * pp_measures) decides, so a higher word never goes with a smaller distortion. */
 typedef enum {
-  PP_SEVERITY_NOTE, /* outside the band but below materiality */
-  PP_SEVERITY_MATERIAL,
-  PP_SEVERITY_GROSS,
+  PP_SEVERITY_MINOR,  /* distortion below 1 + gdi_limit/100 (1.10) */
+  PP_SEVERITY_MAJOR,  /* from there to below severe_factor (2) */
+  PP_SEVERITY_SEVERE, /* ink off by severe_factor or more */
 } pp_severity;
 
 const char *pp_severity_name(pp_severity s);
 
 typedef struct {
   double lie_band_low, lie_band_high; /* Tufte: 0.95–1.05 */
-  double gdi_material;                /* percent; accounting literature: 10 */
-  double gross_factor;    /* lie factor beyond which a finding is gross: 2 (no source) */
+  double gdi_limit;                   /* percent; the GDI's ±10% convention (Steinbart 1989) */
+  double severe_factor;               /* distortion from which a finding is severe: 2 (no source) */
   double label_tolerance; /* relative; bar-vs-label disagreement tolerated: 0.05 (no source) */
 } pp_thresholds;
 
@@ -29,13 +31,14 @@ pp_thresholds pp_thresholds_default(void);
 /* The measures for one figure: ink versus value of its first and last elements
  * and of the worst pair. NAN where undefined. */
 typedef struct {
-  double lie_factor;         /* growth-factor definition: (ink_last/ink_first)/(v_last/v_first) */
-  double lie_factor_change;  /* Tufte's ratio of relative changes */
-  double gdi;                /* 100·(lie_factor_change − 1) */
-  double baseline_value;     /* value where the ink starts */
+  double lie_factor;     /* Tufte's: relative change in the ink / relative change in the values */
+  double growth_ratio;   /* not a lie factor: (ink_last/ink_first)/(v_last/v_first) */
+  double gdi;            /* 100·(lie_factor − 1) */
+  double baseline_value; /* value where the ink starts */
   double max_pair_departure; /* max over pairs of (ink_i/ink_j)/(v_i/v_j) ≥ 1 */
   guint first, last;         /* element indices used */
   guint pair_i, pair_j;      /* the worst pair */
+  double distortion; /* how much the ink misstates: max(worst pair, growth ratio, 1/ratio) */
   /* Measures particular to one rule (a size exponent, the inflated slices), written after
    * the common ones; names are static strings listed in docs/findings.schema.json. */
   guint n_extra;
@@ -49,8 +52,8 @@ typedef struct {
 void pp_measures_add_extra(pp_measures *m, const char *name, double value);
 
 /* Lie factors from two values and two ink amounts (exposed for tests). */
-double pp_lie_factor_growth(double v1, double v2, double g1, double g2);
-double pp_lie_factor_change(double v1, double v2, double g1, double g2);
+double pp_ink_growth_ratio(double v1, double v2, double g1, double g2);
+double pp_lie_factor(double v1, double v2, double g1, double g2);
 double pp_gdi(double v1, double v2, double g1, double g2);
 
 /* One element as the rule judged it: the value it stands for under the rule, its ink
@@ -60,19 +63,23 @@ typedef struct {
   double ink;     /* visible ink, pt² (areas: per unit width) */
   pp_rect box;    /* page points, top-left origin */
   char *category; /* NULL if none */
+  char *printed;  /* the value as the chart prints it ("€100m"), NULL if not printed */
 } pp_finding_element;
 
 /* What a rule found in one figure. Page and PDF-space boxes are the report's business:
  * rules do not see the scene. */
 typedef struct {
-  char *id;     /* fingerprint of figure + rule */
-  pp_rect bbox; /* the figure's plot region, page points, top-left origin */
+  char *id;           /* fingerprint of figure + rule */
+  char *figure_id;    /* the figure's fingerprint */
+  char *figure_title; /* its title or nearest caption, NULL if none */
+  pp_rect bbox;       /* the figure's plot region, page points, top-left origin */
   pp_figure_kind figure_kind;
   const char *rule; /* rule id, static string */
   pp_severity severity;
   pp_measures measures;
   GArray *elements; /* of pp_finding_element, the figure's order */
-  char *message;    /* one plain sentence with the numbers */
+  char *headline;   /* plain words: "shows 19% growth as 121% growth" */
+  char *message;    /* headline, then the cause and the measures */
 } pp_finding;
 
 /* An empty finding of one figure under one rule (no elements yet). */

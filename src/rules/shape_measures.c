@@ -1,19 +1,19 @@
-/* shape_measures.c — measures the shape rules share: the Lie Factor between the largest
- * and the smallest value (3D bars, bubbles), between two chosen elements (pyramid
- * slices), and the worst pair, from values and inks. Tufte (1983), p. 57. */
+/* shape_measures.c — measures the shape rules share: the Lie Factor and the ink growth
+ * ratio between the largest and the smallest value (3D bars, bubbles) or two chosen
+ * elements (pyramid slices), and the worst pair, from values and inks. Tufte (1983), p. 57. */
 #include <math.h>
 
 #include "internal.h"
 
 void pp_measures_between(const double *v, const double *g, guint n, guint a, guint b,
                          pp_measures *m) {
-  m->lie_factor = m->lie_factor_change = m->gdi = m->max_pair_departure = NAN;
+  m->lie_factor = m->growth_ratio = m->gdi = m->max_pair_departure = m->distortion = NAN;
   m->baseline_value = 0;
   m->first = a, m->last = b, m->pair_i = b, m->pair_j = a;
   if (a >= n || b >= n || a == b)
     return;
-  m->lie_factor = pp_lie_factor_growth(v[a], v[b], g[a], g[b]);
-  m->lie_factor_change = pp_lie_factor_change(v[a], v[b], g[a], g[b]);
+  m->growth_ratio = pp_ink_growth_ratio(v[a], v[b], g[a], g[b]);
+  m->lie_factor = pp_lie_factor(v[a], v[b], g[a], g[b]);
   m->gdi = pp_gdi(v[a], v[b], g[a], g[b]);
   double worst = NAN;
   for (guint i = 0; i < n; i++)
@@ -25,6 +25,7 @@ void pp_measures_between(const double *v, const double *g, guint n, guint a, gui
         worst = d, m->pair_i = i, m->pair_j = j;
     }
   m->max_pair_departure = worst;
+  m->distortion = pp_measures_distortion(m);
 }
 
 gboolean pp_measures_extremes(const double *v, const double *g, guint n, guint *lo, guint *hi) {

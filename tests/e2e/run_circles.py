@@ -82,7 +82,7 @@ for t in truths:
             want = fig["expected"]["lie_factor_growth"]
             for f in found:
                 if f["rule"] == fig["rule"]:
-                    got = f["measures"]["lie_factor"]
+                    got = f["measures"].get("ink_growth_ratio", f["measures"].get("lie_factor"))
                     check(got is not None and abs(got - want) <= TOLERANCE * abs(want),
                           f"{name}: lie factor {got}, truth {want}")
         else:

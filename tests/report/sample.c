@@ -81,8 +81,8 @@ static pp_finding *sample_finding(double lie_factor, double gdi) {
   fig->bbox = (pp_rect){10, 20, 110, 120};
   pp_finding *f = pp_finding_new(fig, "bars-off-zero");
   pp_figure_free(fig);
-  f->severity = PP_SEVERITY_GROSS;
-  f->measures = (pp_measures){lie_factor, 2.0, gdi, 35, 3.5, 0, 2, 0, 2, 0, {{0}}};
+  f->severity = PP_SEVERITY_SEVERE;
+  f->measures = (pp_measures){lie_factor, 2.0, gdi, 35, 3.5, 0, 2, 0, 2, 3.5, 0, {{0}}};
   const double values[] = {40, 55, 70}, inks[] = {1250, 5000, 8750};
   const char *cats[] = {"2021", NULL,
                         "20\xff"
@@ -90,9 +90,10 @@ static pp_finding *sample_finding(double lie_factor, double gdi) {
   for (int i = 0; i < 3; i++) {
     pp_finding_element e = {values[i], inks[i],
                             (pp_rect){20 + 30 * i, 100 - 15 * i, 40 + 30 * i, 120},
-                            g_strdup(cats[i])};
+                            g_strdup(cats[i]), i == 0 ? g_strdup("€40m") : NULL};
     g_array_append_val(f->elements, e);
   }
+  f->headline = g_strdup("shows 75% growth as 600% growth");
   f->message = g_strdup("The columns start at 35, not 0: the last is drawn 7.0 times the first "
                         "for a 1.75 times larger value.");
   return f;

@@ -42,7 +42,7 @@ static void test_nan_and_inf_are_null(void **state) {
   JsonObject *m = json_object_get_object_member(first_finding(root), "measures");
   assert_true(JSON_NODE_HOLDS_NULL(json_object_get_member(m, "lie_factor")));
   assert_true(JSON_NODE_HOLDS_NULL(json_object_get_member(m, "gdi")));
-  assert_float_equal(json_object_get_double_member(m, "lie_factor_change"), 2.0, 0);
+  assert_float_equal(json_object_get_double_member(m, "ink_growth_ratio"), 2.0, 0);
   json_node_unref(root);
   g_free(text);
   pp_report_free(r);
@@ -61,8 +61,9 @@ static void test_values_round_trip(void **state) {
   /* Exact: 17 significant digits round-trip an IEEE double (IEEE 754-2008 §5.12.2). */
   assert_true(json_object_get_double_member(m, "lie_factor") == 1.0 / 3.0);
   assert_float_equal(json_object_get_double_member(m, "gdi"), 250.0, 0);
-  assert_string_equal(json_object_get_string_member(m, "lie_factor_definition"),
-                      "growth-factor: (ink_last/ink_first)/(value_last/value_first)");
+  assert_string_equal(
+      json_object_get_string_member(m, "lie_factor_definition"),
+      "Tufte: ((ink_last-ink_first)/ink_first)/((value_last-value_first)/value_first)");
   JsonArray *el = json_object_get_array_member(f, "elements");
   assert_int_equal(json_array_get_length(el), 3);
   JsonObject *e0 = json_array_get_object_element(el, 0), *e1 = json_array_get_object_element(el, 1);
@@ -72,7 +73,7 @@ static void test_values_round_trip(void **state) {
   const char *bad = json_object_get_string_member(json_array_get_object_element(el, 2), "category");
   assert_true(g_utf8_validate(bad, -1, NULL)); /* RFC 8259 §8.1: JSON text is UTF-8 */
   assert_int_equal(json_object_get_int_member(f, "page"), 1);
-  assert_string_equal(json_object_get_string_member(f, "severity"), "gross");
+  assert_string_equal(json_object_get_string_member(f, "severity"), "severe");
   json_node_unref(root);
   g_free(text);
   pp_report_free(r);
@@ -162,7 +163,7 @@ static void test_schema_required_fields(void **state) {
     check_required(json_object_get_object_member(props, objects[i]),
                    json_object_get_object_member(doc, objects[i]), objects[i]);
   assert_string_equal(json_object_get_string_member(doc, "format"), "plotproof-findings");
-  assert_int_equal(json_object_get_int_member(doc, "version"), 2);
+  assert_int_equal(json_object_get_int_member(doc, "version"), 3);
   JsonObject *finding_schema = json_object_get_object_member(defs, "finding");
   JsonObject *f = first_finding(root);
   check_required(finding_schema, f, "finding");

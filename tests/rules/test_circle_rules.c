@@ -49,7 +49,7 @@ static void test_pie_labels(void **state) {
   pp_finding *x = g_ptr_array_index(f, 0);
   assert_string_equal(x->rule, "wedges-vs-labels");
   /* worst: 0.10 / 0.06 = 1.667 (|log| 0.51 beats 0.30/0.41's 0.31) */
-  assert_true(fabs(x->measures.lie_factor - 0.10 / 0.06) < 1e-9);
+  assert_true(fabs(x->measures.growth_ratio - 0.10 / 0.06) < 1e-9);
   /* worst pair: (0.10/0.30)/(6/41) */
   assert_true(fabs(x->measures.max_pair_departure - (0.10 / 0.30) / (6.0 / 41)) < 1e-9);
 }
@@ -89,8 +89,8 @@ static void test_percent_sum(void **state) {
       assert_int_equal(f->len, 1);
       pp_finding *x = g_ptr_array_index(f, 0);
       assert_string_equal(x->rule, "shares-not-100");
-      assert_true(fabs(x->measures.lie_factor - 1.03) < 1e-9);
-      assert_int_equal(x->severity, PP_SEVERITY_NOTE);
+      assert_true(fabs(x->measures.growth_ratio - 1.03) < 1e-9);
+      assert_int_equal(x->severity, PP_SEVERITY_MINOR);
     }
   }
   /* One decimal: 0.05 per label; 100.3 over five labels (allowance 0.25) is a finding. */
@@ -135,7 +135,7 @@ static void test_tilted_rim(void **state) {
   pp_finding *x = g_ptr_array_index(f, 0);
   assert_string_equal(x->rule, "tilted-pie-ink");
   /* The front slice [5π/4, 7π/4]: ink share / 0.25. */
-  assert_true(fabs(x->measures.lie_factor - (ink[3] / total) / 0.25) < 1e-9);
+  assert_true(fabs(x->measures.growth_ratio - (ink[3] / total) / 0.25) < 1e-9);
   assert_int_equal(x->measures.first, 3);
 }
 
@@ -154,8 +154,8 @@ static void test_radial(void **state) {
   assert_int_equal(f->len, 1);
   pp_finding *x = g_ptr_array_index(f, 0);
   assert_string_equal(x->rule, "radial-ring-ink");
-  assert_true(fabs(x->measures.lie_factor - 1600.0 / 700.0) < 1e-9);
-  assert_int_equal(x->severity, PP_SEVERITY_GROSS);
+  assert_true(fabs(x->measures.growth_ratio - 1600.0 / 700.0) < 1e-9);
+  assert_int_equal(x->severity, PP_SEVERITY_SEVERE);
 }
 
 /* Polar area: radius ∝ value gives (v2/v1)² of ink for v2/v1 of value: lie factor v2/v1;
@@ -176,7 +176,7 @@ static void test_polar(void **state) {
       assert_int_equal(f->len, 1);
       pp_finding *x = g_ptr_array_index(f, 0);
       assert_string_equal(x->rule, "polar-radius");
-      assert_true(fabs(x->measures.lie_factor - 120.0 / 25) < 1e-9);
+      assert_true(fabs(x->measures.growth_ratio - 120.0 / 25) < 1e-9);
     }
   }
 }

@@ -52,8 +52,8 @@ static void test_oblique_constant_cap(void **state) {
   assert_non_null(f);
   double a1 = (w + dx) * k * v[0], a2 = (w + dx) * k * v[2], c = w * dy;
   double want = ((a2 + c) / (a1 + c)) / (v[2] / v[0]);
-  assert_true(fabs(f->measures.lie_factor - want) < 1e-12);
-  assert_true(f->measures.lie_factor < 1); /* caps understate differences */
+  assert_true(fabs(f->measures.growth_ratio - want) < 1e-12);
+  assert_true(f->measures.growth_ratio < 1); /* caps understate differences */
   assert_true(fabs(extra(f, "nonprop_share") - c / (a1 + c)) < 1e-12);
   assert_true(fabs(extra(f, "front_departure") - 1) < 1e-12);
   pp_finding_free(f);
@@ -100,11 +100,11 @@ static void test_pyramid_by_heights(void **state) {
   }
   pp_finding *f = judge(fig, "slices-vs-values");
   assert_non_null(f);
-  assert_true(fabs(f->measures.lie_factor - 9.0) < 1e-9);
+  assert_true(fabs(f->measures.growth_ratio - 9.0) < 1e-9);
   assert_true(fabs(extra(f, "most_inflated") - 2) < 1e-12);
   assert_true(fabs(extra(f, "least_inflated") - 0) < 1e-12);
-  assert_true(fabs(extra(f, "volume_lie_factor") - 63.0) < 1e-9);
-  assert_int_equal(f->severity, PP_SEVERITY_GROSS); /* ≥ 2: gross (docs/rules.md) */
+  assert_true(fabs(extra(f, "volume_ratio") - 63.0) < 1e-9);
+  assert_int_equal(f->severity, PP_SEVERITY_SEVERE); /* ≥ 2: severe (docs/rules.md) */
   pp_finding_free(f);
 }
 
@@ -155,7 +155,7 @@ static void test_bubbles(void **state) {
       continue;
     }
     assert_non_null(f);
-    assert_true(fabs(f->measures.lie_factor - 25.0 / 4) < 1e-9);
+    assert_true(fabs(f->measures.growth_ratio - 25.0 / 4) < 1e-9);
     assert_true(fabs(extra(f, "size_exponent") - 2) < 1e-9);
     assert_true(fabs(extra(f, "size_r2") - 1) < 1e-9);
     pp_finding_free(f);
