@@ -116,6 +116,25 @@ static const pp_label *label_of(const pp_recognize_ctx *ctx, const slice *s, GHa
   return best;
 }
 
+/* The slice's name: the nearest word on its row outside it that is not a number. */
+static char *name_of(const pp_scene *scene, const slice *s) {
+  const pp_text_run *best = NULL;
+  double best_d = PP_SLICE_LABEL_REACH;
+  for (guint i = 0; i < scene->words->len; i++) {
+    const pp_text_run *w = g_ptr_array_index(scene->words, i);
+    double cy = (w->box.y0 + w->box.y1) / 2;
+    pp_number num;
+    if (cy < s->y0 || cy > s->y1 || pp_number_parse(w->text, PP_DECIMAL_UNKNOWN, &num))
+      continue;
+    double d = w->box.x0 >= s->box.x1   ? w->box.x0 - s->box.x1
+               : w->box.x1 <= s->box.x0 ? s->box.x0 - w->box.x1
+                                        : INFINITY;
+    if (d < best_d)
+      best_d = d, best = w;
+  }
+  return best ? g_strdup(best->text) : NULL;
+}
+
 static void build(pp_recognize_ctx *ctx, GArray *slices, guint from, guint to) {
   guint n = to - from;
   gboolean sloped = FALSE, widening = TRUE, narrowing = TRUE;
@@ -172,6 +191,7 @@ static void build(pp_recognize_ctx *ctx, GArray *slices, guint from, guint to) {
     e.value = e.label_value = s->label->number.value;
     e.label_text = g_strdup(s->label->text);
     e.source = s->label->number.percent ? PP_VALUE_PERCENT_LABEL : PP_VALUE_DATA_LABEL;
+    e.category = name_of(ctx->scene, s);
     total += e.value;
     fig->bbox = pp_rect_union(fig->bbox, s->box);
     g_array_append_val(fig->elements, e);

@@ -256,6 +256,24 @@ static pp_rect plot_box(const pp_scene *scene, GArray *syms, int family) {
   return best;
 }
 
+/* The symbol's name: the nearest word under it (below its number, for icons) that is not
+ * a number, centred on it. */
+static char *name_of(const pp_scene *scene, const symbol *s) {
+  const pp_text_run *best = NULL;
+  for (guint i = 0; i < scene->words->len; i++) {
+    const pp_text_run *w = g_ptr_array_index(scene->words, i);
+    double cx = (w->box.x0 + w->box.x1) / 2;
+    pp_number num;
+    if (cx < s->box.x0 || cx > s->box.x1 || w->box.y0 < s->box.y1 - 0.5 ||
+        w->box.y0 - s->box.y1 > 4 * w->font_size ||
+        pp_number_parse(w->text, PP_DECIMAL_UNKNOWN, &num))
+      continue;
+    if (!best || w->box.y0 < best->box.y0)
+      best = w;
+  }
+  return best ? g_strdup(best->text) : NULL;
+}
+
 static int cmp_x(gconstpointer a, gconstpointer b) {
   const pp_element *ea = a, *eb = b;
   double xa = ea->box.x0 + ea->box.x1, xb = eb->box.x0 + eb->box.x1;
@@ -314,6 +332,7 @@ static void build(pp_recognize_ctx *ctx, GArray *syms, int family, int n_familie
     e.ink = s->ink;
     e.box = s->box;
     e.extent = sqrt(s->ink / G_PI);
+    e.category = name_of(ctx->scene, s);
     if (s->circle) {
       e.shape.kind = PP_SHAPE_CIRCLE;
       e.shape.circle.centre = s->centre;
