@@ -30,6 +30,9 @@
  * share of its symbols carry one; the others are claimed but not judged (common practice,
  * no source). */
 #define PP_SYMBOL_MIN_LABELLED 0.75
+/* Tick labels step through their values evenly within this share of the step (printed
+ * ticks are round numbers; common practice, no source). */
+#define PP_SYMBOL_TICK_STEP_SHARE 0.01
 /* Fewest symbols that make a chart rather than a pair of decorations (common practice). */
 #define PP_SYMBOL_MIN_COUNT 3
 /* Symbols smaller than this, pt², are dots and glyph parts, not sized symbols. */
@@ -280,6 +283,27 @@ static int cmp_x(gconstpointer a, gconstpointer b) {
   return (xa > xb) - (xa < xb);
 }
 
+static int cmp_tick_pos(gconstpointer a, gconstpointer b) {
+  const pp_tick *ta = a, *tb = b;
+  return (ta->pos > tb->pos) - (ta->pos < tb->pos);
+}
+
+/* Tick labels step evenly through their values; a row of numbers under pictograms that a
+ * loose fit happened to accept does not (PP_SYMBOL_TICK_STEP_SHARE). */
+static gboolean evenly_stepped(const pp_axis_candidate *a) {
+  if (a->fit_failed || !a->scale || !a->scale->ticks || a->scale->ticks->len < 3)
+    return FALSE;
+  g_autoptr(GArray) t = g_array_copy(a->scale->ticks);
+  g_array_sort(t, cmp_tick_pos);
+  double step = g_array_index(t, pp_tick, 1).value - g_array_index(t, pp_tick, 0).value;
+  for (guint k = 2; k < t->len; k++) {
+    double d = g_array_index(t, pp_tick, k).value - g_array_index(t, pp_tick, k - 1).value;
+    if (!(fabs(d - step) <= PP_SYMBOL_TICK_STEP_SHARE * fabs(step)) || step == 0)
+      return FALSE;
+  }
+  return TRUE;
+}
+
 static void build(pp_recognize_ctx *ctx, GArray *syms, int family, int n_families) {
   guint n = 0;
   double lo = INFINITY, hi = 0;
@@ -295,7 +319,7 @@ static void build(pp_recognize_ctx *ctx, GArray *syms, int family, int n_familie
   g_autoptr(GHashTable) used = g_hash_table_new(NULL, NULL);
   for (guint i = 0; i < ctx->axes->len; i++) {
     const pp_axis_candidate *a = g_ptr_array_index(ctx->axes, i);
-    for (guint k = 0; !a->fit_failed && k < a->labels->len; k++)
+    for (guint k = 0; evenly_stepped(a) && k < a->labels->len; k++)
       g_hash_table_add(used, g_ptr_array_index(a->labels, k));
   }
   guint labelled = 0;
