@@ -22,6 +22,7 @@ static void figure_free(gpointer p)
   g_free(fig->note);
   g_free(fig->expected_json);
   g_free(fig->extra_json);
+  g_free(fig->expected_json);
   g_free(fig);
 }
 

@@ -38,6 +38,7 @@ typedef struct {
    * instead of the bar measures; NULL = none. */
   char *expected_json;
   char *extra_json; /* raw members written last ("\"circle\": {...}"), NULL = none */
+  char *expected_json; /* raw "expected" object, written instead of expected; NULL = none */
 } pp_gen_figure;
 
 typedef struct {

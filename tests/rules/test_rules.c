@@ -230,11 +230,13 @@ static void test_selection(void **state) {
   /* every rule in the table has an id, a summary, a doc anchor and judges some kind */
   guint n = 0;
   const pp_rule_info *info = pp_rules_list(&n);
-  assert_int_equal(n, pp_n_rules);
+  assert_int_equal(n, pp_n_rules + pp_n_opt_in_rules); /* the main table, then the opt-in */
   for (guint i = 0; i < n; i++) {
     assert_true(info[i].id && *info[i].id && info[i].summary && *info[i].summary);
     assert_non_null(info[i].doc);
-    assert_true(pp_rules[i].kinds != 0);
+    assert_true(info[i].opt_in == (i >= pp_n_rules));
+    assert_true((i < pp_n_rules ? pp_rules[i].kinds : pp_opt_in_rules[i - pp_n_rules].rule.kinds) !=
+                0);
   }
 }
 
