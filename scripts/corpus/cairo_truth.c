@@ -20,7 +20,6 @@ static void figure_free(gpointer p)
   }
   g_ptr_array_unref(fig->styles);
   g_free(fig->note);
-  g_free(fig->expected_json);
   g_free(fig->extra_json);
   g_free(fig->expected_json);
   g_free(fig);

@@ -34,9 +34,6 @@ typedef struct {
   GPtrArray *series_values; /* GArray* of double, parallel to series_names */
   GPtrArray *styles;
   char *note; /* written as "notes" (docs/corpus.md) */
-  /* Shape figures (docs/corpus.md, "Shape charts"): the expected object written verbatim
-   * instead of the bar measures; NULL = none. */
-  char *expected_json;
   char *extra_json; /* raw members written last ("\"circle\": {...}"), NULL = none */
   char *expected_json; /* raw "expected" object, written instead of expected; NULL = none */
 } pp_gen_figure;
