@@ -72,12 +72,13 @@ static char *render_document(gpointer data) {
   GError *error = NULL;
   GString *errors = g_string_new(NULL);
   if (job->page_name && !pp_html_write_document(job->rv->opt->html_dir, job->page_name, job->doc,
-                                                job->pdf_path, &error)) {
+                                                job->pdf_path, job->rv->opt->password, &error)) {
     g_string_append_printf(errors, "HTML page: %s; ", error->message);
     g_clear_error(&error);
   }
   guint n = 0;
-  if (job->annotated && !pp_annotate_write(job->pdf_path, job->doc, job->annotated, &n, &error)) {
+  if (job->annotated && !pp_annotate_write(job->pdf_path, job->rv->opt->password, job->doc,
+                                           job->annotated, &n, &error)) {
     g_string_append_printf(errors, "annotated copy: %s", error->message);
     g_clear_error(&error);
   }
