@@ -23,7 +23,7 @@ import tempfile
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
 import truth  # noqa: E402
 
-ROOT = os.path.dirname(os.path.dirname(os.path.dirname(
+ROOT = os.environ.get("PP_CORPUS_ROOT") or os.path.dirname(os.path.dirname(os.path.dirname(
     os.path.abspath(__file__))))
 OUT = os.path.join(ROOT, "corpus", "pgfplots")
 YEARS = [str(y) for y in range(2016, 2024)]

@@ -6,7 +6,7 @@
 argv <- commandArgs(trailingOnly = FALSE)
 me <- sub("^--file=", "", argv[grep("^--file=", argv)])
 here <- normalizePath(dirname(me))
-root <- normalizePath(file.path(here, "..", ".."))
+root <- if (nzchar(Sys.getenv("PP_CORPUS_ROOT"))) Sys.getenv("PP_CORPUS_ROOT") else normalizePath(file.path(here, "..", ".."))
 out_dir <- file.path(root, "corpus", "r")
 truth_py <- file.path(here, "truth.py")
 dir.create(out_dir, showWarnings = FALSE, recursive = TRUE)

@@ -1,9 +1,15 @@
 #!/bin/sh
 # Regenerate the plotproof test corpus (corpus/<producer>/) from real plotting
 # software; each producer is skipped with a message when it is not installed.
+# With PP_CORPUS_ROOT=DIR everything is written under DIR/corpus/ instead, leaving the
+# checkout alone (scripts/test compares that copy with the committed one).
+# usage: generate.sh [MESON_BUILD_DIR]
 set -u
 here=$(cd "$(dirname "$0")" && pwd)
-root=$(cd "$here/../.." && pwd)
+root=${PP_CORPUS_ROOT:-$(cd "$here/../.." && pwd)}
+export PP_CORPUS_ROOT="$root"
+build=""
+[ $# -ge 1 ] && build=$(cd "$1" && pwd)
 py=/usr/bin/python3
 status=0
 
@@ -46,9 +52,9 @@ else
 fi
 
 # The cairo generator is a C program built by meson; pass the build dir.
-# usage: generate.sh [MESON_BUILD_DIR]
-if [ $# -ge 1 ] && [ -x "$1/scripts/gen-corpus-cairo" ]; then
-	(cd "$root" && "$1/scripts/gen-corpus-cairo" corpus/cairo) || status=1
+if [ -n "$build" ] && [ -x "$build/scripts/gen-corpus-cairo" ]; then
+	mkdir -p "$root/corpus/cairo"
+	(cd "$root" && "$build/scripts/gen-corpus-cairo" corpus/cairo) || status=1
 else
 	echo "skip cairo: pass a meson build dir containing scripts/gen-corpus-cairo" >&2
 fi
@@ -65,6 +71,9 @@ if [ -x "$py" ] && "$py" -c 'import matplotlib' 2>/dev/null; then
 fi
 if command -v gnuplot >/dev/null 2>&1 && [ -x "$py" ]; then
 	"$py" "$here/gen_gnuplot_circles.py" || status=1
+fi
+if command -v Rscript >/dev/null 2>&1 && [ -x "$py" ]; then
+	Rscript "$here/gen_r_circles.R" || status=1
 fi
 if [ -x "$py" ] && "$py" -c 'import cairo' 2>/dev/null; then
 	"$py" "$here/gen_cairo_circles.py" || status=1

@@ -300,6 +300,9 @@ static int run(int argc, char **argv, pp_cli_options *opt) {
 int main(int argc, char **argv) {
   /* A closed stdout pipe (plotproof ... | head) must end in an error, not a signal. */
   signal(SIGPIPE, SIG_IGN);
+  /* Debug output (G_MESSAGES_DEBUG=plotproof-recognize) goes to stderr, never into the
+   * JSON on stdout; GLib sends debug to stdout by default. */
+  g_log_writer_default_set_use_stderr(TRUE);
   pp_cli_options opt = {0};
   opt.output_dir = g_strdup(".");
   opt.timeout_s = DEFAULT_TIMEOUT_S;

@@ -467,6 +467,7 @@ static double slab(sweep *s, double y0, double y1, int depth) {
       g_free(cuts.ys);
       return sum;
     }
+    g_free(cuts.ys); /* roots found and then dropped at the slab bounds */
   }
   return integrate_slab(s, y0, y1);
 }

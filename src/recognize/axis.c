@@ -10,6 +10,46 @@
 /* Relative to the value span: more than this and the labels are not a scale. A tick
  * label centred by eye is within a few percent of its tick (common practice, no source). */
 #define PP_AXIS_MAX_RESIDUAL 0.02
+/* A segment is horizontal (vertical) when its other coordinate moves less than this, pt
+ * (common practice, no source)... */
+#define PP_STRAIGHT_TOL 0.01
+/* ...and a tick or gridline when longer than this, pt: shorter strokes are glyph parts
+ * (common practice, no source). */
+#define PP_TICK_MIN_LEN 0.5
+/* A label snaps to a segment within this share of its half-height (half-width for a
+ * horizontal axis), and within this share of its text size for rotated labels (common
+ * practice, no source)... */
+#define PP_SNAP_HALF_SHARE 0.9
+#define PP_SNAP_SIZE_SHARE 0.6
+/* ...that starts within this of the label, pt: ticks stand next to their labels (common
+ * practice, no source). */
+#define PP_SNAP_REACH 30.0
+/* Consecutive year labels step by at most this (decades on long series; common
+ * practice, no source). */
+#define PP_YEARS_MAX_STEP 10
+/* Two labels further apart than this many text sizes are aligned by coincidence; ticks
+ * sit a few text heights apart (common practice, no source). */
+#define PP_PAIR_MAX_GAP 8
+/* A run of labels splits where a gap exceeds this multiple of the median gap (two charts
+ * stacked on one label edge), or is under this share of the text size (overprinted
+ * labels; common practice, no source). */
+#define PP_RUN_GAP_JUMP 2.6
+#define PP_RUN_MIN_GAP 0.5
+/* Labels of one axis: upright or a quarter turn within this, degrees (common practice,
+ * no source)... */
+#define PP_ANGLE_TOL 1.0
+/* ...text sizes within this share of each other (tick labels share one font; common
+ * practice, no source)... */
+#define PP_SIZE_TOL 0.25
+/* ...aligned edges (or baselines) within this, pt (common practice, no source). */
+#define PP_ALIGN_TOL 1.5
+/* An axis' reach starts this far inside its label edge, pt (common practice, no
+ * source)... */
+#define PP_REACH_EDGE_SLACK 1.0
+/* ...and ends at another axis whose labels start beyond this clearance, pt, and whose
+ * tick span overlaps within this, pt (common practice, no source). */
+#define PP_REACH_CLEARANCE 2.0
+#define PP_REACH_OVERLAP 20.0
 
 typedef struct {
   double along;  /* position of the segment along the axis direction it marks */
@@ -24,7 +64,7 @@ static void collect_segments(const pp_scene *scene, GArray *horiz, GArray *vert)
     pp_rect outline;
     /* Outlined rectangles are bar borders and frames, not ticks: their edges run
      * through tick labels' rows and would capture them. */
-    if (m->kind != PP_MARK_STROKE || pp_path_is_rectangle(m->path, 0.01, &outline))
+    if (m->kind != PP_MARK_STROKE || pp_path_is_rectangle(m->path, PP_RECT_TOL, &outline))
       continue;
     pp_point cur = {0, 0}, start = {0, 0};
     for (size_t k = 0; k < m->path->n_segs; k++) {
@@ -42,10 +82,10 @@ static void collect_segments(const pp_scene *scene, GArray *horiz, GArray *vert)
         continue;
       }
       double dx = next.x - cur.x, dy = next.y - cur.y;
-      if (fabs(dy) < 0.01 && fabs(dx) > 0.5) {
+      if (fabs(dy) < PP_STRAIGHT_TOL && fabs(dx) > PP_TICK_MIN_LEN) {
         tick_seg t = {cur.y, fmin(cur.x, next.x), fmax(cur.x, next.x)};
         g_array_append_val(horiz, t);
-      } else if (fabs(dx) < 0.01 && fabs(dy) > 0.5) {
+      } else if (fabs(dx) < PP_STRAIGHT_TOL && fabs(dy) > PP_TICK_MIN_LEN) {
         tick_seg t = {cur.x, fmin(cur.y, next.y), fmax(cur.y, next.y)};
         g_array_append_val(vert, t);
       }
@@ -61,7 +101,7 @@ static double snap(const pp_label *l, gboolean vertical, GArray *segs, gboolean 
   double half = vertical ? pp_rect_height(l->box) / 2 : pp_rect_width(l->box) / 2;
   double e0 = vertical ? l->box.x0 : l->box.y0, e1 = vertical ? l->box.x1 : l->box.y1;
   /* Rotated labels are long along the axis; the text size bounds the window then. */
-  double best = centre, best_d = fmin(0.9 * half, 0.6 * l->size);
+  double best = centre, best_d = fmin(PP_SNAP_HALF_SHARE * half, PP_SNAP_SIZE_SHARE * l->size);
   *snapped = FALSE;
   for (guint i = 0; i < segs->len; i++) {
     tick_seg *t = &g_array_index(segs, tick_seg, i);
@@ -71,7 +111,7 @@ static double snap(const pp_label *l, gboolean vertical, GArray *segs, gboolean 
     double reach = fmin(fabs(t->lo - e1), fabs(t->hi - e0));
     reach = fmin(reach, fmin(fabs(t->lo - e0), fabs(t->hi - e1)));
     double mid = (e0 + e1) / 2; /* font boxes are tall: only the label's middle counts */
-    if (reach > 30 || (t->lo < mid && t->hi > mid))
+    if (reach > PP_SNAP_REACH || (t->lo < mid && t->hi > mid))
       continue; /* too far away, or running through the label */
     best = t->along;
     best_d = d;
@@ -167,8 +207,8 @@ static pp_axis_candidate *make_candidate(GPtrArray *run, gboolean vertical, GArr
   for (guint i = 0; i < m && years; i++) {
     const pp_label *l = g_ptr_array_index(c->labels, i);
     double step = i > 0 ? fabs(val[i] - val[i - 1]) : 1;
-    years = (ok[i] ? nums[i].year_like : l->number.year_like) && step >= 1 && step <= 10 &&
-            (i < 2 || fabs(step - fabs(val[1] - val[0])) < 1e-9);
+    years = (ok[i] ? nums[i].year_like : l->number.year_like) && step >= 1 &&
+            step <= PP_YEARS_MAX_STEP && (i < 2 || fabs(step - fabs(val[1] - val[0])) < 1e-9);
   }
   if (years) {
     c->fit_failed = c->category = TRUE;
@@ -225,7 +265,7 @@ static void fit_or_split(GPtrArray *run, gboolean vertical, GArray *segs, double
      * practice, no source). */
     pp_label *a = g_ptr_array_index(run, 0), *b = g_ptr_array_index(run, 1);
     double gap = vertical ? b->centre.y - a->centre.y : b->centre.x - a->centre.x;
-    if (fabs(gap) > 8 * fmax(a->size, b->size))
+    if (fabs(gap) > PP_PAIR_MAX_GAP * fmax(a->size, b->size))
       return;
   }
   pp_axis_candidate *c = make_candidate(run, vertical, segs, edge);
@@ -298,7 +338,8 @@ static void split_runs(GPtrArray *sorted, gboolean vertical, GArray *segs, doubl
   GPtrArray *run = g_ptr_array_new();
   for (guint i = 0; i < n; i++) {
     pp_label *l = g_ptr_array_index(sorted, i);
-    if (i > 0 && (gaps[i - 1] > 2.6 * median || gaps[i - 1] < 0.5 * l->size)) {
+    if (i > 0 &&
+        (gaps[i - 1] > PP_RUN_GAP_JUMP * median || gaps[i - 1] < PP_RUN_MIN_GAP * l->size)) {
       if (run->len >= 2)
         fit_or_split(run, vertical, segs, edge, out);
       g_ptr_array_set_size(run, 0);
@@ -325,7 +366,7 @@ static double key_cy(const pp_label *l) {
 /* Tick labels read horizontally; a vertical axis may also have them turned a quarter
  * (R's default, las = 0), which keeps them in one column. */
 static gboolean reads_along(const pp_label *l, gboolean vertical) {
-  return fabs(l->angle) <= 1 || (vertical && fabs(fabs(l->angle) - 90) <= 1);
+  return fabs(l->angle) <= PP_ANGLE_TOL || (vertical && fabs(fabs(l->angle) - 90) <= PP_ANGLE_TOL);
 }
 
 /* Groups labels whose key agrees within tol; each group of 2+ becomes runs. */
@@ -342,7 +383,7 @@ static void group_by(GPtrArray *labels, label_key key, double tol, gboolean vert
       pp_label *lj = g_ptr_array_index(labels, j);
       if (done[j] || g_hash_table_contains(taken, lj) || !reads_along(lj, vertical))
         continue;
-      if (fabs(key(lj) - key(li)) <= tol && fabs(lj->size - li->size) <= 0.25 * li->size) {
+      if (fabs(key(lj) - key(li)) <= tol && fabs(lj->size - li->size) <= PP_SIZE_TOL * li->size) {
         g_ptr_array_add(group, lj);
         done[j] = TRUE;
       }
@@ -371,11 +412,11 @@ GPtrArray *pp_axes_find(const pp_scene *scene, GPtrArray *labels) {
   GHashTable *taken_h = g_hash_table_new(NULL, NULL);
   guint first_left;
   /* Vertical axes: right-aligned labels (axis on the left of the plot), then left-aligned. */
-  group_by(labels, key_x1, 1.5, TRUE, horiz, out, taken_v);
+  group_by(labels, key_x1, PP_ALIGN_TOL, TRUE, horiz, out, taken_v);
   for (guint k = 0; k < out->len; k++)
     ((pp_axis_candidate *)g_ptr_array_index(out, k))->side = +1;
   first_left = out->len;
-  group_by(labels, key_x0, 1.5, TRUE, horiz, out, taken_v);
+  group_by(labels, key_x0, PP_ALIGN_TOL, TRUE, horiz, out, taken_v);
   for (guint k = first_left; k < out->len; k++) {
     pp_axis_candidate *c = g_ptr_array_index(out, k);
     c->side = -1;
@@ -387,7 +428,7 @@ GPtrArray *pp_axes_find(const pp_scene *scene, GPtrArray *labels) {
   }
   guint first_h = out->len;
   /* Horizontal axes: labels on one baseline row. */
-  group_by(labels, key_cy, 1.5, FALSE, vert, out, taken_h);
+  group_by(labels, key_cy, PP_ALIGN_TOL, FALSE, vert, out, taken_h);
   for (guint k = first_h; k < out->len; k++) {
     pp_axis_candidate *c = g_ptr_array_index(out, k);
     c->side = 0; /* decided by where the bars are */
@@ -407,20 +448,20 @@ void pp_axis_reach(const pp_axis_candidate *axis, GPtrArray *all_axes, int side,
   gboolean vertical = axis->scale->vertical;
   pp_rect box = axis->scale->box;
   double edge = vertical ? (side > 0 ? box.x1 : box.x0) : (side > 0 ? box.y1 : box.y0);
-  *lo = side > 0 ? edge - 1 : -INFINITY;
-  *hi = side > 0 ? INFINITY : edge + 1;
+  *lo = side > 0 ? edge - PP_REACH_EDGE_SLACK : -INFINITY;
+  *hi = side > 0 ? INFINITY : edge + PP_REACH_EDGE_SLACK;
   for (guint i = 0; i < all_axes->len; i++) {
     const pp_axis_candidate *o = g_ptr_array_index(all_axes, i);
     if (o == axis || o->fit_failed || o->scale->vertical != vertical)
       continue;
     /* only axes whose span overlaps ours along u */
-    if (o->span1 < axis->span0 - 20 || o->span0 > axis->span1 + 20)
+    if (o->span1 < axis->span0 - PP_REACH_OVERLAP || o->span0 > axis->span1 + PP_REACH_OVERLAP)
       continue;
     pp_rect ob = o->scale->box;
     double o_lo = vertical ? ob.x0 : ob.y0, o_hi = vertical ? ob.x1 : ob.y1;
-    if (side > 0 && o_lo > edge + 2)
+    if (side > 0 && o_lo > edge + PP_REACH_CLEARANCE)
       *hi = fmin(*hi, o_lo);
-    if (side < 0 && o_hi < edge - 2)
+    if (side < 0 && o_hi < edge - PP_REACH_CLEARANCE)
       *lo = fmax(*lo, o_hi);
   }
 }

@@ -8,6 +8,32 @@
 #define G_LOG_DOMAIN "plotproof-recognize"
 #include "internal.h"
 
+/* Paints of one series differ by less than this per channel (5 of 255; producers'
+ * colour rounding; common practice, no source). */
+#define PP_SERIES_COLOUR_TOL 0.02
+/* Text may touch a box's edge by this much, pt (glyph boxes overhang; common practice,
+ * no source). */
+#define PP_EDGE_SLACK 0.5
+/* A category label is centred over its bar within this, pt, or, turned, ends within
+ * PP_CATEGORY_ROTATED_SLACK of its right edge (common practice, no source)... */
+#define PP_CATEGORY_SLACK 1.0
+#define PP_CATEGORY_ROTATED_SLACK 2.0
+/* ...at most this far beyond the plot, pt (common practice, no source)... */
+#define PP_CATEGORY_MAX_GAP 60.0
+/* ...continued by words on its line closer than this share of the font size (a word
+ * space; common practice, no source), spilling at most this share of the bar's width
+ * past it (common practice, no source). */
+#define PP_WORD_GAP 0.6
+#define PP_CATEGORY_SPILL 0.6
+/* A data label stands at most this many text sizes beyond its bar's tip, or this many
+ * inside it (labels printed in the bar's end; common practice, no source). */
+#define PP_LABEL_BEYOND 2.5
+#define PP_LABEL_INSIDE 3.0
+/* Legend swatches are at most this big, pt (common practice, no source), and named
+ * within their size plus this gap, pt (common practice, no source). */
+#define PP_SWATCH_MAX 40.0
+#define PP_SWATCH_NAME_GAP 6.0
+
 pp_frame_rect pp_frame_of(pp_rect r, gboolean vertical) {
   return vertical ? (pp_frame_rect){r.y0, r.y1, r.x0, r.x1}
                   : (pp_frame_rect){r.x0, r.x1, r.y0, r.y1};
@@ -23,8 +49,8 @@ static double label_w(const pp_label *l, gboolean vertical) {
 static int paint_series(GArray *colours, const pp_paint *p) {
   for (guint i = 0; i < colours->len; i++) {
     pp_paint *c = &g_array_index(colours, pp_paint, i);
-    if (c->kind == p->kind && fabs(c->r - p->r) < 0.02 && fabs(c->g - p->g) < 0.02 &&
-        fabs(c->b - p->b) < 0.02)
+    if (c->kind == p->kind && fabs(c->r - p->r) < PP_SERIES_COLOUR_TOL &&
+        fabs(c->g - p->g) < PP_SERIES_COLOUR_TOL && fabs(c->b - p->b) < PP_SERIES_COLOUR_TOL)
       return (int)i;
   }
   g_array_append_val(colours, *p);
@@ -49,17 +75,19 @@ static char *find_category(const pp_scene *scene, pp_rect bar, pp_rect plot, gbo
     double cx = (w->box.x0 + w->box.x1) / 2, cy = (w->box.y0 + w->box.y1) / 2;
     double d;
     if (vertical) {
-      gboolean over = (cx >= bar.x0 - 1 && cx <= bar.x1 + 1) ||
-                      (w->angle != 0 && w->box.x1 >= bar.x0 && w->box.x1 <= bar.x1 + 2);
-      if (!over || w->box.y0 < plot.y1 - 0.5)
+      gboolean over =
+          (cx >= bar.x0 - PP_CATEGORY_SLACK && cx <= bar.x1 + PP_CATEGORY_SLACK) ||
+          (w->angle != 0 && w->box.x1 >= bar.x0 && w->box.x1 <= bar.x1 + PP_CATEGORY_ROTATED_SLACK);
+      if (!over || w->box.y0 < plot.y1 - PP_EDGE_SLACK)
         continue;
       d = w->box.y0 - plot.y1;
     } else {
-      if (cy < bar.y0 - 1 || cy > bar.y1 + 1 || w->box.x1 > plot.x0 + 0.5)
+      if (cy < bar.y0 - PP_CATEGORY_SLACK || cy > bar.y1 + PP_CATEGORY_SLACK ||
+          w->box.x1 > plot.x0 + PP_EDGE_SLACK)
         continue;
       d = plot.x0 - w->box.x1;
     }
-    if (d < best_d && d < 60) {
+    if (d < best_d && d < PP_CATEGORY_MAX_GAP) {
       best_d = d;
       best = w;
     }
@@ -76,10 +104,10 @@ static char *find_category(const pp_scene *scene, pp_rect bar, pp_rect plot, gbo
       const pp_text_run *w = g_ptr_array_index(scene->words, i);
       double gap = vertical ? w->box.x0 - edge->box.x1 : edge->box.x0 - w->box.x1;
       pp_number num; /* "2017" "2018" side by side are two categories, not one name */
-      if (w == edge || w->line != best->line || gap < -0.5 || gap > 0.6 * best->font_size ||
-          pp_number_parse(w->text, PP_DECIMAL_UNKNOWN, &num))
+      if (w == edge || w->line != best->line || gap < -PP_EDGE_SLACK ||
+          gap > PP_WORD_GAP * best->font_size || pp_number_parse(w->text, PP_DECIMAL_UNKNOWN, &num))
         continue;
-      if (vertical && w->box.x0 > bar.x1 + 0.6 * (bar.x1 - bar.x0))
+      if (vertical && w->box.x0 > bar.x1 + PP_CATEGORY_SPILL * (bar.x1 - bar.x0))
         continue;
       if (vertical) {
         g_string_append_c(s, ' ');
@@ -112,11 +140,12 @@ static void attach_data_labels(pp_recognize_ctx *ctx, pp_figure *fig, gboolean v
       if (!pp_claims_label_free(ctx->claims, l->index))
         continue;
       double lw = label_w(l, vertical), lu = label_u(l, vertical);
-      if (lw < f.w0 - 0.5 || lw > f.w1 + 0.5)
+      if (lw < f.w0 - PP_EDGE_SLACK || lw > f.w1 + PP_EDGE_SLACK)
         continue;
       double beyond = (lu - tip) * dir; /* > 0 outside the bar, < 0 inside */
       double from_base = (lu - base) * dir;
-      if (from_base <= 0 || beyond > 2.5 * l->size || beyond < -3.0 * l->size)
+      if (from_base <= 0 || beyond > PP_LABEL_BEYOND * l->size ||
+          beyond < -PP_LABEL_INSIDE * l->size)
         continue;
       double d = fabs(beyond);
       if (d < best_d) {
@@ -215,18 +244,19 @@ gboolean pp_bars_legend_like(const pp_scene *scene, const pp_figure *fig) {
   pp_rect first = g_array_index(fig->elements, pp_element, 0).box;
   for (guint i = 0; i < fig->elements->len; i++) {
     pp_rect b = g_array_index(fig->elements, pp_element, i).box;
-    if (fabs(pp_rect_width(b) - pp_rect_width(first)) > 0.5 ||
-        fabs(pp_rect_height(b) - pp_rect_height(first)) > 0.5 || pp_rect_width(b) > 40 ||
-        pp_rect_height(b) > 40)
+    if (fabs(pp_rect_width(b) - pp_rect_width(first)) > PP_EDGE_SLACK ||
+        fabs(pp_rect_height(b) - pp_rect_height(first)) > PP_EDGE_SLACK ||
+        pp_rect_width(b) > PP_SWATCH_MAX || pp_rect_height(b) > PP_SWATCH_MAX)
       return FALSE;
-    double reach = fmin(pp_rect_width(b), pp_rect_height(b)) + 6;
+    double reach = fmin(pp_rect_width(b), pp_rect_height(b)) + PP_SWATCH_NAME_GAP;
     gboolean named = FALSE;
     for (guint k = 0; k < scene->words->len && !named; k++) {
       const pp_text_run *word = g_ptr_array_index(scene->words, k);
       pp_rect w = word->box;
-      gboolean right = w.x0 >= b.x1 - 0.5 && w.x0 <= b.x1 + reach && w.y0 < b.y1 && w.y1 > b.y0;
-      gboolean below = w.y0 >= b.y1 - 0.5 && w.y0 <= b.y1 + reach && w.x0 < b.x1 && w.x1 > b.x0;
-      gboolean above = w.y1 <= b.y0 + 0.5 && w.y1 >= b.y0 - reach && w.x0 < b.x1 && w.x1 > b.x0;
+      double e = PP_EDGE_SLACK;
+      gboolean right = w.x0 >= b.x1 - e && w.x0 <= b.x1 + reach && w.y0 < b.y1 && w.y1 > b.y0;
+      gboolean below = w.y0 >= b.y1 - e && w.y0 <= b.y1 + reach && w.x0 < b.x1 && w.x1 > b.x0;
+      gboolean above = w.y1 <= b.y0 + e && w.y1 >= b.y0 - reach && w.x0 < b.x1 && w.x1 > b.x0;
       pp_number num; /* a number beside a bar is its data label, not a series name */
       named = (right || below || above) && !pp_number_parse(word->text, PP_DECIMAL_UNKNOWN, &num);
     }

@@ -4,11 +4,38 @@
 
 #include "internal.h"
 
+/* Fills more transparent than this are knock-outs (common practice, no source)... */
+#define PP_BLANK_ALPHA 0.02
+/* ...and solid fills lighter than this in every channel are white backgrounds (0.985:
+ * 251 of 255; common practice, no source). */
+#define PP_BLANK_WHITE 0.985
+/* A word covering at least this share of a box on both sides makes it a text
+ * background (common practice, no source). */
+#define PP_BEHIND_TEXT_SHARE 0.5
+/* An outline holds hatching when at least this many slanted strokes lie inside it (R's
+ * density draws many; two could be a cross; common practice, no source)... */
+#define PP_HATCH_MIN_LINES 3
+/* ...inside it within this, pt, each slanted: wider and taller than this, pt (common
+ * practice, no source)... */
+#define PP_HATCH_INSIDE_TOL 0.5
+#define PP_HATCH_SLANT 0.1
+/* ...and the outline at least this big on both sides, pt (common practice, no source). */
+#define PP_HATCHED_MIN_SIDE 2.0
+/* Bars are at least this thick on both sides, pt: thinner fills are rules and hairlines
+ * (common practice, no source). */
+#define PP_BAR_MIN_SIDE 0.2
+/* Areas put at least this much ink on the page, pt² (about 7×7 pt: smaller are markers
+ * and glyphs; common practice, no source)... */
+#define PP_AREA_MIN_INK 50.0
+/* ...and their curves are flattened to this tolerance, pt (common practice, no source). */
+#define PP_AREA_FLATTEN_TOL 0.05
+
 static gboolean is_blank(const pp_paint *p) {
   /* White or fully transparent fills are backgrounds and knock-outs, not bars. */
-  if (p->a < 0.02)
+  if (p->a < PP_BLANK_ALPHA)
     return TRUE;
-  return p->kind == PP_PAINT_SOLID && p->r > 0.985 && p->g > 0.985 && p->b > 0.985;
+  return p->kind == PP_PAINT_SOLID && p->r > PP_BLANK_WHITE && p->g > PP_BLANK_WHITE &&
+         p->b > PP_BLANK_WHITE;
 }
 
 /* A box behind a word that nearly fills it is a text background (a tag, a highlighted
@@ -18,8 +45,8 @@ static gboolean behind_text(const pp_scene *scene, pp_rect r) {
     const pp_text_run *w = g_ptr_array_index(scene->words, i);
     pp_rect in = pp_rect_intersect(w->box, r);
     pp_number num;
-    if (pp_rect_width(in) >= 0.5 * pp_rect_width(r) &&
-        pp_rect_height(in) >= 0.5 * pp_rect_height(r) &&
+    if (pp_rect_width(in) >= PP_BEHIND_TEXT_SHARE * pp_rect_width(r) &&
+        pp_rect_height(in) >= PP_BEHIND_TEXT_SHARE * pp_rect_height(r) &&
         !pp_number_parse(w->text, PP_DECIMAL_UNKNOWN, &num))
       return TRUE;
   }
@@ -30,12 +57,12 @@ static gboolean behind_text(const pp_scene *scene, pp_rect r) {
  * it. Slanted, because ticks and gridlines inside a plot frame are axis-aligned. */
 static guint count_hatching(const pp_scene *scene, pp_rect r) {
   guint n = 0;
-  for (guint i = 0; i < scene->marks->len && n < 3; i++) {
+  for (guint i = 0; i < scene->marks->len && n < PP_HATCH_MIN_LINES; i++) {
     const pp_mark *m = g_ptr_array_index(scene->marks, i);
     if (m->kind != PP_MARK_STROKE || m->path->n_segs != 2 || m->path->segs[1].kind != PP_SEG_LINE ||
-        !pp_rect_contains(r, m->bbox, 0.5))
+        !pp_rect_contains(r, m->bbox, PP_HATCH_INSIDE_TOL))
       continue;
-    n += pp_rect_width(m->bbox) > 0.1 && pp_rect_height(m->bbox) > 0.1;
+    n += pp_rect_width(m->bbox) > PP_HATCH_SLANT && pp_rect_height(m->bbox) > PP_HATCH_SLANT;
   }
   return n;
 }
@@ -47,8 +74,9 @@ static void collect_hatched(const pp_scene *scene, GArray *out) {
   for (guint i = 0; i < scene->marks->len; i++) {
     const pp_mark *m = g_ptr_array_index(scene->marks, i);
     pp_rect r;
-    if (m->kind != PP_MARK_STROKE || !pp_path_is_rectangle(m->path, 0.01, &r) ||
-        pp_rect_width(r) < 2 || pp_rect_height(r) < 2 || count_hatching(scene, r) < 3)
+    if (m->kind != PP_MARK_STROKE || !pp_path_is_rectangle(m->path, PP_RECT_TOL, &r) ||
+        pp_rect_width(r) < PP_HATCHED_MIN_SIDE || pp_rect_height(r) < PP_HATCHED_MIN_SIDE ||
+        count_hatching(scene, r) < PP_HATCH_MIN_LINES)
       continue;
     pp_rect clip = pp_clip_bbox(m->clip);
     pp_rect vis = pp_rect_intersect(r, clip);
@@ -69,7 +97,7 @@ static void drop_backgrounds(GArray *cands) {
     guint inside = 0;
     for (guint j = 0; j < cands->len && inside < 2; j++) {
       pp_bar_candidate *b = &g_array_index(cands, pp_bar_candidate, j);
-      inside += i != j && pp_rect_contains(a->rect, b->rect, 0.05) &&
+      inside += i != j && pp_rect_contains(a->rect, b->rect, PP_SAME_EDGE_TOL) &&
                 pp_rect_area(b->rect) < pp_rect_area(a->rect);
     }
     background[i] = inside >= 2;
@@ -86,13 +114,13 @@ static void add_rect(const pp_scene *scene, GArray *out, guint mark, pp_rect r, 
   const pp_mark *m = g_ptr_array_index(scene->marks, mark);
   pp_rect clip = pp_clip_bbox(m->clip);
   pp_rect vis = pp_rect_intersect(r, clip);
-  if (pp_rect_is_empty(vis) || pp_rect_width(vis) < 0.2 || pp_rect_height(vis) < 0.2 ||
-      pp_page_sized(scene, vis) || behind_text(scene, vis))
+  if (pp_rect_is_empty(vis) || pp_rect_width(vis) < PP_BAR_MIN_SIDE ||
+      pp_rect_height(vis) < PP_BAR_MIN_SIDE || pp_page_sized(scene, vis) || behind_text(scene, vis))
     return;
   for (guint k = out->len; k-- > 0 && k + 8 >= out->len;) {
     pp_bar_candidate *c = &g_array_index(out, pp_bar_candidate, k);
-    if (fabs(c->rect.x0 - vis.x0) < 0.01 && fabs(c->rect.x1 - vis.x1) < 0.01 &&
-        fabs(c->rect.y0 - vis.y0) < 0.01 && fabs(c->rect.y1 - vis.y1) < 0.01)
+    if (fabs(c->rect.x0 - vis.x0) < PP_RECT_TOL && fabs(c->rect.x1 - vis.x1) < PP_RECT_TOL &&
+        fabs(c->rect.y0 - vis.y0) < PP_RECT_TOL && fabs(c->rect.y1 - vis.y1) < PP_RECT_TOL)
       return;
   }
   pp_bar_candidate c = {mark, vis, clip, isnan(ink) ? pp_rect_area(vis) : ink, m->paint};
@@ -133,7 +161,7 @@ GArray *pp_bar_candidates_collect(const pp_scene *scene, GHashTable *glyph_marks
         g_hash_table_contains(glyph_marks, GUINT_TO_POINTER(i)))
       continue;
     pp_rect r;
-    if (pp_path_is_rectangle(m->path, 0.01, &r)) {
+    if (pp_path_is_rectangle(m->path, PP_RECT_TOL, &r)) {
       add_rect(scene, out, i, r, m->ink);
       continue;
     }
@@ -144,9 +172,9 @@ GArray *pp_bar_candidates_collect(const pp_scene *scene, GHashTable *glyph_marks
     GPtrArray *parts = split_subpaths(m->path);
     gboolean all_rects = parts->len >= 2;
     for (guint k = 0; k < parts->len && all_rects; k++)
-      all_rects = pp_path_is_rectangle(parts->pdata[k], 0.01, &r);
+      all_rects = pp_path_is_rectangle(parts->pdata[k], PP_RECT_TOL, &r);
     for (guint k = 0; k < parts->len && all_rects; k++) {
-      pp_path_is_rectangle(parts->pdata[k], 0.01, &r);
+      pp_path_is_rectangle(parts->pdata[k], PP_RECT_TOL, &r);
       add_rect(scene, out, i, r, pp_path_clipped_area(parts->pdata[k], m->rule, m->clip));
     }
     g_ptr_array_unref(parts);
@@ -168,12 +196,12 @@ GPtrArray *pp_area_candidates_collect(const pp_scene *scene) {
     if (m->kind != PP_MARK_FILL || is_blank(&m->paint) || m->path->n_segs < 5)
       continue;
     pp_rect r;
-    if (pp_path_is_rectangle(m->path, 0.01, &r))
+    if (pp_path_is_rectangle(m->path, PP_RECT_TOL, &r))
       continue;
     double ink = isnan(m->ink) ? 0 : m->ink;
-    if (ink < 50)
+    if (ink < PP_AREA_MIN_INK)
       continue;
-    GPtrArray *polys = pp_path_flatten(m->path, 0.05);
+    GPtrArray *polys = pp_path_flatten(m->path, PP_AREA_FLATTEN_TOL);
     if (polys->len != 1) {
       g_ptr_array_unref(polys);
       continue;

@@ -145,6 +145,10 @@ void pp_figure_finish(pp_recognize_ctx *ctx, pp_figure *figure,
  * end ticks (plots extend past the last labelled tick; common practice, no source). */
 #define PP_AXIS_REACH_SHARE 0.6
 
+/* A path whose corners are within this of an axis-aligned rectangle's is one, pt
+ * (producers' rounding; common practice, no source). */
+#define PP_RECT_TOL 0.01
+
 gboolean pp_same_edge(double a, double b);
 /* One of the two edges u0, u1 is the edge c. */
 gboolean pp_on_edge(double u0, double u1, double c);

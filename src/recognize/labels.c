@@ -6,6 +6,26 @@
 
 #include "internal.h"
 
+/* Words of one number share a baseline within this share of the text height, and are
+ * closer than PP_JOIN_GAP of it, overlapping by at most PP_JOIN_OVERLAP (a word space;
+ * common practice, no source). */
+#define PP_BASELINE_TOL 0.25
+#define PP_JOIN_GAP 0.6
+#define PP_JOIN_OVERLAP 0.1
+/* A minus drawn as a bar: thicker than PP_MINUS_MIN_THICK pt and thinner than a tenth
+ * of the text height, between 0.15 and 0.6 of it wide, at most 0.3 of it left of the
+ * digits (overlapping by at most PP_MINUS_OVERLAP pt), its middle between 0.3 and 0.8 of
+ * the height from the top: the proportions of a minus sign in text fonts (from memory,
+ * no source). */
+#define PP_MINUS_MIN_THICK 0.05
+#define PP_MINUS_MAX_THICK 0.1
+#define PP_MINUS_MIN_WIDTH 0.15
+#define PP_MINUS_MAX_WIDTH 0.6
+#define PP_MINUS_OVERLAP 0.5
+#define PP_MINUS_MAX_GAP 0.3
+#define PP_MINUS_LOW 0.3
+#define PP_MINUS_HIGH 0.8
+
 static void label_free(gpointer p) {
   pp_label *l = p;
   g_free(l->text);
@@ -41,9 +61,9 @@ static const char *joiner(const char *prev, const char *next) {
 
 static gboolean same_baseline(const pp_text_run *a, const pp_text_run *b) {
   double h = fmax(pp_rect_height(a->box), 1.0);
-  return a->line == b->line && fabs(a->box.y1 - b->box.y1) < 0.25 * h &&
-         b->box.x0 - a->box.x1 < 0.6 * h && b->box.x0 - a->box.x1 > -0.1 * h && a->angle == 0 &&
-         b->angle == 0;
+  return a->line == b->line && fabs(a->box.y1 - b->box.y1) < PP_BASELINE_TOL * h &&
+         b->box.x0 - a->box.x1 < PP_JOIN_GAP * h && b->box.x0 - a->box.x1 > -PP_JOIN_OVERLAP * h &&
+         a->angle == 0 && b->angle == 0;
 }
 
 /* A minus sign drawn as a filled bar just left of the digits: matplotlib's Type 3
@@ -54,12 +74,13 @@ static gint find_path_minus(const pp_scene *scene, const pp_label *l) {
   for (guint i = 0; i < scene->marks->len; i++) {
     const pp_mark *m = g_ptr_array_index(scene->marks, i);
     pp_rect r;
-    if (m->kind != PP_MARK_FILL || !pp_path_is_rectangle(m->path, 0.01, &r))
+    if (m->kind != PP_MARK_FILL || !pp_path_is_rectangle(m->path, PP_RECT_TOL, &r))
       continue;
     double w = pp_rect_width(r), t = pp_rect_height(r), cy = (r.y0 + r.y1) / 2;
     double gap = l->box.x0 - r.x1;
-    if (t > 0.05 && t < 0.1 * h && w > 0.15 * h && w < 0.6 * h && gap > -0.5 && gap < 0.3 * h &&
-        cy > l->box.y0 + 0.3 * h && cy < l->box.y0 + 0.8 * h)
+    if (t > PP_MINUS_MIN_THICK && t < PP_MINUS_MAX_THICK * h && w > PP_MINUS_MIN_WIDTH * h &&
+        w < PP_MINUS_MAX_WIDTH * h && gap > -PP_MINUS_OVERLAP && gap < PP_MINUS_MAX_GAP * h &&
+        cy > l->box.y0 + PP_MINUS_LOW * h && cy < l->box.y0 + PP_MINUS_HIGH * h)
       return (gint)i;
   }
   return -1;

@@ -16,17 +16,23 @@
 /* The data must start within this of the tick labels, pt, not in the next chart over
  * (common practice, no source). */
 #define PP_LINE_MAX_DISTANCE 60.0
+/* A data line spans at least this both ways, pt (straight rules and gridlines do not),
+ * and a marker covers more than PP_LINE_MARKER_MIN_AREA pt² (dots of dotted rules do
+ * not; common practice, no source). */
+#define PP_LINE_MIN_SPAN 1.0
+#define PP_LINE_MARKER_MIN_AREA 1.0
 
 /* A mark that draws data without standing for a number by its ink: a polyline, or a
  * small marker of a scatter plot. */
 static gboolean is_line_mark(const pp_mark *m) {
   pp_rect r = m->bbox;
   if (m->kind == PP_MARK_STROKE)
-    return m->path->n_segs >= 4 && pp_rect_width(r) >= 1 && pp_rect_height(r) >= 1;
+    return m->path->n_segs >= 4 && pp_rect_width(r) >= PP_LINE_MIN_SPAN &&
+           pp_rect_height(r) >= PP_LINE_MIN_SPAN;
   pp_rect rect;
   return m->kind == PP_MARK_FILL && m->path->n_segs >= 4 && pp_rect_width(r) < PP_LINE_MARKER_MAX &&
-         pp_rect_height(r) < PP_LINE_MARKER_MAX && pp_rect_area(r) > 1 &&
-         !pp_path_is_rectangle(m->path, 0.01, &rect);
+         pp_rect_height(r) < PP_LINE_MARKER_MAX && pp_rect_area(r) > PP_LINE_MARKER_MIN_AREA &&
+         !pp_path_is_rectangle(m->path, PP_RECT_TOL, &rect);
 }
 
 /* Lines and markers beside a fitted axis, claimed; NULL when there are none. */

@@ -17,6 +17,10 @@
 /* A printed number belongs to a slice when it lies within this many radii of the centre
  * (outside labels sit just beyond the rim; common practice, no source). */
 #define PP_LABEL_REACH 1.9
+/* A leader line starts inside its slice or on the rim, within this many radii, and ends
+ * within this many points of its label's text (common practice, no source). */
+#define PP_LEADER_START 1.02
+#define PP_LEADER_REACH 12.0
 
 static double share_of_mark(const pp_mark *m, GArray *ws, guint k) {
   if (ws->len == 1)
@@ -66,6 +70,17 @@ void pp_slice_coords(const pp_ellipse *e, pp_point p, double *angle, double *dis
   *dist = pp_ellipse_scale(e, p);
 }
 
+/* The text line holding a label (an empty box when none does). */
+static pp_rect line_box_of(const pp_scene *scene, const pp_label *lab) {
+  for (guint i = 0; i < scene->lines->len; i++) {
+    const pp_text_line *line = g_ptr_array_index(scene->lines, i);
+    if (lab->centre.x >= line->box.x0 && lab->centre.x <= line->box.x1 &&
+        lab->centre.y >= line->box.y0 && lab->centre.y <= line->box.y1)
+      return line->box;
+  }
+  return pp_rect_empty();
+}
+
 /* The number a leader line points at: a stroke starting inside a slice and ending beyond
  * its rim, its last point near the label. -1 when none. */
 static int leader_label(const pp_recognize_ctx *ctx, const pp_slice *s, double a0, double a1) {
@@ -82,16 +97,19 @@ static int leader_label(const pp_recognize_ctx *ctx, const pp_slice *s, double a
     double fa, fd, la, ld;
     pp_slice_coords(&s->ellipse, first, &fa, &fd);
     pp_slice_coords(&s->ellipse, last, &la, &ld);
-    if (!(fd < 1 && fd > s->inner && ld > 1 && pp_angle_within(fa, a0, a1)))
+    /* Starts inside the slice or on its rim (R's pie() draws from the rim outwards). */
+    if (!(fd < PP_LEADER_START && fd > s->inner && ld > fd && pp_angle_within(fa, a0, a1)))
       continue;
     int best = -1;
-    double best_d = 12;
+    double best_d = PP_LEADER_REACH;
     for (guint l = 0; l < ctx->labels->len; l++) {
       const pp_label *lab = g_ptr_array_index(ctx->labels, l);
       if (!pp_claims_label_free(ctx->claims, lab->index))
         continue;
-      double dx = fmax(0, fmax(lab->box.x0 - last.x, last.x - lab->box.x1));
-      double dy = fmax(0, fmax(lab->box.y0 - last.y, last.y - lab->box.y1));
+      /* The leader points at the label's text line ("Ferries 41%"), not only the number. */
+      pp_rect box = pp_rect_union(lab->box, line_box_of(scene, lab));
+      double dx = fmax(0, fmax(box.x0 - last.x, last.x - box.x1));
+      double dy = fmax(0, fmax(box.y0 - last.y, last.y - box.y1));
       if (hypot(dx, dy) < best_d) {
         best_d = hypot(dx, dy);
         best = (int)l;

@@ -1,5 +1,5 @@
 """End-to-end test of the circle charts: pies, donuts, tilted and perspective pies, radial
-bars and polar areas drawn at test time by matplotlib, gnuplot and cairo (the corpus
+bars and polar areas drawn at test time by matplotlib, gnuplot, cairo and R (the corpus
 generators, into a temporary root), scanned by the real binary.
 
 usage: run_circles.py PLOTPROOF SOURCE_ROOT
@@ -32,7 +32,8 @@ def check(cond, what):
 def available(gen):
     probe = {"matplotlib": [PY, "-c", "import matplotlib"],
              "gnuplot": ["gnuplot", "--version"],
-             "cairo": [PY, "-c", "import cairo"]}[gen]
+             "cairo": [PY, "-c", "import cairo"],
+             "r": ["Rscript", "--version"]}[gen]
     try:
         return subprocess.run(probe, capture_output=True).returncode == 0
     except OSError:
@@ -41,12 +42,15 @@ def available(gen):
 
 root = tempfile.mkdtemp(prefix="pp-circles-")
 ran = 0
-for gen in ("matplotlib", "gnuplot", "cairo"):
+for gen in ("matplotlib", "gnuplot", "cairo", "r"):
     if not available(gen):
         print(f"not installed, not tested: {gen}")
         continue
     script = os.path.join(SRC, "scripts", "corpus", f"gen_{gen}_circles.py")
-    p = subprocess.run([PY, script], env={**os.environ, "PP_CORPUS_ROOT": root},
+    cmd = [PY, script]
+    if gen == "r":
+        cmd = ["Rscript", script[:-len(".py")] + ".R"]
+    p = subprocess.run(cmd, env={**os.environ, "PP_CORPUS_ROOT": root},
                        capture_output=True, text=True)
     check(p.returncode == 0, f"{gen} generator: {p.stderr[-300:]}")
     ran += 1
