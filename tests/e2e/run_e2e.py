@@ -129,12 +129,13 @@ if bdoc["findings"]:
     m = f["measures"]
     check(f["rule"] == "bars-off-zero", f"misleading chart: rule bars-off-zero, got {f['rule']}")
     check(f["page"] == 1, "misleading chart: finding on page 1")
-    check(abs(m["lie_factor"] - (40 / 10) / (70 / 40)) < 1e-3, f"lie factor 2.2857, got {m['lie_factor']}")
-    check(abs(m["lie_factor_change"] - 4.0) < 2e-3, f"Tufte's lie factor 4, got {m['lie_factor_change']}")
+    check(abs(m["ink_growth_ratio"] - (40 / 10) / (70 / 40)) < 1e-3,
+          f"ink growth ratio 2.2857, got {m['ink_growth_ratio']}")
+    check(abs(m["lie_factor"] - 4.0) < 2e-3, f"Tufte's lie factor 4, got {m['lie_factor']}")
     check(abs(m["gdi"] - 300.0) < 0.2, f"GDI 300%, got {m['gdi']}")
     check(abs(m["baseline_value"] - 30) < 0.05, f"baseline 30, got {m['baseline_value']}")
-    # gross: ink off by a factor 2 or more (docs/rules.md; common practice, no source)
-    check(f["severity"] == "gross", f"severity gross, got {f['severity']}")
+    # severe: ink off by a factor 2 or more (docs/rules.md; common practice, no source)
+    check(f["severity"] == "severe", f"severity severe, got {f['severity']}")
     els = f["elements"]
     check([round(e["value"], 2) for e in els] == drawn_bad["values"], f"values {[e['value'] for e in els]}")
     for e, r in zip(els, drawn_bad["rects"]):
@@ -143,8 +144,11 @@ if bdoc["findings"]:
         # ISO 32000-1 §8.3.2.3: on a 300 pt page, top-left y maps to 300 − y
         check(all(abs(a - b) < 0.01 for a, b in zip(e["pdf_bbox"], [r[0], 300 - r[3], r[2], 300 - r[1]])),
               f"element pdf box {e['pdf_bbox']}")
-    check(f["message"].startswith("bars start at 30, not 0: the 2023 bar uses 4.00× the ink of "
-                                  "2021 for 1.75× the value"), f"sentence: {f['message']!r}")
+    # 40 → 70 is 75% growth; bars from 30 draw 10 → 40, 300% growth (hand arithmetic)
+    check(f["headline"] == "shows 75% growth as 300% growth", f"headline: {f['headline']!r}")
+    check(f["message"].startswith("shows 75% growth as 300% growth: bars start at 30, not 0; "
+                                  "2021 (40) to 2023 (70): ink ×4 for value ×1.75"),
+          f"sentence: {f['message']!r}")
 
 # scene: the filled rectangles cairo drew come back with the same corners (page points,
 # top-left origin, y down; cairo's PDF surface uses that user space too).

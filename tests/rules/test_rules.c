@@ -74,20 +74,24 @@ static const pp_finding *only(GPtrArray *out, const char *rule) {
 
 /* Columns 410, 440, 470 on an axis from 400, ink ∝ length 10, 40, 70 (× 20 pt wide).
  * Growth form: (70/10)/(470/410) = 6.1064; Tufte: ((70−10)/10)/((470−410)/410) = 41,
- * GDI = 100·(41 − 1) = 4000. Worst pair is the same pair: 6.1064 ≥ 2, gross. */
+ * GDI = 100·(41 − 1) = 4000. Worst pair is the same pair: distortion 6.1064 ≥ 2, severe.
+ * Headline: C is 470/410 − 1 = 15% above A, drawn 70/10 − 1 = 600% above. */
 static void test_bars_off_zero(void **state) {
   (void)state;
   const double v[] = {410, 440, 470}, g[] = {200, 800, 1400};
   pp_figure *fig = figure(PP_FIGURE_COLUMN, TRUE, PP_SCALE_LINEAR, 400, 480, 3, v, g, 400);
   GPtrArray *out = check(fig);
   const pp_finding *f = only(out, "bars-off-zero");
-  assert_float_equal(f->measures.lie_factor, 7.0 / (470.0 / 410.0), 1e-9);
-  assert_float_equal(f->measures.lie_factor_change, 41.0, 1e-9);
+  assert_float_equal(f->measures.growth_ratio, 7.0 / (470.0 / 410.0), 1e-9);
+  assert_float_equal(f->measures.lie_factor, 41.0, 1e-9);
   assert_float_equal(f->measures.gdi, 4000.0, 1e-6);
   assert_float_equal(f->measures.baseline_value, 400, 0);
-  assert_int_equal(f->severity, PP_SEVERITY_GROSS);
-  assert_string_equal(f->message, "bars start at 400, not 0: the C bar uses 7.00× the ink of A "
-                                  "for 1.15× the value (lie factor 6.11, GDI +4000%)");
+  assert_float_equal(f->measures.distortion, 7.0 / (470.0 / 410.0), 1e-9);
+  assert_int_equal(f->severity, PP_SEVERITY_SEVERE);
+  assert_string_equal(f->headline, "shows C 15% above A as 600% above");
+  assert_string_equal(f->message, "shows C 15% above A as 600% above: bars start at 400, not 0; "
+                                  "A (410) to C (470): ink ×7 for value ×1.15 (Lie Factor "
+                                  "41.00, GDI +4000%)");
   /* the finding's elements carry the boxes the figure had */
   const pp_finding_element *e2 = &g_array_index(f->elements, pp_finding_element, 2);
   assert_float_equal(e2->box.x0, 100, 0);
@@ -108,27 +112,28 @@ static void test_zero_baseline_is_clean(void **state) {
   pp_figure_free(fig);
 }
 
-/* Material: values 100, 120 from a baseline of 40, ink ∝ 60, 80. Growth form
- * (80/60)/(120/100) = 1.1111 (below 2); Tufte ((80−60)/60)/((120−100)/100) = 5/3,
- * GDI = 66.67 > 10: material. */
+/* Major: values 100, 120 from a baseline of 40, ink ∝ 60, 80. Growth form
+ * (80/60)/(120/100) = 1.1111 = distortion, above 1.10 and below 2: major; Tufte
+ * ((80−60)/60)/((120−100)/100) = 5/3, GDI = 66.67. */
 static void test_material(void **state) {
   (void)state;
   const double v[] = {100, 120}, g[] = {600, 800};
   pp_figure *fig = figure(PP_FIGURE_BAR, TRUE, PP_SCALE_LINEAR, 40, 130, 2, v, g, 40);
   GPtrArray *out = check(fig);
   const pp_finding *f = only(out, "bars-off-zero");
-  assert_float_equal(f->measures.lie_factor, (800.0 / 600) / 1.2, 1e-9);
+  assert_float_equal(f->measures.growth_ratio, (800.0 / 600) / 1.2, 1e-9);
+  assert_float_equal(f->measures.lie_factor, 5.0 / 3, 1e-9);
   assert_float_equal(f->measures.gdi, 100.0 * (5.0 / 3 - 1), 1e-9);
-  assert_int_equal(f->severity, PP_SEVERITY_MATERIAL);
-  assert_string_equal(f->message, "bars start at 40, not 0: the B bar uses 1.33× the ink of A for "
-                                  "1.20× the value (lie factor 1.11, GDI +67%)");
+  assert_int_equal(f->severity, PP_SEVERITY_MAJOR);
+  assert_string_equal(f->headline, "shows B 20% above A as 33% above");
   g_ptr_array_unref(out);
   pp_figure_free(fig);
 }
 
 /* Labels only (no scale): labels 10 and 1000, ink 100 and 10600. Growth form
  * 106/100 = 1.06 (outside Tufte's 0.95–1.05); Tufte (10500/100)/(990/10) = 105/99, GDI
- * 6.06 (within ±10%); worst pair 1.06 ≤ 1.1: note. */
+ * 6.06 (within ±10%); distortion 1.06 ≤ 1.10: minor. Beyond tenfold the headline counts
+ * times: B is 100 times A, drawn 106 times. */
 static void test_labels_only_note(void **state) {
   (void)state;
   const double labels[] = {10, 1000}, g[] = {100, 10600};
@@ -136,12 +141,11 @@ static void test_labels_only_note(void **state) {
   set_labels(fig, labels);
   GPtrArray *out = check(fig);
   const pp_finding *f = only(out, "bars-vs-labels");
-  assert_float_equal(f->measures.lie_factor, 1.06, 1e-9);
+  assert_float_equal(f->measures.growth_ratio, 1.06, 1e-9);
+  assert_float_equal(f->measures.lie_factor, 105.0 / 99, 1e-9);
   assert_float_equal(f->measures.gdi, 100.0 * (105.0 / 99 - 1), 1e-9);
-  assert_int_equal(f->severity, PP_SEVERITY_NOTE);
-  assert_string_equal(f->message, "bar lengths disagree with their printed labels: the B bar uses "
-                                  "106.00× the ink of A for 100.00× the value (lie factor 1.06, "
-                                  "GDI +6%)");
+  assert_int_equal(f->severity, PP_SEVERITY_MINOR);
+  assert_string_equal(f->headline, "shows B 100 times A as 106 times");
   g_ptr_array_unref(out);
   pp_figure_free(fig);
 }
@@ -149,7 +153,7 @@ static void test_labels_only_note(void **state) {
 /* With a scale, labels decide only when one disagrees with its reading by more than 5%:
  * label 60 on a bar read 50 (20% off) makes the labels the values; the ink (∝ 50, 100
  * read values) against labels 60, 100 gives (1000/500)/(100/60) = 1.2: material (worst
- * 1.2 > 1.1; GDI (1/0.6667) − 1 = 50%). Labels within 5% leave the scale rule. */
+ * 1.2 > 1.1: major; GDI (1/0.6667) − 1 = 50%). Labels within 5% leave the scale rule. */
 static void test_labels_outrank_scale(void **state) {
   (void)state;
   const double v[] = {50, 100}, g[] = {500, 1000}, labels[] = {60, 100}, close[] = {51, 99};
@@ -157,9 +161,9 @@ static void test_labels_outrank_scale(void **state) {
   set_labels(fig, labels);
   GPtrArray *out = check(fig);
   const pp_finding *f = only(out, "bars-vs-labels");
-  assert_float_equal(f->measures.lie_factor, 2.0 / (100.0 / 60), 1e-9);
+  assert_float_equal(f->measures.growth_ratio, 2.0 / (100.0 / 60), 1e-9);
   assert_float_equal(f->measures.gdi, 100.0 * ((500.0 / 500) / (40.0 / 60) - 1), 1e-9);
-  assert_int_equal(f->severity, PP_SEVERITY_MATERIAL);
+  assert_int_equal(f->severity, PP_SEVERITY_MAJOR);
   g_ptr_array_unref(out);
   pp_figure_free(fig);
   fig = figure(PP_FIGURE_COLUMN, TRUE, PP_SCALE_LINEAR, 0, 120, 2, v, g, 0);
@@ -172,38 +176,35 @@ static void test_labels_outrank_scale(void **state) {
 
 /* A log scale from 10: bars 100 and 1000 are drawn log10(v/10) long, 1 and 2 units,
  * ink 100 and 200. Growth form (200/100)/(1000/100) = 0.2; worst pair 1000/100 / 2 = 5:
- * gross. The sentence prints small lie factors to two significant digits. */
+ * severe. Tufte ((200−100)/100)/((1000−100)/100) = 1/9, GDI −88.9. */
 static void test_bars_on_log(void **state) {
   (void)state;
   const double v[] = {100, 1000}, g[] = {100, 200};
   pp_figure *fig = figure(PP_FIGURE_COLUMN, TRUE, PP_SCALE_LOG, 10, 10000, 2, v, g, 10);
   GPtrArray *out = check(fig);
   const pp_finding *f = only(out, "bars-on-log");
-  assert_float_equal(f->measures.lie_factor, 0.2, 1e-12);
+  assert_float_equal(f->measures.growth_ratio, 0.2, 1e-12);
+  assert_float_equal(f->measures.lie_factor, 1.0 / 9, 1e-12);
   assert_float_equal(f->measures.max_pair_departure, 5.0, 1e-12);
-  assert_int_equal(f->severity, PP_SEVERITY_GROSS);
-  assert_string_equal(f->message,
-                      "bars on a logarithmic axis (10 to 10,000), so length cannot follow value: "
-                      "the B bar uses 2.00× the ink of A for 10.00× the value (lie factor 0.20, "
-                      "GDI -89%)");
+  assert_int_equal(f->severity, PP_SEVERITY_SEVERE);
+  assert_string_equal(f->headline, "shows B 10 times A as 2 times");
   g_ptr_array_unref(out);
   pp_figure_free(fig);
 }
 
 /* An area on a floor of 50: samples 60 → 90 with heights ∝ 10 → 40. Growth form
- * (40/10)/(90/60) = 2.6667: gross; Tufte (30/10)/(30/60) = 6, GDI 500. */
+ * (40/10)/(90/60) = 2.6667: severe; Tufte (30/10)/(30/60) = 6, GDI 500. */
 static void test_area_off_zero(void **state) {
   (void)state;
   const double v[] = {60, 75, 90}, g[] = {10, 25, 40};
   pp_figure *fig = figure(PP_FIGURE_AREA, TRUE, PP_SCALE_LINEAR, 50, 100, 3, v, g, 50);
   GPtrArray *out = check(fig);
   const pp_finding *f = only(out, "area-off-zero");
-  assert_float_equal(f->measures.lie_factor, 4.0 / 1.5, 1e-9);
+  assert_float_equal(f->measures.growth_ratio, 4.0 / 1.5, 1e-9);
+  assert_float_equal(f->measures.lie_factor, 6.0, 1e-9);
   assert_float_equal(f->measures.gdi, 500.0, 1e-9);
-  assert_int_equal(f->severity, PP_SEVERITY_GROSS);
-  assert_string_equal(f->message, "the filled area stands on 50, not 0: at its right end the area "
-                                  "uses 4.00× the ink of its left end for 1.50× the value (lie "
-                                  "factor 2.67, GDI +500%)");
+  assert_int_equal(f->severity, PP_SEVERITY_SEVERE);
+  assert_string_equal(f->headline, "shows C 50% above A as 300% above");
   g_ptr_array_unref(out);
   pp_figure_free(fig);
 }
