@@ -21,6 +21,7 @@ static void figure_free(gpointer p)
   g_ptr_array_unref(fig->styles);
   g_free(fig->note);
   g_free(fig->extra_json);
+  g_free(fig->expected_json);
   g_free(fig);
 }
 
@@ -253,7 +254,9 @@ static void json_figure(GString *s, const pp_gen_figure *f)
     g_string_append_c(s, ']');
   }
   g_string_append(s, ",\n      \"expected\": ");
-  if (f->has_expected) {
+  if (f->expected_json) {
+    g_string_append(s, f->expected_json);
+  } else if (f->has_expected) {
     const pp_gen_measures *m = &f->expected;
     g_string_append(s, "{\"lie_factor_growth\": ");
     json_measure(s, m->lie_factor_growth);

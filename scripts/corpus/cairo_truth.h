@@ -35,6 +35,7 @@ typedef struct {
   GPtrArray *styles;
   char *note; /* written as "notes" (docs/corpus.md) */
   char *extra_json; /* raw members written last ("\"circle\": {...}"), NULL = none */
+  char *expected_json; /* raw "expected" object, written instead of expected; NULL = none */
 } pp_gen_figure;
 
 typedef struct {

@@ -7,6 +7,7 @@ of arcs (no chart). Angles: cairo's y-down frame, converted for the truth (y up)
 
 import math
 import os
+import random
 import sys
 
 import cairo
@@ -21,6 +22,24 @@ OUT = os.path.join(ROOT, "corpus", "cairo")
 PRODUCER = "cairo " + cairo.cairo_version_string()
 SEED = 4307
 W, H = 420.0, 300.0
+# scripts/holdout sets PP_CORPUS_SEED_OFFSET: the same charts with other invented data.
+OFFSET = int(os.environ.get("PP_CORPUS_SEED_OFFSET", "0"))
+RNG = random.Random(SEED + OFFSET)
+
+
+def vary(values):
+    """The values as given, or (held-out runs) others of the same size order."""
+    if not OFFSET:
+        return list(values)
+    return sorted((max(3.0, float(round(v * RNG.uniform(0.6, 1.4)))) for v in values),
+                  reverse=True)
+
+
+def mislead(values, given):
+    """Angles that disagree with the labels: the given ones, or the values reversed."""
+    return list(given) if not OFFSET else list(reversed(values))
+
+
 NAMES = ["Nordvik", "Eastmarch", "Solbakken", "Harrowgate", "Lowfield"]
 RGB = [(0.23, 0.43, 0.65), (0.88, 0.54, 0.17), (0.35, 0.62, 0.29), (0.77, 0.27, 0.24),
        (0.54, 0.42, 0.71)]
@@ -51,7 +70,7 @@ class Doc:
             f.setdefault("baseline", None)
             f.setdefault("style", [])
             f["misleading"] = f.get("rule") is not None
-        truth.write_truth(self.path, PRODUCER, SEED, 1, figures, ROOT)
+        truth.write_truth(self.path, PRODUCER, SEED + OFFSET, 1, figures, ROOT)
 
 
 def pct(values):
@@ -263,19 +282,20 @@ def diagram(name):
 
 def main():
     os.makedirs(OUT, exist_ok=True)
-    v = [31.0, 24.0, 20.0, 15.0, 10.0]
+    v = vary([31.0, 24.0, 20.0, 15.0, 10.0])
     pie("cc_pie_exploded_honest", v, explode=(1,))
-    pie("cc_pie_exploded_angles_wrong", v, drawn=[22.0, 33.0, 20.0, 15.0, 10.0],
+    pie("cc_pie_exploded_angles_wrong", v, drawn=mislead(v, [22.0, 33.0, 20.0, 15.0, 10.0]),
         rule="wedges-vs-labels", explode=(1,))
     pie("cc_pie_pieces_honest", v, pieces=True)
-    pie("cc_pie_subpaths_honest", [28.0, 22.0, 19.0, 17.0, 14.0], one_path=True)
-    v2 = [30.0, 25.0, 20.0, 15.0, 10.0]
+    pie("cc_pie_subpaths_honest", vary([28.0, 22.0, 19.0, 17.0, 14.0]), one_path=True)
+    v2 = vary([30.0, 25.0, 20.0, 15.0, 10.0])
     tilted("cc_tilted_rim", v2, 0.35, 0.18, "tilted-pie-ink")
     tilted("cc_tilted_flat_honest", v2, 0.35, 0.0, None)
     tilted("cc_perspective", v2, 0.0, 0.0, "tilted-pie-ink",
            persp={"tilt": math.radians(62), "distance": 2.6})
-    radial("cc_radial_equal_width", [72.0, 58.0, 44.0, 30.0], 100.0, False, "radial-ring-ink")
-    radial("cc_radial_equal_area_honest", [72.0, 58.0, 44.0, 30.0], 100.0, True, None)
+    vr = vary([72.0, 58.0, 44.0, 30.0])
+    radial("cc_radial_equal_width", vr, 100.0, False, "radial-ring-ink")
+    radial("cc_radial_equal_area_honest", vr, 100.0, True, None)
     diagram("cc_cycle_diagram")
 
 

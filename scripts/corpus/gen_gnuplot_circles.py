@@ -6,6 +6,7 @@ painted on top. Runs after gen_gnuplot.py, which empties the directory."""
 
 import math
 import os
+import random
 import subprocess
 import sys
 
@@ -22,6 +23,24 @@ L, R, B, T = 0.1, 0.9, 0.1, 0.9
 XR, YR = 1.5, 1.2
 SEED = 4207
 NAMES = ["Quay fees", "Tickets", "Cargo", "Catering", "Other"]
+# scripts/holdout sets PP_CORPUS_SEED_OFFSET: the same charts with other invented data.
+OFFSET = int(os.environ.get("PP_CORPUS_SEED_OFFSET", "0"))
+RNG = random.Random(SEED + OFFSET)
+
+
+def vary(values):
+    """The values as given, or (held-out runs) others of the same size order."""
+    if not OFFSET:
+        return list(values)
+    return sorted((max(3.0, float(round(v * RNG.uniform(0.6, 1.4)))) for v in values),
+                  reverse=True)
+
+
+def mislead(values, given):
+    """Angles that disagree with the labels: the given ones, or the values reversed."""
+    return list(given) if not OFFSET else list(reversed(values))
+
+
 COLOURS = ["0x3b6ea5", "0xe08a2c", "0x5a9e4b", "0xc4453c", "0x8a6bb5"]
 
 
@@ -85,7 +104,8 @@ def pie(name, values, printed, drawn=None, rule=None, hole=0.0, decimals=0, note
            "circle": circle}
     if notes:
         fig["notes"] = notes
-    truth.write_truth(os.path.join(OUT, name + ".pdf"), producer(), SEED, 1, [fig], ROOT)
+    truth.write_truth(os.path.join(OUT, name + ".pdf"), producer(), SEED + OFFSET, 1, [fig],
+                      ROOT)
 
 
 def pct(values, decimals=0):
@@ -94,13 +114,14 @@ def pct(values, decimals=0):
 
 def main():
     os.makedirs(OUT, exist_ok=True)
-    v = [36.0, 28.0, 19.0, 11.0, 6.0]
+    v = vary([36.0, 28.0, 19.0, 11.0, 6.0])
     pie("gpc_pie_honest", v, pct(v))
-    pie("gpc_pie_angles_wrong", v, pct(v), drawn=[26.0, 26.0, 22.0, 15.0, 11.0],
+    pie("gpc_pie_angles_wrong", v, pct(v), drawn=mislead(v, [26.0, 26.0, 22.0, 15.0, 11.0]),
         rule="wedges-vs-labels")
-    pie("gpc_pie_sum_off", v, [36.0, 28.0, 19.0, 11.0, 15.0], rule="shares-not-100",
-        notes="the last label prints 15% for a 6% slice; the labels sum to 109")
-    v2 = [44.0, 30.0, 18.0, 8.0]
+    off = pct(v)[:-1] + [pct(v)[-1] + 9]
+    pie("gpc_pie_sum_off", v, off, rule="shares-not-100",
+        notes="the last label is 9 points too high; the labels sum to %g" % sum(off))
+    v2 = vary([44.0, 30.0, 18.0, 8.0])
     pie("gpc_donut_hole_honest", v2, pct(v2), hole=0.55)
 
 

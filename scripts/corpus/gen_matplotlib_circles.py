@@ -7,6 +7,7 @@ Truth: scripts/corpus/truth_circles.py computes the expected measures from the d
 
 import math
 import os
+import random
 import sys
 
 import matplotlib
@@ -26,6 +27,24 @@ OUT = os.path.join(ROOT, "corpus", "matplotlib")
 PRODUCER = "matplotlib " + matplotlib.__version__
 META = {"CreationDate": None, "Creator": PRODUCER}
 SEED = 4107  # the data below is fixed, invented by hand for the Fjordhaven scenario
+# scripts/holdout sets PP_CORPUS_SEED_OFFSET: the same charts with other invented data.
+OFFSET = int(os.environ.get("PP_CORPUS_SEED_OFFSET", "0"))
+RNG = random.Random(SEED + OFFSET)
+
+
+def vary(values, decimals=0):
+    """The values as given, or (held-out runs) other values of the same size order,
+    largest first as in the originals."""
+    if not OFFSET:
+        return list(values)
+    out = [max(3.0, round(v * RNG.uniform(0.6, 1.4), decimals)) for v in values]
+    return sorted(out, reverse=True)
+
+
+def mislead(values, given):
+    """Angles for a pie that disagrees with its labels: the given ones, or (held-out
+    runs) the values in reverse order, far from every label."""
+    return list(given) if not OFFSET else list(reversed(values))
 
 SEGMENTS = ["Ferries", "Freight", "Harbour", "Charter", "Other"]
 FUNDS = ["Tern Bond", "Skarv Equity", "Lomvi Cash", "Alke Property"]
@@ -53,7 +72,7 @@ def save(fig, name, figures):
     path = os.path.join(OUT, name + ".pdf")
     fig.savefig(path, metadata=META)
     plt.close(fig)
-    truth.write_truth(path, PRODUCER, SEED, 1, figures, ROOT)
+    truth.write_truth(path, PRODUCER, SEED + OFFSET, 1, figures, ROOT)
 
 
 def figure(kind, bbox, values, labels, rule=None, circle=None, data_labels=None,
@@ -264,26 +283,30 @@ def lookalikes():
 
 def main():
     os.makedirs(OUT, exist_ok=True)
-    v = [41.0, 27.0, 16.0, 10.0, 6.0]
+    v = vary([41.0, 27.0, 16.0, 10.0, 6.0])
     pie("circ_pie_honest", v, pct_labels(v))
     # Labels from the true values, angles drawn from other numbers.
-    pie("circ_pie_angles_wrong", v, pct_labels(v), drawn=[30.0, 30.0, 18.0, 12.0, 10.0],
-        rule="wedges-vs-labels")
-    # Honest angles, printed percentages that sum to 108.
-    pie("circ_pie_sum_off", v, [44.0, 29.0, 17.0, 11.0, 7.0], drawn=v,
-        rule="shares-not-100", notes="percentages printed sum to 108")
+    pie("circ_pie_angles_wrong", v, pct_labels(v),
+        drawn=mislead(v, [30.0, 30.0, 18.0, 12.0, 10.0]), rule="wedges-vs-labels")
+    # Honest angles, printed percentages that sum to 108 (held out: 100 + 8 as well).
+    off = [44.0, 29.0, 17.0, 11.0, 7.0] if not OFFSET else \
+        [p + a for p, a in zip(pct_labels(v), (3, 2, 1, 1, 1))]
+    pie("circ_pie_sum_off", v, off, drawn=v, rule="shares-not-100",
+        notes="percentages printed sum to %g" % sum(off))
     # One decimal, honest: the sum is 100.0 within 5 x 0.05.
-    v2 = [38.4, 25.1, 17.7, 11.2, 7.6]
+    v2 = vary([38.4, 25.1, 17.7, 11.2, 7.6], 1)
     pie("circ_pie_decimals_honest", v2, pct_labels(v2, 1), decimals=1)
-    v3 = [46.0, 31.0, 15.0, 8.0]
+    v3 = vary([46.0, 31.0, 15.0, 8.0])
     pie("circ_donut_honest", v3, pct_labels(v3), donut=True, legend=True,
         title="Fund mix, 2031")
-    pie("circ_donut_angles_wrong", v3, pct_labels(v3), drawn=[34.0, 33.0, 20.0, 13.0],
-        donut=True, legend=True, rule="wedges-vs-labels", title="Fund mix, 2031")
-    radial_bars("circ_radial_bars", [62.0, 48.0, 35.0, 21.0], 80.0)
-    polar_area("circ_polar_radius", [120.0, 80.0, 60.0, 35.0, 25.0], True)
-    polar_area("circ_polar_sqrt_honest", [120.0, 80.0, 60.0, 35.0, 25.0], False)
-    v4 = [34.0, 26.0, 18.0, 14.0, 8.0]
+    pie("circ_donut_angles_wrong", v3, pct_labels(v3),
+        drawn=mislead(v3, [34.0, 33.0, 20.0, 13.0]), donut=True, legend=True,
+        rule="wedges-vs-labels", title="Fund mix, 2031")
+    radial_bars("circ_radial_bars", vary([62.0, 48.0, 35.0, 21.0]), 80.0 if not OFFSET else 100.0)
+    vp = vary([120.0, 80.0, 60.0, 35.0, 25.0])
+    polar_area("circ_polar_radius", vp, True)
+    polar_area("circ_polar_sqrt_honest", vp, False)
+    v4 = vary([34.0, 26.0, 18.0, 14.0, 8.0])
     tilted_pie("circ_tilted_rim", v4, 0.42, 0.16, "tilted-pie-ink")
     tilted_pie("circ_tilted_flat_honest", v4, 0.42, 0.0, None)
     lookalikes()

@@ -108,6 +108,9 @@ def _shoelace(pts):
 def _tilted(fig, c):
     v = fig["values"]
     s = [x / sum(v) for x in v]
+    if c.get("printed_kind") == "percent":
+        # The reader's shares are the printed ones; the ink is compared with them.
+        s = [x / 100.0 for x in c["printed"]]
     k, depth = c["ratio"], c.get("depth", 0.0)
     spans = slice_angles(v, c["start"], c["direction"])
     persp = c.get("perspective")

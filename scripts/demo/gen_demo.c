@@ -495,9 +495,22 @@ static void pie_chart(demo *d, const char *title, double cx, double cy, double r
   }
   g_string_append(circle, "], \"printed_kind\": \"percent\", \"decimals\": 0}");
   f->extra_json = g_string_free(circle, FALSE);
-  f->has_expected = TRUE;
-  f->expected =
-      (pp_gen_measures){(drawn[worst] / total) / (printed[worst] / 100), NAN, NAN, NAN, NAN};
+  /* The measures of scripts/corpus/truth_circles.py (_pie), same arithmetic, 9 digits. */
+  double pairs = 1.0, psum = 0;
+  for (int i = 0; i < n; i++) {
+    psum += printed[i];
+    for (int j = i + 1; j < n; j++) {
+      double r = ((drawn[i] / total) / (drawn[j] / total)) /
+                 ((printed[i] / 100.0) / (printed[j] / 100.0));
+      pairs = fmax(pairs, fmax(r, 1 / r));
+    }
+  }
+  f->expected_json = g_strdup_printf(
+      "{\"lie_factor_growth\": %.9g, \"worst_wedge\": \"%s\", \"worst_drawn_share\": %.9g, "
+      "\"worst_printed_share\": %.9g, \"max_pair_departure\": %.9g, \"percent_sum\": %.9g, "
+      "\"percent_allowance\": %.9g}",
+      (drawn[worst] / total) / (printed[worst] / 100.0), names[worst], drawn[worst] / total,
+      printed[worst] / 100.0, pairs, psum, n * 0.5);
   pp_gen_figure_add_style(f, "multi-chart-page");
 }
 
@@ -541,11 +554,21 @@ static void radial_chart(demo *d, const char *title, double cx, double cy, int n
   }
   g_string_append_printf(circle, "], \"full_value\": %g}", full);
   f->extra_json = g_string_free(circle, FALSE);
-  double rin = r0, rout = r0 + (n - 1) * (width + gap);
-  f->has_expected = TRUE;
-  f->expected = (pp_gen_measures){((rout + width) * (rout + width) - rout * rout) /
-                                      ((rin + width) * (rin + width) - rin * rin),
-                                  NAN, NAN, NAN, NAN};
+  /* The measures of scripts/corpus/truth_circles.py (_radial), same arithmetic. */
+  double ink[8], pairs = 1.0;
+  for (int i = 0; i < n && i < 8; i++) {
+    double ri = r0 + i * (width + gap), ro = ri + width;
+    ink[i] = (ro * ro - ri * ri) * G_PI * values[i] / full;
+  }
+  for (int i = 0; i < n && i < 8; i++)
+    for (int j = i + 1; j < n && j < 8; j++) {
+      double r = (ink[i] / ink[j]) / (values[i] / values[j]);
+      pairs = fmax(pairs, fmax(r, 1 / r));
+    }
+  double ratio = (ink[n - 1] / values[n - 1]) / (ink[0] / values[0]);
+  f->expected_json = g_strdup_printf("{\"lie_factor_growth\": %.9g, \"outer_to_inner\": %.9g, "
+                                     "\"max_pair_departure\": %.9g}",
+                                     ratio, ratio, pairs);
   pp_gen_figure_add_style(f, "multi-chart-page");
 }
 

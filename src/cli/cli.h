@@ -17,6 +17,7 @@ typedef struct {
   gboolean annotate;
   GPtrArray *disabled_rules; /* of char*: rule ids whose findings are dropped */
   GPtrArray *min_severity;   /* of char* "RULE=WORD": findings below WORD dropped */
+  char *profile;             /* --profile NAME as given (profiles.c expands it), or NULL */
 } pp_cli_options;
 
 /* `plotproof: FILE: WORD (MESSAGE)` on one line, newlines in MESSAGE flattened. */
@@ -53,3 +54,11 @@ int pp_cli_accept(const char *findings_file, char **ids, int n_ids, const pp_cli
 /* config.c: a GLib key file turned into command-line options placed before the user's
  * own, so the command line wins. Returns a new argv (g_strfreev) or NULL on error. */
 char **pp_cli_config_argv(int argc, char **argv, int *new_argc);
+
+/* profiles.c: a profile's thresholds and rules as option words (FALSE with a message on
+ * stderr when there is no such profile), and `plotproof profiles`. */
+gboolean pp_cli_profile_words(const char *name, GPtrArray *words);
+int pp_cli_profiles(void);
+/* --enable-rule: an opt-in rule on, or a main-table rule's earlier --disable-rule undone;
+ * FALSE with a message when there is no such rule. */
+gboolean pp_cli_enable_rule(pp_cli_options *opt, const char *id);

@@ -5,7 +5,7 @@
  *
  *   [thresholds]   lie-band=0.95:1.05  gdi-limit=10
  *   [output]       output=out/  html=pack/  csv=all.csv  sarif=all.sarif  annotate=true
- *   [scan]         timeout=120  baseline=accepted.ini
+ *   [scan]         timeout=120  baseline=accepted.ini  profile=strict
  *   [rules]        bars-on-log=false            (a rule off)
  *   [rule bars-off-zero]  min-severity=major (per-rule option)
  */
@@ -47,6 +47,18 @@ static void add_rules(GPtrArray *words, GKeyFile *kf) {
   g_strfreev(groups);
 }
 
+/* The value of the last --profile NAME (or --profile=NAME) on the command line, else NULL. */
+static const char *profile_argument(int argc, char **argv) {
+  const char *name = NULL;
+  for (int i = 2; i < argc; i++) {
+    if (strcmp(argv[i], "--profile") == 0 && i + 1 < argc)
+      name = argv[++i];
+    else if (g_str_has_prefix(argv[i], "--profile="))
+      name = argv[i] + 10;
+  }
+  return name;
+}
+
 /* The file named by --config (or --config=FILE), "" for --no-config, else NULL. */
 static const char *config_argument(int argc, char **argv) {
   for (int i = 1; i < argc; i++) {
@@ -70,6 +82,9 @@ char **pp_cli_config_argv(int argc, char **argv, int *new_argc) {
     g_ptr_array_add(words, g_strdup(argv[1]));
   /* Only `scan` reads the file: its keys are scan options. */
   gboolean scan = argc > 1 && strcmp(argv[1], "scan") == 0;
+  char *profile = NULL; /* the configuration's [scan] profile */
+  GPtrArray *config = g_ptr_array_new_with_free_func(g_free), *user = words;
+  words = config;
   if (scan && path[0] && (given || g_file_test(path, G_FILE_TEST_EXISTS))) {
     g_autoptr(GKeyFile) kf = g_key_file_new();
     GError *error = NULL;
@@ -77,9 +92,11 @@ char **pp_cli_config_argv(int argc, char **argv, int *new_argc) {
       pp_cli_print_file_error(path, "unreadable configuration", error->message);
       g_error_free(error);
       g_free(path);
-      g_ptr_array_unref(words);
+      g_ptr_array_unref(config);
+      g_ptr_array_unref(user);
       return NULL;
     }
+    profile = g_key_file_get_string(kf, "scan", "profile", NULL);
     for (guint g = 0; g < G_N_ELEMENTS(option_groups); g++) {
       gsize n = 0;
       char **keys = g_key_file_get_keys(kf, option_groups[g], &n, NULL);
@@ -90,6 +107,20 @@ char **pp_cli_config_argv(int argc, char **argv, int *new_argc) {
     add_rules(words, kf);
   }
   g_free(path);
+  /* The profile's words first, then the configuration's, then the command line's: the
+   * last value of an option counts. */
+  words = user;
+  const char *name = profile_argument(argc, argv);
+  if (scan && (name || profile) && !pp_cli_profile_words(name ? name : profile, words)) {
+    g_free(profile);
+    g_ptr_array_unref(config);
+    g_ptr_array_unref(words);
+    return NULL;
+  }
+  g_free(profile);
+  for (guint i = 0; i < config->len; i++)
+    g_ptr_array_add(words, g_strdup(g_ptr_array_index(config, i)));
+  g_ptr_array_unref(config);
   for (int i = 2; i < argc; i++)
     g_ptr_array_add(words, g_strdup(argv[i]));
   *new_argc = (int)words->len;

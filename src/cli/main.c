@@ -17,7 +17,7 @@ static void print_help(FILE *out) {
           "       plotproof scene FILE [--page N] [--password PW]\n"
           "       plotproof charts FILE [--page N] [--password PW]\n"
           "       plotproof compare OLD NEW [--json] [--html FILE]\n"
-          "       plotproof explain RULE | plotproof rules\n"
+          "       plotproof explain RULE | plotproof rules | plotproof profiles\n"
           "       plotproof accept FINDINGS.json ID... --baseline FILE [--who NAME] [--why TEXT]\n"
           "       plotproof --help | --version\n"
           "\n"
@@ -48,10 +48,19 @@ static void print_help(FILE *out) {
           "      --min-severity RULE=WORD  drop a rule's findings below WORD\n"
           "      --config FILE      options from a key file (default: $XDG_CONFIG_HOME/\n"
           "                         plotproof/config); the command line wins. --no-config\n"
+          "      --profile NAME     a named set of thresholds and rules: default, strict,\n"
+          "                         fund-past-performance, or the user's own (plotproof\n"
+          "                         profiles lists them); also [scan] profile= in the\n"
+          "                         configuration, which with the command line overrides it\n"
+          "      --enable-rule ID   switch on an opt-in rule (a profile's check) or undo an\n"
+          "                         earlier --disable-rule (repeatable)\n"
           "\n"
           "compare: findings of two drafts (PDFs or findings files): new, resolved,\n"
           "unchanged. explain: a rule's page. rules: the rules. accept: add findings to\n"
-          "a baseline file with who, why and today's date.\n"
+          "a baseline file with who, why and today's date. profiles: the profiles with\n"
+          "the file each comes from (user's $XDG_CONFIG_HOME/plotproof/profiles/ first).\n"
+          "A profile aids a review and is no legal opinion: the regulation's text and the\n"
+          "competent authority's guidance prevail.\n"
           "\n"
           "scene: the captured scene of one page (marks, paths, clips, words) as JSON.\n"
           "charts: the figures recognised on one page (axes, ticks, elements) as JSON.\n"
@@ -63,7 +72,8 @@ static void print_help(FILE *out) {
   if (n > 0) {
     fprintf(out, "Rules:\n");
     for (guint i = 0; i < n; i++)
-      fprintf(out, "  %-20s %s\n", rules[i].id, rules[i].summary);
+      fprintf(out, "  %-20s %s%s\n", rules[i].id, rules[i].opt_in ? "(opt-in) " : "",
+              rules[i].summary);
     fprintf(out, "\n");
   }
   fprintf(out,
@@ -140,6 +150,8 @@ static const struct option long_options[] = {
     {"why", required_argument, NULL, OPT_REVIEW + 8},
     {"config", required_argument, NULL, OPT_REVIEW + 9},
     {"no-config", no_argument, NULL, OPT_REVIEW + 10},
+    {"profile", required_argument, NULL, OPT_REVIEW + 11},
+    {"enable-rule", required_argument, NULL, OPT_REVIEW + 12},
     {NULL, 0, NULL, 0},
 };
 
@@ -151,7 +163,8 @@ typedef enum {
   CMD_COMPARE,
   CMD_EXPLAIN,
   CMD_RULES,
-  CMD_ACCEPT
+  CMD_ACCEPT,
+  CMD_PROFILES
 } command;
 
 /* The reviewer options: stored as given (later ones win); checked where used. */
@@ -172,6 +185,11 @@ static gboolean review_option(int c, const char *arg, pp_cli_options *opt) {
     char **s = k == 7 ? &opt->who : &opt->why;
     g_free(*s);
     *s = g_strdup(arg);
+  } else if (k == 11) { /* expanded by config.c before parsing; kept for the record */
+    g_free(opt->profile);
+    opt->profile = g_strdup(arg);
+  } else if (k == 12) {
+    return pp_cli_enable_rule(opt, arg);
   } else if (k != 9 && k != 10) {
     return FALSE;
   }
@@ -253,6 +271,8 @@ static command command_from(const char *word) {
     return CMD_RULES;
   if (strcmp(word, "accept") == 0)
     return CMD_ACCEPT;
+  if (strcmp(word, "profiles") == 0)
+    return CMD_PROFILES;
   return CMD_NONE;
 }
 
@@ -289,6 +309,7 @@ static int run(int argc, char **argv, pp_cli_options *opt) {
       return usage_error("%s", "explain needs one RULE ('plotproof rules' lists them)");
     return pp_cli_explain(args[0]);
   case CMD_RULES: return pp_cli_rules();
+  case CMD_PROFILES: return pp_cli_profiles();
   case CMD_ACCEPT:
     if (n_args < 2)
       return usage_error("%s", "accept needs a findings file and at least one finding id");
@@ -315,7 +336,7 @@ int main(int argc, char **argv) {
   g_free(opt.output_dir);
   g_free(opt.password);
   g_free(opt.html_dir), g_free(opt.csv_file), g_free(opt.sarif_file), g_free(opt.baseline_file);
-  g_free(opt.who), g_free(opt.why);
+  g_free(opt.who), g_free(opt.why), g_free(opt.profile);
   if (opt.disabled_rules)
     g_ptr_array_unref(opt.disabled_rules);
   if (opt.min_severity)

@@ -24,8 +24,12 @@
 /* ...and a value label lies beyond a tip by at most this many points. */
 #define PP_POLAR_LABEL_REACH 40.0
 
+/* A full-turn ring is a track drawn behind a bar (or a donut's whole ring), never a bar. */
+#define PP_RADIAL_TRACK_SWEEP (0.999 * 2 * G_PI)
+
 static gboolean is_circular(const pp_wedge_candidate *c) {
-  return c->w.outer.ry / c->w.outer.rx > PP_CIRCLE_AXIS_RATIO;
+  return c->w.outer.ry / c->w.outer.rx > PP_CIRCLE_AXIS_RATIO &&
+         c->w.a1 - c->w.a0 < PP_RADIAL_TRACK_SWEEP;
 }
 
 static gboolean same_centre(const pp_wedge_candidate *a, const pp_wedge_candidate *b) {

@@ -21,6 +21,15 @@ pp_thresholds pp_thresholds_default(void) {
   };
 }
 
+gboolean pp_thresholds_enable_rule(pp_thresholds *t, const char *id) {
+  for (guint i = 0; i < pp_n_opt_in_rules; i++)
+    if (g_strcmp0(pp_opt_in_rules[i].rule.id, id) == 0) {
+      t->opt_in |= G_GUINT64_CONSTANT(1) << i;
+      return TRUE;
+    }
+  return FALSE;
+}
+
 const char *pp_severity_name(pp_severity s) {
   static const char *names[] = {"minor", "major", "severe"};
   return s <= PP_SEVERITY_SEVERE ? names[s] : "minor";
@@ -29,12 +38,16 @@ const char *pp_severity_name(pp_severity s) {
 const pp_rule_info *pp_rules_list(guint *n) {
   static pp_rule_info *infos;
   if (!infos) {
-    pp_rule_info *list = g_new0(pp_rule_info, MAX(pp_n_rules, 1));
+    pp_rule_info *list = g_new0(pp_rule_info, pp_n_rules + pp_n_opt_in_rules + 1);
     for (guint i = 0; i < pp_n_rules; i++)
-      list[i] = (pp_rule_info){pp_rules[i].id, pp_rules[i].summary, pp_rules[i].doc};
+      list[i] = (pp_rule_info){pp_rules[i].id, pp_rules[i].summary, pp_rules[i].doc, FALSE};
+    for (guint i = 0; i < pp_n_opt_in_rules; i++) {
+      const pp_rule *r = &pp_opt_in_rules[i].rule;
+      list[pp_n_rules + i] = (pp_rule_info){r->id, r->summary, r->doc, TRUE};
+    }
     infos = list; /* kept for the life of the process */
   }
-  *n = pp_n_rules;
+  *n = pp_n_rules + pp_n_opt_in_rules;
   return infos;
 }
 
@@ -299,9 +312,41 @@ char *pp_rule_sentence(const pp_finding *f, const pp_thresholds *t, char *lead, 
   return g_string_free(s, FALSE);
 }
 
+/* Runs the opt-in rules switched on; returns the rule ids their findings restate. */
+static GPtrArray *check_opt_in(const pp_figure *fig, const pp_thresholds *t, GPtrArray *findings) {
+  GPtrArray *superseded = g_ptr_array_new();
+  for (guint i = 0; i < pp_n_opt_in_rules; i++) {
+    const pp_rule *r = &pp_opt_in_rules[i].rule;
+    if (!(t->opt_in & (G_GUINT64_CONSTANT(1) << i)) || !(r->kinds & (1u << fig->kind)))
+      continue;
+    pp_finding *f = pp_finding_new(fig, r->id);
+    if (r->measure(fig, t, f) && r->severity(&f->measures, t, &f->severity)) {
+      f->measures.distortion = pp_measures_distortion(&f->measures);
+      /* The sentence says what fails, then why and where the rule comes from; the
+       * headline is its first clause. */
+      f->message = r->sentence(fig, f, t);
+      f->headline = g_strndup(f->message, strcspn(f->message, ";"));
+      g_ptr_array_add(findings, f);
+      if (pp_opt_in_rules[i].supersedes)
+        g_ptr_array_add(superseded, (gpointer)pp_opt_in_rules[i].supersedes);
+    } else {
+      pp_finding_free(f);
+    }
+  }
+  return superseded;
+}
+
+static gboolean listed(GPtrArray *ids, const char *id) {
+  for (guint i = 0; i < ids->len; i++)
+    if (strcmp(g_ptr_array_index(ids, i), id) == 0)
+      return TRUE;
+  return FALSE;
+}
+
 void pp_rules_check_figure(const pp_figure *fig, const pp_thresholds *t, GPtrArray *findings) {
   if (!fig->judged || fig->elements->len < 2)
     return;
+  g_autoptr(GPtrArray) superseded = check_opt_in(fig, t, findings);
   for (guint i = 0; i < pp_n_rules; i++) {
     const pp_rule *r = &pp_rules[i];
     if (!(r->kinds & (1u << fig->kind)))
@@ -313,8 +358,9 @@ void pp_rules_check_figure(const pp_figure *fig, const pp_thresholds *t, GPtrArr
     }
     /* Rules may set their own measures after the shared ones: the distortion follows them. */
     f->measures.distortion = pp_measures_distortion(&f->measures);
-    /* The first rule that applies judges the figure, whatever it finds. */
-    if (r->severity(&f->measures, t, &f->severity)) {
+    /* The first rule that applies judges the figure, whatever it finds; an opt-in rule's
+     * finding that restates it replaces it. */
+    if (!listed(superseded, r->id) && r->severity(&f->measures, t, &f->severity)) {
       f->headline = pp_rule_headline(f, t);
       char *sentence = r->sentence(fig, f, t);
       /* Every message opens with its headline; rules with their own sentence get it here. */

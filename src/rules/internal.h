@@ -31,6 +31,19 @@ typedef struct {
 extern const pp_rule pp_rules[];
 extern const guint pp_n_rules;
 
+/* An opt-in rule (a profile's check, table_opt_in.c): runs only when switched on in the
+ * thresholds, on every figure of its kinds, each on its own; measure() returns TRUE when
+ * the check fails. */
+typedef struct {
+  pp_rule rule;
+  /* Its finding restates this table rule's (same defect, the regime's source), so that
+   * rule's finding on the same figure is dropped. NULL if none. */
+  const char *supersedes;
+} pp_opt_in_rule;
+
+extern const pp_opt_in_rule pp_opt_in_rules[];
+extern const guint pp_n_opt_in_rules;
+
 /* ---- Helpers shared by the rules (engine.c) ---------------------------------------- */
 
 /* Which value of an element a rule judges. */
@@ -104,6 +117,12 @@ char *pp_rule_bars_on_log_sentence(const pp_figure *fig, const pp_finding *f,
 gboolean pp_rule_bars_off_zero_measure(const pp_figure *fig, const pp_thresholds *t, pp_finding *f);
 char *pp_rule_bars_off_zero_sentence(const pp_figure *fig, const pp_finding *f,
                                      const pp_thresholds *t);
+/* The fund past-performance checks (rule_fund_past_performance.c): one measure and one
+ * sentence for all of them, dispatched on the finding's rule id. */
+gboolean pp_rule_fund_measure(const pp_figure *fig, const pp_thresholds *t, pp_finding *f);
+gboolean pp_rule_fund_major(const pp_measures *m, const pp_thresholds *t, pp_severity *severity);
+gboolean pp_rule_fund_minor(const pp_measures *m, const pp_thresholds *t, pp_severity *severity);
+char *pp_rule_fund_sentence(const pp_figure *fig, const pp_finding *f, const pp_thresholds *t);
 gboolean pp_rule_area_off_zero_measure(const pp_figure *fig, const pp_thresholds *t, pp_finding *f);
 char *pp_rule_area_off_zero_sentence(const pp_figure *fig, const pp_finding *f,
                                      const pp_thresholds *t);

@@ -22,9 +22,12 @@ typedef struct {
   double gdi_limit;                   /* percent; the GDI's ±10% convention (Steinbart 1989) */
   double severe_factor;               /* distortion from which a finding is severe: 2 (no source) */
   double label_tolerance; /* relative; bar-vs-label disagreement tolerated: 0.05 (no source) */
+  guint64 opt_in;         /* bit i: opt-in rule i of the table runs (a profile's checks) */
 } pp_thresholds;
 
 pp_thresholds pp_thresholds_default(void);
+/* Switches on an opt-in rule (a profile's extra check); FALSE when id is not one. */
+gboolean pp_thresholds_enable_rule(pp_thresholds *t, const char *id);
 
 /* The measures for one figure: ink versus value of its first and last elements
  * and of the worst pair. NAN where undefined. */
@@ -75,9 +78,10 @@ pp_finding *pp_finding_new(const pp_figure *figure, const char *rule);
 void pp_finding_free(pp_finding *f);
 G_DEFINE_AUTOPTR_CLEANUP_FUNC(pp_finding, pp_finding_free)
 
-/* Appends to findings (of pp_finding*) what the rules find in one figure: the first rule
- * of the table that judges the figure's kind and applies to it decides (see
- * docs/rules.md); figures seen but not judged get none. */
+/* Appends to findings (of pp_finding*) what the rules find in one figure: every opt-in
+ * rule switched on in thresholds that fails adds its finding; then the first rule of the
+ * table that judges the figure's kind and applies to it decides (see docs/rules.md),
+ * unless a failed opt-in rule restates its finding. Figures seen but not judged get none. */
 void pp_rules_check_figure(const pp_figure *figure, const pp_thresholds *thresholds,
                            GPtrArray *findings);
 
@@ -86,6 +90,7 @@ typedef struct {
   const char *id;
   const char *summary;
   const char *doc; /* anchor in docs/rules.md */
+  gboolean opt_in; /* runs only when a profile (or --enable-rule) switches it on */
 } pp_rule_info;
 const pp_rule_info *pp_rules_list(guint *n);
 
