@@ -193,6 +193,7 @@ void pp_figure_finish(pp_recognize_ctx *ctx, pp_figure *f, const pp_axis_candida
   if (scale_source)
     set_scale(f, scale_source);
   find_title(ctx->scene, f);
+  pp_figure_weigh(ctx, f);
   if (f->evidence->len > 0)
     f->confidence = confidence_of(f);
   pp_figure_set_fingerprint(f);

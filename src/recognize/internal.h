@@ -124,6 +124,10 @@ extern const guint pp_n_recognizers;
  * (figure.c). scale_source may be NULL. */
 void pp_figure_finish(pp_recognize_ctx *ctx, pp_figure *figure,
                       const pp_axis_candidate *scale_source);
+/* Whether a bar or area figure is a chart at all (evidence.c): when it shows what tables,
+ * listings, tags, tiles, rules, shadows or text boxes have, judged becomes FALSE with the
+ * reason. Called by pp_figure_finish(). */
+void pp_figure_weigh(pp_recognize_ctx *ctx, pp_figure *figure);
 
 /* ---- Shared concepts (concepts.c): one definition each ---------------------------- */
 

@@ -29,14 +29,19 @@ const pp_recognizer pp_recognizers[] = {
      pp_recognize_radial},
     {{"bars", "bars and columns standing on a shared baseline beside a fitted value axis",
       "a fitted linear or log scale; two or more bars sharing a baseline edge, not legend "
-      "keys, not overlapping across the axis, the longest at least a tenth of the tick span"},
+      "keys, not overlapping across the axis, the longest at least a tenth of the tick span; "
+      "judged only past the non-chart tests of evidence.c (thicker than a line, lengths that "
+      "differ, one width per colour, near the scale, no words on the marks or body text)"},
      pp_recognize_bars},
     {{"areas", "filled areas under a series beside a fitted vertical value axis",
-      "a fitted scale; a filled non-rectangular polygon beside its labels, within its reach"},
+      "a fitted scale; a filled non-rectangular polygon beside its labels, within its reach; "
+      "judged only when its top is not flat (a rounded box) and no body text lies on it"},
      pp_recognize_areas},
     {{"labelled-bars", "bars with no value axis, each carrying its own printed number",
       "two or more bars of one width sharing a baseline edge, every one with a data label at "
-      "its tip, not legend keys"},
+      "its tip, not legend keys; judged only past the non-chart tests of evidence.c, and with "
+      "labels centred on their bars, not years, not a count 1, 2, 3…, of the signs the bars' "
+      "directions show"},
      pp_recognize_labelled_bars},
     {{"lines", "unfilled lines and scatter markers beside a fitted vertical value axis",
       "a fitted scale that took no bars or areas; polylines or small markers beside its "

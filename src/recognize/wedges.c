@@ -20,6 +20,8 @@
 /* A leader line starts inside its slice or on the rim, within this many radii, and ends
  * within this many points of its label's text (common practice, no source). */
 #define PP_LEADER_START 1.02
+/* A slice's name sits outside it within this many radii (common practice, no source). */
+#define PP_NAME_REACH 1.5
 #define PP_LEADER_REACH 12.0
 
 static double share_of_mark(const pp_mark *m, GArray *ws, guint k) {
@@ -202,6 +204,26 @@ static char *category_of(const pp_scene *scene, const pp_label *lab) {
   return NULL;
 }
 
+/* A slice's name printed just outside it, along its angles, when its number is elsewhere
+ * (inside the slice or in a legend): the nearest text line that is not a number. */
+static char *name_beside(const pp_scene *scene, const pp_slice *s) {
+  const pp_text_line *best = NULL;
+  double best_d = PP_NAME_REACH;
+  for (guint i = 0; i < scene->lines->len; i++) {
+    const pp_text_line *line = g_ptr_array_index(scene->lines, i);
+    pp_point c = {(line->box.x0 + line->box.x1) / 2, (line->box.y0 + line->box.y1) / 2};
+    double a, d;
+    pp_slice_coords(&s->ellipse, c, &a, &d);
+    pp_number num;
+    if (d < 1 || d > best_d || !pp_angle_within(a, s->a0, s->a1) ||
+        pp_number_parse(line->text, PP_DECIMAL_UNKNOWN, &num))
+      continue;
+    best_d = d;
+    best = line;
+  }
+  return best ? g_strdup(best->text) : NULL;
+}
+
 guint pp_slices_attach_labels(pp_recognize_ctx *ctx, GArray *slices, const char *owner,
                               gboolean *legend) {
   guint n = slices->len, found = 0;
@@ -258,6 +280,8 @@ guint pp_slices_attach_labels(pp_recognize_ctx *ctx, GArray *slices, const char 
     const pp_label *lab = g_ptr_array_index(ctx->labels, pick[k]);
     s->label = lab;
     s->category = category_of(ctx->scene, lab);
+    if (!s->category)
+      s->category = name_beside(ctx->scene, s);
     pp_claims_take_label(ctx->claims, lab->index, owner);
     if (swatches[k] != G_MAXUINT)
       pp_claims_take_mark_if_free(ctx->claims, swatches[k], owner);

@@ -18,6 +18,10 @@
 /* How exactly a bar can be measured: a quarter of a point of drawing (anti-aliasing and
  * stroke seams are finer than that in PDF producers; common practice, no source). */
 #define PP_FUND_DRAWING_PT 0.25
+/* The bars compress when, together with 0%, they span less than this share of the axis's
+ * visible range: a third leaves two thirds of the plot empty (common practice, no source;
+ * plotting software's automatic limits leave a tenth or less). */
+#define PP_FUND_MIN_SPAN_SHARE (1.0 / 3.0)
 /* A year gap is shown when the slot it leaves is at least half a step wider than the
  * usual step between years (common practice, no source). */
 #define PP_FUND_GAP_SLACK 0.5
@@ -166,6 +170,27 @@ static char *check_bar_clipped(const pp_figure *fig) {
   return NULL;
 }
 
+static char *check_scale_compressed(const pp_figure *fig) {
+  if (!fig->scale || fig->scale->kind != PP_SCALE_LINEAR)
+    return NULL;
+  double lo = 0, hi = 0, range = fig->scale->max_value - fig->scale->min_value;
+  for (guint i = 0; i < fig->elements->len; i++) {
+    double v = element(fig, i)->scale_value;
+    if (isfinite(v))
+      lo = fmin(lo, v), hi = fmax(hi, v);
+  }
+  if (!(range > 0) || hi - lo >= PP_FUND_MIN_SPAN_SHARE * range)
+    return NULL;
+  char *a = pp_format_value(fig->scale->min_value), *b = pp_format_value(fig->scale->max_value);
+  char *c = pp_format_value(lo), *d = pp_format_value(hi);
+  char *s = g_strdup_printf("the bars span %s%% to %s%% on an axis from %s%% to %s%%, %.0f%% of "
+                            "its height; the scale must not compress the bars so as to make "
+                            "fluctuations harder to distinguish (" REG ", Annex III point 2)",
+                            c, d, a, b, 100 * (hi - lo) / range);
+  g_free(a), g_free(b), g_free(c), g_free(d);
+  return s;
+}
+
 static char *check_label_vs_bar(const pp_figure *fig) {
   if (!fig->scale || fig->scale->kind != PP_SCALE_LINEAR)
     return NULL;
@@ -264,13 +289,10 @@ typedef struct {
 
 /* The same ids as the entries of table.c. */
 static const fund_check checks[] = {
-    {"fund-log-axis", check_log_axis},
-    {"fund-axis-off-zero", check_axis_off_zero},
-    {"fund-label-missing", check_label_missing},
-    {"fund-label-decimals", check_label_decimals},
-    {"fund-bar-clipped", check_bar_clipped},
-    {"fund-label-vs-bar", check_label_vs_bar},
-    {"fund-years", check_years},
+    {"fund-log-axis", check_log_axis},           {"fund-axis-off-zero", check_axis_off_zero},
+    {"fund-label-missing", check_label_missing}, {"fund-label-decimals", check_label_decimals},
+    {"fund-bar-clipped", check_bar_clipped},     {"fund-scale-compressed", check_scale_compressed},
+    {"fund-label-vs-bar", check_label_vs_bar},   {"fund-years", check_years},
 };
 
 static char *run_check(const pp_figure *fig, const char *rule) {

@@ -110,6 +110,10 @@ def main():
     # are cut by the plot frame; their labels still say the loss.
     draw(os.path.join(out, "fund-clipped.pdf"), ylim=(-5, 16))
     cases["fund-clipped"] = "fund-bar-clipped"
+    # Annex III point 2: an axis from -60% to 60% squeezes returns of -7.5% to 13.1% into a
+    # sixth of the plot.
+    draw(os.path.join(out, "fund-squeezed.pdf"), ylim=(-60, 60))
+    cases["fund-squeezed"] = "fund-scale-compressed"
     # Article 15 (from memory): a year without data stays on the axis as a blank slot. 2024
     # is blank here: compliant.
     keep = [i for i, y in enumerate(YEARS) if y != 2024]

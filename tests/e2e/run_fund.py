@@ -28,6 +28,7 @@ SOURCES = {
     "fund-decimals": "Annex III point 5: figures rounded to one decimal place",
     "fund-wronglabel": "Annex III point 4: the label indicates the return achieved",
     "fund-clipped": "Annex III point 2: the scale adapted to the span of the bars",
+    "fund-squeezed": "Annex III point 2: the scale shall not compress the bars",
     "fund-gap-dropped": "Article 15 (from memory): years without data shown as gaps",
 }
 failures = []

@@ -24,8 +24,13 @@ static pp_figure *fund_figure(guint n, const double *values, const char *const *
   fig->scale = pp_scale_new(TRUE);
   fig->scale->slope = SLOPE;
   fig->scale->offset = -SLOPE * ZERO_Y;
-  fig->scale->min_value = pp_scale_value_at(fig->scale, 360);
-  fig->scale->max_value = pp_scale_value_at(fig->scale, 40);
+  /* The visible range: the bars and 0% plus a tenth of their span, as plotting software
+   * sets its limits. */
+  double lo = 0, hi = 0;
+  for (guint i = 0; i < n; i++)
+    lo = fmin(lo, values[i]), hi = fmax(hi, values[i]);
+  fig->scale->min_value = lo - 0.1 * (hi - lo);
+  fig->scale->max_value = hi + 0.1 * (hi - lo);
   pp_tick tick = {ZERO_Y, 0, g_strdup("0%")};
   g_array_append_val(fig->scale->ticks, tick);
   for (guint i = 0; i < n; i++) {
@@ -54,9 +59,9 @@ static pp_figure *fund_figure(guint n, const double *values, const char *const *
 static GPtrArray *check(const pp_figure *fig, gboolean fund_profile) {
   pp_thresholds t = pp_thresholds_default();
   if (fund_profile) {
-    static const char *ids[] = {"fund-log-axis",       "fund-axis-off-zero", "fund-label-missing",
-                                "fund-label-decimals", "fund-bar-clipped",   "fund-label-vs-bar",
-                                "fund-years"};
+    static const char *ids[] = {"fund-log-axis",       "fund-axis-off-zero",   "fund-label-missing",
+                                "fund-label-decimals", "fund-bar-clipped",     "fund-label-vs-bar",
+                                "fund-years",          "fund-scale-compressed"};
     for (guint i = 0; i < G_N_ELEMENTS(ids); i++)
       assert_true(pp_thresholds_enable_rule(&t, ids[i]));
   }
@@ -146,6 +151,16 @@ static void test_log_axis_replaces(void **state) {
   expect(fig, TRUE, "fund-log-axis");
 }
 
+/* Annex III point 2: returns of -7.5% to 11.8% on an axis from -60% to 60% fill 16% of
+ * it, under the third the check asks for. */
+static void test_compressed(void **state) {
+  (void)state;
+  pp_figure *fig = fund_figure(5, returns, printed, 2026);
+  fig->scale->min_value = -60;
+  fig->scale->max_value = 60;
+  expect(fig, TRUE, "fund-scale-compressed");
+}
+
 /* Article 15 (from memory): more than ten years. */
 static void test_eleven_years(void **state) {
   (void)state;
@@ -180,7 +195,8 @@ int main(void) {
       cmocka_unit_test(test_compliant),    cmocka_unit_test(test_label_rounding),
       cmocka_unit_test(test_decimals),     cmocka_unit_test(test_missing_label),
       cmocka_unit_test(test_clipped),      cmocka_unit_test(test_log_axis_replaces),
-      cmocka_unit_test(test_eleven_years), cmocka_unit_test(test_not_yearly),
+      cmocka_unit_test(test_eleven_years), cmocka_unit_test(test_compressed),
+      cmocka_unit_test(test_not_yearly),
   };
   return cmocka_run_group_tests_name("rules/fund", tests, NULL, NULL);
 }

@@ -1,0 +1,215 @@
+/* test_evidence.c — what is not a chart is seen, not judged (src/recognize/evidence.c).
+ * Each case is drawn at test time with cairo's PDF surface, so what it is (a zebra table,
+ * tags behind words, rules, shadowed boxes, line numbers, year rows) is known from the
+ * drawing; a real labelled bar chart drawn the same way stays judged. */
+#include <math.h>
+#include <setjmp.h>
+#include <stdarg.h>
+#include <stddef.h>
+#include <string.h>
+
+#include <cairo-pdf.h>
+#include <cmocka.h>
+#include <glib/gstdio.h>
+
+#include "geometry/geometry.h"
+#include "recognize/recognize.h"
+
+typedef void (*drawing)(cairo_t *cr);
+
+static pp_page_charts *recognise(drawing draw) {
+  char *path = g_build_filename(g_get_tmp_dir(), "pp-test-evidence-XXXXXX.pdf", NULL);
+  int fd = g_mkstemp(path);
+  assert_true(fd >= 0);
+  close(fd);
+  cairo_surface_t *s = cairo_pdf_surface_create(path, 595, 842);
+  cairo_t *cr = cairo_create(s);
+  cairo_select_font_face(cr, "DejaVu Sans", CAIRO_FONT_SLANT_NORMAL, CAIRO_FONT_WEIGHT_NORMAL);
+  cairo_set_font_size(cr, 9);
+  draw(cr);
+  cairo_destroy(cr);
+  cairo_surface_destroy(s);
+  GError *error = NULL;
+  pp_document *doc = pp_document_open(path, NULL, &error);
+  assert_non_null(doc);
+  pp_scene *scene = pp_document_capture_page(doc, 0, &error);
+  assert_non_null(scene);
+  pp_scene_measure(scene);
+  pp_page_charts *charts = pp_page_charts_find(scene);
+  pp_scene_free(scene);
+  pp_document_free(doc);
+  g_unlink(path);
+  g_free(path);
+  return charts;
+}
+
+static void text_at(cairo_t *cr, double x, double y, const char *t) {
+  cairo_set_source_rgb(cr, 0, 0, 0);
+  cairo_move_to(cr, x, y);
+  cairo_show_text(cr, t);
+}
+
+static void box(cairo_t *cr, double x, double y, double w, double h, double grey) {
+  cairo_set_source_rgb(cr, grey, grey, grey);
+  cairo_rectangle(cr, x, y, w, h);
+  cairo_fill(cr);
+}
+
+/* Every bar or area figure on the page is seen, not judged, for the expected reason; at
+ * least one was seen (the drawing does fool a bar reader). */
+static void expect_not_judged(drawing draw, const char *reason) {
+  pp_page_charts *charts = recognise(draw);
+  guint seen = 0;
+  for (guint i = 0; i < charts->figures->len; i++) {
+    const pp_figure *f = g_ptr_array_index(charts->figures, i);
+    if (f->kind != PP_FIGURE_COLUMN && f->kind != PP_FIGURE_BAR && f->kind != PP_FIGURE_AREA)
+      continue;
+    seen++;
+    assert_false(f->judged);
+    assert_non_null(f->not_judged_reason);
+    if (!strstr(f->not_judged_reason, reason))
+      fail_msg("reason \"%s\" lacks \"%s\"", f->not_judged_reason, reason);
+  }
+  assert_true(seen > 0);
+  pp_page_charts_free(charts);
+}
+
+/* A zebra table: equal shaded rows, a number at the end of each. */
+static void draw_zebra(cairo_t *cr) {
+  for (int i = 0; i < 6; i++) {
+    box(cr, 100, 100 + 24 * i, 300, 12, 0.85);
+    char buf[16];
+    g_snprintf(buf, sizeof buf, "%d", 40 + 17 * i);
+    text_at(cr, 402, 110 + 24 * i, buf);
+  }
+}
+
+static void test_zebra_table(void **state) {
+  (void)state;
+  expect_not_judged(draw_zebra, "same length");
+}
+
+/* Tags behind words: boxes of different widths, each holding a word and a number. */
+static void draw_tags(cairo_t *cr) {
+  static const char *words[] = {"New", "Old", "Fix", "Add", "Cut"};
+  for (int i = 0; i < 5; i++) {
+    double w = 40 + 9 * i;
+    box(cr, 100, 100 + 30 * i, w, 13, 0.9);
+    text_at(cr, 102, 110 + 30 * i, words[i]);
+    char buf[16];
+    g_snprintf(buf, sizeof buf, "%d", 3 + 2 * i);
+    text_at(cr, 100 + w + 2, 110 + 30 * i, buf);
+  }
+}
+
+static void test_words_on_marks(void **state) {
+  (void)state;
+  expect_not_judged(draw_tags, "words on the marks");
+}
+
+/* Rules thinner than a line, of growing length, each ended by a number. */
+static void draw_rules(cairo_t *cr) {
+  for (int i = 0; i < 5; i++) {
+    double len = 100 + 50 * i;
+    box(cr, 100, 100 + 20 * i, len, 0.6, 0.2);
+    char buf[16];
+    g_snprintf(buf, sizeof buf, "%d", 10 * (i + 3));
+    text_at(cr, 100 + len + 3, 104 + 20 * i, buf);
+  }
+}
+
+static void test_thin_rules(void **state) {
+  (void)state;
+  expect_not_judged(draw_rules, "thinner than a line");
+}
+
+/* Boxes of growing height standing on one line, each with a grey copy offset 4 pt right
+ * and down behind it, a number on top. */
+static void draw_shadows(cairo_t *cr) {
+  for (int i = 0; i < 4; i++) {
+    double h = 60 + 25 * i, x = 100 + 60 * i;
+    box(cr, x + 4, 400 - h + 4, 40, h, 0.5);
+    box(cr, x, 400 - h, 40, h, 0.8);
+    char buf[16];
+    g_snprintf(buf, sizeof buf, "%d", 7 + 5 * i);
+    text_at(cr, x + 14, 400 - h - 3, buf);
+  }
+}
+
+static void test_drop_shadows(void **state) {
+  (void)state;
+  expect_not_judged(draw_shadows, "drop shadows");
+}
+
+/* Listing lines: shaded backgrounds of different lengths numbered 1, 2, 3… at their
+ * ends (the numbers count lines, they measure nothing). */
+static void draw_line_numbers(cairo_t *cr) {
+  for (int i = 0; i < 6; i++) {
+    double len = 120 + 23 * ((i * 5) % 7);
+    box(cr, 100, 100 + 14 * i, len, 12, 0.93);
+    char buf[16];
+    g_snprintf(buf, sizeof buf, "%d", i + 1);
+    text_at(cr, 100 + len + 2, 110 + 14 * i, buf);
+  }
+}
+
+static void test_line_numbers(void **state) {
+  (void)state;
+  expect_not_judged(draw_line_numbers, "count 1, 2, 3");
+}
+
+/* Bars of different lengths with a year at each tip: the years name the bars. */
+static void draw_year_tips(cairo_t *cr) {
+  for (int i = 0; i < 4; i++) {
+    double len = 80 + 45 * i;
+    box(cr, 100, 100 + 30 * i, len, 16, 0.4);
+    char buf[16];
+    g_snprintf(buf, sizeof buf, "%d", 2031 + i);
+    text_at(cr, 100 + len + 3, 112 + 30 * i, buf);
+  }
+}
+
+static void test_year_labels(void **state) {
+  (void)state;
+  expect_not_judged(draw_year_tips, "years");
+}
+
+/* A labelled bar chart whose lengths follow its labels: it stays judged. */
+static void draw_labelled_chart(cairo_t *cr) {
+  static const double v[] = {12, 30, 21, 45};
+  for (int i = 0; i < 4; i++) {
+    double h = 4 * v[i], x = 100 + 50 * i;
+    box(cr, x, 400 - h, 30, h, 0.3);
+    char buf[16];
+    g_snprintf(buf, sizeof buf, "%g", v[i]);
+    text_at(cr, x + 9, 400 - h - 3, buf);
+  }
+  static const char *names[] = {"Tern", "Gull", "Skua", "Auk"};
+  for (int i = 0; i < 4; i++)
+    text_at(cr, 100 + 50 * i + 4, 412, names[i]);
+}
+
+static void test_chart_stays_judged(void **state) {
+  (void)state;
+  pp_page_charts *charts = recognise(draw_labelled_chart);
+  guint judged = 0;
+  for (guint i = 0; i < charts->figures->len; i++) {
+    const pp_figure *f = g_ptr_array_index(charts->figures, i);
+    if (f->kind == PP_FIGURE_COLUMN) {
+      assert_true(f->judged);
+      judged++;
+    }
+  }
+  assert_int_equal(judged, 1);
+  pp_page_charts_free(charts);
+}
+
+int main(void) {
+  const struct CMUnitTest tests[] = {
+      cmocka_unit_test(test_zebra_table),        cmocka_unit_test(test_words_on_marks),
+      cmocka_unit_test(test_thin_rules),         cmocka_unit_test(test_drop_shadows),
+      cmocka_unit_test(test_line_numbers),       cmocka_unit_test(test_year_labels),
+      cmocka_unit_test(test_chart_stays_judged),
+  };
+  return cmocka_run_group_tests(tests, NULL, NULL);
+}
