@@ -260,6 +260,8 @@ rc, out, err = run("scan", D1, "-o", "out2", "--baseline", "accepted.ini", "--cs
 n_new = len(findings) - 2
 check(f"{n_new} findings" in out or f"{n_new} finding " in out, f"only new findings counted: {out}")
 check("2 accepted findings listed apart" in out, "accepted findings listed apart")
+check(out.count("accepted by R. Example on ") == 2 and "disclosed in note 4" in out,
+      "each accepted finding listed with who, when and why")
 check("0000000000000000" in err and "matches no finding" in err, "stale baseline entry warned")
 with open("b.csv", newline="", encoding="utf-8") as f:
     brows = list(csv.DictReader(f))
