@@ -1,9 +1,19 @@
-/* analyse.c — the pipeline for one document, run inside the worker child: capture one
- * page, measure, recognise, score, append to the report, free the scene, next page.
- * Memory is thus bounded by the largest page, not the document. */
+/* analyse.c — the pipeline for one page, run inside a page child: capture, measure,
+ * recognise, score, append to a one-page report. The document worker joins the pages;
+ * a page that swells or hangs thus costs only itself. */
+#include <math.h>
+#include <string.h>
+#include <unistd.h>
+
 #include "analyse.h"
 #include "geometry/geometry.h"
 #include "recognize/recognize.h"
+
+/* Library messages kept per page; a broken font can print thousands of the same line.
+ * Common practice, no source. */
+#define PP_ANALYSE_MAX_MESSAGES 40
+/* Bytes of caught messages read per page. */
+#define PP_ANALYSE_MESSAGE_BYTES (64 * 1024)
 
 char *pp_analyse_error_payload(int code, const char *word, const char *message) {
   g_autoptr(JsonBuilder) b = json_builder_new();
@@ -26,11 +36,40 @@ char *pp_analyse_error_payload(int code, const char *word, const char *message) 
   return s;
 }
 
-static char *gerror_payload(GError *error) {
+char *pp_analyse_gerror_payload(GError *error) {
   int code = error->domain == PP_CAPTURE_ERROR ? error->code : PP_CAPTURE_ERROR_DAMAGED;
   char *s = pp_analyse_error_payload(code, pp_capture_error_word(code), error->message);
   g_error_free(error);
   return s;
+}
+
+void pp_analyse_take_messages(int fd, GPtrArray *warnings) {
+  if (fd < 0)
+    return;
+  char *buf = g_malloc(PP_ANALYSE_MESSAGE_BYTES + 1);
+  ssize_t n = pread(fd, buf, PP_ANALYSE_MESSAGE_BYTES, 0);
+  if (n > 0) {
+    buf[n] = '\0';
+    GHashTable *seen = g_hash_table_new(g_str_hash, g_str_equal);
+    char **lines = g_strsplit(buf, "\n", -1);
+    guint kept = 0, dropped = 0;
+    for (char **l = lines; *l; l++) {
+      g_strstrip(*l);
+      if (!**l || !g_hash_table_add(seen, *l))
+        continue;
+      if (kept++ < PP_ANALYSE_MAX_MESSAGES)
+        g_ptr_array_add(warnings, g_utf8_make_valid(*l, -1));
+      else
+        dropped++;
+    }
+    if (dropped)
+      g_ptr_array_add(warnings, g_strdup_printf("%u more library messages not kept", dropped));
+    g_hash_table_unref(seen);
+    g_strfreev(lines);
+  }
+  g_free(buf);
+  if (ftruncate(fd, 0) == 0)
+    lseek(fd, 0, SEEK_SET);
 }
 
 static void analyse_page(pp_report *report, pp_scene *scene, const pp_thresholds *t,
@@ -46,57 +85,47 @@ static void analyse_page(pp_report *report, pp_scene *scene, const pp_thresholds
   pp_page_charts_free(charts);
 }
 
-char *pp_analyse_document(gpointer data) {
+/* A page box of zero, negative or non-finite size cannot hold a chart, and its width
+ * would make the findings file schema-invalid (width > 0, docs/findings.schema.json). */
+static gboolean usable_box(const pp_scene *scene) {
+  return isfinite(scene->width) && isfinite(scene->height) && scene->width > 0 && scene->height > 0;
+}
+
+char *pp_analyse_report_page(gpointer data) {
   const pp_analyse_job *job = data;
   GError *error = NULL;
-  pp_document *doc = pp_document_open(job->path, job->opt->password, &error);
-  if (!doc)
-    return gerror_payload(error);
-  const pp_document_info *info = pp_document_get_info(doc);
+  const pp_document_info *info = pp_document_get_info(job->doc);
   pp_report *report = pp_report_new(info, &job->opt->thresholds);
-  char *first_failure = NULL;
-  for (guint i = 0; i < info->n_pages; i++) {
-    pp_scene *scene = pp_document_capture_page(doc, i, &error);
-    if (!scene) {
-      pp_report_add_failed_page(report, i, error->message);
-      if (!first_failure)
-        first_failure = g_strdup_printf("page %u: %s", i + 1, error->message);
-      g_clear_error(&error);
-      continue;
-    }
-    analyse_page(report, scene, &job->opt->thresholds, job->opt);
-    pp_scene_free(scene);
-  }
-  char *payload = NULL;
-  if (pp_report_n_pages_failed(report) == info->n_pages) {
-    char *msg = g_strdup_printf("damaged: none of its %u pages could be captured (%s)",
-                                info->n_pages, first_failure);
-    payload = pp_analyse_error_payload(PP_CAPTURE_ERROR_DAMAGED, "damaged", msg);
-    g_free(msg);
-  } else if (job->output_file && !pp_report_write_file(report, job->output_file, &error)) {
-    char *msg = g_strdup_printf("cannot write the findings file: %s", error->message);
-    payload = pp_analyse_error_payload(-1, "output failed", msg);
-    g_free(msg);
+  pp_scene *scene = pp_document_capture_page(job->doc, job->page_index, &error);
+  if (!scene) {
+    pp_report_add_failed_page(report, job->page_index, error->message);
     g_clear_error(&error);
+  } else if (!usable_box(scene)) {
+    char *msg = g_strdup_printf("the page box is empty or not finite (%g x %g pt)", scene->width,
+                                scene->height);
+    pp_report_add_failed_page(report, job->page_index, msg);
+    g_free(msg);
   } else {
-    payload = pp_report_to_string(report, FALSE, NULL);
+    pp_analyse_take_messages(job->messages_fd, scene->warnings);
+    analyse_page(report, scene, &job->opt->thresholds, job->opt);
   }
-  g_free(first_failure);
+  if (scene)
+    pp_scene_free(scene);
+  char *payload = pp_report_to_string(report, FALSE, NULL);
   pp_report_free(report);
-  pp_document_free(doc);
   return payload;
 }
 
 char *pp_analyse_page(gpointer data) {
   const pp_analyse_job *job = data;
   GError *error = NULL;
-  pp_document *doc = pp_document_open(job->path, job->opt->password, &error);
+  pp_document *doc = pp_document_open(job->path, job->password, &error);
   if (!doc)
-    return gerror_payload(error);
+    return pp_analyse_gerror_payload(error);
   pp_scene *scene = pp_document_capture_page(doc, job->opt->page - 1, &error);
   if (!scene) {
     pp_document_free(doc);
-    return gerror_payload(error);
+    return pp_analyse_gerror_payload(error);
   }
   pp_scene_measure(scene);
   JsonNode *node;
@@ -110,6 +139,36 @@ char *pp_analyse_page(gpointer data) {
   char *payload = pp_report_node_to_string(node, TRUE, NULL);
   json_node_unref(node);
   pp_scene_free(scene);
+  pp_document_free(doc);
+  return payload;
+}
+
+char *pp_analyse_document(gpointer data) {
+  const pp_analyse_job *job = data;
+  GError *error = NULL;
+  pp_document *doc = pp_document_open(job->path, job->password, &error);
+  if (!doc)
+    return pp_analyse_gerror_payload(error);
+  const pp_document_info *info = pp_document_get_info(doc);
+  pp_report *report = pp_report_new(info, &job->opt->thresholds);
+  for (guint i = 0; i < info->n_pages; i++) {
+    pp_scene *scene = pp_document_capture_page(doc, i, &error);
+    if (!scene) {
+      pp_report_add_failed_page(report, i, error->message);
+      g_clear_error(&error);
+    } else if (!usable_box(scene)) {
+      pp_report_add_failed_page(report, i, "the page box is empty or not finite");
+    } else {
+      analyse_page(report, scene, &job->opt->thresholds, job->opt);
+    }
+    if (scene)
+      pp_scene_free(scene);
+  }
+  char *payload = pp_report_n_pages_failed(report) == info->n_pages
+                      ? pp_analyse_error_payload(PP_CAPTURE_ERROR_DAMAGED, "damaged",
+                                                 "none of its pages could be analysed")
+                      : pp_report_to_string(report, FALSE, NULL);
+  pp_report_free(report);
   pp_document_free(doc);
   return payload;
 }

@@ -1,8 +1,10 @@
 /* inspect.c — `plotproof scene` and `plotproof charts`: one page as JSON on stdout,
  * produced in a worker child like a scan, so a hostile page cannot take the tool down. */
+#include <signal.h>
 #include <stdio.h>
 
 #include "analyse.h"
+#include "output.h"
 #include "worker.h"
 
 int pp_cli_inspect(const char *path, gboolean charts, const pp_cli_options *opt) {
@@ -12,15 +14,17 @@ int pp_cli_inspect(const char *path, gboolean charts, const pp_cli_options *opt)
     g_error_free(error);
     return PP_EXIT_USAGE;
   }
-  pp_analyse_job job = {path, NULL, opt, charts};
+  pp_analyse_job job = {path, opt->password, opt, charts, NULL, 0, -1};
+  pp_worker_limits limits = {opt->timeout_s, opt->cpu_s, (guint64)opt->memory_mib << 20};
   pp_worker_result res;
-  pp_worker_run(pp_analyse_page, &job, opt->timeout_s, &res);
-  int rc = PP_EXIT_USAGE;
-  if (res.outcome == PP_WORKER_SIGNALLED) {
+  pp_worker_run(pp_analyse_page, &job, &limits, &res);
+  int rc = PP_EXIT_ALL_FAILED; /* the one input failed */
+  if (res.outcome == PP_WORKER_SIGNALLED && res.signal != SIGXCPU) {
     char *msg = g_strdup_printf("the capture crashed (signal %d)", res.signal);
     pp_cli_print_file_error(path, "damaged", msg);
     g_free(msg);
-  } else if (res.outcome == PP_WORKER_TIMED_OUT) {
+  } else if (res.outcome == PP_WORKER_TIMED_OUT ||
+             (res.outcome == PP_WORKER_SIGNALLED && res.signal == SIGXCPU)) {
     char *msg = g_strdup_printf("timed out after %u s", opt->timeout_s);
     pp_cli_print_file_error(path, "timed out", msg);
     g_free(msg);
@@ -42,9 +46,9 @@ int pp_cli_inspect(const char *path, gboolean charts, const pp_cli_options *opt)
                               json_object_get_string_member_with_default(err, "word", "error"),
                               json_object_get_string_member_with_default(err, "message", ""));
     } else {
-      fwrite(res.payload->str, 1, res.payload->len, stdout);
-      fputc('\n', stdout);
-      rc = PP_EXIT_CLEAN;
+      g_string_append_c(res.payload, '\n');
+      rc =
+          pp_output_stdout(res.payload->str, res.payload->len) ? PP_EXIT_CLEAN : PP_EXIT_ALL_FAILED;
     }
   }
   g_string_free(res.payload, TRUE);

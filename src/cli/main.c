@@ -8,14 +8,25 @@
 #include <string.h>
 
 #include "cli.h"
+#include "docworker.h"
 
-#define DEFAULT_TIMEOUT_S 120
+#include <unistd.h>
+
+/* Defaults for the limits; each is an option. Common practice, no source: a report page
+ * of vector charts captures in well under a second here, so 30 s is a generous page
+ * budget, and 2 GiB of address space is ten times what the corpus's largest page needs. */
+#define DEFAULT_TIMEOUT_S 600
+#define DEFAULT_PAGE_S 30
+#define DEFAULT_MEMORY_MIB 2048
+#define PASSWORD_ENV "PLOTPROOF_PASSWORD"
 
 static void print_help(FILE *out) {
   fprintf(out,
           "Usage: plotproof scan [OPTIONS] PATH...\n"
-          "       plotproof scene FILE [--page N] [--password PW]\n"
-          "       plotproof charts FILE [--page N] [--password PW]\n"
+          "       plotproof scan [OPTIONS] --from LIST\n"
+          "       plotproof merge -o DIR SHARD_DIR...\n"
+          "       plotproof scene FILE [--page N]\n"
+          "       plotproof charts FILE [--page N]\n"
           "       plotproof compare OLD NEW [--json] [--html FILE]\n"
           "       plotproof explain RULE | plotproof rules | plotproof profiles\n"
           "       plotproof accept FINDINGS.json ID... --baseline FILE [--who NAME] [--why TEXT]\n"
@@ -27,16 +38,36 @@ static void print_help(FILE *out) {
           "Discrepancy Index.\n"
           "\n"
           "scan: PATH is a file, or a directory searched recursively for *.pdf. Each\n"
-          "document is scanned in its own process and gets DIR/<name>.findings.json\n"
-          "(same-named files from different directories get a -<hash> suffix).\n"
+          "document is scanned in its own worker process, each page in a process of its\n"
+          "own, and gets DIR/<name>.findings.json, in folders mirroring the scanned\n"
+          "directories (names that would still collide get a -<hash> suffix). Documents\n"
+          "with the same content (SHA-256) are scanned once. DIR/batch.jsonl gets one\n"
+          "line per document and a summary line. A rerun into the same DIR skips the\n"
+          "documents already done with the same content, version and settings.\n"
           "  -o, --output DIR       where findings files go (default: current directory;\n"
           "                         created if missing)\n"
-          "  -p, --password PW      password for encrypted PDFs\n"
-          "  -q, --quiet            no summary on stdout\n"
-          "      --json             print each document's findings JSON on stdout instead\n"
-          "                         of the summary, one object per line (JSON Lines);\n"
-          "                         files are then written only if --output is given\n"
-          "      --timeout SECONDS  per document (default %d)\n"
+          "      --from LIST        also scan the paths listed in LIST, one per line\n"
+          "                         ('-' reads standard input)\n"
+          "  -j, --jobs N           documents at once (default: the number of cores)\n"
+          "      --force            rescan documents an earlier run has done\n"
+          "      --shard K/N        scan only part K of N (split by content hash); join\n"
+          "                         the N output directories with 'plotproof merge'\n"
+          "      --password-file F  passwords for encrypted PDFs, lines 'PATTERN PASSWORD'\n"
+          "                         or 'sha256:HEX PASSWORD'; $" PASSWORD_ENV " is\n"
+          "                         the password for the others\n"
+          "  -p, --password PW      the same on the command line (visible to ps)\n"
+          "  -q, --quiet            no summary on stdout, no progress line\n"
+          "      --json             print each document's findings JSON (or its failure\n"
+          "                         record) on stdout instead of the summary, one object\n"
+          "                         per line (JSON Lines); files are then written only if\n"
+          "                         --output is given\n"
+          "      --progress         one stderr line per finished document (on a terminal\n"
+          "                         a progress line is shown without it)\n"
+          "      --timeout SECONDS  wall-clock limit per document (default %d)\n"
+          "      --cpu-seconds S    CPU limit per document (default: the timeout)\n"
+          "      --page-seconds S   budget per page; a page over it, or over the memory\n"
+          "                         limit, is 'not analysed: too complex' (default %d)\n"
+          "      --max-memory MIB   address space per worker process (default %d)\n"
           "      --lie-band LOW:HIGH  Lie Factor band taken as faithful (default 0.95:1.05)\n"
           "      --gdi-limit PCT    Graph Discrepancy Index limit, percent (default 10)\n"
           "      --html DIR         review pack: index, one page per document with crops\n"
@@ -65,8 +96,10 @@ static void print_help(FILE *out) {
           "scene: the captured scene of one page (marks, paths, clips, words) as JSON.\n"
           "charts: the figures recognised on one page (axes, ticks, elements) as JSON.\n"
           "  --page N               1-based page number (default 1)\n"
+          "merge: joins the output directories of shards into -o DIR, checking that\n"
+          "every shard is there once.\n"
           "\n",
-          DEFAULT_TIMEOUT_S);
+          DEFAULT_TIMEOUT_S, DEFAULT_PAGE_S, DEFAULT_MEMORY_MIB);
   guint n = 0;
   const pp_rule_info *rules = pp_rules_list(&n);
   if (n > 0) {
@@ -80,8 +113,13 @@ static void print_help(FILE *out) {
           "Exit codes:\n"
           "  0  clean: every document scanned, no findings\n"
           "  1  findings: every document scanned, at least one finding\n"
-          "  2  usage error, or unreadable input (every input failed)\n"
-          "  3  some documents of a batch failed; the others were scanned\n"
+          "  2  usage error\n"
+          "  3  some documents failed or have pages not analysed (partial); the others\n"
+          "     were scanned (merge: a shard is missing or incomplete)\n"
+          "  4  no document could be scanned (every input failed), or the output could\n"
+          "     not be written\n"
+          "  5  interrupted (SIGINT, SIGTERM, SIGHUP); finished documents are kept and a\n"
+          "     rerun resumes\n"
           "\n"
           "Each failure is one stderr line: plotproof: FILE: reason.\n"
           "%s\n",
@@ -125,7 +163,30 @@ static gboolean parse_band(const char *s, pp_thresholds *t) {
   return ok;
 }
 
-enum { OPT_JSON = 256, OPT_TIMEOUT, OPT_LIE_BAND, OPT_GDI_LIMIT, OPT_PAGE, OPT_REVIEW };
+enum {
+  OPT_JSON = 256,
+  OPT_TIMEOUT,
+  OPT_LIE_BAND,
+  OPT_GDI_LIMIT,
+  OPT_PAGE,
+  OPT_FROM,
+  OPT_FORCE,
+  OPT_SHARD,
+  OPT_PROGRESS,
+  OPT_PASSWORD_FILE,
+  OPT_CPU,
+  OPT_PAGE_S,
+  OPT_MEMORY,
+  OPT_REVIEW, /* last: the reviewer options are OPT_REVIEW + index */
+};
+
+static gboolean parse_shard(const char *s, guint *k, guint *n) {
+  char **parts = g_strsplit(s, "/", 3);
+  gboolean ok = g_strv_length(parts) == 2 && parse_uint(parts[1], 1, 1000000, n) &&
+                parse_uint(parts[0], 1, *n, k);
+  g_strfreev(parts);
+  return ok;
+}
 
 static const struct option long_options[] = {
     {"help", no_argument, NULL, 'h'},
@@ -138,6 +199,15 @@ static const struct option long_options[] = {
     {"lie-band", required_argument, NULL, OPT_LIE_BAND},
     {"gdi-limit", required_argument, NULL, OPT_GDI_LIMIT},
     {"page", required_argument, NULL, OPT_PAGE},
+    {"jobs", required_argument, NULL, 'j'},
+    {"from", required_argument, NULL, OPT_FROM},
+    {"force", no_argument, NULL, OPT_FORCE},
+    {"shard", required_argument, NULL, OPT_SHARD},
+    {"progress", no_argument, NULL, OPT_PROGRESS},
+    {"password-file", required_argument, NULL, OPT_PASSWORD_FILE},
+    {"cpu-seconds", required_argument, NULL, OPT_CPU},
+    {"page-seconds", required_argument, NULL, OPT_PAGE_S},
+    {"max-memory", required_argument, NULL, OPT_MEMORY},
     /* reviewer outputs (review_cli.c), all OPT_REVIEW + index below */
     {"html", required_argument, NULL, OPT_REVIEW + 0},
     {"csv", required_argument, NULL, OPT_REVIEW + 1},
@@ -164,6 +234,7 @@ typedef enum {
   CMD_EXPLAIN,
   CMD_RULES,
   CMD_ACCEPT,
+  CMD_MERGE,
   CMD_PROFILES
 } command;
 
@@ -198,11 +269,11 @@ static gboolean review_option(int c, const char *arg, pp_cli_options *opt) {
 
 /* Returns -1 to go on, or an exit code (help, version, usage error). */
 static int parse_options(int argc, char **argv, command cmd, pp_cli_options *opt) {
-  gboolean scan_only = FALSE, page_given = FALSE;
+  gboolean scan_only = FALSE, page_given = FALSE, cpu_given = FALSE;
   opterr = 0; /* our own messages, in our format */
   optind = 1;
   int c;
-  while ((c = getopt_long(argc, argv, ":hVo:p:q", long_options, NULL)) != -1) {
+  while ((c = getopt_long(argc, argv, ":hVo:p:qj:", long_options, NULL)) != -1) {
     switch (c) {
     case 'h': print_help(stdout); return PP_EXIT_CLEAN;
     case 'V': printf("plotproof %s\n", PP_VERSION); return PP_EXIT_CLEAN;
@@ -234,6 +305,41 @@ static int parse_options(int argc, char **argv, command cmd, pp_cli_options *opt
       opt->thresholds.gdi_limit = v;
       break;
     }
+    case 'j':
+      scan_only = TRUE;
+      if (!parse_uint(optarg, 1, 1024, &opt->jobs))
+        return usage_error("--jobs wants a number of processes from 1 to 1024, not '%s'", optarg);
+      break;
+    case OPT_FROM:
+      scan_only = TRUE;
+      g_free(opt->from);
+      opt->from = g_strdup(optarg);
+      break;
+    case OPT_FORCE: opt->force = scan_only = TRUE; break;
+    case OPT_PROGRESS: opt->progress = scan_only = TRUE; break;
+    case OPT_SHARD:
+      scan_only = TRUE;
+      if (!parse_shard(optarg, &opt->shard_k, &opt->shard_n))
+        return usage_error("--shard wants K/N with 1 <= K <= N, not '%s'", optarg);
+      break;
+    case OPT_PASSWORD_FILE:
+      g_free(opt->password_file);
+      opt->password_file = g_strdup(optarg);
+      break;
+    case OPT_CPU:
+      cpu_given = TRUE;
+      if (!parse_uint(optarg, 1, 86400, &opt->cpu_s))
+        return usage_error("--cpu-seconds wants whole seconds from 1 to 86400, not '%s'", optarg);
+      break;
+    case OPT_PAGE_S:
+      scan_only = TRUE;
+      if (!parse_uint(optarg, 1, 86400, &opt->page_s))
+        return usage_error("--page-seconds wants whole seconds from 1 to 86400, not '%s'", optarg);
+      break;
+    case OPT_MEMORY:
+      if (!parse_uint(optarg, 64, 1u << 22, &opt->memory_mib))
+        return usage_error("--max-memory wants MiB from 64 to 4194304, not '%s'", optarg);
+      break;
     case OPT_PAGE:
       page_given = TRUE;
       if (!parse_uint(optarg, 1, G_MAXINT, &opt->page))
@@ -246,11 +352,16 @@ static int parse_options(int argc, char **argv, command cmd, pp_cli_options *opt
       return usage_error("unknown option '%s'", argv[optind - 1]);
     }
   }
+  if (!cpu_given)
+    opt->cpu_s = opt->timeout_s;
   if (cmd == CMD_SCAN && page_given)
     return usage_error("%s", "--page is for 'scene' and 'charts', not 'scan'");
-  if (cmd != CMD_SCAN && cmd != CMD_NONE && cmd != CMD_COMPARE && scan_only)
+  if ((cmd == CMD_SCENE || cmd == CMD_CHARTS || cmd == CMD_EXPLAIN || cmd == CMD_RULES ||
+       cmd == CMD_ACCEPT) &&
+      scan_only)
     return usage_error("%s",
-                       "--output, --quiet, --json, --lie-band and --gdi-limit are for 'scan'");
+                       "--output, --quiet, --json, --jobs, --from, --force, --shard, --progress, "
+                       "--page-seconds, --lie-band and --gdi-limit are for 'scan'");
   if (opt->quiet && opt->json)
     return usage_error("%s", "--quiet and --json exclude each other");
   return -1;
@@ -263,6 +374,8 @@ static command command_from(const char *word) {
     return CMD_SCENE;
   if (strcmp(word, "charts") == 0)
     return CMD_CHARTS;
+  if (strcmp(word, "merge") == 0)
+    return CMD_MERGE;
   if (strcmp(word, "compare") == 0)
     return CMD_COMPARE;
   if (strcmp(word, "explain") == 0)
@@ -278,10 +391,10 @@ static command command_from(const char *word) {
 
 static int run(int argc, char **argv, pp_cli_options *opt) {
   if (argc < 2)
-    return usage_error("%s", "missing command (scan, scene or charts)");
+    return usage_error("%s", "missing command (scan, merge, scene or charts)");
   command cmd = command_from(argv[1]);
   if (cmd == CMD_NONE && argv[1][0] != '-')
-    return usage_error("unknown command '%s' (scan, scene or charts)", argv[1]);
+    return usage_error("unknown command '%s' (scan, merge, scene or charts)", argv[1]);
   /* Parse the words after the command (or all of them for a bare --help). */
   int skip = cmd == CMD_NONE ? 0 : 1;
   int rc = parse_options(argc - skip, argv + skip, cmd, opt);
@@ -290,10 +403,14 @@ static int run(int argc, char **argv, pp_cli_options *opt) {
   int n_args = argc - skip - optind;
   char **args = argv + skip + optind;
   switch (cmd) {
-  case CMD_NONE: return usage_error("%s", "missing command (scan, scene or charts)");
+  case CMD_NONE: return usage_error("%s", "missing command (scan, merge, scene or charts)");
+  case CMD_MERGE:
+    if (n_args < 1 || !opt->output_given)
+      return usage_error("%s", "merge needs -o DIR and at least one shard directory");
+    return pp_cli_merge(args, n_args, opt);
   case CMD_SCAN:
-    if (n_args < 1)
-      return usage_error("%s", "scan needs at least one PATH");
+    if (n_args < 1 && !opt->from)
+      return usage_error("%s", "scan needs at least one PATH (or --from LIST)");
     return pp_cli_scan(args, n_args, opt);
   case CMD_SCENE:
   case CMD_CHARTS:
@@ -324,9 +441,17 @@ int main(int argc, char **argv) {
   /* Debug output (G_MESSAGES_DEBUG=plotproof-recognize) goes to stderr, never into the
    * JSON on stdout; GLib sends debug to stdout by default. */
   g_log_writer_default_set_use_stderr(TRUE);
+  if (argc == 2 && strcmp(argv[1], "__worker") == 0) /* started by the batch scheduler */
+    pp_docworker_run_stdin();
   pp_cli_options opt = {0};
   opt.output_dir = g_strdup(".");
   opt.timeout_s = DEFAULT_TIMEOUT_S;
+  opt.page_s = DEFAULT_PAGE_S;
+  opt.memory_mib = DEFAULT_MEMORY_MIB;
+  opt.jobs = MAX(1, g_get_num_processors());
+  opt.shard_k = opt.shard_n = 1;
+  const char *env_password = g_getenv(PASSWORD_ENV);
+  opt.password = env_password && *env_password ? g_strdup(env_password) : NULL;
   opt.page = 1;
   opt.thresholds = pp_thresholds_default();
   int n_words = 0;
@@ -335,6 +460,8 @@ int main(int argc, char **argv) {
   g_strfreev(words);
   g_free(opt.output_dir);
   g_free(opt.password);
+  g_free(opt.password_file);
+  g_free(opt.from);
   g_free(opt.html_dir), g_free(opt.csv_file), g_free(opt.sarif_file), g_free(opt.baseline_file);
   g_free(opt.who), g_free(opt.why), g_free(opt.profile);
   if (opt.disabled_rules)

@@ -132,7 +132,7 @@ void pp_cli_review_document(pp_cli_review *rv, JsonNode *root, const char *pdf_p
   if (page_name || annotated) {
     render_job job = {rv, doc, pdf_path, page_name, annotated};
     pp_worker_result res;
-    pp_worker_run(render_document, &job, rv->opt->timeout_s, &res);
+    pp_worker_run(render_document, &job, &(pp_worker_limits){rv->opt->timeout_s, 0, 0}, &res);
     if (res.outcome != PP_WORKER_DONE)
       pp_cli_print_file_error(pdf_path, "output failed", "rendering the review pages stopped");
     else if (strstr(res.payload->str, "\"error\""))
@@ -226,9 +226,9 @@ static JsonNode *load_side(const char *path, const pp_cli_options *opt) {
       return NULL;
     }
   } else {
-    pp_analyse_job job = {path, NULL, opt, FALSE};
+    pp_analyse_job job = {.path = path, .opt = opt, .messages_fd = -1};
     pp_worker_result res;
-    pp_worker_run(pp_analyse_document, &job, opt->timeout_s, &res);
+    pp_worker_run(pp_analyse_document, &job, &(pp_worker_limits){opt->timeout_s, 0, 0}, &res);
     gboolean ok =
         res.outcome == PP_WORKER_DONE &&
         json_parser_load_from_data(parser, res.payload->str, (gssize)res.payload->len, NULL);

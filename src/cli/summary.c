@@ -3,6 +3,7 @@
 #include <stdio.h>
 #include <string.h>
 
+#include "cli.h"
 #include "report/report.h"
 #include "summary.h"
 
@@ -56,8 +57,11 @@ static void print_coverage(JsonArray *pages) {
     JsonObject *p = json_array_get_object_element(pages, i);
     gint64 page = member_int(p, "page");
     const char *error = member_string(p, "error");
-    if (error)
-      printf("  page %" G_GINT64_FORMAT ": not analysed: %s\n", page, error);
+    if (error) {
+      char *safe = pp_cli_escape(error);
+      printf("  page %" G_GINT64_FORMAT ": not analysed: %s\n", page, safe);
+      g_free(safe);
+    }
     JsonArray *r = member_array(p, "raster_images_not_analysed");
     JsonArray *s = member_array(p, "scale_failures");
     if (r && json_array_get_length(r) > 0) {
@@ -85,7 +89,7 @@ void pp_summary_print_document(JsonObject *report, const char *path, const char 
   JsonObject *totals = member_object(report, "totals");
   gint64 pages = member_int(totals, "pages"), figures = member_int(totals, "figures");
   gint64 findings = member_int(totals, "findings");
-  char *name = g_filename_display_name(path);
+  char *name = pp_cli_escape(path);
   printf("%s: %" G_GINT64_FORMAT " %s, %" G_GINT64_FORMAT " %s, ", name, pages,
          plural(pages, "page", "pages"), figures, plural(figures, "figure", "figures"));
   if (findings == 0)
@@ -93,7 +97,7 @@ void pp_summary_print_document(JsonObject *report, const char *path, const char 
   else
     printf("%" G_GINT64_FORMAT " %s", findings, plural(findings, "finding", "findings"));
   if (output_file) {
-    char *out = g_filename_display_name(output_file);
+    char *out = pp_cli_escape(output_file);
     printf("  -> %s", out);
     g_free(out);
   }
@@ -102,12 +106,18 @@ void pp_summary_print_document(JsonObject *report, const char *path, const char 
   JsonArray *list = member_array(report, "findings");
   for (guint i = 0; list && i < json_array_get_length(list); i++) {
     JsonObject *f = json_array_get_object_element(list, i);
-    const char *title = member_string(f, "figure_title"), *fig = member_string(f, "figure_id");
+    /* Titles and messages quote text from the PDF: escaped for the terminal. */
+    const char *t = member_string(f, "figure_title"), *fig = member_string(f, "figure_id");
+    char *msg = pp_cli_escape(member_string(f, "message") ? member_string(f, "message") : "");
+    char *rule = pp_cli_escape(member_string(f, "rule") ? member_string(f, "rule") : "?");
+    char *title = t ? pp_cli_escape(t) : NULL, *id = pp_cli_escape(fig ? fig : "?");
     printf("  page %-3" G_GINT64_FORMAT " %-8s %s %s%s%s [figure %.8s]: %s\n",
            member_int(f, "page"), member_string(f, "severity") ? member_string(f, "severity") : "?",
-           member_string(f, "rule") ? member_string(f, "rule") : "?", title ? "\"" : "",
-           title ? title : "untitled", title ? "\"" : "", fig ? fig : "?",
-           member_string(f, "message") ? member_string(f, "message") : "");
+           rule, title ? "\"" : "", title ? title : "untitled", title ? "\"" : "", id, msg);
+    g_free(msg);
+    g_free(rule);
+    g_free(title);
+    g_free(id);
   }
   print_coverage(member_array(report, "pages"));
 }

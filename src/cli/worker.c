@@ -1,43 +1,81 @@
-/* worker.c — fork + pipe + poll + waitpid. The child writes its whole payload and
- * leaves with _exit(): the one place an exit sits below main, because a forked child
- * must never return into the parent's scan loop or run its atexit handlers. */
+/* worker.c — fork + pipe + poll + wait4. The child writes its whole payload and leaves
+ * with _exit(): the one place an exit sits below main, because a forked child must never
+ * return into the parent's loop or run its atexit handlers. */
 #include <errno.h>
+#include <fcntl.h>
 #include <poll.h>
 #include <signal.h>
 #include <stdio.h>
 #include <string.h>
+#include <sys/prctl.h>
 #include <sys/resource.h>
 #include <sys/wait.h>
 #include <unistd.h>
 
 #include "worker.h"
 
-static void write_all(int fd, const char *data, size_t len) {
+/* Seconds the child's own alarm waits beyond the parent's deadline: the parent normally
+ * kills first; the alarm only matters when the parent is gone. Common practice, no source. */
+#define PP_WORKER_ALARM_GRACE_S 5
+
+#if defined(__SANITIZE_ADDRESS__)
+#define PP_ASAN 1
+#elif defined(__has_feature)
+#if __has_feature(address_sanitizer)
+#define PP_ASAN 1
+#endif
+#endif
+
+gboolean pp_worker_memory_limit_applies(void) {
+#ifdef PP_ASAN
+  return FALSE;
+#else
+  return TRUE;
+#endif
+}
+
+gboolean pp_worker_write_all(int fd, const char *data, size_t len) {
   while (len > 0) {
     ssize_t n = write(fd, data, len);
     if (n < 0 && errno == EINTR)
       continue;
     if (n <= 0)
-      return;
+      return FALSE;
     data += n;
     len -= (size_t)n;
   }
+  return TRUE;
 }
 
-static void run_child(int fd, pp_worker_func func, gpointer data) {
+void pp_worker_child_setup(const pp_worker_limits *limits, pid_t parent) {
+  const int defaults[] = {SIGINT, SIGTERM, SIGHUP, SIGCHLD, SIGPIPE, SIGALRM, SIGXCPU, SIGQUIT};
+  for (size_t i = 0; i < G_N_ELEMENTS(defaults); i++)
+    signal(defaults[i], SIG_DFL);
+  sigset_t none;
+  sigemptyset(&none);
+  sigprocmask(SIG_SETMASK, &none, NULL);
+  prctl(PR_SET_PDEATHSIG, SIGKILL);
+  if (getppid() != parent) /* the parent died between fork() and prctl() */
+    _exit(1);
   /* A crash is reported by the parent; a core file per hostile PDF helps nobody. */
   struct rlimit no_core = {0, 0};
   setrlimit(RLIMIT_CORE, &no_core);
-  signal(SIGPIPE, SIG_DFL);
-  char *payload = func(data);
-  if (payload)
-    write_all(fd, payload, strlen(payload));
-  close(fd);
-  _exit(payload ? 0 : 1);
+  if (limits && limits->memory_bytes && pp_worker_memory_limit_applies()) {
+    struct rlimit as = {limits->memory_bytes, limits->memory_bytes};
+    setrlimit(RLIMIT_AS, &as);
+  }
+  if (limits && limits->cpu_s) {
+    struct rlimit cpu = {limits->cpu_s, limits->cpu_s + 2}; /* SIGXCPU, then SIGKILL */
+    setrlimit(RLIMIT_CPU, &cpu);
+  }
+  if (limits && limits->wall_s)
+    alarm(limits->wall_s + PP_WORKER_ALARM_GRACE_S);
 }
 
-/* Milliseconds left until deadline (monotonic µs), at least 0. */
+/* Milliseconds left until deadline (monotonic µs), at least 0; -1 without a deadline. */
 static int ms_left(gint64 deadline) {
+  if (deadline == 0)
+    return -1;
   gint64 left = deadline - g_get_monotonic_time();
   return left <= 0 ? 0 : (int)MIN(left / 1000 + 1, G_MAXINT);
 }
@@ -53,7 +91,7 @@ static gboolean read_until_eof(int fd, gint64 deadline, GString *out) {
     if (r < 0 && errno == EINTR)
       continue;
     if (r <= 0)
-      return r < 0; /* poll error: give up reading but let waitpid decide */
+      return r < 0; /* poll error: give up reading but let wait decide */
     ssize_t n = read(fd, buf, sizeof buf);
     if (n < 0 && errno == EINTR)
       continue;
@@ -64,24 +102,34 @@ static gboolean read_until_eof(int fd, gint64 deadline, GString *out) {
 }
 
 /* The child closed its pipe, so it is ending; still bounded by the deadline. */
-static gboolean wait_child(pid_t pid, gint64 deadline, int *status) {
+static gboolean wait_child(pid_t pid, gint64 deadline, int *status, struct rusage *ru) {
   for (;;) {
-    pid_t r = waitpid(pid, status, WNOHANG);
+    pid_t r = wait4(pid, status, WNOHANG, ru);
     if (r == pid)
       return TRUE;
     if (r < 0 && errno != EINTR)
       return FALSE;
     if (ms_left(deadline) == 0)
       return FALSE;
-    g_usleep(2000);
+    g_usleep(1000);
   }
 }
 
-void pp_worker_run(pp_worker_func func, gpointer data, guint timeout_s, pp_worker_result *res) {
+static void child_main(int fd, pp_worker_func func, gpointer data, const pp_worker_limits *limits,
+                       pid_t parent) {
+  pp_worker_child_setup(limits, parent);
+  char *payload = func(data);
+  gboolean ok = payload && pp_worker_write_all(fd, payload, strlen(payload));
+  close(fd);
+  _exit(ok ? 0 : 1);
+}
+
+void pp_worker_run(pp_worker_func func, gpointer data, const pp_worker_limits *limits,
+                   pp_worker_result *res) {
   memset(res, 0, sizeof *res);
   res->payload = g_string_new(NULL);
   int fds[2];
-  if (pipe(fds) != 0) {
+  if (pipe2(fds, O_CLOEXEC) != 0) {
     res->outcome = PP_WORKER_NO_FORK;
     g_string_assign(res->payload, g_strerror(errno));
     return;
@@ -89,6 +137,7 @@ void pp_worker_run(pp_worker_func func, gpointer data, guint timeout_s, pp_worke
   /* Buffered output would otherwise be written twice, once by each process. */
   fflush(stdout);
   fflush(stderr);
+  pid_t parent = getpid();
   pid_t pid = fork();
   if (pid < 0) {
     res->outcome = PP_WORKER_NO_FORK;
@@ -99,21 +148,22 @@ void pp_worker_run(pp_worker_func func, gpointer data, guint timeout_s, pp_worke
   }
   if (pid == 0) {
     close(fds[0]);
-    run_child(fds[1], func, data);
+    child_main(fds[1], func, data, limits, parent);
   }
   close(fds[1]);
-  gint64 deadline = g_get_monotonic_time() + (gint64)timeout_s * G_USEC_PER_SEC;
+  gint64 deadline = limits && limits->wall_s
+                        ? g_get_monotonic_time() + (gint64)limits->wall_s * G_USEC_PER_SEC
+                        : 0;
   int status = 0;
+  struct rusage ru = {0};
   gboolean eof = read_until_eof(fds[0], deadline, res->payload);
   close(fds[0]);
-  if (!eof || !wait_child(pid, deadline, &status)) {
+  if (!eof || !wait_child(pid, deadline, &status, &ru)) {
     kill(pid, SIGKILL);
-    while (waitpid(pid, &status, 0) < 0 && errno == EINTR)
+    while (wait4(pid, &status, 0, &ru) < 0 && errno == EINTR)
       ;
     res->outcome = PP_WORKER_TIMED_OUT;
-    return;
-  }
-  if (WIFSIGNALED(status)) {
+  } else if (WIFSIGNALED(status)) {
     res->outcome = PP_WORKER_SIGNALLED;
     res->signal = WTERMSIG(status);
   } else if (WIFEXITED(status) && WEXITSTATUS(status) == 0 && res->payload->len > 0) {
@@ -122,4 +172,7 @@ void pp_worker_run(pp_worker_func func, gpointer data, guint timeout_s, pp_worke
     res->outcome = PP_WORKER_EXITED;
     res->exit_status = WIFEXITED(status) ? WEXITSTATUS(status) : -1;
   }
+  res->max_rss_kib = ru.ru_maxrss;
+  res->cpu_s = (double)ru.ru_utime.tv_sec + ru.ru_utime.tv_usec / 1e6 + (double)ru.ru_stime.tv_sec +
+               ru.ru_stime.tv_usec / 1e6;
 }

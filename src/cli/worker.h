@@ -1,11 +1,20 @@
-/* worker.h — runs one job in a forked child with a deadline, because poppler and cairo
- * can abort() or loop on hostile files; the parent survives and reports what happened. */
+/* worker.h — runs one job in a forked child with limits (address space, CPU seconds,
+ * wall clock), because poppler and cairo can abort(), loop or swell on hostile files;
+ * the parent survives and reports what happened. Used for one page of `scene`/`charts`
+ * and for each page of a document inside a batch worker (see docworker.h). */
 #pragma once
 
 #include <glib.h>
+#include <sys/types.h>
 
 /* Runs in the child; returns the payload (a JSON text) sent back through a pipe. */
 typedef char *(*pp_worker_func)(gpointer data);
+
+typedef struct {
+  guint wall_s;         /* killed after this many seconds (0: no limit) */
+  guint cpu_s;          /* RLIMIT_CPU (0: no limit) */
+  guint64 memory_bytes; /* RLIMIT_AS (0: no limit) */
+} pp_worker_limits;
 
 typedef enum {
   PP_WORKER_DONE,      /* payload holds what the child sent */
@@ -19,9 +28,24 @@ typedef struct {
   pp_worker_outcome outcome;
   int signal;
   int exit_status;
+  long max_rss_kib; /* peak resident memory of the child (getrusage) */
+  double cpu_s;     /* user + system CPU seconds of the child */
   GString *payload;
 } pp_worker_result;
 
-/* Blocks until the child ends or timeout_s elapse (then kills it). result->payload is
+/* Blocks until the child ends or the wall limit passes (then kills it). result->payload is
  * always allocated; free it with g_string_free(). */
-void pp_worker_run(pp_worker_func func, gpointer data, guint timeout_s, pp_worker_result *result);
+void pp_worker_run(pp_worker_func func, gpointer data, const pp_worker_limits *limits,
+                   pp_worker_result *result);
+
+/* What every child does first: default signal dispositions, death with the parent
+ * (PR_SET_PDEATHSIG, and _exit if the parent is already gone), no core files, the
+ * limits, and an alarm a little after the wall limit so that even an orphan ends. */
+void pp_worker_child_setup(const pp_worker_limits *limits, pid_t parent);
+
+/* TRUE when RLIMIT_AS is applied (not under AddressSanitizer, whose shadow memory needs
+ * terabytes of address space). */
+gboolean pp_worker_memory_limit_applies(void);
+
+/* Writes all of data, retrying on EINTR; FALSE on error. */
+gboolean pp_worker_write_all(int fd, const char *data, size_t len);

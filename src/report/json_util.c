@@ -1,16 +1,35 @@
 /* json_util.c — the few JsonBuilder helpers every report writer needs, so the rule
  * "non-finite numbers are null" is enforced in exactly one place. */
 #include <math.h>
+#include <string.h>
 
 #include "json_util.h"
+
+/* Below 2^63 an integral double is written as an integer: "3" reads better than "3.0". */
+#define PP_JSON_INT_LIMIT 9.2e18
+
+/* json-glib 1.6 writes a double as g_ascii_dtostr() and appends ".0" when the text has no
+ * '.', so 1e20 becomes "1e+20.0", which RFC 8259 §6 does not allow (a fraction cannot follow
+ * the exponent). Such a value (one mantissa digit with an exponent) is moved one unit in the
+ * last place toward zero, a relative change of 2^-52, whose text always has a '.'. */
+double pp_json_writable_double(double v) {
+  char buf[G_ASCII_DTOSTR_BUF_SIZE];
+  for (int i = 0; i < 4 && v != 0; i++) {
+    g_ascii_dtostr(buf, sizeof buf, v);
+    if (strchr(buf, '.') || !strpbrk(buf, "eE"))
+      break;
+    v = nextafter(v, 0.0);
+  }
+  return v;
+}
 
 void pp_json_add_number(JsonBuilder *b, double v) {
   if (!isfinite(v))
     json_builder_add_null_value(b);
-  else if (v == floor(v) && fabs(v) < 9.0e15)
-    json_builder_add_int_value(b, (gint64)v); /* "3" reads better than "3.0" */
+  else if (v == floor(v) && fabs(v) < PP_JSON_INT_LIMIT)
+    json_builder_add_int_value(b, (gint64)v);
   else
-    json_builder_add_double_value(b, v);
+    json_builder_add_double_value(b, pp_json_writable_double(v));
 }
 
 void pp_json_member_number(JsonBuilder *b, const char *name, double v) {

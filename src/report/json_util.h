@@ -7,6 +7,8 @@
 #include "core/core.h"
 
 void pp_json_add_number(JsonBuilder *b, double v);
+/* v, or its neighbour toward zero when json-glib would print v as invalid JSON ("1e+20.0"). */
+double pp_json_writable_double(double v);
 void pp_json_member_number(JsonBuilder *b, const char *name, double v);
 /* NULL becomes JSON null. */
 void pp_json_member_string(JsonBuilder *b, const char *name, const char *s);

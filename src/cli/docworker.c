@@ -1,0 +1,224 @@
+/* docworker.c — inside a batch worker: limits, stderr caught for the findings file's
+ * warnings, the document opened once, each page forked under the page budget. A page
+ * child inherits the opened document (copy-on-write), so nothing is parsed twice. */
+#include <signal.h>
+#include <stdio.h>
+#include <string.h>
+#include <sys/mman.h>
+#include <unistd.h>
+
+#include "analyse.h"
+#include "docworker.h"
+#include "worker.h"
+
+/* A page process that dies by signal after using more than this share of the memory
+ * budget is taken as out of memory (RLIMIT_AS makes allocations fail, and poppler and
+ * GLib then abort). Common practice, no source. */
+#define PP_DOCWORKER_MEMORY_SHARE 0.5
+
+static void send_line(int fd, const char *line) {
+  char *with_nl = g_strconcat(line, "\n", NULL);
+  if (!pp_worker_write_all(fd, with_nl, strlen(with_nl)))
+    _exit(3); /* the scheduler is gone */
+  g_free(with_nl);
+}
+
+/* Library messages go to a memory file instead of the terminal; each page child reads
+ * its own and files them among its page's warnings. */
+static int catch_stderr(void) {
+  int mfd = memfd_create("plotproof-messages", 0);
+  if (mfd < 0 || dup2(mfd, STDERR_FILENO) < 0)
+    return -1;
+  close(mfd);
+  return STDERR_FILENO;
+}
+
+static gboolean messages_mention_memory(int fd) {
+  char buf[4097];
+  ssize_t n = fd >= 0 ? pread(fd, buf, sizeof buf - 1, 0) : -1;
+  if (n <= 0)
+    return FALSE;
+  buf[n] = '\0';
+  return strstr(buf, "alloc") || strstr(buf, "memory");
+}
+
+/* The page entry's reason for a page child that gave no result. */
+static char *page_failure(const pp_worker_result *r, const pp_cli_options *opt, int messages_fd) {
+  if (r->outcome == PP_WORKER_TIMED_OUT ||
+      (r->outcome == PP_WORKER_SIGNALLED && (r->signal == SIGALRM || r->signal == SIGXCPU)))
+    return g_strdup_printf("too complex: over the page budget of %u s", opt->page_s);
+  gboolean limited = pp_worker_memory_limit_applies();
+  double budget_kib = opt->memory_mib * 1024.0;
+  if (r->outcome == PP_WORKER_SIGNALLED &&
+      (messages_mention_memory(messages_fd) ||
+       (limited && r->max_rss_kib > PP_DOCWORKER_MEMORY_SHARE * budget_kib)))
+    return g_strdup_printf("too complex: over the memory budget of %u MiB", opt->memory_mib);
+  if (r->outcome == PP_WORKER_SIGNALLED)
+    return g_strdup_printf("damaged: the page's capture crashed (signal %d)", r->signal);
+  if (r->outcome == PP_WORKER_NO_FORK)
+    return g_strdup_printf("not analysed: %s", r->payload->str);
+  return g_strdup_printf("damaged: the page's capture ended without a result (exit status %d)",
+                         r->exit_status);
+}
+
+G_NORETURN void pp_docworker_main(int fd, const pp_docworker_job *job, pid_t parent) {
+  const pp_cli_options *opt = job->opt;
+  pp_worker_limits doc_limits = {opt->timeout_s, opt->cpu_s,
+                                 (guint64)opt->memory_mib * 1024 * 1024};
+  pp_worker_child_setup(&doc_limits, parent);
+  int messages_fd = catch_stderr();
+  GError *error = NULL;
+  pp_document *doc = pp_document_open(job->path, job->password, &error);
+  if (!doc) {
+    char *payload = pp_analyse_gerror_payload(error);
+    send_line(fd, payload);
+    _exit(0);
+  }
+  const pp_document_info *info = pp_document_get_info(doc);
+  pp_report *empty = pp_report_new(info, &opt->thresholds);
+  char *header = pp_report_to_string(empty, FALSE, NULL);
+  pp_report_free(empty);
+  char *line = g_strdup_printf("{\"open\":%s}", header);
+  send_line(fd, line);
+  g_free(line);
+  g_free(header);
+
+  pp_worker_limits page_limits = {opt->page_s, opt->page_s + 1, doc_limits.memory_bytes};
+  double cpu_used = 0;
+  for (guint i = 0; i < info->n_pages; i++) {
+    line = g_strdup_printf("{\"start\":%u}", i);
+    send_line(fd, line);
+    g_free(line);
+    pp_analyse_job page = {job->path, job->password, opt, FALSE, doc, i, messages_fd};
+    pp_worker_result r;
+    pp_worker_run(pp_analyse_report_page, &page, &page_limits, &r);
+    cpu_used += r.cpu_s;
+    if (r.outcome == PP_WORKER_DONE && r.payload->str[0] == '{') {
+      line = g_strdup_printf("{\"page\":%u,\"rss_kib\":%ld,\"report\":%s}", i, r.max_rss_kib,
+                             r.payload->str);
+    } else {
+      char *why = page_failure(&r, opt, messages_fd);
+      JsonNode *s = json_node_new(JSON_NODE_VALUE);
+      json_node_set_string(s, why);
+      char *quoted = json_to_string(s, FALSE);
+      line =
+          g_strdup_printf("{\"page\":%u,\"rss_kib\":%ld,\"error\":%s}", i, r.max_rss_kib, quoted);
+      g_free(quoted);
+      json_node_unref(s);
+      g_free(why);
+    }
+    g_string_free(r.payload, TRUE);
+    send_line(fd, line);
+    g_free(line);
+    if (messages_fd >= 0 && ftruncate(messages_fd, 0) == 0)
+      lseek(messages_fd, 0, SEEK_SET);
+    if (opt->cpu_s && cpu_used > opt->cpu_s && i + 1 < info->n_pages) {
+      line =
+          g_strdup_printf("{\"stop\":\"over the document's limit of %u CPU seconds\"}", opt->cpu_s);
+      send_line(fd, line);
+      _exit(0);
+    }
+  }
+  send_line(fd, "{\"end\":true}");
+  _exit(0);
+}
+
+char *pp_docworker_job_to_json(const pp_docworker_job *job, pid_t parent) {
+  const pp_cli_options *o = job->opt;
+  g_autoptr(JsonBuilder) b = json_builder_new();
+  json_builder_begin_object(b);
+  /* Hex, because a file name is bytes and need not be UTF-8, which JSON strings must be. */
+  GString *hex = g_string_new(NULL);
+  for (const guchar *p = (const guchar *)job->path; *p; p++)
+    g_string_append_printf(hex, "%02x", *p);
+  json_builder_set_member_name(b, "path_hex");
+  json_builder_add_string_value(b, hex->str);
+  g_string_free(hex, TRUE);
+  json_builder_set_member_name(b, "password");
+  if (job->password)
+    json_builder_add_string_value(b, job->password);
+  else
+    json_builder_add_null_value(b);
+  const char *names[] = {"parent", "timeout_s", "cpu_s", "page_s", "memory_mib"};
+  gint64 values[] = {parent, o->timeout_s, o->cpu_s, o->page_s, o->memory_mib};
+  for (guint i = 0; i < G_N_ELEMENTS(names); i++) {
+    json_builder_set_member_name(b, names[i]);
+    json_builder_add_int_value(b, values[i]);
+  }
+  /* The thresholds as their bytes: the worker is this same program, so the layout is
+   * the same, and every member (opt-in rule bits included) arrives exactly. */
+  GString *thr = g_string_new(NULL);
+  for (size_t i = 0; i < sizeof o->thresholds; i++)
+    g_string_append_printf(thr, "%02x", ((const guchar *)&o->thresholds)[i]);
+  json_builder_set_member_name(b, "thresholds_hex");
+  json_builder_add_string_value(b, thr->str);
+  g_string_free(thr, TRUE);
+  /* The rule policy of the configuration (review_cli.c filters each page's findings). */
+  GPtrArray *lists[] = {o->disabled_rules, o->min_severity};
+  const char *list_names[] = {"disabled_rules", "min_severity"};
+  for (guint k = 0; k < 2; k++) {
+    json_builder_set_member_name(b, list_names[k]);
+    json_builder_begin_array(b);
+    for (guint i = 0; lists[k] && i < lists[k]->len; i++)
+      json_builder_add_string_value(b, g_ptr_array_index(lists[k], i));
+    json_builder_end_array(b);
+  }
+  json_builder_end_object(b);
+  JsonNode *root = json_builder_get_root(b);
+  char *text = json_to_string(root, FALSE);
+  json_node_unref(root);
+  return text;
+}
+
+static double number(JsonObject *o, const char *name, double fallback) {
+  JsonNode *n = json_object_get_member(o, name);
+  return n && JSON_NODE_HOLDS_VALUE(n) ? json_node_get_double(n) : fallback;
+}
+
+G_NORETURN void pp_docworker_run_stdin(void) {
+  GString *in = g_string_new(NULL);
+  char buf[4096];
+  ssize_t n;
+  while ((n = read(STDIN_FILENO, buf, sizeof buf)) != 0) {
+    if (n < 0)
+      _exit(2);
+    g_string_append_len(in, buf, n);
+  }
+  g_autoptr(JsonParser) parser = json_parser_new();
+  if (!json_parser_load_from_data(parser, in->str, (gssize)in->len, NULL) ||
+      !JSON_NODE_HOLDS_OBJECT(json_parser_get_root(parser)))
+    _exit(2);
+  JsonObject *o = json_node_get_object(json_parser_get_root(parser));
+  pp_cli_options opt = {0};
+  opt.thresholds = pp_thresholds_default();
+  opt.timeout_s = (guint)number(o, "timeout_s", 600);
+  opt.cpu_s = (guint)number(o, "cpu_s", 600);
+  opt.page_s = (guint)number(o, "page_s", 30);
+  opt.memory_mib = (guint)number(o, "memory_mib", 2048);
+  const char *thr = json_object_get_string_member_with_default(o, "thresholds_hex", "");
+  if (strlen(thr) == 2 * sizeof opt.thresholds)
+    for (size_t i = 0; i < sizeof opt.thresholds; i++)
+      ((guchar *)&opt.thresholds)[i] =
+          (guchar)(g_ascii_xdigit_value(thr[2 * i]) * 16 + g_ascii_xdigit_value(thr[2 * i + 1]));
+  const char *list_names[] = {"disabled_rules", "min_severity"};
+  GPtrArray **lists[] = {&opt.disabled_rules, &opt.min_severity};
+  for (guint k = 0; k < 2; k++) {
+    JsonNode *a = json_object_get_member(o, list_names[k]);
+    for (guint i = 0;
+         a && JSON_NODE_HOLDS_ARRAY(a) && i < json_array_get_length(json_node_get_array(a)); i++) {
+      if (!*lists[k])
+        *lists[k] = g_ptr_array_new_with_free_func(g_free);
+      g_ptr_array_add(*lists[k],
+                      g_strdup(json_array_get_string_element(json_node_get_array(a), i)));
+    }
+  }
+  JsonNode *pw = json_object_get_member(o, "password");
+  const char *hex = json_object_get_string_member_with_default(o, "path_hex", "");
+  GString *path = g_string_new(NULL);
+  for (size_t i = 0; hex[i] && hex[i + 1]; i += 2)
+    g_string_append_c(path,
+                      (char)(g_ascii_xdigit_value(hex[i]) * 16 + g_ascii_xdigit_value(hex[i + 1])));
+  pp_docworker_job job = {path->str,
+                          pw && JSON_NODE_HOLDS_VALUE(pw) ? json_node_get_string(pw) : NULL, &opt};
+  pp_docworker_main(STDOUT_FILENO, &job, (pid_t)number(o, "parent", 0));
+}

@@ -1,0 +1,32 @@
+/* docworker.h — the batch worker: one process per document, started by the scheduler as
+ * `plotproof __worker` (a fresh process: the scheduler has GLib threads, and a fork of a
+ * threaded process may inherit a held lock), with its job as JSON on standard input.
+ * It opens the document and runs each page in a page child of its own under the page
+ * budget, streaming one JSON line per event to the scheduler, so that every page
+ * finished before a crash or a timeout reaches the findings file. */
+#pragma once
+
+#include "cli.h"
+
+typedef struct {
+  const char *path;
+  const char *password;
+  const pp_cli_options *opt;
+} pp_docworker_job;
+
+/* The lines written to fd, each one JSON object:
+ *   {"error": {"code", "word", "message"}}       the document cannot be opened
+ *   {"open": <findings object without pages>}    header, document identity
+ *   {"start": I}                                 page I (0-based) begins
+ *   {"page": I, "report": <one-page findings>}   page I done
+ *   {"page": I, "error": "too complex: ..."}     page I over its budget, or crashed
+ *   {"stop": "..."}                              the document's CPU limit is spent
+ *   {"end": true}                                all pages done
+ * Never returns: the process ends with _exit(). */
+G_NORETURN void pp_docworker_main(int fd, const pp_docworker_job *job, pid_t parent);
+
+/* The job as the scheduler writes it to the worker's standard input (password included,
+ * so it never shows on a command line). */
+char *pp_docworker_job_to_json(const pp_docworker_job *job, pid_t parent);
+/* `plotproof __worker`: reads the job from stdin, writes the event lines to stdout. */
+G_NORETURN void pp_docworker_run_stdin(void);

@@ -1,0 +1,152 @@
+/* test_cli.c — units of the batch: terminal escaping (ECMA-48 control functions), the
+ * password file, shard stability, the batch record reader, output names within NAME_MAX
+ * (POSIX), and the joining of page results into document totals. */
+#include <setjmp.h>
+#include <stdarg.h>
+#include <stddef.h>
+#include <string.h>
+
+#include <cmocka.h>
+
+#include "cli/assemble.h"
+#include "cli/cli.h"
+#include "cli/inputs.h"
+#include "cli/passwords.h"
+#include "cli/record.h"
+
+static void escape_controls(void **state) {
+  (void)state;
+  /* ECMA-48 §5: C0 (0x00-0x1F), DEL and C1 (U+0080-U+009F) are control functions. */
+  char *s = pp_cli_escape("a\x1b[31mb\nc\x07\x7f\xc2\x9b"
+                          "d");
+  assert_string_equal(s, "a\\x1B[31mb\\x0Ac\\x07\\x7F\\u009Bd");
+  g_free(s);
+  s = pp_cli_escape("caf\xc3\xa9 \xff"); /* é kept, an invalid byte shown */
+  assert_string_equal(s, "caf\xc3\xa9 \\xFF");
+  g_free(s);
+}
+
+static void passwords(void **state) {
+  (void)state;
+  pp_passwords *pw = pp_passwords_parse("# c\n\nsha256:ABCD secret one\r\n*.pdf  two\n"
+                                        "reports/*.pdf three\nlonely\n",
+                                        "fallback");
+  assert_string_equal(pp_passwords_lookup(pw, "x/y.pdf", "abcd"), "secret one");
+  assert_string_equal(pp_passwords_lookup(pw, "reports/y.pdf", "00"), "two"); /* first wins */
+  assert_string_equal(pp_passwords_lookup(pw, "y.txt", "00"), "fallback");
+  pp_passwords_free(pw);
+  pw = pp_passwords_parse("", NULL);
+  assert_null(pp_passwords_lookup(pw, "a.pdf", "00"));
+  pp_passwords_free(pw);
+}
+
+static void shards(void **state) {
+  (void)state;
+  /* A stable function of the hash: 0x0000000a % 3 = 1 → shard 2. */
+  assert_int_equal(pp_inputs_shard_of("0000000aff", 3), 2);
+  assert_int_equal(pp_inputs_shard_of("ffffffff", 1), 1);
+  guint count[4] = {0};
+  for (int i = 0; i < 3000; i++) {
+    char *h = g_compute_checksum_for_data(G_CHECKSUM_SHA256, (const guchar *)&i, sizeof i);
+    count[pp_inputs_shard_of(h, 3)]++;
+    g_free(h);
+  }
+  for (int k = 1; k <= 3; k++) /* binomial(3000, 1/3): mean 1000, sd 26; 6 sd margin */
+    assert_true(count[k] > 840 && count[k] < 1160);
+}
+
+static void record_reader(void **state) {
+  (void)state;
+  const char *text = "{\"output\":\"a.findings.json\",\"status\":\"failed\"}\n"
+                     "garbage\n"
+                     "{\"output\":\"b.findings.json\",\"status\":\"ok\"}\n"
+                     "{\"output\":\"a.findings.json\",\"status\":\"ok\"}\n"
+                     "{\"summary\":{\"shard\":\"2/3\"}}\n"
+                     "{\"output\":\"c.findings.json\",\"sta"; /* cut by kill -9 */
+  JsonObject *summary = NULL;
+  GHashTable *t = pp_records_parse(text, strlen(text), &summary);
+  assert_int_equal(g_hash_table_size(t), 2);
+  JsonObject *a = g_hash_table_lookup(t, "a.findings.json");
+  assert_string_equal(json_object_get_string_member(a, "status"), "ok"); /* the later line */
+  assert_non_null(summary);
+  assert_string_equal(json_object_get_string_member(summary, "shard"), "2/3");
+  json_object_unref(summary);
+  g_hash_table_unref(t);
+  pp_record r = {.path = "p\n.pdf", .output = "o", .status = "ok", .seconds = 1.5};
+  char *line = pp_record_to_line(&r);
+  assert_null(strchr(line, '\n')); /* JSON Lines: one line per record */
+  t = pp_records_parse(line, strlen(line), NULL);
+  assert_int_equal(g_hash_table_size(t), 1);
+  g_hash_table_unref(t);
+  g_free(line);
+}
+
+static void output_names(void **state) {
+  (void)state;
+  char *n = pp_inputs_output_base("dir/report.PDF", NULL);
+  assert_string_equal(n, "report.findings.json");
+  g_free(n);
+  GString *long_name = g_string_new("dir/");
+  for (int i = 0; i < 120; i++)
+    g_string_append(long_name, "\xc3\xa9"); /* 240 bytes of é */
+  g_string_append(long_name, ".pdf");
+  n = pp_inputs_output_base(long_name->str, "0123abcd");
+  assert_true(strlen(n) <= 255 - 20);        /* NAME_MAX 255 (POSIX), with room to spare */
+  assert_true(g_utf8_validate(n, -1, NULL)); /* cut on a character boundary */
+  g_free(n);
+  n = pp_inputs_output_base("../..", NULL);
+  assert_null(strchr(n, '/'));
+  assert_false(g_str_has_prefix(n, ".."));
+  g_free(n);
+  g_string_free(long_name, TRUE);
+}
+
+static void feed(pp_assembly *as, const char *line) {
+  pp_assembly_feed(as, line, strlen(line));
+}
+
+static void assembly_totals(void **state) {
+  (void)state;
+  pp_assembly *as = pp_assembly_new();
+  feed(as, "{\"open\":{\"document\":{\"pages\":3},\"pages\":[],\"findings\":[],\"totals\":{}}}");
+  feed(as, "{\"start\":0}");
+  feed(as, "{\"page\":0,\"rss_kib\":900,\"report\":{\"pages\":[{\"page\":1,\"error\":null,"
+           "\"figures\":[{},{}]}],\"findings\":[{\"severity\":\"severe\"}]}}");
+  feed(as, "{\"start\":1}");
+  feed(as, "{\"page\":1,\"error\":\"too complex: over the page budget of 1 s\"}");
+  feed(as, "{\"start\":2}");
+  feed(as, "not json");
+  const char *word, *reason;
+  JsonNode *root = pp_assembly_finish(as, "timed out after 3 s", &word, &reason);
+  assert_non_null(root);
+  JsonObject *t = json_object_get_object_member(json_node_get_object(root), "totals");
+  assert_int_equal(json_object_get_int_member(t, "pages"), 3);
+  assert_int_equal(json_object_get_int_member(t, "pages_analysed"), 1);
+  assert_int_equal(json_object_get_int_member(t, "pages_failed"), 2);
+  assert_int_equal(json_object_get_int_member(t, "figures"), 2);
+  assert_int_equal(json_object_get_int_member(t, "findings"), 1);
+  assert_int_equal(
+      json_object_get_int_member(json_object_get_object_member(t, "by_severity"), "severe"), 1);
+  JsonArray *pages = json_object_get_array_member(json_node_get_object(root), "pages");
+  assert_string_equal(
+      json_object_get_string_member(json_array_get_object_element(pages, 2), "error"),
+      "not analysed: timed out after 3 s");
+  assert_int_equal(pp_assembly_last_page(as), 3);
+  assert_int_equal(pp_assembly_max_rss_kib(as), 900);
+  json_node_unref(root);
+  pp_assembly_free(as);
+  as = pp_assembly_new();
+  feed(as, "{\"error\":{\"code\":4,\"word\":\"encrypted\",\"message\":\"needs a password\"}}");
+  assert_null(pp_assembly_finish(as, NULL, &word, &reason));
+  assert_string_equal(word, "encrypted");
+  pp_assembly_free(as);
+}
+
+int main(void) {
+  const struct CMUnitTest tests[] = {
+      cmocka_unit_test(escape_controls), cmocka_unit_test(passwords),
+      cmocka_unit_test(shards),          cmocka_unit_test(record_reader),
+      cmocka_unit_test(output_names),    cmocka_unit_test(assembly_totals),
+  };
+  return cmocka_run_group_tests(tests, NULL, NULL);
+}
