@@ -34,6 +34,15 @@ def values_between(rng, n, lo, hi):
     return [int(rng.uniform(lo, hi)) for _ in range(n)]
 
 
+def with_spread(rng, v, low, high):
+    """One value near the bottom of the range and another near the top, so that a
+    misleading twin stays misleading whatever the seed (held-out corpora)."""
+    i, k = rng.sample(range(len(v)), 2)
+    v[i] = int(rng.uniform(*low))
+    v[k] = int(rng.uniform(*high))
+    return v
+
+
 def save(name, seed, builder):
     path = os.path.join(OUT, name + ".pdf")
     with matplotlib.rc_context({"pdf.fonttype": 42}):
@@ -47,7 +56,7 @@ def save(name, seed, builder):
     for d in figures:  # the generator's intent must agree with the measure it implies
         lf = (d.get("expected") or {}).get("lie_factor_growth")
         if d["kind"] in truth_shapes.KINDS and lf is not None:
-            if d["misleading"] == truth_shapes.in_band(lf):
+            if d["misleading"] == truth_shapes.faithful(d.get("expected")):
                 raise SystemExit("%s: misleading=%s but lie factor %.3f" %
                                  (name, d["misleading"], lf))
 
@@ -60,7 +69,8 @@ def oblique_bars(seed, deep, wall=False, title="Cider pressed (t)"):
     is where the back edge of its cap meets the wall gridline."""
     def build():
         rng = rng_of(seed)
-        v = values_between(rng, 6, 15, 95) if deep else values_between(rng, 6, 70, 95)
+        v = with_spread(rng, values_between(rng, 6, 15, 95), (12, 18), (88, 95)) if deep \
+            else values_between(rng, 6, 70, 95)
         w = 0.6
         dx, dy = (0.3, 14.0) if deep else (0.05, 0.35)
         fig = new_fig()
@@ -117,7 +127,7 @@ def stacked_oblique(seed):
     def build():
         rng = rng_of(seed)
         low = values_between(rng, 5, 20, 45)
-        up = values_between(rng, 5, 15, 40)
+        up = with_spread(rng, values_between(rng, 5, 15, 40), (4, 7), (36, 40))
         w, dx, dy = 0.6, 0.3, 12.0
         fig = new_fig()
         ax = fig.add_axes((0.13, 0.14, 0.8, 0.76))
@@ -184,7 +194,7 @@ def pyramid(seed, honest, inverted=False, percent=False):
             xs = [-a1, a1, a2, -a2]
             ax.fill(xs, ys, color=HUES[i % 4][0], edgecolor="white", linewidth=1.0)
             mid = H - (h1 + h2) / 2
-            txt = ("%.0f%%" % (100 * x / tot)) if percent else "%d" % x
+            txt = ("%.1f%%" % (100 * x / tot)) if percent else "%d" % x
             ax.text(0, mid, txt, ha="center", va="center", fontsize=9, color="white")
             ax.text(Wb / 2 + 0.3, mid, names[i], ha="left", va="center", fontsize=9)
             shape.append([2 * a1, 2 * a2, h2 - h1])
@@ -198,7 +208,7 @@ def pyramid(seed, honest, inverted=False, percent=False):
         d = {"kind": "pyramid", "misleading": not honest,
              "rule": None if honest else "slices-vs-values", "values": v, "labels": names,
              "axis": None, "baseline": None,
-             "data_labels": [round(100 * x / tot) for x in v] if percent else list(v),
+             "data_labels": [round(100 * x / tot, 1) for x in v] if percent else list(v),
              "slices": {"shape": shape, "solid": "cone", "order": "top-to-bottom"},
              "style": ["triangle"] + (["inverted"] if inverted else []) +
                       (["percent"] if percent else [])}
@@ -213,7 +223,8 @@ def funnel(seed, honest):
     equal height and width ∝ value (area ∝ value)."""
     def build():
         rng = rng_of(seed)
-        v = sorted(values_between(rng, 5, 80, 900), reverse=True)
+        v = sorted(with_spread(rng, values_between(rng, 5, 80, 900), (80, 120), (800, 900)),
+                   reverse=True)
         fig = new_fig(6.0, 4.6)
         ax = fig.add_axes((0.06, 0.06, 0.62, 0.84))
         k = 8.0 / max(v)
@@ -307,9 +318,11 @@ def bubbles(seed, by, key=False):
     def build():
         rng = rng_of(seed)
         n = 7
-        v = values_between(rng, n, 5, 60)
-        xs = [rng.uniform(1, 9) for _ in range(n)]
-        ys = [rng.uniform(1, 9) for _ in range(n)]
+        v = with_spread(rng, values_between(rng, n, 5, 60), (5, 9), (50, 60))
+        # one bubble per cell of a 4x3 grid, jittered: no two overlap, none is clipped
+        cells = rng.sample([(c, r) for c in range(4) for r in range(3)], n)
+        xs = [1.6 + 2.25 * c + rng.uniform(-0.3, 0.3) for c, _ in cells]
+        ys = [2.0 + 3.0 * r + rng.uniform(-0.3, 0.3) for _, r in cells]
         fig = new_fig()
         ax = fig.add_axes((0.1, 0.12, 0.68 if key else 0.85, 0.78))
         if by == "area":

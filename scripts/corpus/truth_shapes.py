@@ -162,7 +162,7 @@ def _pyramid(fig):
         "value_share": [_r(x / tv) for x in v],
         "solid": sl.get("solid", "cone"),
         "volume_share": [_r(x / tvol) for x in vols],
-        "volume_lie_factor": _r(max(vinfl) / min(vinfl)),
+        "volume_ratio": _r(max(vinfl) / min(vinfl)),
         "baseline": None,
     }
 
@@ -220,3 +220,11 @@ def expected(fig):
 def in_band(lie_factor, low=0.95, high=1.05):
     """Tufte's faithful band (1983, p.57)."""
     return lie_factor is not None and low <= lie_factor <= high
+
+
+def faithful(expected, low=0.95, high=1.05):
+    """No finding expected: the Lie Factor in the band and no pair departing beyond it
+    (the same test as docs/rules.md, Thresholds)."""
+    e = expected or {}
+    mpd = e.get("max_pair_departure")
+    return in_band(e.get("lie_factor_growth"), low, high) and (mpd is None or mpd <= high)

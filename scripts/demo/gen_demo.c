@@ -13,6 +13,7 @@
 #include "cairo_text.h"
 #include "demo_photo.h"
 #include "demo_prose.h"
+#include "demo_shapes.h"
 
 #define SEED G_GUINT64_CONSTANT(2031)
 #define PAGE_W 595.0
@@ -370,6 +371,28 @@ static void page_sustainability(demo *d)
   body(d, MARGIN, dc.y + dc.h + 35, CONTENT_W, 1);
 }
 
+/* 3D columns, a tier pyramid and route bubbles: the shapes that misstate their numbers. */
+static void page_network(demo *d)
+{
+  next_page(d, "Network and customers");
+  double y = heading(d, "Network and customers", 60);
+  y = body(d, MARGIN, y, CONTENT_W, 1);
+  pp_gen_font(d->cr, 10, TRUE);
+  set_rgb(d->cr, navy);
+  pp_gen_text_at(d->cr, "Passengers carried (million)", MARGIN, y + 10, 0, 0);
+  pp_demo_bars_3d(d->cr, d->doc->truth, d->doc->page, MARGIN + 30, y + 45, 240, 160);
+  pp_gen_font(d->cr, 10, TRUE);
+  set_rgb(d->cr, navy);
+  pp_gen_text_at(d->cr, "Loyalty members by tier", MARGIN + 300, y + 10, 0, 0);
+  pp_demo_pyramid(d->cr, d->doc->truth, d->doc->page, MARGIN + 290, y + 40, 190, 170);
+  double yb = y + 250;
+  pp_gen_font(d->cr, 10, TRUE);
+  set_rgb(d->cr, navy);
+  pp_gen_text_at(d->cr, "Departures per week by route", MARGIN, yb, 0, 0);
+  pp_demo_bubbles(d->cr, d->doc->truth, d->doc->page, MARGIN, yb + 20, CONTENT_W, 200);
+  body(d, MARGIN, yb + 240, CONTENT_W, 1);
+}
+
 static void page_people(demo *d)
 {
   next_page(d, "People");
@@ -719,6 +742,7 @@ int main(int argc, char **argv)
   page_markets(&d);
   page_fleet(&d);
   page_sustainability(&d);
+  page_network(&d);
   page_people(&d);
   page_five_year(&d);
   page_segments(&d);

@@ -246,6 +246,15 @@ void pp_recognize_bars(pp_recognize_ctx *ctx);          /* bars.c */
 void pp_recognize_areas(pp_recognize_ctx *ctx);         /* areas.c */
 void pp_recognize_labelled_bars(pp_recognize_ctx *ctx); /* labelled.c */
 void pp_recognize_lines(pp_recognize_ctx *ctx);         /* lines.c */
+void pp_recognize_solid_bars(pp_recognize_ctx *ctx);    /* solids.c */
+void pp_recognize_cylinders(pp_recognize_ctx *ctx);     /* cylinders.c */
+/* Shared by the solid recognizers (solids.c): the free vertical linear value axis beside
+ * a group of solids, the word under a front (its category), the plot frame around them. */
+const pp_axis_candidate *pp_solid_value_axis(const pp_recognize_ctx *ctx, pp_rect all);
+char *pp_solid_category(const pp_scene *scene, pp_rect front, double base);
+pp_rect pp_solid_frame(const pp_scene *scene, pp_rect all);
+void pp_recognize_pyramids(pp_recognize_ctx *ctx); /* pyramids.c */
+void pp_recognize_symbols(pp_recognize_ctx *ctx);  /* symbols.c */
 void pp_recognize_pies(pp_recognize_ctx *ctx);          /* pies.c */
 void pp_recognize_tilted_pies(pp_recognize_ctx *ctx);   /* tilted_pies.c */
 void pp_recognize_radial(pp_recognize_ctx *ctx);        /* radial.c */

@@ -7,6 +7,17 @@
  * read from their labels alone, then lines, which take what is left beside an axis.
  * The name is also the ledger owner and the figure's "recognizer". */
 const pp_recognizer pp_recognizers[] = {
+    /* Solids first: their front faces are rectangles the flat bar recognizers would read
+     * without their caps and sides, on the wrong plane. */
+    {{"solid-bars", "3D bars: front faces with caps and sides (oblique or perspective)",
+      "two or more bars whose front rectangle shares edges with cap or side faces; a fitted "
+      "vertical scale beside them (read on the front plane or the back wall), or a number "
+      "above every bar"},
+     pp_recognize_solid_bars},
+    {{"cylinder-bars", "3D bars drawn as cylinders: a body and an elliptical cap",
+      "two or more bodies with straight vertical sides on one floor, each with an ellipse of "
+      "its width on its top edge; a fitted vertical scale beside them"},
+     pp_recognize_cylinders},
     /* Circles first: their printed shares would otherwise look like a column of ticks. */
     {{"pies", "pies and donuts: slices of one circle whose angles tile the full turn",
       "two or more sectors (or donut slices) of one radius about one centre, pulled-out "
@@ -33,6 +44,15 @@ const pp_recognizer pp_recognizers[] = {
       "judged only past the non-chart tests of evidence.c (thicker than a line, lengths that "
       "differ, one width per colour, near the scale, no words on the marks or body text)"},
      pp_recognize_bars},
+    /* Before areas and lines: bubbles beside an axis are neither. */
+    {{"symbols", "bubbles and scaled symbols: circles or copies of one icon sized by value",
+      "three or more circles (or copies of one outline) of one colour whose sizes differ by "
+      "at least 1.3x, each with a number on or under it, or a size key beside them"},
+     pp_recognize_symbols},
+    {{"pyramids", "pyramids and funnels: stacked triangle and trapezoid slices",
+      "three or more slices stacked edge to edge on one centre line, widening or narrowing "
+      "throughout, at least one with sloped sides, every one with a number on its row"},
+     pp_recognize_pyramids},
     {{"areas", "filled areas under a series beside a fitted vertical value axis",
       "a fitted scale; a filled non-rectangular polygon beside its labels, within its reach; "
       "judged only when its top is not flat (a rounded box) and no body text lies on it"},

@@ -181,6 +181,8 @@ static void add_measures(JsonBuilder *b, const pp_measures *m) {
   pp_json_member_number(b, "baseline_value", m->baseline_value);
   pp_json_member_number(b, "max_pair_departure", m->max_pair_departure);
   pp_json_member_number(b, "distortion", m->distortion);
+  for (guint i = 0; i < m->n_extra; i++)
+    pp_json_member_number(b, m->extra[i].name, m->extra[i].value);
   json_builder_end_object(b);
 }
 

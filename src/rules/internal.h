@@ -78,6 +78,25 @@ char *pp_rule_headline(const pp_finding *f, const pp_thresholds *t);
 /* A value as the chart prints it: the tick label at that value when there is one. */
 char *pp_rule_printed_value(const pp_figure *fig, double v);
 
+/* Measures between elements a and b (Lie Factor, Tufte's form, GDI) and the worst pair
+ * over positive values (shape_measures.c). */
+void pp_measures_between(const double *v, const double *g, guint n, guint a, guint b,
+                         pp_measures *m);
+/* The smallest and largest positive values with ink; FALSE when they are equal or absent. */
+gboolean pp_measures_extremes(const double *v, const double *g, guint n, guint *lo, guint *hi);
+
+/* ---- The rules (one file each, listed in table.c) ---------------------------------- */
+gboolean pp_rule_bars_3d_ink_measure(const pp_figure *fig, const pp_thresholds *t, pp_finding *f);
+char *pp_rule_bars_3d_ink_sentence(const pp_figure *fig, const pp_finding *f,
+                                   const pp_thresholds *t);
+gboolean pp_rule_slices_vs_values_measure(const pp_figure *fig, const pp_thresholds *t,
+                                          pp_finding *f);
+char *pp_rule_slices_vs_values_sentence(const pp_figure *fig, const pp_finding *f,
+                                        const pp_thresholds *t);
+gboolean pp_rule_symbols_not_by_area_measure(const pp_figure *fig, const pp_thresholds *t,
+                                             pp_finding *f);
+char *pp_rule_symbols_not_by_area_sentence(const pp_figure *fig, const pp_finding *f,
+                                           const pp_thresholds *t);
 /* ---- Shares (shares.c): pies and tilted pies ------------------------------------------ */
 /* Digits after the decimal mark of a label as printed ("12.5%" → 1). */
 int pp_label_decimals(const char *text);

@@ -29,6 +29,8 @@ pp_thresholds pp_thresholds_default(void);
 /* Switches on an opt-in rule (a profile's extra check); FALSE when id is not one. */
 gboolean pp_thresholds_enable_rule(pp_thresholds *t, const char *id);
 
+#define PP_MEASURES_MAX_EXTRA 6
+
 /* The measures for one figure: ink versus value of its first and last elements
  * and of the worst pair. NAN where undefined. */
 typedef struct {
@@ -40,7 +42,17 @@ typedef struct {
   guint first, last;         /* element indices used */
   guint pair_i, pair_j;      /* the worst pair */
   double distortion; /* how much the ink misstates: max(worst pair, growth ratio, 1/ratio) */
+  /* Measures particular to one rule (a size exponent, the inflated slices), written after
+   * the common ones; names are static strings listed in docs/findings.schema.json. */
+  guint n_extra;
+  struct {
+    const char *name;
+    double value;
+  } extra[PP_MEASURES_MAX_EXTRA];
 } pp_measures;
+
+/* Appends a rule's own measure (ignored beyond PP_MEASURES_MAX_EXTRA). */
+void pp_measures_add_extra(pp_measures *m, const char *name, double value);
 
 /* Lie factors from two values and two ink amounts (exposed for tests). */
 double pp_ink_growth_ratio(double v1, double v2, double g1, double g2);

@@ -82,7 +82,7 @@ static pp_finding *sample_finding(double lie_factor, double gdi) {
   pp_finding *f = pp_finding_new(fig, "bars-off-zero");
   pp_figure_free(fig);
   f->severity = PP_SEVERITY_SEVERE;
-  f->measures = (pp_measures){lie_factor, 2.0, gdi, 35, 3.5, 0, 2, 0, 2, 3.5};
+  f->measures = (pp_measures){lie_factor, 2.0, gdi, 35, 3.5, 0, 2, 0, 2, 3.5, 0, {{0}}};
   const double values[] = {40, 55, 70}, inks[] = {1250, 5000, 8750};
   const char *cats[] = {"2021", NULL,
                         "20\xff"

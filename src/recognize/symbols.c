@@ -1,0 +1,398 @@
+/* symbols.c — recognizer: bubbles and scaled symbols. Filled circles, or copies of one
+ * icon outline, of one colour and of clearly different sizes, each with a printed number
+ * (inside, on or just below it) or read from a size key beside the chart. Scatter plots
+ * with one marker size, dot plots and unlabelled map symbols make no figure here. */
+#include <math.h>
+#include <string.h>
+
+#include "internal.h"
+
+/* A plot frame may fill most of a small figure page, but not all of it: a rectangle over
+ * this share of the page is the page background (common practice, no source). */
+#define PP_FRAME_MAX_PAGE 0.9
+#define OWNER "symbols"
+
+/* A circle's bbox is square within this share, and its area is π r² within this share
+ * (cubic arcs of cairo or matplotlib are within 0.03%; common practice, no source). */
+#define PP_SYMBOL_ROUND_SHARE 0.02
+/* Two icons are copies of one outline when their bbox-normalised points agree within this
+ * share of the bbox (common practice, no source). */
+#define PP_SYMBOL_SIMILAR_SHARE 0.02
+/* Sizes must differ by at least this ratio of largest to smallest ink for size to stand
+ * for anything: equal markers (scatter, dot plot) make no figure (common practice, no
+ * source). */
+#define PP_SYMBOL_MIN_SPREAD 1.3
+/* A polygon of this many sides or more may be a circle: a regular 16-gon holds 97.4% of
+ * its circumcircle's area, outside PP_SYMBOL_ROUND_SHARE, so only finer ones pass the area
+ * test (n/2·sin(2π/n)/π; textbook). */
+#define PP_SYMBOL_MIN_POLYGON 16
+/* Labels overlap where bubbles crowd: a family is read from its labels when at least this
+ * share of its symbols carry one; the others are claimed but not judged (common practice,
+ * no source). */
+#define PP_SYMBOL_MIN_LABELLED 0.75
+/* Tick labels step through their values evenly within this share of the step (printed
+ * ticks are round numbers; common practice, no source). */
+#define PP_SYMBOL_TICK_STEP_SHARE 0.01
+/* Fewest symbols that make a chart rather than a pair of decorations (common practice). */
+#define PP_SYMBOL_MIN_COUNT 3
+/* Symbols smaller than this, pt², are dots and glyph parts, not sized symbols. */
+#define PP_SYMBOL_MIN_INK 4.0
+/* Colours of one family agree within this per channel (same as bar series). */
+#define PP_SYMBOL_COLOUR_TOL 0.02
+/* A label under an icon starts within this many icon heights below it (common practice). */
+#define PP_SYMBOL_BELOW_REACH 0.8
+
+typedef struct {
+  guint mark;
+  gboolean circle;
+  pp_point centre;
+  double r; /* circles: radius; icons: half the bbox diagonal */
+  pp_rect box;
+  double ink;
+  pp_paint paint;
+  int family;
+  const pp_label *label;
+} symbol;
+
+static gboolean same_colour(const pp_paint *a, const pp_paint *b) {
+  return fabs(a->r - b->r) < PP_SYMBOL_COLOUR_TOL && fabs(a->g - b->g) < PP_SYMBOL_COLOUR_TOL &&
+         fabs(a->b - b->b) < PP_SYMBOL_COLOUR_TOL;
+}
+
+/* One closed subpath of curves, or of many short lines (gnuplot draws small circles as
+ * polygons), whose box is square and whose area is that of the inscribed circle. */
+static gboolean is_circle(const pp_mark *m) {
+  const pp_path *p = m->path;
+  guint curves = 0, lines = 0, moves = 0;
+  for (size_t i = 0; i < p->n_segs; i++) {
+    curves += p->segs[i].kind == PP_SEG_CURVE;
+    lines += p->segs[i].kind == PP_SEG_LINE;
+    moves += p->segs[i].kind == PP_SEG_MOVE;
+  }
+  double w = pp_rect_width(m->bbox), h = pp_rect_height(m->bbox);
+  if ((curves < 2 && lines < PP_SYMBOL_MIN_POLYGON) || moves != 1 || !(w > 0) ||
+      fabs(w - h) > PP_SYMBOL_ROUND_SHARE * w)
+    return FALSE;
+  double area = pp_path_fill_area(p, m->rule);
+  return fabs(area - G_PI * w * h / 4) <= PP_SYMBOL_ROUND_SHARE * area;
+}
+
+/* Copies of one outline: same segment kinds, same points relative to the bbox. */
+static gboolean similar(const pp_mark *a, const pp_mark *b) {
+  const pp_path *p = a->path, *q = b->path;
+  if (p->n_segs != q->n_segs || p->n_segs < 4)
+    return FALSE;
+  double wa = pp_rect_width(a->bbox), ha = pp_rect_height(a->bbox);
+  double wb = pp_rect_width(b->bbox), hb = pp_rect_height(b->bbox);
+  if (!(wa > 0 && ha > 0 && wb > 0 && hb > 0) ||
+      fabs(wa / ha - wb / hb) > PP_SYMBOL_SIMILAR_SHARE * (wa / ha))
+    return FALSE;
+  for (size_t i = 0; i < p->n_segs; i++) {
+    if (p->segs[i].kind != q->segs[i].kind)
+      return FALSE;
+    int n = p->segs[i].kind == PP_SEG_CURVE ? 3 : p->segs[i].kind == PP_SEG_CLOSE ? 0 : 1;
+    for (int k = 0; k < n; k++) {
+      double ux = (p->segs[i].pt[k].x - a->bbox.x0) / wa,
+             uy = (p->segs[i].pt[k].y - a->bbox.y0) / ha;
+      double vx = (q->segs[i].pt[k].x - b->bbox.x0) / wb,
+             vy = (q->segs[i].pt[k].y - b->bbox.y0) / hb;
+      if (fabs(ux - vx) > PP_SYMBOL_SIMILAR_SHARE || fabs(uy - vy) > PP_SYMBOL_SIMILAR_SHARE)
+        return FALSE;
+    }
+  }
+  return TRUE;
+}
+
+static GArray *collect(const pp_recognize_ctx *ctx) {
+  GArray *out = g_array_new(FALSE, FALSE, sizeof(symbol));
+  const pp_scene *scene = ctx->scene;
+  for (guint i = 0; i < scene->marks->len; i++) {
+    const pp_mark *m = g_ptr_array_index(scene->marks, i);
+    if (m->kind != PP_MARK_FILL || m->paint.kind != PP_PAINT_SOLID ||
+        !(m->ink >= PP_SYMBOL_MIN_INK) || !pp_claims_mark_free(ctx->claims, i) ||
+        g_hash_table_contains(ctx->glyph_marks, GUINT_TO_POINTER(i)) ||
+        pp_page_sized(scene, m->bbox))
+      continue;
+    /* a symbol cut by its clip is not measurable as drawn */
+    if (fabs(pp_rect_area(m->visible_bbox) - pp_rect_area(m->bbox)) > 0.01 * pp_rect_area(m->bbox))
+      continue;
+    symbol s = {.mark = i, .box = m->bbox, .ink = m->ink, .paint = m->paint, .family = -1};
+    s.centre = (pp_point){(m->bbox.x0 + m->bbox.x1) / 2, (m->bbox.y0 + m->bbox.y1) / 2};
+    s.circle = is_circle(m);
+    s.r = s.circle ? pp_rect_width(m->bbox) / 2
+                   : hypot(pp_rect_width(m->bbox), pp_rect_height(m->bbox)) / 2;
+    g_array_append_val(out, s);
+  }
+  return out;
+}
+
+/* Families: circles of one colour, or copies of one icon outline in one colour. */
+static int assign_families(const pp_scene *scene, GArray *syms) {
+  int n = 0;
+  for (guint i = 0; i < syms->len; i++) {
+    symbol *a = &g_array_index(syms, symbol, i);
+    if (a->family >= 0)
+      continue;
+    a->family = n++;
+    const pp_mark *ma = g_ptr_array_index(scene->marks, a->mark);
+    for (guint k = i + 1; k < syms->len; k++) {
+      symbol *b = &g_array_index(syms, symbol, k);
+      const pp_mark *mb = g_ptr_array_index(scene->marks, b->mark);
+      if (b->family < 0 && b->circle == a->circle && same_colour(&a->paint, &b->paint) &&
+          (a->circle || similar(ma, mb)))
+        b->family = a->family;
+    }
+  }
+  return n;
+}
+
+/* The free numeric label on the symbol (its centre within the symbol, or the symbol's
+ * centre within the label), else just below it (pictograms). */
+static const pp_label *label_of(const pp_recognize_ctx *ctx, GArray *syms, const symbol *s,
+                                GHashTable *used) {
+  const pp_label *best = NULL;
+  double best_d = INFINITY;
+  for (guint k = 0; k < ctx->labels->len; k++) {
+    const pp_label *l = g_ptr_array_index(ctx->labels, k);
+    if (!pp_claims_label_free(ctx->claims, l->index) || g_hash_table_contains(used, l))
+      continue;
+    double d = hypot(l->centre.x - s->centre.x, l->centre.y - s->centre.y);
+    gboolean on =
+        s->circle
+            ? d <= s->r ||
+                  pp_rect_contains(l->box,
+                                   (pp_rect){s->centre.x, s->centre.y, s->centre.x, s->centre.y}, 0)
+            : pp_rect_contains(s->box, l->box, 0.5);
+    double h = pp_rect_height(s->box);
+    gboolean below = !on && !s->circle && l->centre.x >= s->box.x0 && l->centre.x <= s->box.x1 &&
+                     l->box.y0 >= s->box.y1 - 0.5 &&
+                     l->box.y0 - s->box.y1 <= fmax(PP_SYMBOL_BELOW_REACH * h, 2 * l->size);
+    if (!on && !below)
+      continue;
+    /* a label over two overlapping bubbles belongs to the one it is centred on */
+    gboolean nearer = FALSE;
+    for (guint i = 0; i < syms->len && on && !nearer; i++) {
+      const symbol *o = &g_array_index(syms, symbol, i);
+      nearer = o != s && o->family == s->family &&
+               hypot(l->centre.x - o->centre.x, l->centre.y - o->centre.y) < d;
+    }
+    if (nearer)
+      continue;
+    if (below)
+      d = s->r + (l->box.y0 - s->box.y1);
+    if (d < best_d) {
+      best_d = d;
+      best = l;
+    }
+  }
+  return best;
+}
+
+/* A size key: two or more symbols of another family, each with a number just to its
+ * right on its own line, stacked in one column or lined up in one row. Fits area against
+ * value over the key; FALSE when there is none. */
+static gboolean find_key(const pp_recognize_ctx *ctx, GArray *syms, int family, int n_families,
+                         pp_power_fit *fit, GArray *key_members) {
+  for (int f = 0; f < n_families; f++) {
+    if (f == family)
+      continue;
+    g_array_set_size(key_members, 0);
+    double v[16], a[16];
+    guint n = 0;
+    gboolean ok = TRUE;
+    for (guint i = 0; i < syms->len && ok; i++) {
+      symbol *s = &g_array_index(syms, symbol, i);
+      if (s->family != f)
+        continue;
+      const pp_label *best = NULL;
+      for (guint k = 0; k < ctx->labels->len; k++) {
+        const pp_label *l = g_ptr_array_index(ctx->labels, k);
+        if (pp_claims_label_free(ctx->claims, l->index) && l->box.x0 >= s->centre.x &&
+            l->box.x0 - s->box.x1 <= 4 * l->size &&
+            fabs(l->centre.y - s->centre.y) <= fmax(0.5 * s->r, l->size) &&
+            (!best || l->box.x0 < best->box.x0))
+          best = l;
+      }
+      if (!best || n >= G_N_ELEMENTS(v)) {
+        ok = FALSE;
+        break;
+      }
+      s->label = best;
+      v[n] = best->number.value, a[n] = s->ink, n++;
+      g_array_append_val(key_members, i);
+    }
+    if (ok && n >= 2 && pp_power_fit_compute(v, a, n, fit) && fit->exponent > 0)
+      return TRUE;
+  }
+  g_array_set_size(key_members, 0);
+  return FALSE;
+}
+
+/* The plot: the smallest non-page rectangle mark around every symbol centre. */
+static pp_rect plot_box(const pp_scene *scene, GArray *syms, int family) {
+  pp_rect all = pp_rect_empty();
+  for (guint i = 0; i < syms->len; i++) {
+    const symbol *s = &g_array_index(syms, symbol, i);
+    if (s->family == family)
+      all = pp_rect_union(all, s->box);
+  }
+  pp_rect best = all;
+  double best_a = INFINITY;
+  for (guint i = 0; i < scene->marks->len; i++) {
+    const pp_mark *m = g_ptr_array_index(scene->marks, i);
+    pp_rect r;
+    if (m->kind == PP_MARK_GLYPHS || !pp_path_is_rectangle(m->path, 0.05, &r) ||
+        pp_rect_area(r) > PP_FRAME_MAX_PAGE * scene->width * scene->height)
+      continue;
+    gboolean holds = TRUE;
+    for (guint k = 0; k < syms->len && holds; k++) {
+      const symbol *s = &g_array_index(syms, symbol, k);
+      if (s->family == family)
+        holds =
+            s->centre.x > r.x0 && s->centre.x < r.x1 && s->centre.y > r.y0 && s->centre.y < r.y1;
+    }
+    if (holds && pp_rect_area(r) < best_a) {
+      best_a = pp_rect_area(r);
+      best = r;
+    }
+  }
+  return best;
+}
+
+/* The symbol's name: the nearest word under it (below its number, for icons) that is not
+ * a number, centred on it. */
+static char *name_of(const pp_scene *scene, const symbol *s) {
+  const pp_text_run *best = NULL;
+  for (guint i = 0; i < scene->words->len; i++) {
+    const pp_text_run *w = g_ptr_array_index(scene->words, i);
+    double cx = (w->box.x0 + w->box.x1) / 2;
+    pp_number num;
+    if (cx < s->box.x0 || cx > s->box.x1 || w->box.y0 < s->box.y1 - 0.5 ||
+        w->box.y0 - s->box.y1 > 4 * w->font_size ||
+        pp_number_parse(w->text, PP_DECIMAL_UNKNOWN, &num))
+      continue;
+    if (!best || w->box.y0 < best->box.y0)
+      best = w;
+  }
+  return best ? g_strdup(best->text) : NULL;
+}
+
+static int cmp_x(gconstpointer a, gconstpointer b) {
+  const pp_element *ea = a, *eb = b;
+  double xa = ea->box.x0 + ea->box.x1, xb = eb->box.x0 + eb->box.x1;
+  return (xa > xb) - (xa < xb);
+}
+
+static int cmp_tick_pos(gconstpointer a, gconstpointer b) {
+  const pp_tick *ta = a, *tb = b;
+  return (ta->pos > tb->pos) - (ta->pos < tb->pos);
+}
+
+/* Tick labels step evenly through their values; a row of numbers under pictograms that a
+ * loose fit happened to accept does not (PP_SYMBOL_TICK_STEP_SHARE). */
+static gboolean evenly_stepped(const pp_axis_candidate *a) {
+  if (a->fit_failed || !a->scale || !a->scale->ticks || a->scale->ticks->len < 3)
+    return FALSE;
+  g_autoptr(GArray) t = g_array_copy(a->scale->ticks);
+  g_array_sort(t, cmp_tick_pos);
+  double step = g_array_index(t, pp_tick, 1).value - g_array_index(t, pp_tick, 0).value;
+  for (guint k = 2; k < t->len; k++) {
+    double d = g_array_index(t, pp_tick, k).value - g_array_index(t, pp_tick, k - 1).value;
+    if (!(fabs(d - step) <= PP_SYMBOL_TICK_STEP_SHARE * fabs(step)) || step == 0)
+      return FALSE;
+  }
+  return TRUE;
+}
+
+static void build(pp_recognize_ctx *ctx, GArray *syms, int family, int n_families) {
+  guint n = 0;
+  double lo = INFINITY, hi = 0;
+  for (guint i = 0; i < syms->len; i++) {
+    const symbol *s = &g_array_index(syms, symbol, i);
+    if (s->family == family)
+      n++, lo = fmin(lo, s->ink), hi = fmax(hi, s->ink);
+  }
+  if (n < PP_SYMBOL_MIN_COUNT || hi < PP_SYMBOL_MIN_SPREAD * lo)
+    return;
+  /* values: a number on every symbol, else a size key; tick labels of a fitted axis are
+   * never a symbol's number */
+  g_autoptr(GHashTable) used = g_hash_table_new(NULL, NULL);
+  for (guint i = 0; i < ctx->axes->len; i++) {
+    const pp_axis_candidate *a = g_ptr_array_index(ctx->axes, i);
+    for (guint k = 0; evenly_stepped(a) && k < a->labels->len; k++)
+      g_hash_table_add(used, g_ptr_array_index(a->labels, k));
+  }
+  guint labelled = 0;
+  for (guint i = 0; i < syms->len; i++) {
+    symbol *s = &g_array_index(syms, symbol, i);
+    if (s->family != family)
+      continue;
+    s->label = label_of(ctx, syms, s, used);
+    if (s->label) {
+      g_hash_table_add(used, (gpointer)s->label);
+      labelled++;
+    }
+  }
+  pp_power_fit key = {0};
+  g_autoptr(GArray) key_members = g_array_new(FALSE, FALSE, sizeof(guint));
+  gboolean by_key = FALSE;
+  if (labelled < n && labelled < PP_SYMBOL_MIN_LABELLED * n) {
+    if (labelled > 0 || !find_key(ctx, syms, family, n_families, &key, key_members))
+      return;
+    by_key = TRUE;
+  }
+  pp_claims_begin(ctx->claims);
+  pp_figure *fig = pp_figure_new(PP_FIGURE_BUBBLE);
+  fig->recognizer = OWNER;
+  for (guint i = 0; i < syms->len; i++) {
+    symbol *s = &g_array_index(syms, symbol, i);
+    if (s->family != family)
+      continue;
+    pp_claims_take_mark(ctx->claims, s->mark, OWNER);
+    if (!by_key && !s->label)
+      continue; /* part of the chart, but its number is hidden: no element */
+    pp_element e = pp_element_init(PP_ENCODING_AREA);
+    pp_element_add_part(&e, s->mark, PP_PART_BODY, s->ink);
+    e.ink = s->ink;
+    e.box = s->box;
+    e.extent = sqrt(s->ink / G_PI);
+    e.category = name_of(ctx->scene, s);
+    if (s->circle) {
+      e.shape.kind = PP_SHAPE_CIRCLE;
+      e.shape.circle.centre = s->centre;
+      e.shape.circle.r = s->r;
+    } else {
+      e.shape.kind = PP_SHAPE_POLYGON;
+    }
+    if (by_key) {
+      /* invert the key's own law: ink = c·value^k */
+      e.value = exp((log(s->ink) - key.log_coeff) / key.exponent);
+      e.source = PP_VALUE_SIZE_KEY;
+    } else {
+      e.value = e.label_value = s->label->number.value;
+      e.label_text = g_strdup(s->label->text);
+      e.source = s->label->number.percent ? PP_VALUE_PERCENT_LABEL : PP_VALUE_DATA_LABEL;
+      pp_claims_take_label(ctx->claims, s->label->index, PP_OWNER_DATA_LABEL);
+    }
+    g_array_append_val(fig->elements, e);
+  }
+  for (guint k = 0; k < key_members->len; k++) {
+    symbol *s = &g_array_index(syms, symbol, g_array_index(key_members, guint, k));
+    pp_claims_take_mark(ctx->claims, s->mark, OWNER);
+    pp_claims_take_label(ctx->claims, s->label->index, OWNER);
+  }
+  g_array_sort(fig->elements, cmp_x);
+  fig->bbox = plot_box(ctx->scene, syms, family);
+  fig->n_series = 1;
+  pp_figure_add_evidence(fig, "symbol-family", 1);
+  pp_figure_add_evidence(fig, by_key ? "size-key" : "data-labels", 1);
+  pp_claims_commit(ctx->claims);
+  pp_figure_finish(ctx, fig, NULL);
+}
+
+void pp_recognize_symbols(pp_recognize_ctx *ctx) {
+  g_autoptr(GArray) syms = collect(ctx);
+  int n = assign_families(ctx->scene, syms);
+  for (int f = 0; f < n; f++)
+    build(ctx, syms, f, n);
+}
