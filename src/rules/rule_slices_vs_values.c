@@ -7,13 +7,6 @@
 #include "geometry/geometry.h"
 #include "internal.h"
 
-/* Half the last printed digit: a slice labelled "22%" stands for anything in 21.5–22.5,
- * so a departure the rounding explains is not one (common practice, no source). */
-static double rounding_of(const pp_element *e) {
-  (void)e;
-  return 0;
-}
-
 /* The slice read as a frustum of a cone: radii from its top and bottom widths. */
 static double cone_volume(const pp_element *e) {
   if (e->shape.kind != PP_SHAPE_QUAD)
@@ -50,7 +43,6 @@ gboolean pp_rule_slices_vs_values_measure(const pp_figure *fig, const pp_thresho
     if (!(v[i] > 0) || !(g[i] > 0))
       return FALSE;
     tv += v[i], tg += g[i], tvol += vol[i];
-    (void)rounding_of(e);
   }
   guint most = 0, least = 0;
   double vmost = 0, vleast = INFINITY;
