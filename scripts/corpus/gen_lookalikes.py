@@ -9,7 +9,8 @@ Two families, all drawn by matplotlib with invented data (fictional firms only):
   * honest charts that look like bars: waterfall, candlesticks, Gantt bars, box plots,
     histograms (count, density, cumulative), heatmap, treemap, mosaic, diverging bars,
     population pyramid, bullet chart, 100% stack, error bars, lollipop, dot plot,
-    stacked bars with segment labels, outline-only bars.
+    stacked bars with segment labels, outline-only bars; and one misleading twin: outline
+    bars on a truncated axis (outlines are bars, their ink the outlined region).
 Every page holds one figure and says so in its truth file: non-charts as `table`,
 `text` or `other`, honest charts with misleading false. Plain bar charts are `column`
 or `bar` with their values (so detection and the measures are checked too); chart
@@ -685,6 +686,25 @@ def outline_bars(rng):
     return fig, [honest("column", box_of(fig, ax), "unfilled bars (outlines only) on a zero "
                         "axis", values=vals, labels=DEPOTS[:5], axis=axis_of(ax, "y"),
                         baseline=0, style=["outline"])]
+
+
+@case
+def outline_bars_truncated(rng):
+    """The one misleading page here: outline-only bars are bars, their ink the outlined
+    region, so a truncated axis under them distorts like under filled ones."""
+    fig, ax = chart()
+    vals = [rng.randint(40, 80) for _ in range(5)]
+    ax.bar(range(5), vals, fill=False, edgecolor="black")
+    ax.set_ylim(30, 85)
+    ax.set_xticks(range(5))
+    ax.set_xticklabels(DEPOTS[:5], fontsize=8)
+    ax.set_title("Outline-only bars on an axis from 30")
+    axis = axis_of(ax, "y")
+    f = honest("column", box_of(fig, ax), "unfilled bars clipped at a truncated axis",
+               values=vals, labels=DEPOTS[:5], axis=axis, baseline=axis["min"],
+               style=["outline", "truncated-axis", "clipped"])
+    f["misleading"], f["rule"] = True, "bars-off-zero"
+    return fig, [f]
 
 
 def main():

@@ -17,18 +17,29 @@ struct pp_cli_review {
   pp_sarif_writer *sarif;
   pp_html_index *index;
   guint n_accepted, n_annotated;
+  GString *accepted; /* one line per accepted finding, printed after the summary */
 };
+
+static void review_free(pp_cli_review *rv) {
+  pp_csv_writer_free(rv->csv);
+  pp_sarif_writer_free(rv->sarif);
+  pp_html_index_free(rv->index);
+  pp_baseline_free(rv->baseline);
+  g_string_free(rv->accepted, TRUE);
+  g_free(rv);
+}
 
 pp_cli_review *pp_cli_review_begin(const pp_cli_options *opt, int *rc) {
   pp_cli_review *rv = g_new0(pp_cli_review, 1);
   rv->opt = opt;
+  rv->accepted = g_string_new(NULL);
   if (opt->baseline_file) {
     GError *error = NULL;
     rv->baseline = pp_baseline_load(opt->baseline_file, &error);
     if (!rv->baseline) {
       pp_cli_print_file_error(opt->baseline_file, "unreadable baseline", error->message);
       g_error_free(error);
-      g_free(rv);
+      review_free(rv);
       *rc = PP_EXIT_USAGE;
       return NULL;
     }
@@ -40,8 +51,7 @@ pp_cli_review *pp_cli_review_begin(const pp_cli_options *opt, int *rc) {
   if (opt->html_dir) {
     if (g_mkdir_with_parents(opt->html_dir, 0755) != 0) {
       pp_cli_print_file_error(opt->html_dir, "unwritable", "cannot create the HTML directory");
-      pp_baseline_free(rv->baseline);
-      g_free(rv);
+      review_free(rv);
       *rc = PP_EXIT_USAGE;
       return NULL;
     }
@@ -72,12 +82,13 @@ static char *render_document(gpointer data) {
   GError *error = NULL;
   GString *errors = g_string_new(NULL);
   if (job->page_name && !pp_html_write_document(job->rv->opt->html_dir, job->page_name, job->doc,
-                                                job->pdf_path, &error)) {
+                                                job->pdf_path, job->rv->opt->password, &error)) {
     g_string_append_printf(errors, "HTML page: %s; ", error->message);
     g_clear_error(&error);
   }
   guint n = 0;
-  if (job->annotated && !pp_annotate_write(job->pdf_path, job->doc, job->annotated, &n, &error)) {
+  if (job->annotated && !pp_annotate_write(job->pdf_path, job->rv->opt->password, job->doc,
+                                           job->annotated, &n, &error)) {
     g_string_append_printf(errors, "annotated copy: %s", error->message);
     g_clear_error(&error);
   }
@@ -93,7 +104,17 @@ void pp_cli_review_document(pp_cli_review *rv, JsonNode *root, const char *pdf_p
   if (rv->baseline) {
     pp_baseline_apply(rv->baseline, doc);
     JsonArray *acc = pp_rv_arr(doc, "accepted");
-    rv->n_accepted += acc ? json_array_get_length(acc) : 0;
+    for (guint i = 0; acc && i < json_array_get_length(acc); i++) {
+      JsonObject *f = json_array_get_object_element(acc, i), *a = pp_rv_obj(f, "acceptance");
+      const char *title = pp_rv_finding_title(doc, f);
+      char *name = g_filename_display_name(pdf_path);
+      g_string_append_printf(
+          rv->accepted, "  %s page %" G_GINT64_FORMAT " %s \"%s\": accepted by %s on %s: %s\n",
+          name, pp_rv_int(f, "page"), pp_rv_str(f, "rule"), title ? title : "untitled",
+          pp_rv_str(a, "who"), pp_rv_str(a, "when"), pp_rv_str(a, "why"));
+      g_free(name);
+      rv->n_accepted++;
+    }
   }
   if (rv->csv)
     pp_csv_writer_add_document(rv->csv, doc, NULL, NULL);
@@ -130,8 +151,8 @@ static void print_accepted_and_stale(pp_cli_review *rv) {
   if (!rv->baseline)
     return;
   if (!rv->opt->quiet && !rv->opt->json && rv->n_accepted)
-    printf("%u accepted %s listed apart (baseline %s).\n", rv->n_accepted,
-           rv->n_accepted == 1 ? "finding" : "findings", rv->opt->baseline_file);
+    printf("%u accepted %s listed apart (baseline %s), not counted above:\n%s", rv->n_accepted,
+           rv->n_accepted == 1 ? "finding" : "findings", rv->opt->baseline_file, rv->accepted->str);
   GPtrArray *stale = pp_baseline_stale(rv->baseline);
   for (guint i = 0; i < stale->len; i++) {
     char *msg = g_strdup_printf("baseline entry %s matches no finding any more (fixed, or the "
@@ -167,11 +188,7 @@ int pp_cli_review_end(pp_cli_review *rv, int rc) {
   if (rv->opt->annotate && !rv->opt->quiet && !rv->opt->json)
     printf("Annotated copies: %u in %s\n", rv->n_annotated, rv->opt->output_dir);
   print_accepted_and_stale(rv);
-  pp_csv_writer_free(rv->csv);
-  pp_sarif_writer_free(rv->sarif);
-  pp_html_index_free(rv->index);
-  pp_baseline_free(rv->baseline);
-  g_free(rv);
+  review_free(rv);
   return rc;
 }
 

@@ -152,6 +152,33 @@ static GPtrArray *split_subpaths(const pp_path *path) {
   return parts;
 }
 
+/* Outline-only bars (the default of several plotting packages): a stroked rectangle that
+ * repaints no filled one. The reader sees the outlined region, so the region is its ink
+ * (docs/rules.md). Frames holding other marks leave with the backgrounds; cells, tags and
+ * boxes are told apart later, by the evidence a chart must show (evidence.c). */
+static void collect_outlined(const pp_scene *scene, GArray *out) {
+  guint n_filled = out->len;
+  for (guint i = 0; i < scene->marks->len; i++) {
+    const pp_mark *m = g_ptr_array_index(scene->marks, i);
+    pp_rect r;
+    if (m->kind != PP_MARK_STROKE || m->dashed || !pp_path_is_rectangle(m->path, PP_RECT_TOL, &r) ||
+        pp_rect_width(r) < 2 || pp_rect_height(r) < 2)
+      continue;
+    r = pp_rect_intersect(r, pp_clip_bbox(m->clip)); /* fills are compared as visible */
+    if (pp_rect_is_empty(r))
+      continue;
+    double tol = fmax(0.3, m->line_width);
+    gboolean repaint = FALSE;
+    for (guint k = 0; k < n_filled && !repaint; k++) {
+      pp_rect c = g_array_index(out, pp_bar_candidate, k).rect;
+      repaint = fabs(c.x0 - r.x0) < tol && fabs(c.x1 - r.x1) < tol && fabs(c.y0 - r.y0) < tol &&
+                fabs(c.y1 - r.y1) < tol;
+    }
+    if (!repaint)
+      add_rect(scene, out, i, r, NAN);
+  }
+}
+
 GArray *pp_bar_candidates_collect(const pp_scene *scene, GHashTable *glyph_marks) {
   GArray *out = g_array_new(FALSE, FALSE, sizeof(pp_bar_candidate));
   collect_hatched(scene, out);
@@ -179,6 +206,7 @@ GArray *pp_bar_candidates_collect(const pp_scene *scene, GHashTable *glyph_marks
     }
     g_ptr_array_unref(parts);
   }
+  collect_outlined(scene, out);
   drop_backgrounds(out);
   return out;
 }

@@ -47,13 +47,13 @@ static char *uri_of(const char *path, GError **error) {
   return uri;
 }
 
-gboolean pp_annotate_write(const char *pdf_path, JsonObject *doc, const char *out_path,
-                           guint *n_added, GError **error) {
+gboolean pp_annotate_write(const char *pdf_path, const char *password, JsonObject *doc,
+                           const char *out_path, guint *n_added, GError **error) {
   *n_added = 0;
   char *uri = uri_of(pdf_path, error);
   if (!uri)
     return FALSE;
-  PopplerDocument *pdoc = poppler_document_new_from_file(uri, NULL, error);
+  PopplerDocument *pdoc = poppler_document_new_from_file(uri, password, error);
   g_free(uri);
   if (!pdoc)
     return FALSE;

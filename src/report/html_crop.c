@@ -218,8 +218,9 @@ static gboolean write_png(cairo_surface_t *s, const char *path, GError **error) 
   return TRUE;
 }
 
-gboolean pp_html_render_crop(const char *pdf_path, JsonObject *doc, JsonObject *finding,
-                             const char *png_path, int *w, int *h, GError **error) {
+gboolean pp_html_render_crop(const char *pdf_path, const char *password, JsonObject *doc,
+                             JsonObject *finding, const char *png_path, int *w, int *h,
+                             GError **error) {
   double box[4];
   if (!pp_rv_rect(finding, "bbox", box)) {
     g_set_error(error, G_FILE_ERROR, G_FILE_ERROR_INVAL, "the finding has no box");
@@ -230,7 +231,7 @@ gboolean pp_html_render_crop(const char *pdf_path, JsonObject *doc, JsonObject *
   g_free(abs);
   if (!uri)
     return FALSE;
-  PopplerDocument *pdoc = poppler_document_new_from_file(uri, NULL, error);
+  PopplerDocument *pdoc = poppler_document_new_from_file(uri, password, error);
   g_free(uri);
   if (!pdoc)
     return FALSE;

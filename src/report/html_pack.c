@@ -153,7 +153,7 @@ static void finding_heading(GString *o, JsonObject *doc, JsonObject *f) {
 }
 
 static void finding_section(GString *o, const char *dir, const char *stem, guint k, JsonObject *doc,
-                            JsonObject *f, const char *pdf_path) {
+                            JsonObject *f, const char *pdf_path, const char *password) {
   g_string_append(o, "<section class=\"finding\" id=\"f-");
   pp_html_append_escaped(o, pp_rv_str(f, "id"));
   g_string_append(o, "\">\n");
@@ -171,9 +171,15 @@ static void finding_section(GString *o, const char *dir, const char *stem, guint
   g_string_append(o, "<p class=\"headline\">");
   pp_html_append_escaped(o, pp_rv_finding_headline(f));
   g_string_append(o, "</p>\n");
-  if (pp_rv_str(f, "headline") && pp_rv_str(f, "message")) {
+  const char *head = pp_rv_str(f, "headline"), *msg = pp_rv_str(f, "message");
+  if (head && msg) {
+    /* The message opens with the headline; the paragraph shows what follows it. */
+    gsize n = strlen(head);
+    const char *rest = strncmp(msg, head, n) == 0 && msg[n] == ':' ? msg + n + 1 : msg;
     g_string_append(o, "<p>");
-    pp_html_append_escaped(o, pp_rv_str(f, "message"));
+    while (*rest == ' ')
+      rest++;
+    pp_html_append_escaped(o, rest);
     g_string_append(o, "</p>\n");
   }
   g_string_append(o, "<div class=\"cols\">\n");
@@ -181,7 +187,7 @@ static void finding_section(GString *o, const char *dir, const char *stem, guint
   char *crop_path = g_build_filename(dir, crop_name, NULL);
   int w = 0, h = 0;
   GError *err = NULL;
-  if (pdf_path && pp_html_render_crop(pdf_path, doc, f, crop_path, &w, &h, &err)) {
+  if (pdf_path && pp_html_render_crop(pdf_path, password, doc, f, crop_path, &w, &h, &err)) {
     /* Shown at 96 px per inch-ish: half the 150 dpi pixels keeps the page readable. */
     g_string_append_printf(o,
                            "<figure><img class=\"crop\" src=\"%s\" width=\"%d\" height=\"%d\" "
@@ -246,7 +252,7 @@ static void coverage_notes(GString *o, JsonObject *doc) {
 }
 
 gboolean pp_html_write_document(const char *dir, const char *page_name, JsonObject *doc,
-                                const char *pdf_path, GError **error) {
+                                const char *pdf_path, const char *password, GError **error) {
   char *img = g_build_filename(dir, "img", NULL);
   g_mkdir_with_parents(img, 0755);
   g_free(img);
@@ -271,13 +277,14 @@ gboolean pp_html_write_document(const char *dir, const char *page_name, JsonObje
   if (n == 0)
     g_string_append(o, "<p>No findings in the parts that were analysed.</p>\n");
   for (guint i = 0; i < n; i++)
-    finding_section(o, dir, stem, i + 1, doc, json_array_get_object_element(list, i), pdf_path);
+    finding_section(o, dir, stem, i + 1, doc, json_array_get_object_element(list, i), pdf_path,
+                    password);
   JsonArray *acc = pp_rv_arr(doc, "accepted");
   if (acc && json_array_get_length(acc) > 0) {
     g_string_append(o, "<h2>Accepted earlier (baseline)</h2>\n");
     for (guint i = 0; i < json_array_get_length(acc); i++)
-      finding_section(o, dir, stem, n + i + 1, doc, json_array_get_object_element(acc, i),
-                      pdf_path);
+      finding_section(o, dir, stem, n + i + 1, doc, json_array_get_object_element(acc, i), pdf_path,
+                      password);
   }
   coverage_notes(o, doc);
   pp_html_end(o);

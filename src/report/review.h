@@ -115,13 +115,15 @@ void pp_html_end(GString *out);
 const char *pp_html_stylesheet(void);
 
 /* Renders the crops and the share charts of one document's findings into dir/img/ and
- * writes dir/<page_name>. pdf_path is the scanned file (NULL: no crops). */
+ * writes dir/<page_name>. pdf_path is the scanned file (NULL: no crops); password opens
+ * it when encrypted (may be NULL), here and below. */
 gboolean pp_html_write_document(const char *dir, const char *page_name, JsonObject *doc,
-                                const char *pdf_path, GError **error);
+                                const char *pdf_path, const char *password, GError **error);
 /* Crop of a finding's figure at 150 dpi with the overlays; PNG at png_path. Returns the
  * image size in pixels through w, h. */
-gboolean pp_html_render_crop(const char *pdf_path, JsonObject *doc, JsonObject *finding,
-                             const char *png_path, int *w, int *h, GError **error);
+gboolean pp_html_render_crop(const char *pdf_path, const char *password, JsonObject *doc,
+                             JsonObject *finding, const char *png_path, int *w, int *h,
+                             GError **error);
 /* Ink share against value share of each element, bars from zero; PNG. */
 gboolean pp_html_render_shares(JsonObject *finding, const char *png_path, int *w, int *h,
                                GError **error);
@@ -139,7 +141,7 @@ void pp_html_index_free(pp_html_index *idx);
 /* Writes out_path: a copy of pdf_path with one square annotation per finding of doc on
  * its figure, note = headline + measures. pdf_path is never written. Returns the count
  * through n_added. */
-gboolean pp_annotate_write(const char *pdf_path, JsonObject *doc, const char *out_path,
-                           guint *n_added, GError **error);
+gboolean pp_annotate_write(const char *pdf_path, const char *password, JsonObject *doc,
+                           const char *out_path, guint *n_added, GError **error);
 
 G_END_DECLS

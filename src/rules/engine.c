@@ -198,7 +198,7 @@ static char *pct(double r) {
 }
 
 static char *fold(double r) {
-  return g_strdup_printf(r >= 100 ? "%.0f" : r >= 10 ? "%.1f" : "%.2g", r);
+  return g_strdup_printf(r >= 100 ? "%.0f" : r >= 10 ? "%.3g" : "%.2g", r);
 }
 
 /* English takes "an" before numbers said with a vowel: 8, 11, 18, 80–89, 800–899. */

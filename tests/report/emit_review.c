@@ -27,7 +27,7 @@ int main(int argc, char **argv) {
   pp_html_index_add(idx, doc, "doc.html");
   gboolean ok = pp_csv_writer_finish(csv, argv[2], &error) &&
                 pp_sarif_writer_finish(sarif, argv[3], &error) &&
-                pp_html_write_document(argv[4], "doc.html", doc, NULL, &error) &&
+                pp_html_write_document(argv[4], "doc.html", doc, NULL, NULL, &error) &&
                 pp_html_index_finish(idx, argv[4], &error);
   if (!ok)
     fprintf(stderr, "emit_review: %s\n", error->message);

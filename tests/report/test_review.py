@@ -145,6 +145,28 @@ for f in findings:
         check(f["message"] in text and f["rule"] in text and "Lie Factor" in text,
               "the annotation's note holds the headline, the rule and the measures")
 
+# A page turned by /Rotate 90 and an encrypted copy (qpdf, AES-256): the square still sits
+# at each finding's PDF box (ISO 32000-1 §8.3.2.3 user space), read back with the password.
+subprocess.run(["qpdf", "--rotate=+90:5", D1, "rot.pdf"], check=True)
+subprocess.run(["qpdf", "--encrypt", "pw", "pw", "256", "--", "rot.pdf", "enc.pdf"], check=True)
+rc, out, err = run("scan", "enc.pdf", "-o", "enc", "--password", "pw", "--annotate",
+                   "--html", "encpack", "-q")
+enc_doc = json.load(open("enc/enc.findings.json", encoding="utf-8"))
+q = json.loads(subprocess.run(["qpdf", "--password=pw", "--json=2", "--json-key=qpdf",
+                               "--json-key=pages", "enc/enc.annotated.pdf"],
+                              check=True, capture_output=True).stdout)
+enc_page_of = {p["object"]: i + 1 for i, p in enumerate(q["pages"])}
+enc_squares = [(enc_page_of.get(v["value"].get("/P")), v["value"]["/Rect"])
+               for v in q["qpdf"][1].values()
+               if isinstance(v, dict) and isinstance(v.get("value"), dict)
+               and v["value"].get("/Subtype") == "/Square"]
+for f in enc_doc["findings"]:
+    check(any(pg == f["page"] and all(abs(a - b) < 0.01 for a, b in zip(r, f["pdf_bbox"]))
+              for pg, r in enc_squares),
+          f"encrypted, rotated copy: square on page {f['page']} at the PDF box")
+check(len([n for n in os.listdir("encpack/img") if re.match(r".*-\d+\.png$", n)])
+      == len(enc_doc["findings"]), "crops of an encrypted PDF rendered with its password")
+
 # ---- HTML pack: files, links, images, escaping ----
 class Links(html.parser.HTMLParser):
     def __init__(self):
@@ -238,6 +260,8 @@ rc, out, err = run("scan", D1, "-o", "out2", "--baseline", "accepted.ini", "--cs
 n_new = len(findings) - 2
 check(f"{n_new} findings" in out or f"{n_new} finding " in out, f"only new findings counted: {out}")
 check("2 accepted findings listed apart" in out, "accepted findings listed apart")
+check(out.count("accepted by R. Example on ") == 2 and "disclosed in note 4" in out,
+      "each accepted finding listed with who, when and why")
 check("0000000000000000" in err and "matches no finding" in err, "stale baseline entry warned")
 with open("b.csv", newline="", encoding="utf-8") as f:
     brows = list(csv.DictReader(f))

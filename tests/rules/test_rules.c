@@ -186,7 +186,7 @@ static void test_bars_on_log(void **state) {
   assert_float_equal(f->measures.growth_ratio, 0.2, 1e-12);
   assert_float_equal(f->measures.max_pair_departure, 5.0, 1e-12);
   assert_int_equal(f->severity, PP_SEVERITY_SEVERE);
-  assert_string_equal(f->message, "shows B 10.0 times A as 2 times: bars on a logarithmic axis (10 "
+  assert_string_equal(f->message, "shows B 10 times A as 2 times: bars on a logarithmic axis (10 "
                                   "to 10,000), so length cannot follow value; A (100) to B "
                                   "(1,000): ink ×2 for value ×10 (Lie Factor 0.11, GDI -89%)");
   g_ptr_array_unref(out);
