@@ -129,6 +129,9 @@ void pp_figure_finish(pp_recognize_ctx *ctx, pp_figure *figure,
  * reason. Called by pp_figure_finish(). */
 void pp_figure_weigh(pp_recognize_ctx *ctx, pp_figure *figure);
 
+/* The content hash of a figure: values, labels, kind, no position (model.c). */
+void pp_figure_set_fingerprint(pp_figure *figure);
+
 /* ---- Shared concepts (concepts.c): one definition each ---------------------------- */
 
 /* Two edge coordinates are the same drawn edge: producers write coordinates to a few

@@ -81,13 +81,7 @@ void pp_json_member_rect(JsonBuilder *b, const char *name, pp_rect r) {
 }
 
 pp_rect pp_json_rect_map(pp_rect r, pp_matrix m) {
-  if (!rect_usable(r))
-    return pp_rect_empty();
-  pp_point corners[4] = {{r.x0, r.y0}, {r.x1, r.y0}, {r.x1, r.y1}, {r.x0, r.y1}};
-  pp_rect out = pp_rect_empty();
-  for (int i = 0; i < 4; i++)
-    out = pp_rect_add_point(out, pp_matrix_apply(m, corners[i]));
-  return out;
+  return rect_usable(r) ? pp_rect_transform(r, m) : pp_rect_empty();
 }
 
 void pp_json_member_mapped_rect(JsonBuilder *b, const char *name, pp_rect r, pp_matrix m) {
