@@ -5,36 +5,33 @@
 #include <math.h>
 
 static const double palette[][3] = {
-  {0.16, 0.38, 0.62}, {0.90, 0.52, 0.16}, {0.30, 0.62, 0.36}, {0.62, 0.30, 0.52}};
+    {0.16, 0.38, 0.62}, {0.90, 0.52, 0.16}, {0.30, 0.62, 0.36}, {0.62, 0.30, 0.52}};
 
-static double axis_t(const pp_gen_chart *c, double v)
-{
+static double axis_t(const pp_gen_chart *c, double v) {
   return c->log_axis ? log10(v) : v;
 }
 
-static double axis_frac(const pp_gen_chart *c, double v)
-{
-  return (axis_t(c, v) - axis_t(c, c->axis_min)) / (axis_t(c, c->axis_max) - axis_t(c, c->axis_min));
+static double axis_frac(const pp_gen_chart *c, double v) {
+  return (axis_t(c, v) - axis_t(c, c->axis_min)) /
+         (axis_t(c, c->axis_max) - axis_t(c, c->axis_min));
 }
 
 /* Value position along the value axis in page units. */
-static double value_pos(const pp_gen_chart *c, double v)
-{
+static double value_pos(const pp_gen_chart *c, double v) {
   double f = axis_frac(c, v);
   return c->horizontal ? c->x + f * c->w : c->y + c->h - f * c->h;
 }
 
-static void set_series_colour(cairo_t *cr, const pp_gen_chart *c, int s)
-{
+static void set_series_colour(cairo_t *cr, const pp_gen_chart *c, int s) {
   const double *rgb = palette[s % 4];
   cairo_set_source_rgba(cr, rgb[0], rgb[1], rgb[2], c->alpha > 0 ? c->alpha : 1.0);
 }
 
-static GArray *value_ticks(const pp_gen_chart *c)
-{
+static GArray *value_ticks(const pp_gen_chart *c) {
   GArray *t = g_array_new(FALSE, FALSE, sizeof(double));
   if (c->log_axis) {
-    for (int k = (int)ceil(log10(c->axis_min) - 1e-9); k <= (int)floor(log10(c->axis_max) + 1e-9); k++) {
+    for (int k = (int)ceil(log10(c->axis_min) - 1e-9); k <= (int)floor(log10(c->axis_max) + 1e-9);
+         k++) {
       double v = pow(10, k);
       g_array_append_val(t, v);
     }
@@ -52,8 +49,7 @@ static GArray *value_ticks(const pp_gen_chart *c)
   return t;
 }
 
-static void draw_value_axis(cairo_t *cr, const pp_gen_chart *c, gboolean grid_only)
-{
+static void draw_value_axis(cairo_t *cr, const pp_gen_chart *c, gboolean grid_only) {
   GArray *ticks = value_ticks(c);
   pp_gen_font(cr, 7.5, FALSE);
   for (guint i = 0; i < ticks->len; i++) {
@@ -77,8 +73,8 @@ static void draw_value_axis(cairo_t *cr, const pp_gen_chart *c, gboolean grid_on
     }
     cairo_set_source_rgb(cr, 0.2, 0.2, 0.2);
     cairo_set_line_width(cr, 0.6);
-    pp_gen_format(v, c->log_axis ? PP_GEN_FMT_THOUSANDS : c->fmt, c->log_axis ? 0 : c->decimals, buf,
-                  sizeof buf);
+    pp_gen_format(v, c->log_axis ? PP_GEN_FMT_THOUSANDS : c->fmt, c->log_axis ? 0 : c->decimals,
+                  buf, sizeof buf);
     if (c->horizontal) {
       cairo_move_to(cr, p, c->y + c->h);
       cairo_line_to(cr, p, c->y + c->h + 4);
@@ -94,8 +90,7 @@ static void draw_value_axis(cairo_t *cr, const pp_gen_chart *c, gboolean grid_on
   g_array_unref(ticks);
 }
 
-static void draw_categories(cairo_t *cr, const pp_gen_chart *c)
-{
+static void draw_categories(cairo_t *cr, const pp_gen_chart *c) {
   pp_gen_font(cr, 7.5, FALSE);
   cairo_set_source_rgb(cr, 0.2, 0.2, 0.2);
   int every = c->label_every > 0 ? c->label_every : 1;
@@ -116,8 +111,8 @@ static void draw_categories(cairo_t *cr, const pp_gen_chart *c)
   }
 }
 
-static void bar_path(cairo_t *cr, const pp_gen_chart *c, double x0, double y0, double x1, double y1)
-{
+static void bar_path(cairo_t *cr, const pp_gen_chart *c, double x0, double y0, double x1,
+                     double y1) {
   if (c->bar_style == PP_GEN_BAR_PATH4) {
     cairo_move_to(cr, x0, y0);
     cairo_line_to(cr, x1, y0);
@@ -130,8 +125,7 @@ static void bar_path(cairo_t *cr, const pp_gen_chart *c, double x0, double y0, d
 }
 
 static void fill_bar(cairo_t *cr, const pp_gen_chart *c, int s, double x0, double y0, double x1,
-                     double y1)
-{
+                     double y1) {
   bar_path(cr, c, x0, y0, x1, y1);
   if (c->gradient) {
     const double *rgb = palette[s % 4];
@@ -155,15 +149,13 @@ static void fill_bar(cairo_t *cr, const pp_gen_chart *c, int s, double x0, doubl
   }
 }
 
-static double series_value(const pp_gen_chart *c, int s, int i)
-{
+static double series_value(const pp_gen_chart *c, int s, int i) {
   if (s == 0 && c->drawn)
     return c->drawn[i];
   return c->values[s * c->n + i];
 }
 
-static double printed_value(const pp_gen_chart *c, int i)
-{
+static double printed_value(const pp_gen_chart *c, int i) {
   if (!c->stacked)
     return c->values[i];
   double total = 0;
@@ -172,8 +164,7 @@ static double printed_value(const pp_gen_chart *c, int i)
   return total;
 }
 
-static void draw_bars(cairo_t *cr, const pp_gen_chart *c)
-{
+static void draw_bars(cairo_t *cr, const pp_gen_chart *c) {
   int ns = c->n_series > 0 ? c->n_series : 1;
   double slot = (c->horizontal ? c->h : c->w) / c->n;
   double thick = slot * (c->n >= 40 ? 0.8 : 0.62);
@@ -220,13 +211,11 @@ static void draw_bars(cairo_t *cr, const pp_gen_chart *c)
   cairo_restore(cr);
 }
 
-static double point_x(const pp_gen_chart *c, int i)
-{
+static double point_x(const pp_gen_chart *c, int i) {
   return c->x + (c->n > 1 ? c->w * i / (c->n - 1) : c->w / 2);
 }
 
-static void draw_area(cairo_t *cr, const pp_gen_chart *c)
-{
+static void draw_area(cairo_t *cr, const pp_gen_chart *c) {
   cairo_move_to(cr, point_x(c, 0), value_pos(c, c->values[0]));
   for (int i = 1; i < c->n; i++)
     cairo_line_to(cr, point_x(c, i), value_pos(c, c->values[i]));
@@ -244,8 +233,7 @@ static void draw_area(cairo_t *cr, const pp_gen_chart *c)
   cairo_fill(cr);
 }
 
-static void draw_lines(cairo_t *cr, const pp_gen_chart *c)
-{
+static void draw_lines(cairo_t *cr, const pp_gen_chart *c) {
   int ns = c->mark == PP_GEN_MARK_LINE && c->n_series > 0 ? c->n_series : 1;
   for (int s = 0; s < ns; s++) {
     const double *v = c->values + s * c->n;
@@ -265,8 +253,7 @@ static void draw_lines(cairo_t *cr, const pp_gen_chart *c)
   }
 }
 
-static void draw_legend(cairo_t *cr, const pp_gen_chart *c)
-{
+static void draw_legend(cairo_t *cr, const pp_gen_chart *c) {
   if (!c->series_names)
     return;
   pp_gen_font(cr, 7, FALSE);
@@ -285,8 +272,7 @@ static void draw_legend(cairo_t *cr, const pp_gen_chart *c)
   }
 }
 
-void pp_gen_chart_draw(cairo_t *cr, const pp_gen_chart *c)
-{
+void pp_gen_chart_draw(cairo_t *cr, const pp_gen_chart *c) {
   cairo_save(cr);
   if (c->title) {
     pp_gen_font(cr, 9.5, TRUE);
@@ -334,8 +320,7 @@ void pp_gen_chart_draw(cairo_t *cr, const pp_gen_chart *c)
   cairo_restore(cr);
 }
 
-static void add_auto_styles(pp_gen_figure *f, const pp_gen_chart *c, gboolean any_negative)
-{
+static void add_auto_styles(pp_gen_figure *f, const pp_gen_chart *c, gboolean any_negative) {
   if (!c->hide_value_axis)
     pp_gen_figure_add_style(f, "tick-marks");
   if (c->gridlines)
@@ -381,8 +366,7 @@ static void add_auto_styles(pp_gen_figure *f, const pp_gen_chart *c, gboolean an
     pp_gen_figure_add_style(f, "truncated-axis");
 }
 
-pp_gen_figure *pp_gen_chart_truth(const pp_gen_chart *c, pp_gen_truth *truth, int page)
-{
+pp_gen_figure *pp_gen_chart_truth(const pp_gen_chart *c, pp_gen_truth *truth, int page) {
   static const char *kinds[] = {"column", "area", "area", "line"};
   const char *kind = kinds[c->mark];
   if (c->mark == PP_GEN_MARK_BARS && c->horizontal)

@@ -42,7 +42,7 @@ typedef struct {
   pp_gen_fmt fmt;
   int decimals;       /* tick labels */
   int label_decimals; /* data labels, if more than decimals */
-  int label_every; /* category label stride; 0 = every one */
+  int label_every;    /* category label stride; 0 = every one */
   gboolean gridlines, rotated, gradient, stacked, markers;
   double alpha; /* 0 = opaque */
 } pp_gen_chart;

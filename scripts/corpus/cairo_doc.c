@@ -4,9 +4,8 @@
 #include <cairo-pdf.h>
 #include <math.h>
 
-pp_gen_doc *pp_gen_doc_new(const char *out_dir, const char *rel_dir, const char *name,
-                           guint64 seed, double width, double height, const char *title)
-{
+pp_gen_doc *pp_gen_doc_new(const char *out_dir, const char *rel_dir, const char *name, guint64 seed,
+                           double width, double height, const char *title) {
   pp_gen_doc *d = g_new0(pp_gen_doc, 1);
   d->pdf_path = g_strdup_printf("%s/%s.pdf", out_dir, name);
   d->truth_path = g_strdup_printf("%s/%s.truth.json", out_dir, name);
@@ -17,8 +16,10 @@ pp_gen_doc *pp_gen_doc_new(const char *out_dir, const char *rel_dir, const char 
   d->height = height;
   d->surface = cairo_pdf_surface_create(d->pdf_path, width, height);
   /* A fixed date keeps the files identical between runs and machines. */
-  cairo_pdf_surface_set_metadata(d->surface, CAIRO_PDF_METADATA_CREATE_DATE, "2031-03-14T09:00:00Z");
-  cairo_pdf_surface_set_metadata(d->surface, CAIRO_PDF_METADATA_CREATOR, "plotproof corpus generator");
+  cairo_pdf_surface_set_metadata(d->surface, CAIRO_PDF_METADATA_CREATE_DATE,
+                                 "2031-03-14T09:00:00Z");
+  cairo_pdf_surface_set_metadata(d->surface, CAIRO_PDF_METADATA_CREATOR,
+                                 "plotproof corpus generator");
   if (title)
     cairo_pdf_surface_set_metadata(d->surface, CAIRO_PDF_METADATA_TITLE, title);
   d->cr = cairo_create(d->surface);
@@ -26,14 +27,12 @@ pp_gen_doc *pp_gen_doc_new(const char *out_dir, const char *rel_dir, const char 
   return d;
 }
 
-void pp_gen_doc_next_page(pp_gen_doc *doc)
-{
+void pp_gen_doc_next_page(pp_gen_doc *doc) {
   cairo_show_page(doc->cr);
   doc->page++;
 }
 
-gboolean pp_gen_doc_finish(pp_gen_doc *doc, GError **error)
-{
+gboolean pp_gen_doc_finish(pp_gen_doc *doc, GError **error) {
   cairo_show_page(doc->cr);
   doc->truth->pages = doc->page;
   if (doc->page > 1)
@@ -53,8 +52,7 @@ gboolean pp_gen_doc_finish(pp_gen_doc *doc, GError **error)
   return pp_gen_truth_write(doc->truth, doc->truth_path, error);
 }
 
-void pp_gen_doc_free(pp_gen_doc *doc)
-{
+void pp_gen_doc_free(pp_gen_doc *doc) {
   if (!doc)
     return;
   if (doc->cr)
@@ -67,8 +65,7 @@ void pp_gen_doc_free(pp_gen_doc *doc)
   g_free(doc);
 }
 
-double pp_gen_nice_step(double raw)
-{
+double pp_gen_nice_step(double raw) {
   double mag = pow(10, floor(log10(raw)));
   static const double mult[] = {1, 2, 2.5, 5, 10};
   for (int i = 0; i < 5; i++)
@@ -77,8 +74,7 @@ double pp_gen_nice_step(double raw)
   return 10 * mag;
 }
 
-void pp_gen_chart_fit_axis(pp_gen_chart *c, double frac)
-{
+void pp_gen_chart_fit_axis(pp_gen_chart *c, double frac) {
   double vmin = INFINITY, vmax = -INFINITY;
   for (int i = 0; i < c->n; i++) {
     double v = 0;

@@ -19,8 +19,8 @@ typedef struct {
 } pp_gen_doc;
 
 /* rel_dir is the path recorded in the truth "file" field (e.g. corpus/cairo). */
-pp_gen_doc *pp_gen_doc_new(const char *out_dir, const char *rel_dir, const char *name,
-                           guint64 seed, double width, double height, const char *title);
+pp_gen_doc *pp_gen_doc_new(const char *out_dir, const char *rel_dir, const char *name, guint64 seed,
+                           double width, double height, const char *title);
 void pp_gen_doc_next_page(pp_gen_doc *doc);
 gboolean pp_gen_doc_finish(pp_gen_doc *doc, GError **error);
 void pp_gen_doc_free(pp_gen_doc *doc);

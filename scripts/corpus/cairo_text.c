@@ -6,16 +6,14 @@
 #include <stdio.h>
 #include <string.h>
 
-void pp_gen_font(cairo_t *cr, double size, gboolean bold)
-{
+void pp_gen_font(cairo_t *cr, double size, gboolean bold) {
   cairo_select_font_face(cr, "DejaVu Sans", CAIRO_FONT_SLANT_NORMAL,
                          bold ? CAIRO_FONT_WEIGHT_BOLD : CAIRO_FONT_WEIGHT_NORMAL);
   cairo_set_font_size(cr, size);
 }
 
 /* Groups the integer part in threes with sep; decimals use dec. */
-static void format_grouped(double v, int decimals, char sep, char dec, char *buf, gsize len)
-{
+static void format_grouped(double v, int decimals, char sep, char dec, char *buf, gsize len) {
   char raw[64];
   g_snprintf(raw, sizeof raw, "%.*f", decimals, fabs(v));
   char *dot = strchr(raw, '.');
@@ -34,13 +32,10 @@ static void format_grouped(double v, int decimals, char sep, char dec, char *buf
   g_string_free(out, TRUE);
 }
 
-void pp_gen_format(double v, pp_gen_fmt fmt, int decimals, char *buf, gsize len)
-{
+void pp_gen_format(double v, pp_gen_fmt fmt, int decimals, char *buf, gsize len) {
   char tmp[64];
   switch (fmt) {
-  case PP_GEN_FMT_THOUSANDS:
-    format_grouped(v, decimals, ',', '.', buf, len);
-    break;
+  case PP_GEN_FMT_THOUSANDS: format_grouped(v, decimals, ',', '.', buf, len); break;
   case PP_GEN_FMT_CURRENCY_M:
     format_grouped(v, decimals, ',', '.', tmp, sizeof tmp);
     g_snprintf(buf, len, "€%sm", tmp);
@@ -54,14 +49,11 @@ void pp_gen_format(double v, pp_gen_fmt fmt, int decimals, char *buf, gsize len)
     format_grouped(v, decimals, 0, ',', buf, len);
     break;
   case PP_GEN_FMT_PLAIN:
-  default:
-    format_grouped(v, decimals, 0, '.', buf, len);
-    break;
+  default: format_grouped(v, decimals, 0, '.', buf, len); break;
   }
 }
 
-void pp_gen_text_at(cairo_t *cr, const char *s, double x, double y, double ax, double ay)
-{
+void pp_gen_text_at(cairo_t *cr, const char *s, double x, double y, double ax, double ay) {
   /* Vertical anchoring uses the font's cap-height box (the extents of "H"),
    * not the string's ink, so labels with and without descenders share a
    * baseline. */
@@ -73,8 +65,7 @@ void pp_gen_text_at(cairo_t *cr, const char *s, double x, double y, double ax, d
 }
 
 double pp_gen_text_wrap(cairo_t *cr, const char *text, double x, double y, double width,
-                        double size, double leading)
-{
+                        double size, double leading) {
   cairo_set_font_size(cr, size);
   gchar **words = g_strsplit(text, " ", -1);
   GString *line = g_string_new(NULL);

@@ -5,8 +5,7 @@
 #include <cairo.h>
 #include <math.h>
 
-static void figure_free(gpointer p)
-{
+static void figure_free(gpointer p) {
   pp_gen_figure *fig = p;
   g_array_unref(fig->values);
   g_ptr_array_unref(fig->labels);
@@ -25,8 +24,7 @@ static void figure_free(gpointer p)
   g_free(fig);
 }
 
-pp_gen_truth *pp_gen_truth_new(const char *file, guint64 seed)
-{
+pp_gen_truth *pp_gen_truth_new(const char *file, guint64 seed) {
   pp_gen_truth *t = g_new0(pp_gen_truth, 1);
   t->file = g_strdup(file);
   t->producer = g_strdup_printf("cairo %s", cairo_version_string());
@@ -36,8 +34,7 @@ pp_gen_truth *pp_gen_truth_new(const char *file, guint64 seed)
   return t;
 }
 
-void pp_gen_truth_free(pp_gen_truth *truth)
-{
+void pp_gen_truth_free(pp_gen_truth *truth) {
   if (!truth)
     return;
   g_free(truth->file);
@@ -46,8 +43,7 @@ void pp_gen_truth_free(pp_gen_truth *truth)
   g_free(truth);
 }
 
-pp_gen_figure *pp_gen_truth_add(pp_gen_truth *truth, int page, const char *kind)
-{
+pp_gen_figure *pp_gen_truth_add(pp_gen_truth *truth, int page, const char *kind) {
   pp_gen_figure *fig = g_new0(pp_gen_figure, 1);
   fig->page = page;
   fig->kind = kind;
@@ -62,16 +58,14 @@ pp_gen_figure *pp_gen_truth_add(pp_gen_truth *truth, int page, const char *kind)
   return fig;
 }
 
-void pp_gen_figure_add_style(pp_gen_figure *fig, const char *style)
-{
+void pp_gen_figure_add_style(pp_gen_figure *fig, const char *style) {
   for (guint i = 0; i < fig->styles->len; i++)
     if (g_str_equal(g_ptr_array_index(fig->styles, i), style))
       return;
   g_ptr_array_add(fig->styles, g_strdup(style));
 }
 
-void pp_gen_figure_add_series(pp_gen_figure *fig, const char *name, const double *values, int n)
-{
+void pp_gen_figure_add_series(pp_gen_figure *fig, const char *name, const double *values, int n) {
   if (!fig->series_names) {
     fig->series_names = g_ptr_array_new_with_free_func(g_free);
     fig->series_values = g_ptr_array_new_with_free_func((GDestroyNotify)g_array_unref);
@@ -82,14 +76,12 @@ void pp_gen_figure_add_series(pp_gen_figure *fig, const char *name, const double
   g_ptr_array_add(fig->series_values, a);
 }
 
-void pp_gen_figure_set_note(pp_gen_figure *fig, const char *note)
-{
+void pp_gen_figure_set_note(pp_gen_figure *fig, const char *note) {
   g_free(fig->note);
   fig->note = g_strdup(note);
 }
 
-void pp_gen_figure_set_bbox(pp_gen_figure *fig, double x, double y, double w, double h)
-{
+void pp_gen_figure_set_bbox(pp_gen_figure *fig, double x, double y, double w, double h) {
   fig->bbox[0] = x;
   fig->bbox[1] = y;
   fig->bbox[2] = x + w;
@@ -104,8 +96,7 @@ void pp_gen_figure_set_bbox(pp_gen_figure *fig, double x, double y, double w, do
  * 100 (LF_change - 1). Growth ratio and pairwise departure are the same
  * idea applied to ratios instead of changes (project definition). */
 void pp_gen_measures_compute(const double *v, const double *g, int n, double baseline,
-                             pp_gen_measures *out)
-{
+                             pp_gen_measures *out) {
   out->lie_factor_growth = NAN;
   out->lie_factor_change = NAN;
   out->gdi = NAN;
@@ -132,8 +123,7 @@ void pp_gen_measures_compute(const double *v, const double *g, int n, double bas
   out->max_pair_departure = worst;
 }
 
-static void json_string(GString *s, const char *str)
-{
+static void json_string(GString *s, const char *str) {
   if (!str) {
     g_string_append(s, "null");
     return;
@@ -150,8 +140,7 @@ static void json_string(GString *s, const char *str)
   g_string_append_c(s, '"');
 }
 
-static void json_number(GString *s, double v)
-{
+static void json_number(GString *s, double v) {
   if (isnan(v) || isinf(v)) {
     g_string_append(s, "null");
     return;
@@ -167,8 +156,7 @@ static void json_number(GString *s, double v)
 
 /* Measures use 9 significant digits, as scripts/corpus/truth.py does, so
  * `truth.py check` can compare them exactly. */
-static void json_measure(GString *s, double v)
-{
+static void json_measure(GString *s, double v) {
   if (isnan(v) || isinf(v)) {
     g_string_append(s, "null");
     return;
@@ -178,8 +166,7 @@ static void json_measure(GString *s, double v)
   g_string_append(s, buf);
 }
 
-static void json_numbers(GString *s, const GArray *a)
-{
+static void json_numbers(GString *s, const GArray *a) {
   if (!a) {
     g_string_append(s, "null");
     return;
@@ -193,8 +180,7 @@ static void json_numbers(GString *s, const GArray *a)
   g_string_append_c(s, ']');
 }
 
-static void json_strings(GString *s, const GPtrArray *a)
-{
+static void json_strings(GString *s, const GPtrArray *a) {
   g_string_append_c(s, '[');
   for (guint i = 0; i < a->len; i++) {
     if (i)
@@ -204,8 +190,7 @@ static void json_strings(GString *s, const GPtrArray *a)
   g_string_append_c(s, ']');
 }
 
-static void json_figure(GString *s, const pp_gen_figure *f)
-{
+static void json_figure(GString *s, const pp_gen_figure *f) {
   g_string_append_printf(s, "    {\n      \"page\": %d,\n      \"bbox\": [", f->page);
   for (int i = 0; i < 4; i++) {
     if (i)
@@ -214,8 +199,8 @@ static void json_figure(GString *s, const pp_gen_figure *f)
   }
   g_string_append(s, "],\n      \"kind\": ");
   json_string(s, f->kind);
-  g_string_append_printf(s, ",\n      \"misleading\": %s,\n      \"rule\": ",
-                         f->misleading ? "true" : "false");
+  g_string_append_printf(
+      s, ",\n      \"misleading\": %s,\n      \"rule\": ", f->misleading ? "true" : "false");
   json_string(s, f->rule);
   g_string_append(s, ",\n      \"values\": ");
   json_numbers(s, f->values);
@@ -283,14 +268,13 @@ static void json_figure(GString *s, const pp_gen_figure *f)
   g_string_append(s, "\n    }");
 }
 
-gboolean pp_gen_truth_write(const pp_gen_truth *truth, const char *path, GError **error)
-{
+gboolean pp_gen_truth_write(const pp_gen_truth *truth, const char *path, GError **error) {
   GString *s = g_string_new("{\n  \"file\": ");
   json_string(s, truth->file);
   g_string_append(s, ",\n  \"producer\": ");
   json_string(s, truth->producer);
-  g_string_append_printf(s, ",\n  \"seed\": %" G_GUINT64_FORMAT ",\n  \"pages\": %d,\n", truth->seed,
-                         truth->pages);
+  g_string_append_printf(s, ",\n  \"seed\": %" G_GUINT64_FORMAT ",\n  \"pages\": %d,\n",
+                         truth->seed, truth->pages);
   g_string_append(s, "  \"figures\": [\n");
   for (guint i = 0; i < truth->figures->len; i++) {
     if (i)

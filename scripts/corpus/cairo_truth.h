@@ -24,8 +24,8 @@ typedef struct {
   gboolean axis_hidden; /* written as "axis": null plus "axis_hidden" */
   double axis_min, axis_max;
   gboolean axis_log;
-  char orientation; /* 'y' or 'x' */
-  double baseline;   /* NAN = null */
+  char orientation;    /* 'y' or 'x' */
+  double baseline;     /* NAN = null */
   GArray *data_labels; /* NULL = null */
   GArray *drawn;       /* NULL = field omitted */
   gboolean has_expected;
@@ -33,8 +33,8 @@ typedef struct {
   GPtrArray *series_names;  /* char*, NULL = no "series" field */
   GPtrArray *series_values; /* GArray* of double, parallel to series_names */
   GPtrArray *styles;
-  char *note; /* written as "notes" (docs/corpus.md) */
-  char *extra_json; /* raw members written last ("\"circle\": {...}"), NULL = none */
+  char *note;          /* written as "notes" (docs/corpus.md) */
+  char *extra_json;    /* raw members written last ("\"circle\": {...}"), NULL = none */
   char *expected_json; /* raw "expected" object, written instead of expected; NULL = none */
 } pp_gen_figure;
 

@@ -25,23 +25,23 @@ typedef struct {
 } gen_ctx;
 
 static const char *years[] = {"2026", "2027", "2028", "2029", "2030", "2031"};
-static const char *quarters[] = {"Q1 30", "Q2 30", "Q3 30", "Q4 30", "Q1 31", "Q2 31", "Q3 31", "Q4 31"};
+static const char *quarters[] = {"Q1 30", "Q2 30", "Q3 30", "Q4 30",
+                                 "Q1 31", "Q2 31", "Q3 31", "Q4 31"};
 static const char *regions[] = {"Nordvik", "Eastmarch", "Solbakken", "Harrowgate", "Lowfield"};
-static const char *products[] = {"Harbour tugs", "Cargo ferries", "Pilot boats",
-                                 "Survey vessels", "Crew transfer", "Icebreakers",
+static const char *products[] = {"Harbour tugs",     "Cargo ferries", "Pilot boats",
+                                 "Survey vessels",   "Crew transfer", "Icebreakers",
                                  "Passenger ferries"};
 
 static const char *lorem[] = {
-  "The figure summarises results for the period under review.",
-  "Values are reported in the units stated in the axis title.",
-  "Comparatives have been restated where the segment definition changed.",
-  "All figures are unaudited and presented for illustration only.",
-  "The trend reflects volume growth in the core service lines.",
-  "Management monitors this indicator monthly against the budget.",
+    "The figure summarises results for the period under review.",
+    "Values are reported in the units stated in the axis title.",
+    "Comparatives have been restated where the segment definition changed.",
+    "All figures are unaudited and presented for illustration only.",
+    "The trend reflects volume growth in the core service lines.",
+    "Management monitors this indicator monthly against the budget.",
 };
 
-static void caption(cairo_t *cr, pp_gen_rng *rng, double x, double y, double w)
-{
+static void caption(cairo_t *cr, pp_gen_rng *rng, double x, double y, double w) {
   GString *s = g_string_new(NULL);
   for (int i = 0; i < 3; i++) {
     g_string_append(s, lorem[pp_gen_rng_int(rng, 0, G_N_ELEMENTS(lorem) - 1)]);
@@ -54,23 +54,21 @@ static void caption(cairo_t *cr, pp_gen_rng *rng, double x, double y, double w)
 }
 
 /* Rounds to a number of decimals so printed labels equal the truth values. */
-static double round_to(double v, int decimals)
-{
+static double round_to(double v, int decimals) {
   double p = pow(10, decimals);
   return round(v * p) / p;
 }
 
 static void gen_series(pp_gen_rng *rng, double *out, int n, double base, double trend, double noise,
-                       int decimals)
-{
+                       int decimals) {
   for (int i = 0; i < n; i++) {
     double t = n > 1 ? (double)i / (n - 1) : 0;
-    out[i] = round_to(base * (1 + trend * t) * (1 + pp_gen_rng_uniform(rng, -noise, noise)), decimals);
+    out[i] =
+        round_to(base * (1 + trend * t) * (1 + pp_gen_rng_uniform(rng, -noise, noise)), decimals);
   }
 }
 
-static pp_gen_doc *begin(gen_ctx *ctx, const char *name, double w, double h, pp_gen_rng *rng)
-{
+static pp_gen_doc *begin(gen_ctx *ctx, const char *name, double w, double h, pp_gen_rng *rng) {
   guint64 seed = SEED + ctx->next_seed++;
   pp_gen_rng_init(rng, seed);
   pp_gen_doc *d = pp_gen_doc_new(ctx->out_dir, ctx->rel_dir, name, seed, w, h, name);
@@ -79,16 +77,14 @@ static pp_gen_doc *begin(gen_ctx *ctx, const char *name, double w, double h, pp_
   return d;
 }
 
-static void finish(gen_ctx *ctx, pp_gen_doc *d)
-{
+static void finish(gen_ctx *ctx, pp_gen_doc *d) {
   if (!ctx->error && !pp_gen_doc_finish(d, &ctx->error))
     g_prefix_error(&ctx->error, "writing: ");
   ctx->files++;
   pp_gen_doc_free(d);
 }
 
-static void page_heading(cairo_t *cr, const char *text, double w)
-{
+static void page_heading(cairo_t *cr, const char *text, double w) {
   pp_gen_font(cr, 14, TRUE);
   cairo_set_source_rgb(cr, 0.1, 0.1, 0.15);
   pp_gen_text_at(cr, text, 60, 50, 0, 0);
@@ -110,8 +106,7 @@ typedef struct {
   const char *extra_style;
 } single_spec;
 
-static void place_single(pp_gen_chart *c)
-{
+static void place_single(pp_gen_chart *c) {
   if (c->horizontal) {
     c->x = 170;
     c->w = 350;
@@ -123,8 +118,7 @@ static void place_single(pp_gen_chart *c)
   c->h = c->rotated ? 240 : 280;
 }
 
-static void gen_single(gen_ctx *ctx, const single_spec *spec)
-{
+static void gen_single(gen_ctx *ctx, const single_spec *spec) {
   static const struct {
     int bit;
     const char *suffix;
@@ -138,7 +132,7 @@ static void gen_single(gen_ctx *ctx, const single_spec *spec)
     pp_gen_doc *d = begin(ctx, name, A4_W, A4_H, &rng);
     pp_gen_chart c = spec->chart;
     int ns = c.n_series > 0 ? c.n_series : 1;
-    double *vals = g_new0(double, c.n * ns);
+    double *vals = g_new0(double, c.n *ns);
     for (int s = 0; s < ns; s++)
       gen_series(&rng, vals + s * c.n, c.n, spec->base * (1 - 0.25 * s), spec->trend, spec->noise,
                  spec->value_decimals);
@@ -164,63 +158,65 @@ static void gen_single(gen_ctx *ctx, const single_spec *spec)
 
 #define CH(...) ((pp_gen_chart){__VA_ARGS__}) /* n_series 0 means one series */
 
-static void gen_singles(gen_ctx *ctx)
-{
+static void gen_singles(gen_ctx *ctx) {
   const single_spec specs[] = {
-    {"col-rect", "Net revenue (NOK m)", CH(.n = 6, .cats = years), 420, 0.6, 0.05, 0, V_ALL, NULL},
-    {"bar-path4", "Orders by region", CH(.n = 5, .cats = regions, .horizontal = TRUE,
-                                        .bar_style = PP_GEN_BAR_PATH4),
-     300, 0.5, 0.08, 0, V_ALL, NULL},
-    {"col-edges", "Vessel calls per quarter",
-     CH(.n = 8, .cats = quarters, .bar_style = PP_GEN_BAR_FILL_STROKE, .gridlines = TRUE), 140, 0.4,
-     0.06, 0, V_ALL, NULL},
-    {"col-clipped", "Tonnes handled (thousand)",
-     CH(.n = 6, .cats = years, .bar_style = PP_GEN_BAR_CLIPPED, .gridlines = TRUE), 82, 0.3, 0.04, 0,
-     V_ALL, NULL},
-    {"bar-clipped", "Berth utilisation hours",
-     CH(.n = 5, .cats = regions, .horizontal = TRUE, .bar_style = PP_GEN_BAR_CLIPPED), 640, 0.35,
-     0.05, 0, V_ALL, NULL},
-    {"area-fill", "Fuel use (kilotonnes)", CH(.n = 8, .cats = quarters, .mark = PP_GEN_MARK_AREA,
-                                           .gridlines = TRUE),
-     56, 0.3, 0.06, 0, V_ALL, NULL},
-    {"fmt-thousands", "Passengers per day", CH(.n = 6, .cats = years, .fmt = PP_GEN_FMT_THOUSANDS,
-                                               .gridlines = TRUE),
-     1250, 0.5, 0.05, 0, V_ALL, NULL},
-    {"fmt-currency", "Operating profit", CH(.n = 6, .cats = years, .fmt = PP_GEN_FMT_CURRENCY_M,
-                                            .bar_style = PP_GEN_BAR_PATH4),
-     1.2, 0.6, 0.05, 1, V_ALL, NULL},
-    {"fmt-percent", "On-time departures", CH(.n = 5, .cats = regions, .horizontal = TRUE,
-                                             .fmt = PP_GEN_FMT_PERCENT, .gridlines = TRUE),
-     72, 0.2, 0.04, 0, V_ALL, NULL},
-    {"fmt-decimal-comma", "Ladetid i timer", CH(.n = 6, .cats = years, .fmt = PP_GEN_FMT_DECIMAL_COMMA,
-                                                .bar_style = PP_GEN_BAR_FILL_STROKE),
-     2.5, 0.4, 0.05, 1, V_ALL, NULL},
-    {"rotated", "Fleet availability by vessel class",
-     CH(.n = 7, .cats = products, .rotated = TRUE, .gridlines = TRUE), 310, 0.3, 0.15, 0,
-     V_HONEST | V_MILD, NULL},
-    {"alpha", "Cargo volume (TEU thousand)", CH(.n = 6, .cats = years, .alpha = 0.55, .gridlines = TRUE),
-     48, 0.5, 0.05, 0, V_HONEST | V_SEVERE, NULL},
-    {"gradient", "Charter income (NOK m)", CH(.n = 5, .cats = regions, .gradient = TRUE), 210, 0.4,
-     0.1, 0, V_HONEST | V_MILD, NULL},
-    {"gradient-bar", "Maintenance spend (NOK m)",
-     CH(.n = 5, .cats = regions, .gradient = TRUE, .horizontal = TRUE), 95, 0.5, 0.1, 0, V_SEVERE,
-     NULL},
-    {"stacked", "Revenue by segment (NOK m)",
-     CH(.n = 6, .cats = years, .n_series = 3, .stacked = TRUE,
-        .series_names = (const char *const[]){"Freight", "Passenger", "Services"}),
-     180, 0.4, 0.05, 0, V_HONEST | V_MILD, NULL},
-    {"grouped", "Crew hours by region (thousand)",
-     CH(.n = 5, .cats = regions, .n_series = 2,
-        .series_names = (const char *const[]){"2030", "2031"}, .gridlines = TRUE),
-     66, 0.3, 0.08, 0, V_HONEST | V_SEVERE, NULL},
+      {"col-rect", "Net revenue (NOK m)", CH(.n = 6, .cats = years), 420, 0.6, 0.05, 0, V_ALL,
+       NULL},
+      {"bar-path4", "Orders by region",
+       CH(.n = 5, .cats = regions, .horizontal = TRUE, .bar_style = PP_GEN_BAR_PATH4), 300, 0.5,
+       0.08, 0, V_ALL, NULL},
+      {"col-edges", "Vessel calls per quarter",
+       CH(.n = 8, .cats = quarters, .bar_style = PP_GEN_BAR_FILL_STROKE, .gridlines = TRUE), 140,
+       0.4, 0.06, 0, V_ALL, NULL},
+      {"col-clipped", "Tonnes handled (thousand)",
+       CH(.n = 6, .cats = years, .bar_style = PP_GEN_BAR_CLIPPED, .gridlines = TRUE), 82, 0.3, 0.04,
+       0, V_ALL, NULL},
+      {"bar-clipped", "Berth utilisation hours",
+       CH(.n = 5, .cats = regions, .horizontal = TRUE, .bar_style = PP_GEN_BAR_CLIPPED), 640, 0.35,
+       0.05, 0, V_ALL, NULL},
+      {"area-fill", "Fuel use (kilotonnes)",
+       CH(.n = 8, .cats = quarters, .mark = PP_GEN_MARK_AREA, .gridlines = TRUE), 56, 0.3, 0.06, 0,
+       V_ALL, NULL},
+      {"fmt-thousands", "Passengers per day",
+       CH(.n = 6, .cats = years, .fmt = PP_GEN_FMT_THOUSANDS, .gridlines = TRUE), 1250, 0.5, 0.05,
+       0, V_ALL, NULL},
+      {"fmt-currency", "Operating profit",
+       CH(.n = 6, .cats = years, .fmt = PP_GEN_FMT_CURRENCY_M, .bar_style = PP_GEN_BAR_PATH4), 1.2,
+       0.6, 0.05, 1, V_ALL, NULL},
+      {"fmt-percent", "On-time departures",
+       CH(.n = 5, .cats = regions, .horizontal = TRUE, .fmt = PP_GEN_FMT_PERCENT,
+          .gridlines = TRUE),
+       72, 0.2, 0.04, 0, V_ALL, NULL},
+      {"fmt-decimal-comma", "Ladetid i timer",
+       CH(.n = 6, .cats = years, .fmt = PP_GEN_FMT_DECIMAL_COMMA,
+          .bar_style = PP_GEN_BAR_FILL_STROKE),
+       2.5, 0.4, 0.05, 1, V_ALL, NULL},
+      {"rotated", "Fleet availability by vessel class",
+       CH(.n = 7, .cats = products, .rotated = TRUE, .gridlines = TRUE), 310, 0.3, 0.15, 0,
+       V_HONEST | V_MILD, NULL},
+      {"alpha", "Cargo volume (TEU thousand)",
+       CH(.n = 6, .cats = years, .alpha = 0.55, .gridlines = TRUE), 48, 0.5, 0.05, 0,
+       V_HONEST | V_SEVERE, NULL},
+      {"gradient", "Charter income (NOK m)", CH(.n = 5, .cats = regions, .gradient = TRUE), 210,
+       0.4, 0.1, 0, V_HONEST | V_MILD, NULL},
+      {"gradient-bar", "Maintenance spend (NOK m)",
+       CH(.n = 5, .cats = regions, .gradient = TRUE, .horizontal = TRUE), 95, 0.5, 0.1, 0, V_SEVERE,
+       NULL},
+      {"stacked", "Revenue by segment (NOK m)",
+       CH(.n = 6, .cats = years, .n_series = 3, .stacked = TRUE,
+          .series_names = (const char *const[]){"Freight", "Passenger", "Services"}),
+       180, 0.4, 0.05, 0, V_HONEST | V_MILD, NULL},
+      {"grouped", "Crew hours by region (thousand)",
+       CH(.n = 5, .cats = regions, .n_series = 2,
+          .series_names = (const char *const[]){"2030", "2031"}, .gridlines = TRUE),
+       66, 0.3, 0.08, 0, V_HONEST | V_SEVERE, NULL},
   };
   for (gsize i = 0; i < G_N_ELEMENTS(specs); i++)
     gen_single(ctx, &specs[i]);
 }
 
 /* 60 thin bars: daily sailings over two months. */
-static void gen_many_bars(gen_ctx *ctx)
-{
+static void gen_many_bars(gen_ctx *ctx) {
   char cat_buf[60][8];
   const char *cats[60];
   for (int i = 0; i < 60; i++) {
@@ -247,8 +243,7 @@ static void gen_many_bars(gen_ctx *ctx)
   }
 }
 
-static void gen_log_charts(gen_ctx *ctx)
-{
+static void gen_log_charts(gen_ctx *ctx) {
   static const double col_vals[] = {12, 85, 420, 2600, 9100};
   static const char *col_cats[] = {"Kiosk", "Café", "Shop", "Charter", "Freight"};
   static const double line_vals[] = {3, 14, 55, 240, 900, 3100};
@@ -262,10 +257,9 @@ static void gen_log_charts(gen_ctx *ctx)
     if (k == 1)
       c.horizontal = TRUE;
     if (k == 2) {
-      c = CH(.n = 6, .cats = years, .values = line_vals, .log_axis = TRUE,
-                           .axis_min = 1, .axis_max = 10000, .mark = PP_GEN_MARK_LINE,
-                           .markers = TRUE, .gridlines = TRUE,
-                           .title = "Digital bookings (log scale)");
+      c = CH(.n = 6, .cats = years, .values = line_vals, .log_axis = TRUE, .axis_min = 1,
+             .axis_max = 10000, .mark = PP_GEN_MARK_LINE, .markers = TRUE, .gridlines = TRUE,
+             .title = "Digital bookings (log scale)");
     }
     place_single(&c);
     page_heading(d->cr, c.title, A4_W);
@@ -278,10 +272,10 @@ static void gen_log_charts(gen_ctx *ctx)
 
 /* Bars with printed value labels and no value axis; two of three draw
  * lengths that do not match their labels. */
-static void gen_label_charts(gen_ctx *ctx)
-{
+static void gen_label_charts(gen_ctx *ctx) {
   static const double labels_v[] = {52, 55, 58, 61, 64};
-  static const char *names[] = {"labels-column-disagree", "labels-bar-disagree", "labels-bar-agree"};
+  static const char *names[] = {"labels-column-disagree", "labels-bar-disagree",
+                                "labels-bar-agree"};
   for (int k = 0; k < 3; k++) {
     pp_gen_rng rng;
     pp_gen_doc *d = begin(ctx, names[k], A4_W, A4_H, &rng);
@@ -304,15 +298,14 @@ static void gen_label_charts(gen_ctx *ctx)
   }
 }
 
-static void gen_negative(gen_ctx *ctx)
-{
+static void gen_negative(gen_ctx *ctx) {
   static const double vals[] = {-32, 18, -12, 41, 27, -8};
   for (int k = 0; k < 2; k++) {
     pp_gen_rng rng;
     pp_gen_doc *d = begin(ctx, k ? "negative-floor" : "negative-honest", A4_W, A4_H, &rng);
-    pp_gen_chart c = CH(.n = 6, .cats = years, .values = vals, .axis_min = -40, .axis_max = 50,
-                        .tick_step = 10, .bar_from = k ? -40 : 0, .gridlines = TRUE,
-                        .title = "Net cash flow (NOK m)");
+    pp_gen_chart c =
+        CH(.n = 6, .cats = years, .values = vals, .axis_min = -40, .axis_max = 50, .tick_step = 10,
+           .bar_from = k ? -40 : 0, .gridlines = TRUE, .title = "Net cash flow (NOK m)");
     place_single(&c);
     page_heading(d->cr, c.title, A4_W);
     pp_gen_chart_draw(d->cr, &c);
@@ -324,8 +317,7 @@ static void gen_negative(gen_ctx *ctx)
   }
 }
 
-static void gen_lines_bands(gen_ctx *ctx)
-{
+static void gen_lines_bands(gen_ctx *ctx) {
   static const char *const route_names[] = {"Day routes", "Night routes"};
   for (int k = 0; k < 5; k++) {
     static const char *names[] = {"line-truncated", "line-truncated-grid", "line-zero",
@@ -363,18 +355,17 @@ static void gen_lines_bands(gen_ctx *ctx)
 
 /* Two charts on one page: one honest and one truncated twin, then a line
  * above a truncated area. */
-static void gen_two_per_page(gen_ctx *ctx)
-{
+static void gen_two_per_page(gen_ctx *ctx) {
   for (int k = 0; k < 2; k++) {
     pp_gen_rng rng;
     pp_gen_doc *d = begin(ctx, k ? "two-charts-line-area" : "two-charts-columns", A4_W, A4_H, &rng);
     double a[6], b[6];
     gen_series(&rng, a, 6, 260, 0.5, 0.05, 0);
     gen_series(&rng, b, 6, 90, 0.3, 0.05, 0);
-    pp_gen_chart c1 = CH(.n = 6, .cats = years, .values = a, .x = 100, .y = 120, .w = 420,
-                         .h = 220, .title = "Gross tonnage transported (thousand t)");
-    pp_gen_chart c2 = CH(.n = 6, .cats = years, .values = b, .x = 100, .y = 480, .w = 420,
-                         .h = 220, .title = "Ticket revenue (NOK m)", .bar_style = PP_GEN_BAR_PATH4);
+    pp_gen_chart c1 = CH(.n = 6, .cats = years, .values = a, .x = 100, .y = 120, .w = 420, .h = 220,
+                         .title = "Gross tonnage transported (thousand t)");
+    pp_gen_chart c2 = CH(.n = 6, .cats = years, .values = b, .x = 100, .y = 480, .w = 420, .h = 220,
+                         .title = "Ticket revenue (NOK m)", .bar_style = PP_GEN_BAR_PATH4);
     if (k) {
       c1.mark = PP_GEN_MARK_LINE;
       c1.markers = TRUE;
@@ -393,8 +384,7 @@ static void gen_two_per_page(gen_ctx *ctx)
   }
 }
 
-static double text_block(cairo_t *cr, pp_gen_rng *rng, double x, double y, double w, int paras)
-{
+static double text_block(cairo_t *cr, pp_gen_rng *rng, double x, double y, double w, int paras) {
   pp_gen_font(cr, 10, FALSE);
   cairo_set_source_rgb(cr, 0.1, 0.1, 0.1);
   for (int p = 0; p < paras; p++) {
@@ -402,8 +392,8 @@ static double text_block(cairo_t *cr, pp_gen_rng *rng, double x, double y, doubl
     int n = pp_gen_rng_int(rng, 4, 7);
     for (int i = 0; i < n; i++) {
       g_string_append(s, lorem[pp_gen_rng_int(rng, 0, G_N_ELEMENTS(lorem) - 1)]);
-      g_string_append_printf(s, " Volumes in 2031 reached %d,%03d units. ", pp_gen_rng_int(rng, 1, 9),
-                             pp_gen_rng_int(rng, 0, 999));
+      g_string_append_printf(s, " Volumes in 2031 reached %d,%03d units. ",
+                             pp_gen_rng_int(rng, 1, 9), pp_gen_rng_int(rng, 0, 999));
     }
     y = pp_gen_text_wrap(cr, s->str, x, y, w, 10, 13.5) + 8;
     g_string_free(s, TRUE);
@@ -412,18 +402,17 @@ static double text_block(cairo_t *cr, pp_gen_rng *rng, double x, double y, doubl
 }
 
 static void add_block(pp_gen_truth *t, int page, const char *kind, double x, double y, double w,
-                      double h, const char *note)
-{
+                      double h, const char *note) {
   pp_gen_figure *f = pp_gen_truth_add(t, page, kind);
   pp_gen_figure_set_bbox(f, x, y, w, h);
   pp_gen_figure_set_note(f, note);
 }
 
-static double draw_table(cairo_t *cr, pp_gen_rng *rng, double x, double y, double w)
-{
+static double draw_table(cairo_t *cr, pp_gen_rng *rng, double x, double y, double w) {
   static const char *head[] = {"NOK m", "2027", "2028", "2029", "2030", "2031"};
-  static const char *rows[] = {"Revenue", "Operating costs", "EBITDA", "Depreciation",
-                               "Operating profit", "Net finance", "Profit before tax"};
+  static const char *rows[] = {"Revenue",          "Operating costs",  "EBITDA",
+                               "Depreciation",     "Operating profit", "Net finance",
+                               "Profit before tax"};
   double row_h = 18, col0 = 150, colw = (w - col0) / 5;
   pp_gen_font(cr, 9, TRUE);
   cairo_set_source_rgb(cr, 0.1, 0.1, 0.1);
@@ -450,8 +439,7 @@ static double draw_table(cairo_t *cr, pp_gen_rng *rng, double x, double y, doubl
   return bottom;
 }
 
-static void gen_text_table_raster(gen_ctx *ctx)
-{
+static void gen_text_table_raster(gen_ctx *ctx) {
   pp_gen_rng rng;
   pp_gen_doc *d = begin(ctx, "text-page", A4_W, A4_H, &rng);
   page_heading(d->cr, "Report of the board", A4_W);
@@ -503,8 +491,7 @@ static void gen_text_table_raster(gen_ctx *ctx)
 }
 
 /* A three-page document: text, a chart page, a table page. */
-static void gen_mini_report(gen_ctx *ctx)
-{
+static void gen_mini_report(gen_ctx *ctx) {
   pp_gen_rng rng;
   pp_gen_doc *d = begin(ctx, "mini-report", A4_W, A4_H, &rng);
   page_heading(d->cr, "Quarterly letter", A4_W);
@@ -514,9 +501,9 @@ static void gen_mini_report(gen_ctx *ctx)
   page_heading(d->cr, "Key figures", A4_W);
   double vals[4];
   gen_series(&rng, vals, 4, 760, 0.2, 0.03, 0);
-  pp_gen_chart c = CH(.n = 4, .cats = quarters + 4, .values = vals, .x = 100, .y = 120, .w = 400,
-                      .h = 240, .title = "Bookings (thousand)", .bar_style = PP_GEN_BAR_FILL_STROKE,
-                      .data_labels = TRUE);
+  pp_gen_chart c =
+      CH(.n = 4, .cats = quarters + 4, .values = vals, .x = 100, .y = 120, .w = 400, .h = 240,
+         .title = "Bookings (thousand)", .bar_style = PP_GEN_BAR_FILL_STROKE, .data_labels = TRUE);
   pp_gen_chart_fit_axis(&c, 0.9);
   pp_gen_chart_draw(d->cr, &c);
   pp_gen_chart_truth(&c, d->truth, 2);
@@ -527,8 +514,7 @@ static void gen_mini_report(gen_ctx *ctx)
   finish(ctx, d);
 }
 
-int main(int argc, char **argv)
-{
+int main(int argc, char **argv) {
   gen_ctx ctx = {.out_dir = argc > 1 ? argv[1] : "corpus/cairo", .rel_dir = "corpus/cairo"};
   if (g_mkdir_with_parents(ctx.out_dir, 0755) != 0) {
     fprintf(stderr, "gen-corpus-cairo: cannot create %s\n", ctx.out_dir);

@@ -13,19 +13,38 @@ typedef struct {
 } palette;
 
 static const palette palettes[] = {
-  {{0.35, 0.58, 0.85}, {0.80, 0.88, 0.95}, {{0.45, 0.55, 0.62}, {0.25, 0.40, 0.35}, {0.12, 0.25, 0.18}},
-   {0.18, 0.36, 0.50}, 0.25, FALSE, FALSE},
-  {{0.20, 0.18, 0.40}, {0.98, 0.62, 0.35}, {{0.35, 0.28, 0.42}, {0.22, 0.18, 0.30}, {0.10, 0.08, 0.15}},
-   {0.25, 0.20, 0.35}, 0.55, FALSE, TRUE},
-  {{0.55, 0.70, 0.90}, {0.92, 0.95, 0.98}, {{0.70, 0.75, 0.82}, {0.50, 0.56, 0.64}, {0.30, 0.36, 0.42}},
-   {0.30, 0.42, 0.55}, 0.2, TRUE, FALSE},
-  {{0.50, 0.62, 0.75}, {0.85, 0.85, 0.82}, {{0.50, 0.52, 0.55}, {0.40, 0.38, 0.36}, {0.28, 0.24, 0.22}},
-   {0.22, 0.30, 0.38}, 0.3, FALSE, TRUE},
+    {{0.35, 0.58, 0.85},
+     {0.80, 0.88, 0.95},
+     {{0.45, 0.55, 0.62}, {0.25, 0.40, 0.35}, {0.12, 0.25, 0.18}},
+     {0.18, 0.36, 0.50},
+     0.25,
+     FALSE,
+     FALSE},
+    {{0.20, 0.18, 0.40},
+     {0.98, 0.62, 0.35},
+     {{0.35, 0.28, 0.42}, {0.22, 0.18, 0.30}, {0.10, 0.08, 0.15}},
+     {0.25, 0.20, 0.35},
+     0.55,
+     FALSE,
+     TRUE},
+    {{0.55, 0.70, 0.90},
+     {0.92, 0.95, 0.98},
+     {{0.70, 0.75, 0.82}, {0.50, 0.56, 0.64}, {0.30, 0.36, 0.42}},
+     {0.30, 0.42, 0.55},
+     0.2,
+     TRUE,
+     FALSE},
+    {{0.50, 0.62, 0.75},
+     {0.85, 0.85, 0.82},
+     {{0.50, 0.52, 0.55}, {0.40, 0.38, 0.36}, {0.28, 0.24, 0.22}},
+     {0.22, 0.30, 0.38},
+     0.3,
+     FALSE,
+     TRUE},
 };
 
 static void ridge(cairo_t *cr, pp_gen_rng *rng, int w, double base, double amp, const double *rgb,
-                  gboolean snow)
-{
+                  gboolean snow) {
   int steps = 48;
   double *ys = g_new(double, steps + 1);
   double phase = pp_gen_rng_uniform(rng, 0, 6.28), y = base;
@@ -59,8 +78,7 @@ static void ridge(cairo_t *cr, pp_gen_rng *rng, int w, double base, double amp, 
   g_free(ys);
 }
 
-static void ferry(cairo_t *cr, double x, double y, double s)
-{
+static void ferry(cairo_t *cr, double x, double y, double s) {
   cairo_set_source_rgb(cr, 0.95, 0.95, 0.95);
   cairo_move_to(cr, x, y);
   cairo_line_to(cr, x + 60 * s, y);
@@ -81,8 +99,7 @@ static void ferry(cairo_t *cr, double x, double y, double s)
 }
 
 void pp_demo_photo_paint(cairo_t *cr, pp_demo_photo kind, guint64 seed, double x, double y,
-                         double w, double h, double px_per_pt)
-{
+                         double w, double h, double px_per_pt) {
   const palette *p = &palettes[kind];
   int iw = (int)(w * px_per_pt), ih = (int)(h * px_per_pt);
   pp_gen_rng rng;
@@ -127,8 +144,8 @@ void pp_demo_photo_paint(cairo_t *cr, pp_demo_photo kind, guint64 seed, double x
   if (p->lights) {
     for (int i = 0; i < 30; i++) {
       cairo_set_source_rgba(ic, 1, 0.85, 0.45, 0.9);
-      cairo_arc(ic, pp_gen_rng_uniform(&rng, 0, iw), horizon - pp_gen_rng_uniform(&rng, 1, ih * 0.05),
-                1.2 * px_per_pt, 0, 2 * G_PI);
+      cairo_arc(ic, pp_gen_rng_uniform(&rng, 0, iw),
+                horizon - pp_gen_rng_uniform(&rng, 1, ih * 0.05), 1.2 * px_per_pt, 0, 2 * G_PI);
       cairo_fill(ic);
     }
   }

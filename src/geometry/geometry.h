@@ -86,23 +86,23 @@ double pp_annular_sector_area(double r_outer, double r_inner, double theta);
 double pp_ellipse_sector_area(double a, double b, double t1, double t2);
 
 typedef enum {
-  PP_WEDGE_SECTOR,   /* arc and two radial edges meeting at the centre (or a half pie) */
-  PP_WEDGE_ANNULAR,  /* outer arc, inner arc and two radial edges: a donut slice */
-  PP_WEDGE_FULL,     /* a whole ellipse */
-  PP_WEDGE_ARC,      /* an open arc (a stroke) */
-  PP_WEDGE_BAND,     /* two equal arcs one above the other: a tilted pie's rim */
+  PP_WEDGE_SECTOR,  /* arc and two radial edges meeting at the centre (or a half pie) */
+  PP_WEDGE_ANNULAR, /* outer arc, inner arc and two radial edges: a donut slice */
+  PP_WEDGE_FULL,    /* a whole ellipse */
+  PP_WEDGE_ARC,     /* an open arc (a stroke) */
+  PP_WEDGE_BAND,    /* two equal arcs one above the other: a tilted pie's rim */
 } pp_wedge_kind;
 
 typedef struct {
   pp_wedge_kind kind;
-  pp_ellipse outer;     /* the outer (band: top) arc's ellipse, centred on the wedge's apex */
-  double inner;         /* annular: inner radius / outer radius; 0 otherwise */
-  double a0, a1;        /* parametric angles, 0 ≤ a0 < 2π, a0 < a1 ≤ a0 + 2π */
-  gboolean clockwise;   /* drawn clockwise as seen on the page */
-  double fit_error;     /* max |scale − 1| of the outer arc's points: 0 for a true arc */
+  pp_ellipse outer;      /* the outer (band: top) arc's ellipse, centred on the wedge's apex */
+  double inner;          /* annular: inner radius / outer radius; 0 otherwise */
+  double a0, a1;         /* parametric angles, 0 ≤ a0 < 2π, a0 < a1 ≤ a0 + 2π */
+  gboolean clockwise;    /* drawn clockwise as seen on the page */
+  double fit_error;      /* max |scale − 1| of the outer arc's points: 0 for a true arc */
   gboolean shape_fitted; /* axes fixed by this arc; FALSE: a circle or the given shape */
-  pp_point depth;       /* band: offset of the bottom arc's centre from the top's */
-  guint subpath;        /* which subpath of the path, from 0 */
+  pp_point depth;        /* band: offset of the bottom arc's centre from the top's */
+  guint subpath;         /* which subpath of the path, from 0 */
 } pp_wedge;
 
 /* Every subpath that reads as a wedge (others are skipped). filled: subpaths close

@@ -255,8 +255,8 @@ void pp_recognize_cylinders(pp_recognize_ctx *ctx);     /* cylinders.c */
 const pp_axis_candidate *pp_solid_value_axis(const pp_recognize_ctx *ctx, pp_rect all);
 char *pp_solid_category(const pp_scene *scene, pp_rect front, double base);
 pp_rect pp_solid_frame(const pp_scene *scene, pp_rect all);
-void pp_recognize_pyramids(pp_recognize_ctx *ctx); /* pyramids.c */
-void pp_recognize_symbols(pp_recognize_ctx *ctx);  /* symbols.c */
-void pp_recognize_pies(pp_recognize_ctx *ctx);          /* pies.c */
-void pp_recognize_tilted_pies(pp_recognize_ctx *ctx);   /* tilted_pies.c */
-void pp_recognize_radial(pp_recognize_ctx *ctx);        /* radial.c */
+void pp_recognize_pyramids(pp_recognize_ctx *ctx);    /* pyramids.c */
+void pp_recognize_symbols(pp_recognize_ctx *ctx);     /* symbols.c */
+void pp_recognize_pies(pp_recognize_ctx *ctx);        /* pies.c */
+void pp_recognize_tilted_pies(pp_recognize_ctx *ctx); /* tilted_pies.c */
+void pp_recognize_radial(pp_recognize_ctx *ctx);      /* radial.c */

@@ -27,7 +27,9 @@ static cairo_t *arc_context(gboolean fine) {
   return cr;
 }
 
-static double quantum(gboolean fine) { return G_SQRT2 / 512 / (fine ? FINE_SCALE : 1); }
+static double quantum(gboolean fine) {
+  return G_SQRT2 / 512 / (fine ? FINE_SCALE : 1);
+}
 static double radial_error(const pp_path *p, double cx, double cy, double r) {
   double worst = 0;
   pp_point cur = {0, 0};
@@ -123,7 +125,7 @@ static void test_sector_and_annulus(void **state) {
     double tol = radial_error(sector, 50, 60, R) + quantum(fine);
     /* Sector r²θ/2 (elementary geometry). */
     tu_assert_near(pp_path_fill_area(sector, PP_FILL_NONZERO), R * R * theta / 2,
-                       band(theta, R, tol));
+                   band(theta, R, tol));
     cairo_new_path(cr);
     arc(cr, fine, 50, 60, R, a0, a1);
     arc(cr, fine, 50, 60, r, a1, a0);
@@ -160,7 +162,7 @@ static void test_clipped_discs(void **state) {
     pp_path_rectangle(quad, 0, 0, 100, 100);
     g_autoptr(pp_clip) qc = pp_clip_new(NULL, quad, PP_FILL_NONZERO);
     tu_assert_near(pp_path_clipped_area(disc, PP_FILL_NONZERO, qc), G_PI * r * r / 4,
-                       band(G_PI / 2, r, tol) + 1e-9);
+                   band(G_PI / 2, r, tol) + 1e-9);
 
     /* Circle–circle lens 2r²·acos(d/2r) − (d/2)·sqrt(4r² − d²) (standard formula). Both
      * boundaries may be off by tol; the lens perimeter is under 2·2πr. */
@@ -174,8 +176,7 @@ static void test_clipped_discs(void **state) {
     pp_path *half = pp_path_new();
     pp_path_rectangle(half, -100, -100, 300, 100);
     g_autoptr(pp_clip) chain = pp_clip_new(oc, half, PP_FILL_NONZERO);
-    tu_assert_near(pp_path_clipped_area(disc, PP_FILL_NONZERO, chain), lens / 2,
-                       bound / 2 + 1e-9);
+    tu_assert_near(pp_path_clipped_area(disc, PP_FILL_NONZERO, chain), lens / 2, bound / 2 + 1e-9);
 
     /* Arc length inside the quadrant: a quarter circumference, πr/2 (slack as above). */
     tu_assert_near(pp_path_clipped_length(disc, qc), G_PI * r / 2, 2 * G_PI * tol + 1e-7 * r);

@@ -287,12 +287,9 @@ static void test_rectangles_and_boxes(void **state) {
 
 int main(void) {
   const struct CMUnitTest tests[] = {
-      cmocka_unit_test(test_empty_and_moves),
-      cmocka_unit_test(test_zero_length_and_collinear),
-      cmocka_unit_test(test_huge_coordinates),
-      cmocka_unit_test(test_nan),
-      cmocka_unit_test(test_200k_polygon),
-      cmocka_unit_test(test_rectangles_and_boxes),
+      cmocka_unit_test(test_empty_and_moves),  cmocka_unit_test(test_zero_length_and_collinear),
+      cmocka_unit_test(test_huge_coordinates), cmocka_unit_test(test_nan),
+      cmocka_unit_test(test_200k_polygon),     cmocka_unit_test(test_rectangles_and_boxes),
   };
   return cmocka_run_group_tests(tests, NULL, NULL);
 }

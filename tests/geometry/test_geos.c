@@ -18,9 +18,9 @@
 static GEOSContextHandle_t ctx;
 
 typedef struct {
-  GArray *rings;   /* of GArray<pp_point>, closed implicitly */
-  double dev;      /* bound on the distance from the true path */
-  double length;   /* total ring length */
+  GArray *rings; /* of GArray<pp_point>, closed implicitly */
+  double dev;    /* bound on the distance from the true path */
+  double length; /* total ring length */
 } rings;
 
 /* Flatten uniformly in t. A chord over a step h deviates from the cubic by at most
@@ -45,7 +45,8 @@ static rings flatten_rings(const pp_path *p) {
       pp_point q[4] = {at, s->pt[0], s->pt[1], s->pt[2]};
       double m = 0;
       for (int k = 0; k < 2; k++)
-        m = fmax(m, hypot(q[k].x - 2 * q[k + 1].x + q[k + 2].x, q[k].y - 2 * q[k + 1].y + q[k + 2].y));
+        m = fmax(m,
+                 hypot(q[k].x - 2 * q[k + 1].x + q[k + 2].x, q[k].y - 2 * q[k + 1].y + q[k + 2].y));
       r.dev = fmax(r.dev, 0.75 * m / ((double)CURVE_STEPS * CURVE_STEPS));
       for (int j = 1; j <= CURVE_STEPS; j++) {
         double t = (double)j / CURVE_STEPS, u = 1 - t;

@@ -74,7 +74,8 @@ static void test_fills_against_cairo(void **state) {
     int ck = i % 4;
     if (ck == 1) {
       pp_path *r = pp_path_new();
-      pp_path_rectangle(r, g_rand_double_range(rng, 0, 40), g_rand_double_range(rng, 0, 40), 50, 45);
+      pp_path_rectangle(r, g_rand_double_range(rng, 0, 40), g_rand_double_range(rng, 0, 40), 50,
+                        45);
       clip = pp_clip_new(NULL, r, PP_FILL_NONZERO);
     } else if (ck >= 2) {
       clip = pp_clip_new(NULL, random_shape(rng), i % 3 ? PP_FILL_NONZERO : PP_FILL_EVEN_ODD);

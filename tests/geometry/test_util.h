@@ -14,19 +14,13 @@ static inline pp_path *tu_path_from_cairo(cairo_t *cr) {
   for (int i = 0; i < cp->num_data; i += cp->data[i].header.length) {
     cairo_path_data_t *d = &cp->data[i];
     switch (d->header.type) {
-    case CAIRO_PATH_MOVE_TO:
-      pp_path_move_to(p, d[1].point.x, d[1].point.y);
-      break;
-    case CAIRO_PATH_LINE_TO:
-      pp_path_line_to(p, d[1].point.x, d[1].point.y);
-      break;
+    case CAIRO_PATH_MOVE_TO: pp_path_move_to(p, d[1].point.x, d[1].point.y); break;
+    case CAIRO_PATH_LINE_TO: pp_path_line_to(p, d[1].point.x, d[1].point.y); break;
     case CAIRO_PATH_CURVE_TO:
       pp_path_curve_to(p, d[1].point.x, d[1].point.y, d[2].point.x, d[2].point.y, d[3].point.x,
                        d[3].point.y);
       break;
-    case CAIRO_PATH_CLOSE_PATH:
-      pp_path_close(p);
-      break;
+    case CAIRO_PATH_CLOSE_PATH: pp_path_close(p); break;
     }
   }
   cairo_path_destroy(cp);
@@ -38,18 +32,12 @@ static inline void tu_path_to_cairo(cairo_t *cr, const pp_path *p) {
   for (size_t i = 0; i < p->n_segs; i++) {
     const pp_seg *s = &p->segs[i];
     switch (s->kind) {
-    case PP_SEG_MOVE:
-      cairo_move_to(cr, s->pt[0].x, s->pt[0].y);
-      break;
-    case PP_SEG_LINE:
-      cairo_line_to(cr, s->pt[0].x, s->pt[0].y);
-      break;
+    case PP_SEG_MOVE: cairo_move_to(cr, s->pt[0].x, s->pt[0].y); break;
+    case PP_SEG_LINE: cairo_line_to(cr, s->pt[0].x, s->pt[0].y); break;
     case PP_SEG_CURVE:
       cairo_curve_to(cr, s->pt[0].x, s->pt[0].y, s->pt[1].x, s->pt[1].y, s->pt[2].x, s->pt[2].y);
       break;
-    case PP_SEG_CLOSE:
-      cairo_close_path(cr);
-      break;
+    case PP_SEG_CLOSE: cairo_close_path(cr); break;
     }
   }
 }
@@ -94,9 +82,9 @@ static inline void tu_random_curvy(pp_path *p, GRand *rng, int n, double lo, dou
 }
 
 /* cmocka 1.1's assert_float_equal compares in float; areas need double precision. */
-#define tu_assert_near(a, b, tol)                                                            \
-  do {                                                                                       \
-    double tu_a_ = (a), tu_b_ = (b), tu_t_ = (tol);                                          \
-    if (!(fabs(tu_a_ - tu_b_) <= tu_t_))                                                     \
-      fail_msg("%s = %.12g, want %.12g ± %.3g", #a, tu_a_, tu_b_, tu_t_);                    \
+#define tu_assert_near(a, b, tol)                                                                  \
+  do {                                                                                             \
+    double tu_a_ = (a), tu_b_ = (b), tu_t_ = (tol);                                                \
+    if (!(fabs(tu_a_ - tu_b_) <= tu_t_))                                                           \
+      fail_msg("%s = %.12g, want %.12g ± %.3g", #a, tu_a_, tu_b_, tu_t_);                          \
   } while (0)

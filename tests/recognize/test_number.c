@@ -19,14 +19,12 @@
 #define COMMA PP_DECIMAL_COMMA
 #define ANY PP_DECIMAL_UNKNOWN
 
-static gboolean close_to(double got, double want)
-{
+static gboolean close_to(double got, double want) {
   return fabs(got - want) <= 1e-9 * fmax(1.0, fabs(want));
 }
 
 /* Parses s and fails the test, naming the string and the caller's line, unless value matches. */
-static pp_number check_value_at(const char *s, pp_decimal_mark hint, double want, int line)
-{
+static pp_number check_value_at(const char *s, pp_decimal_mark hint, double want, int line) {
   pp_number n;
   if (!pp_number_parse(s, hint, &n)) {
     print_error("line %d: \"%s\" (hint %d) did not parse, want %.17g\n", line, s, hint, want);
@@ -40,8 +38,7 @@ static pp_number check_value_at(const char *s, pp_decimal_mark hint, double want
 }
 #define CHECK_VALUE(s, hint, want) check_value_at((s), (hint), (want), __LINE__)
 
-static void check_rejected_at(const char *s, int line)
-{
+static void check_rejected_at(const char *s, int line) {
   pp_number n;
   for (int h = ANY; h <= COMMA; h++)
     if (pp_number_parse(s, (pp_decimal_mark)h, &n)) {
@@ -56,8 +53,7 @@ static void check_rejected_at(const char *s, int line)
  * with unumf_openForSkeletonAndLocale(); the symbols themselves are, from memory, those of
  * Unicode CLDR, common/main/<locale>.xml, numbers/symbols and decimalFormats. */
 
-static void test_cldr_en(void **state)
-{
+static void test_cldr_en(void **state) {
   (void)state;
   /* Unicode CLDR, common/main/en.xml, numbers/symbols (group ",", decimal ".") and
    * decimalFormats "#,##0.###" (from memory; string from ICU 72.1 skeleton ".00", locale en) */
@@ -98,8 +94,7 @@ static void test_cldr_en(void **state)
   CHECK_VALUE("2.5e-3", ANY, 2.5e-3);
 }
 
-static void test_cldr_de(void **state)
-{
+static void test_cldr_de(void **state) {
   (void)state;
   /* Unicode CLDR, common/main/de.xml, numbers/symbols group "." decimal "," (from memory;
    * ICU 72.1 ".00", locale de printed "1.234.567,50") */
@@ -130,8 +125,7 @@ static void test_cldr_de(void **state)
   CHECK_VALUE("1,2E9", ANY, 1.2e9);
 }
 
-static void test_cldr_fr(void **state)
-{
+static void test_cldr_fr(void **state) {
   (void)state;
   /* Unicode CLDR, common/main/fr.xml, numbers/symbols group U+202F decimal "," (from memory;
    * ICU 72.1 ".00", locale fr printed "1 234 567,50" with U+202F) */
@@ -162,8 +156,7 @@ static void test_cldr_fr(void **state)
   CHECK_VALUE("1\u2009234\u2009567", ANY, 1234567);
 }
 
-static void test_cldr_sv(void **state)
-{
+static void test_cldr_sv(void **state) {
   (void)state;
   /* Unicode CLDR, common/main/sv.xml, numbers/symbols: group U+00A0 (U+202F in ICU output),
    * minusSign U+2212, exponential "×10^" (from memory; ICU 72.1 "scientific", locale sv
@@ -176,8 +169,7 @@ static void test_cldr_sv(void **state)
   CHECK_REJECTED("2,5×10^");
 }
 
-static void test_bare_power_of_ten(void **state)
-{
+static void test_bare_power_of_ten(void **state) {
   (void)state;
   /* Log-axis ticks as matplotlib's mathtext typesets them, 10 with a raised exponent; the
    * text stage writes the raise as '^' (common practice, no source). */
@@ -190,8 +182,7 @@ static void test_bare_power_of_ten(void **state)
   CHECK_REJECTED("1,000^3");
 }
 
-static void test_cldr_de_ch(void **state)
-{
+static void test_cldr_de_ch(void **state) {
   (void)state;
   /* Unicode CLDR, common/main/de_CH.xml, numbers/symbols group "’" U+2019 decimal "." (CLDR 42,
    * from memory; ICU 72.1 ".00", locale de_CH printed "1’234’567.50") */
@@ -217,8 +208,7 @@ static void test_cldr_de_ch(void **state)
   CHECK_VALUE("1.2\u00a0Mio.", ANY, 1.2e6);
 }
 
-static void test_cldr_en_in(void **state)
-{
+static void test_cldr_en_in(void **state) {
   (void)state;
   /* Unicode CLDR, common/main/en_IN.xml, decimalFormats "#,##,##0.###" (from memory; ICU 72.1
    * ".00", locale en_IN printed "12,34,567.50" and "1,20,00,00,000.00") */
@@ -247,8 +237,7 @@ typedef struct {
   int grouping[8], ngrouping;
 } glibc_numeric;
 
-static void ucs_to_utf8(const char *in, char *out, size_t n)
-{
+static void ucs_to_utf8(const char *in, char *out, size_t n) {
   GString *s = g_string_new(NULL);
   while (*in) {
     unsigned cp;
@@ -265,8 +254,7 @@ static void ucs_to_utf8(const char *in, char *out, size_t n)
 }
 
 static gboolean read_glibc_numeric(const char *dir, const char *locale, glibc_numeric *out,
-                                   int depth)
-{
+                                   int depth) {
   char *path = g_build_filename(dir, locale, NULL), *text = NULL;
   gboolean ok = g_file_get_contents(path, &text, NULL, NULL);
   g_free(path);
@@ -307,8 +295,7 @@ static gboolean read_glibc_numeric(const char *dir, const char *locale, glibc_nu
 }
 
 /* POSIX grouping: sizes from the right, the last one repeating; 0 or -1 ends grouping. */
-static char *glibc_format(const glibc_numeric *ln, double v, int decimals)
-{
+static char *glibc_format(const glibc_numeric *ln, double v, int decimals) {
   char digits[64];
   g_snprintf(digits, sizeof digits, "%.*f", decimals, fabs(v));
   char *dot = strchr(digits, '.');
@@ -340,8 +327,7 @@ static char *glibc_format(const glibc_numeric *ln, double v, int decimals)
   return g_string_free(s, FALSE);
 }
 
-static void test_glibc_localedata(void **state)
-{
+static void test_glibc_localedata(void **state) {
   (void)state;
   const char *dir = g_getenv("PP_TEST_LOCALEDATA");
   dir = dir ? dir : "/usr/share/i18n/locales";
@@ -382,20 +368,18 @@ static void test_glibc_localedata(void **state)
 
 /* The hint comes from CLDR too: the locale's decimal or monetary decimal symbol (they differ,
  * e.g. fr_CH uses "," for numbers and "." for amounts). */
-static pp_decimal_mark icu_decimal_hint(const char *locale, gboolean monetary)
-{
+static pp_decimal_mark icu_decimal_hint(const char *locale, gboolean monetary) {
   UErrorCode st = U_ZERO_ERROR;
   UChar sym[8];
   UNumberFormat *f = unum_open(UNUM_DECIMAL, NULL, 0, locale, NULL, &st);
-  int32_t n = unum_getSymbol(f, monetary ? UNUM_MONETARY_SEPARATOR_SYMBOL
-                                         : UNUM_DECIMAL_SEPARATOR_SYMBOL, sym, 8, &st);
+  int32_t n = unum_getSymbol(
+      f, monetary ? UNUM_MONETARY_SEPARATOR_SYMBOL : UNUM_DECIMAL_SEPARATOR_SYMBOL, sym, 8, &st);
   unum_close(f);
   assert_true(U_SUCCESS(st) && n == 1 && (sym[0] == '.' || sym[0] == ','));
   return sym[0] == ',' ? COMMA : POINT;
 }
 
-static char *icu_format(const char *skeleton, const char *locale, double v)
-{
+static char *icu_format(const char *skeleton, const char *locale, double v) {
   UErrorCode st = U_ZERO_ERROR;
   UChar skel[64], buf[128];
   u_uastrcpy(skel, skeleton);
@@ -415,12 +399,10 @@ typedef struct {
 } icu_locale;
 
 static const icu_locale icu_locales[] = {
-    {"en", TRUE},     {"de", TRUE},     {"fr", TRUE},
-    {"de_CH", TRUE},  {"en_IN", FALSE}, {"it", FALSE},
-    {"es", FALSE},    {"nl", FALSE},    {"sv", FALSE},
-    {"pl", FALSE},    {"ja", FALSE},    {"pt_BR", FALSE},
-    {"en_GB", TRUE},  {"fr_CH", FALSE}, {"ru", FALSE},
-    {"tr", FALSE}};
+    {"en", TRUE},     {"de", TRUE},     {"fr", TRUE},  {"de_CH", TRUE},
+    {"en_IN", FALSE}, {"it", FALSE},    {"es", FALSE}, {"nl", FALSE},
+    {"sv", FALSE},    {"pl", FALSE},    {"ja", FALSE}, {"pt_BR", FALSE},
+    {"en_GB", TRUE},  {"fr_CH", FALSE}, {"ru", FALSE}, {"tr", FALSE}};
 
 typedef struct {
   const char *skeleton;
@@ -442,8 +424,7 @@ static const icu_case icu_cases[] = {
     {"currency/USD compact-short", FALSE, TRUE, TRUE, {1200000, 1200000000, 25000}},
 };
 
-static void test_icu_cldr_live(void **state)
-{
+static void test_icu_cldr_live(void **state) {
   (void)state;
   int checked = 0;
   for (size_t l = 0; l < G_N_ELEMENTS(icu_locales); l++)
@@ -463,8 +444,7 @@ static void test_icu_cldr_live(void **state)
         if (!ok || !close_to(n.value, v) || n.percent != k->percent ||
             (n.currency[0] != '\0') != k->currency)
           print_error("ICU %s \"%s\" %.17g: \"%s\" -> ok %d value %.17g pct %d cur \"%s\"\n",
-                      icu_locales[l].locale, k->skeleton, v, s, ok, n.value, n.percent,
-                      n.currency);
+                      icu_locales[l].locale, k->skeleton, v, s, ok, n.value, n.percent, n.currency);
         assert_true(ok);
         assert_true(close_to(n.value, v));
         assert_int_equal(n.percent, k->percent);
@@ -477,14 +457,15 @@ static void test_icu_cldr_live(void **state)
 }
 
 /* Axis tick series printed by CLDR must be read with the right convention without a hint. */
-static void test_icu_cldr_series(void **state)
-{
+static void test_icu_cldr_series(void **state) {
   (void)state;
   static const struct {
     const char *skeleton;
     double start, step;
-  } series[] = {{"precision-integer", 0, 500},   {"precision-integer", 0, 250000},
-                {".0", 0, 0.5},                  {".00", 1, 0.25},
+  } series[] = {{"precision-integer", 0, 500},
+                {"precision-integer", 0, 250000},
+                {".0", 0, 0.5},
+                {".00", 1, 0.25},
                 {"precision-integer", 1000, 1000}};
   for (size_t l = 0; l < G_N_ELEMENTS(icu_locales); l++)
     for (size_t k = 0; k < G_N_ELEMENTS(series); k++) {
@@ -511,8 +492,7 @@ static void test_icu_cldr_series(void **state)
 
 /* ---- notation the brief asks for; the conventions are common practice, no source. */
 
-static void test_currencies(void **state)
-{
+static void test_currencies(void **state) {
   (void)state;
   pp_number n = CHECK_VALUE("$1.2bn", ANY, 1.2e9);
   assert_string_equal(n.currency, "$");
@@ -543,8 +523,7 @@ static void test_currencies(void **state)
   CHECK_REJECTED("$");
 }
 
-static void test_percent(void **state)
-{
+static void test_percent(void **state) {
   (void)state;
   pp_number n = CHECK_VALUE("45%", ANY, 45);
   assert_true(n.percent);
@@ -565,19 +544,18 @@ static void test_percent(void **state)
   CHECK_REJECTED("%");
 }
 
-static void test_suffixes(void **state)
-{
+static void test_suffixes(void **state) {
   (void)state;
   static const struct {
     const char *s;
     double value, multiplier;
   } cases[] = {
-      {"5k", 5e3, 1e3},        {"5K", 5e3, 1e3},       {"2.5m", 2.5e6, 1e6},
-      {"2.5M", 2.5e6, 1e6},    {"2.5mn", 2.5e6, 1e6},  {"2.5 MM", 2.5e6, 1e6},
-      {"2,5 Mio.", 2.5e6, 1e6}, {"2,5 Mio", 2.5e6, 1e6}, {"7bn", 7e9, 1e9},
-      {"7B", 7e9, 1e9},        {"7 Mrd.", 7e9, 1e9},   {"7 Mrd", 7e9, 1e9},
-      {"1.1tn", 1.1e12, 1e12}, {"1.1T", 1.1e12, 1e12}, {"1,1 Bio.", 1.1e12, 1e12},
-      {"-0.3bn", -0.3e9, 1e9}, {"12.5 lakh", 1.25e6, 1e5}, {"3 crore", 3e7, 1e7},
+      {"5k", 5e3, 1e3},         {"5K", 5e3, 1e3},           {"2.5m", 2.5e6, 1e6},
+      {"2.5M", 2.5e6, 1e6},     {"2.5mn", 2.5e6, 1e6},      {"2.5 MM", 2.5e6, 1e6},
+      {"2,5 Mio.", 2.5e6, 1e6}, {"2,5 Mio", 2.5e6, 1e6},    {"7bn", 7e9, 1e9},
+      {"7B", 7e9, 1e9},         {"7 Mrd.", 7e9, 1e9},       {"7 Mrd", 7e9, 1e9},
+      {"1.1tn", 1.1e12, 1e12},  {"1.1T", 1.1e12, 1e12},     {"1,1 Bio.", 1.1e12, 1e12},
+      {"-0.3bn", -0.3e9, 1e9},  {"12.5 lakh", 1.25e6, 1e5}, {"3 crore", 3e7, 1e7},
   };
   for (size_t i = 0; i < G_N_ELEMENTS(cases); i++) {
     pp_number n = check_value_at(cases[i].s, ANY, cases[i].value, __LINE__);
@@ -593,13 +571,12 @@ static void test_suffixes(void **state)
   CHECK_REJECTED("1e3k");
 }
 
-static void test_negatives(void **state)
-{
+static void test_negatives(void **state) {
   (void)state;
   pp_number n = CHECK_VALUE("-1,234", POINT, -1234);
   assert_false(n.year_like);
-  CHECK_VALUE("\u22125", ANY, -5);  /* U+2212 MINUS SIGN */
-  CHECK_VALUE("\u20135", ANY, -5);  /* U+2013 EN DASH */
+  CHECK_VALUE("\u22125", ANY, -5); /* U+2212 MINUS SIGN */
+  CHECK_VALUE("\u20135", ANY, -5); /* U+2013 EN DASH */
   CHECK_VALUE("+5", ANY, 5);
   CHECK_VALUE("(1,234)", POINT, -1234);
   CHECK_VALUE("($1,234.50)", ANY, -1234.5);
@@ -607,8 +584,8 @@ static void test_negatives(void **state)
   CHECK_VALUE("(5%)", ANY, -5);
   CHECK_VALUE("\u22121,5\u00a0%", ANY, -1.5);
   CHECK_VALUE("-.5", ANY, -0.5);
-  CHECK_REJECTED("5-");   /* trailing minus refused, see number.c */
-  CHECK_REJECTED("- 5");  /* sign detached from the digits */
+  CHECK_REJECTED("5-");  /* trailing minus refused, see number.c */
+  CHECK_REJECTED("- 5"); /* sign detached from the digits */
   CHECK_REJECTED("--5");
   CHECK_REJECTED("+-5");
   CHECK_REJECTED("(-5)");
@@ -617,15 +594,16 @@ static void test_negatives(void **state)
   CHECK_REJECTED("5)");
 }
 
-static void test_rejections(void **state)
-{
+static void test_rejections(void **state) {
   (void)state;
   static const char *const bad[] = {
-      "2019-03", "03/2019", "12.03.2019", "2019-03-12", "Q1 2031", "FY2022", "Jan", "H1", "1st",
-      "v2.0.1", "10:30", "A4", "", " ", "\u00a0\u202f", "\t\n", "1.2.3", "1,2,3", "2019 2020",
-      "5.", "5,", ",", ".", "1 2", "12.3,4", "1,234.5,6", "1.234,567.8", "1,234 567", "x5", "5x",
+      "2019-03",   "03/2019",   "12.03.2019",   "2019-03-12", "Q1 2031", "FY2022",
+      "Jan",       "H1",        "1st",          "v2.0.1",     "10:30",   "A4",
+      "",          " ",         "\u00a0\u202f", "\t\n",       "1.2.3",   "1,2,3",
+      "2019 2020", "5.",        "5,",           ",",          ".",       "1 2",
+      "12.3,4",    "1,234.5,6", "1.234,567.8",  "1,234 567",  "x5",      "5x",
       "\u0665", /* ARABIC-INDIC DIGIT FIVE: non-ASCII digits are not supported */
-      "\xff", /* not UTF-8 */
+      "\xff",   /* not UTF-8 */
   };
   for (size_t i = 0; i < G_N_ELEMENTS(bad); i++)
     check_rejected_at(bad[i], __LINE__);
@@ -633,8 +611,7 @@ static void test_rejections(void **state)
   assert_false(pp_number_parse(NULL, ANY, &n));
 }
 
-static void test_year_like(void **state)
-{
+static void test_year_like(void **state) {
   (void)state;
   pp_number n = CHECK_VALUE("2019", ANY, 2019);
   assert_true(n.year_like);
@@ -660,8 +637,7 @@ static void test_year_like(void **state)
   assert_false(n.year_like);
 }
 
-static void test_ambiguity_and_hints(void **state)
-{
+static void test_ambiguity_and_hints(void **state) {
   (void)state;
   /* the brief: without a hint an ambiguous string takes the point convention and is flagged */
   pp_number n = CHECK_VALUE("1,234", ANY, 1234);
@@ -692,27 +668,24 @@ static void test_ambiguity_and_hints(void **state)
   assert_true(n.value == 0 && n.multiplier == 0 && n.currency[0] == '\0');
 }
 
-static size_t run_series(const char *const *labels, size_t n, pp_number *out, gboolean *ok)
-{
+static size_t run_series(const char *const *labels, size_t n, pp_number *out, gboolean *ok) {
   return pp_number_parse_series(labels, n, out, ok);
 }
 
-static void assert_series(const char *const *labels, size_t n, const double *want, int line)
-{
+static void assert_series(const char *const *labels, size_t n, const double *want, int line) {
   pp_number out[16];
   gboolean ok[16];
   size_t got = run_series(labels, n, out, ok);
   for (size_t i = 0; i < n; i++)
     if (!ok[i] || !close_to(out[i].value, want[i])) {
-      print_error("line %d: series label \"%s\" ok %d value %.17g want %.17g\n", line,
-                  labels[i], ok[i], out[i].value, want[i]);
+      print_error("line %d: series label \"%s\" ok %d value %.17g want %.17g\n", line, labels[i],
+                  ok[i], out[i].value, want[i]);
       fail();
     }
   assert_int_equal(got, n);
 }
 
-static void test_series(void **state)
-{
+static void test_series(void **state) {
   (void)state;
   /* the brief's two examples */
   const char *comma_dec[] = {"1,5", "2,0", "2,5"};
@@ -760,8 +733,7 @@ static void test_series(void **state)
   assert_int_equal(pp_number_parse_series(NULL, 0, NULL, NULL), 0);
 }
 
-int main(void)
-{
+int main(void) {
   const struct CMUnitTest tests[] = {
       cmocka_unit_test(test_bare_power_of_ten),
       cmocka_unit_test(test_cldr_en),
