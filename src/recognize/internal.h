@@ -242,6 +242,11 @@ gboolean pp_slices_tile_turn(GArray *slices, double tol);
 void pp_slice_set_value(pp_element *el, const pp_slice *s);
 /* Shares of numbers printed as values (not percentages): value / sum. */
 void pp_slices_value_shares(pp_figure *fig);
+/* Every pie family ends alike: value shares, the tiling evidence, then judged only when
+ * every one of the n slices carries a printed number (labels_evidence names how), the
+ * claims committed and the figure finished. */
+void pp_slices_finish(pp_recognize_ctx *ctx, pp_figure *fig, guint labelled, guint n,
+                      const char *labels_evidence);
 
 /* ---- The recognizers (one file each; listed in recognizers.c) ----------------------- */
 void pp_recognize_bars(pp_recognize_ctx *ctx);          /* bars.c */

@@ -190,21 +190,10 @@ static void build(pp_recognize_ctx *ctx, GArray *cands, GArray *slices) {
     fig->bbox = pp_rect_union(fig->bbox, s->box);
     g_array_append_val(fig->elements, el);
   }
-  pp_slices_value_shares(fig);
-  fig->n_series = fig->elements->len;
-  pp_figure_add_evidence(fig, "wedges-tile-turn", 0.9);
-  if (labelled == slices->len) {
-    pp_figure_add_evidence(fig,
-                           legend      ? "legend"
-                           : n_percent ? "percent-labels"
-                                       : "data-labels",
-                           0.9);
-  } else {
-    fig->judged = FALSE;
-    fig->not_judged_reason = g_strdup("slices without a printed share or value");
-  }
-  pp_claims_commit(ctx->claims);
-  pp_figure_finish(ctx, fig, NULL);
+  pp_slices_finish(ctx, fig, labelled, slices->len,
+                   legend      ? "legend"
+                   : n_percent ? "percent-labels"
+                               : "data-labels");
 }
 
 void pp_recognize_pies(pp_recognize_ctx *ctx) {

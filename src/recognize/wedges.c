@@ -361,3 +361,18 @@ void pp_slices_value_shares(pp_figure *fig) {
       e->share = e->label_value / total;
   }
 }
+
+void pp_slices_finish(pp_recognize_ctx *ctx, pp_figure *fig, guint labelled, guint n,
+                      const char *labels_evidence) {
+  pp_slices_value_shares(fig);
+  fig->n_series = fig->elements->len;
+  pp_figure_add_evidence(fig, "wedges-tile-turn", 0.9);
+  if (labelled == n) {
+    pp_figure_add_evidence(fig, labels_evidence, 0.9);
+  } else {
+    fig->judged = FALSE;
+    fig->not_judged_reason = g_strdup("slices without a printed share or value");
+  }
+  pp_claims_commit(ctx->claims);
+  pp_figure_finish(ctx, fig, NULL);
+}
