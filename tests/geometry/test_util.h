@@ -46,6 +46,27 @@ static inline cairo_fill_rule_t tu_cairo_rule(pp_fill_rule r) {
   return r == PP_FILL_EVEN_ODD ? CAIRO_FILL_RULE_EVEN_ODD : CAIRO_FILL_RULE_WINDING;
 }
 
+/* Σ coverage of cairo's non-zero fill of p on a size×size pt square, rendered at
+ * `scale` pixels per point, in pt²: the pixel-count reference of the geometry tests. */
+static inline double tu_cairo_fill_coverage(const pp_path *p, int size, int scale) {
+  int px = size * scale;
+  cairo_surface_t *s = cairo_image_surface_create(CAIRO_FORMAT_A8, px, px);
+  cairo_t *cr = cairo_create(s);
+  cairo_scale(cr, scale, scale);
+  tu_path_to_cairo(cr, p);
+  cairo_fill(cr);
+  cairo_surface_flush(s);
+  const unsigned char *data = cairo_image_surface_get_data(s);
+  int stride = cairo_image_surface_get_stride(s);
+  double sum = 0;
+  for (int y = 0; y < px; y++)
+    for (int x = 0; x < px; x++)
+      sum += data[y * stride + x] / 255.0;
+  cairo_destroy(cr);
+  cairo_surface_destroy(s);
+  return sum / ((double)scale * scale);
+}
+
 /* A cairo context on a throw-away surface, used only to build paths. */
 static inline cairo_t *tu_path_context(void) {
   cairo_surface_t *s = cairo_image_surface_create(CAIRO_FORMAT_A8, 1, 1);

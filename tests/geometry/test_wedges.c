@@ -344,22 +344,7 @@ static void test_other_shapes(void **state) {
 
 /* Σ coverage of cairo's fill at 4×, square points (as in test_raster.c). */
 static double cairo_ink(const pp_path *p, int size) {
-  int px = size * 4;
-  cairo_surface_t *s = cairo_image_surface_create(CAIRO_FORMAT_A8, px, px);
-  cairo_t *cr = cairo_create(s);
-  cairo_scale(cr, 4, 4);
-  tu_path_to_cairo(cr, p);
-  cairo_fill(cr);
-  cairo_surface_flush(s);
-  const unsigned char *data = cairo_image_surface_get_data(s);
-  int stride = cairo_image_surface_get_stride(s);
-  double sum = 0;
-  for (int y = 0; y < px; y++)
-    for (int x = 0; x < px; x++)
-      sum += data[y * stride + x] / 255.0;
-  cairo_destroy(cr);
-  cairo_surface_destroy(s);
-  return sum / 16;
+  return tu_cairo_fill_coverage(p, size, 4);
 }
 
 /* Source: cairo pixel counts. Areas from the recovered wedges match cairo's coverage; rings
