@@ -35,6 +35,12 @@
 #define PP_SYMBOL_TICK_STEP_SHARE 0.01
 /* Fewest symbols that make a chart rather than a pair of decorations (common practice). */
 #define PP_SYMBOL_MIN_COUNT 3
+/* Sizes that stand for the numbers follow them by a power law (area ∝ value^k, k > 0):
+ * symbols whose log-log fit explains less than this share of the variance carry numbers
+ * that are not their sizes (icons, arrows and boxes beside numbers in a manual), so the
+ * figure is seen, not judged. Rounded labels on real bubbles keep R² near 1 (common
+ * practice, no source). */
+#define PP_SYMBOL_MIN_FIT_R2 0.9
 /* Symbols smaller than this, pt², are dots and glyph parts, not sized symbols. */
 #define PP_SYMBOL_MIN_INK 4.0
 /* Colours of one family agree within this per channel (same as bar series). */
@@ -304,6 +310,26 @@ static gboolean evenly_stepped(const pp_axis_candidate *a) {
   return TRUE;
 }
 
+/* Sizes must grow with the printed numbers before their ink is judged against them. */
+static void weigh_size_law(pp_figure *fig) {
+  guint n = fig->elements->len;
+  g_autofree double *v = g_new(double, MAX(n, 1));
+  g_autofree double *g = g_new(double, MAX(n, 1));
+  for (guint i = 0; i < n; i++) {
+    const pp_element *e = &g_array_index(fig->elements, pp_element, i);
+    v[i] = e->value, g[i] = e->ink;
+  }
+  pp_power_fit fit;
+  if (n >= 2 && pp_power_fit_compute(v, g, n, &fit) && fit.exponent > 0 &&
+      fit.r2 >= PP_SYMBOL_MIN_FIT_R2) {
+    pp_figure_add_evidence(fig, "size-follows-numbers", fit.r2);
+    return;
+  }
+  fig->judged = FALSE;
+  fig->not_judged_reason =
+      g_strdup("symbol sizes do not grow with their numbers: the numbers are not sizes");
+}
+
 static void build(pp_recognize_ctx *ctx, GArray *syms, int family, int n_families) {
   guint n = 0;
   double lo = INFINITY, hi = 0;
@@ -386,6 +412,7 @@ static void build(pp_recognize_ctx *ctx, GArray *syms, int family, int n_familie
   fig->n_series = 1;
   pp_figure_add_evidence(fig, "symbol-family", 1);
   pp_figure_add_evidence(fig, by_key ? "size-key" : "data-labels", 1);
+  weigh_size_law(fig);
   pp_claims_commit(ctx->claims);
   pp_figure_finish(ctx, fig, NULL);
 }
