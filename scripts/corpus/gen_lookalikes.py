@@ -707,6 +707,32 @@ def outline_bars_truncated(rng):
     return fig, [f]
 
 
+@case
+def manual_step_arrows(rng):
+    """A manual's how-to page: step arrows drawn at whatever size the layout gives them,
+    each holding its step number, with a rounded box of notes beside each. Their sizes
+    do not grow with their numbers, so they are not a symbol chart."""
+    fig, ax, W, H = canvas()
+    outline = [(0, 8), (26, 8), (26, 0), (44, 16), (26, 32), (26, 24), (0, 24)]
+    sizes = [1.0, 1.7, 1.2, 1.5, 0.8]  # log-log fit of size on step: R² 0.01
+    notes = ["Unpack the crate", "Fit the hinge", "Oil the rope", "Tighten bolts",
+             "Check the seal"]
+    for k, s in enumerate(sizes):
+        n, x, y = k + 1, 20 + 88 * k, 60
+        ax.add_patch(Polygon([(x + s * px, y + s * py) for px, py in outline], closed=True,
+                             facecolor="#3a6fb0", lw=0))
+        ax.text(x + 10 * s, y + 19 * s, str(n), color="white", fontsize=9, weight="bold")
+        ax.add_patch(FancyBboxPatch((x, 170), 76, 40, boxstyle="round,pad=2",
+                                    facecolor="#eef2f7", edgecolor="#3a6fb0", lw=0.8))
+        ax.text(x + 4, 186, "Step %d" % n, fontsize=8)
+        ax.text(x + 4, 200, notes[k], fontsize=7)
+    ax.text(20, 250, "Kestrel Orchards press, assembly guide, page %d" % rng.randint(4, 40),
+            fontsize=8)
+    bbox = box_of(fig, ax)
+    return fig, [nonchart("other", bbox, "step arrows of several sizes with step numbers "
+                          "inside and note boxes: sizes do not follow the numbers")]
+
+
 def main():
     os.makedirs(OUT, exist_ok=True)
     for n, fn in enumerate(CASES):
