@@ -1,7 +1,7 @@
 /* evidence.c — whether a figure a recognizer built is a chart at all, before any rule
  * judges it. Bars and areas are looked at for what tables, listings, tags, calendars,
- * tiles, swatches, rules, shadows and text boxes have and charts do not; a figure that
- * shows one of those is kept as "seen, not judged" with the reason, never a finding. */
+ * tiles, swatches, rules, shadows, text boxes, KPI cards, diagrams and maps have and
+ * charts do not; a figure that shows one is kept as "seen, not judged" with the reason. */
 #include <math.h>
 #include <string.h>
 
@@ -43,6 +43,10 @@
  * (common practice, no source). */
 #define PP_EVIDENCE_FLAT_TOL 0.01
 #define PP_EVIDENCE_FLAT_SHARE 0.8
+
+/* Passing every check above rules out what they look for and nothing more: its weight
+ * in the confidence (common practice, no source). */
+#define PP_EVIDENCE_LOOKALIKE_WEIGHT 0.5
 
 static gboolean is_number(const char *text) {
   pp_number num;
@@ -295,6 +299,123 @@ static const char *flat_area(const pp_figure *f) {
   return is_flat ? "flat top: a box with rounded corners, not a series" : NULL;
 }
 
+/* KPI cards and callouts hold their number inside the box in a headline size: a
+ * report's body text and a chart's data labels are 7–14 pt, a card's figure 18–40 pt
+ * (common practice, no source). Every labelled mark holding such a number makes cards. */
+#define PP_EVIDENCE_KPI_FONT 16.0
+
+/* The data label paired with e, as found among the page's labels. */
+static const pp_label *data_label_of(const pp_recognize_ctx *ctx, const pp_element *e) {
+  for (guint k = 0; e->label_text && k < ctx->labels->len; k++) {
+    const pp_label *l = g_ptr_array_index(ctx->labels, k);
+    if (strcmp(l->text, e->label_text) == 0 &&
+        g_strcmp0(pp_claims_label_owner(ctx->claims, l->index), PP_OWNER_DATA_LABEL) == 0)
+      return l;
+  }
+  return NULL;
+}
+
+static const char *kpi_cards(const pp_recognize_ctx *ctx, const pp_figure *f) {
+  guint labelled = 0, big = 0;
+  for (guint i = 0; i < f->elements->len; i++) {
+    const pp_element *e = &g_array_index(f->elements, pp_element, i);
+    const pp_label *l = data_label_of(ctx, e);
+    if (!l)
+      continue;
+    labelled++;
+    big += l->size >= PP_EVIDENCE_KPI_FONT && pp_rect_contains(e->box, l->box, PP_SAME_EDGE_TOL);
+  }
+  return labelled >= 2 && big == labelled
+             ? "big numbers inside the boxes: KPI cards or callouts, not data labels"
+             : NULL;
+}
+
+/* A connector leaves a box's side (the edge along the value axis, away from its corners)
+ * outwards and ends at another box's side: arrowheads stop this far short of the box, pt
+ * (common practice, no source). Diagrams join at least this share of their neighbours
+ * (and two pairs); a line series drawn over bars joins tops, not sides. */
+#define PP_EVIDENCE_CONNECTOR_REACH 8.0
+#define PP_EVIDENCE_CONNECTED_SHARE 0.5
+
+/* The open stroke's two ends, FALSE for closed or empty paths. */
+static gboolean stroke_ends(const pp_mark *m, pp_point *a, pp_point *b) {
+  const pp_path *p = m->path;
+  if (m->kind != PP_MARK_STROKE || !p || p->n_segs < 2 || p->segs[0].kind != PP_SEG_MOVE)
+    return FALSE;
+  *a = p->segs[0].pt[0];
+  for (size_t i = 1; i < p->n_segs; i++) {
+    if (p->segs[i].kind == PP_SEG_CLOSE || p->segs[i].kind == PP_SEG_MOVE)
+      return FALSE;
+    *b = p->segs[i].pt[p->segs[i].kind == PP_SEG_CURVE ? 2 : 0];
+  }
+  return TRUE;
+}
+
+/* The element whose side the point p leaves from towards q, or -1. */
+static int side_of(const pp_figure *f, pp_point p, pp_point q) {
+  gboolean vertical = f->kind == PP_FIGURE_COLUMN;
+  for (guint i = 0; i < f->elements->len; i++) {
+    pp_frame_rect r = pp_frame_of(g_array_index(f->elements, pp_element, i).box, vertical);
+    double pu = vertical ? p.y : p.x, pw = vertical ? p.x : p.y, qw = vertical ? q.x : q.y;
+    double inset = PP_SAME_EDGE_TOL;
+    if (pu <= r.u0 + inset || pu >= r.u1 - inset)
+      continue; /* at a corner, the baseline or the tip: not a side */
+    if ((pw >= r.w1 - inset && pw <= r.w1 + PP_EVIDENCE_CONNECTOR_REACH && qw > r.w1) ||
+        (pw <= r.w0 + inset && pw >= r.w0 - PP_EVIDENCE_CONNECTOR_REACH && qw < r.w0))
+      return (int)i;
+  }
+  return -1;
+}
+
+static const char *joined_by_connectors(const pp_recognize_ctx *ctx, const pp_figure *f) {
+  guint joined = 0;
+  for (guint k = 0; k < ctx->scene->marks->len; k++) {
+    pp_point a, b;
+    if (!stroke_ends(g_ptr_array_index(ctx->scene->marks, k), &a, &b))
+      continue;
+    int i = side_of(f, a, b), j = side_of(f, b, a);
+    joined += i >= 0 && j >= 0 && i != j;
+  }
+  guint n = f->elements->len;
+  return joined >= 2 && joined >= PP_EVIDENCE_CONNECTED_SHARE * (n - 1)
+             ? "boxes joined by connectors: a diagram, not bars"
+             : NULL;
+}
+
+/* Series of one chart share the category axis; regions standing side by side (across
+ * less than this share of the narrower one, level over more than it), not both on one
+ * floor, tile a plane: a map or a diagram (common practice, no source). */
+#define PP_EVIDENCE_SIDE_BY_SIDE 0.5
+
+static const char *side_by_side_regions(const pp_recognize_ctx *ctx, const pp_figure *f) {
+  guint n = f->n_series;
+  g_autofree pp_rect *box = g_new(pp_rect, MAX(n, 1));
+  g_autofree gboolean *floor = g_new(gboolean, MAX(n, 1));
+  for (guint s = 0; s < n; s++)
+    box[s] = pp_rect_empty(), floor[s] = TRUE;
+  for (guint i = 0; i < f->elements->len; i++) {
+    const pp_element *e = &g_array_index(f->elements, pp_element, i);
+    if (e->series >= n || e->parts->len == 0)
+      continue;
+    const pp_mark *m =
+        g_ptr_array_index(ctx->scene->marks, g_array_index(e->parts, pp_part, 0).mark);
+    box[e->series] = m->visible_bbox;
+    floor[e->series] &= !e->stacked;
+  }
+  for (guint s = 0; s < n; s++)
+    for (guint t = s + 1; t < n; t++) {
+      pp_rect a = box[s], b = box[t];
+      if (pp_rect_is_empty(a) || pp_rect_is_empty(b) || (floor[s] && floor[t]))
+        continue;
+      double across = fmin(a.x1, b.x1) - fmax(a.x0, b.x0);
+      double level = fmin(a.y1, b.y1) - fmax(a.y0, b.y0);
+      if (across < PP_EVIDENCE_SIDE_BY_SIDE * fmin(pp_rect_width(a), pp_rect_width(b)) &&
+          level > PP_EVIDENCE_SIDE_BY_SIDE * fmin(pp_rect_height(a), pp_rect_height(b)))
+        return "regions side by side, not series over one axis: a map or a diagram";
+    }
+  return NULL;
+}
+
 static void not_judged(pp_figure *f, const char *reason) {
   f->judged = FALSE;
   g_free(f->not_judged_reason);
@@ -308,14 +429,15 @@ void pp_figure_weigh(pp_recognize_ctx *ctx, pp_figure *f) {
     if (!(reason = thin_marks(f)) && !(reason = equal_lengths(f)) && !(reason = uneven_widths(f)) &&
         !(reason = directions_disagree(f)) && !(reason = far_from_scale(f)) &&
         !(reason = unnamed_pair(f)) && !(reason = text_on_marks(ctx->scene, f)) &&
-        !(reason = body_text(ctx->scene, f)) && !(reason = shadows(ctx, f)))
+        !(reason = body_text(ctx->scene, f)) && !(reason = shadows(ctx, f)) &&
+        !(reason = kpi_cards(ctx, f)) && !(reason = joined_by_connectors(ctx, f)))
       reason = label_doubts(ctx, f);
   } else if (f->kind == PP_FIGURE_AREA) {
-    if (!(reason = flat_area(f)))
+    if (!(reason = flat_area(f)) && !(reason = side_by_side_regions(ctx, f)))
       reason = body_text(ctx->scene, f);
   }
   if (reason)
     not_judged(f, reason);
   else if (is_bar_figure(f) || f->kind == PP_FIGURE_AREA)
-    pp_figure_add_evidence(f, "not-a-lookalike", 1);
+    pp_figure_add_evidence(f, "not-a-lookalike", PP_EVIDENCE_LOOKALIKE_WEIGHT);
 }

@@ -189,6 +189,10 @@ pp_figure *pp_bars_build(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *sca
                          gboolean vertical, double base, const char *owner);
 /* Legend keys: swatches of one size, each named beside it. */
 gboolean pp_bars_legend_like(const pp_scene *scene, const pp_figure *fig);
+/* Evidence of a bar layout: the shared baseline and how regularly the bars of each series
+ * are spaced (pp_bars_spacing_regularity: share of regular gaps, NAN with too few bars). */
+double pp_bars_spacing_regularity(const pp_figure *fig);
+void pp_bars_weigh_layout(pp_figure *fig);
 /* Claims the free labels of an axis for a figure built on it. */
 void pp_axis_claim_labels(pp_recognize_ctx *ctx, const pp_axis_candidate *axis);
 /* An axis is taken when every one of its labels is held (by a figure built on it). */

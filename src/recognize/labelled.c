@@ -7,6 +7,11 @@
 
 #define OWNER "labelled-bars"
 
+/* How much a printed number on every bar says, placed at each bar's end and read as one
+ * format: strong, but a table's shaded cells carry numbers too (common practice, no
+ * source). */
+#define PP_EVIDENCE_LABELS_WEIGHT 0.7
+
 /* Bars of one chart have one width, within this share of it plus PP_LABELLED_WIDTH_SLACK
  * points (producers' rounding; common practice, no source). */
 #define PP_LABELLED_WIDTH_SHARE 0.05
@@ -64,8 +69,8 @@ static gboolean find_one(pp_recognize_ctx *ctx) {
           el->value = el->label_value;
           el->source = PP_VALUE_DATA_LABEL;
         }
-        pp_figure_add_evidence(fig, "shared-baseline", 1);
-        pp_figure_add_evidence(fig, "data-labels", 1);
+        pp_bars_weigh_layout(fig);
+        pp_figure_add_evidence(fig, "data-labels", PP_EVIDENCE_LABELS_WEIGHT);
         pp_figure_finish(ctx, fig, NULL);
         return TRUE;
       }

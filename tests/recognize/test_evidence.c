@@ -256,6 +256,135 @@ static void count_symbols(drawing draw, guint *seen, guint *judged, const char *
   pp_page_charts_free(charts);
 }
 
+/* KPI cards: boxes of a dashboard standing on one line, each holding its figure in a
+ * 26 pt headline size, its name under it. */
+static void draw_kpi_cards(cairo_t *cr) {
+  static const double h[] = {90, 110, 100, 120};
+  static const char *figure[] = {"412", "961", "58", "37"};
+  static const char *name[] = {"Crossings", "Berths", "Ferries", "Delays"};
+  for (int i = 0; i < 4; i++) {
+    double x = 80 + 125 * i;
+    box(cr, x, 300 - h[i], 110, h[i], 0.75);
+    cairo_set_font_size(cr, 26);
+    text_at(cr, x + 30, 300 - h[i] / 2 + 9, figure[i]);
+    cairo_set_font_size(cr, 9);
+    text_at(cr, x + 30, 315, name[i]);
+  }
+}
+
+static void test_kpi_cards(void **state) {
+  (void)state;
+  expect_not_judged(draw_kpi_cards, "KPI cards");
+}
+
+/* A state diagram: boxes sized by their layout, standing on one line, each numbered, and
+ * arrows from each box's right side to the next box's left side (shaft stopping 6 pt
+ * short, a filled head). */
+static void draw_connected_boxes(cairo_t *cr) {
+  static const double h[] = {50, 80, 65, 95};
+  static const char *code[] = {"200", "301", "404", "503"};
+  for (int i = 0; i < 4; i++) {
+    double x = 100 + 100 * i;
+    box(cr, x, 400 - h[i], 60, h[i], 0.85);
+    text_at(cr, x + 22, 400 - h[i] + 12, code[i]);
+    if (i == 3)
+      continue;
+    cairo_set_source_rgb(cr, 0, 0, 0);
+    cairo_set_line_width(cr, 0.8);
+    cairo_move_to(cr, x + 60, 380);
+    cairo_line_to(cr, x + 94, 380);
+    cairo_stroke(cr);
+    cairo_move_to(cr, x + 94, 377);
+    cairo_line_to(cr, x + 100, 380);
+    cairo_line_to(cr, x + 94, 383);
+    cairo_close_path(cr);
+    cairo_fill(cr);
+  }
+}
+
+static void test_connected_boxes(void **state) {
+  (void)state;
+  expect_not_judged(draw_connected_boxes, "connectors");
+}
+
+/* A choropleth map of four districts tiling a frame, with a numeric scale of its colour
+ * classes in a column to its left. */
+static void draw_map(cairo_t *cr) {
+  static const double region[4][4][2] = {
+      {{100, 120}, {250, 130}, {240, 260}, {100, 250}},
+      {{250, 130}, {400, 120}, {400, 270}, {240, 260}},
+      {{100, 250}, {240, 260}, {250, 400}, {100, 400}},
+      {{240, 260}, {400, 270}, {400, 400}, {250, 400}},
+  };
+  for (int r = 0; r < 4; r++) {
+    cairo_set_source_rgb(cr, 0.3 + 0.15 * r, 0.6, 0.4);
+    cairo_move_to(cr, region[r][0][0], region[r][0][1]);
+    for (int k = 1; k < 4; k++)
+      cairo_line_to(cr, region[r][k][0], region[r][k][1]);
+    cairo_close_path(cr);
+    cairo_fill(cr);
+  }
+  for (int k = 0; k < 5; k++) {
+    char buf[16];
+    g_snprintf(buf, sizeof buf, "%d", 250 * k);
+    text_at(cr, 60, 403 - 70 * k, buf);
+  }
+}
+
+static void test_map(void **state) {
+  (void)state;
+  expect_not_judged(draw_map, "map");
+}
+
+/* The same labelled bars placed at irregular positions (gaps 30, 90, 20 pt). */
+static void draw_irregular_chart(cairo_t *cr) {
+  static const double v[] = {12, 30, 21, 45}, x[] = {100, 130, 220, 240};
+  static const char *names[] = {"Tern", "Gull", "Skua", "Auk"};
+  for (int i = 0; i < 4; i++) {
+    double h = 4 * v[i];
+    box(cr, x[i], 400 - h, 16, h, 0.3);
+    char buf[16];
+    g_snprintf(buf, sizeof buf, "%g", v[i]);
+    text_at(cr, x[i] + 2, 400 - h - 3, buf);
+    text_at(cr, x[i], 412, names[i]);
+  }
+}
+
+/* The one column figure's score for the evidence `what` (NAN when absent) and its
+ * confidence. */
+static double column_evidence(drawing draw, const char *what, double *confidence) {
+  pp_page_charts *charts = recognise(draw);
+  double score = NAN;
+  guint n = 0;
+  for (guint i = 0; i < charts->figures->len; i++) {
+    const pp_figure *f = g_ptr_array_index(charts->figures, i);
+    if (f->kind != PP_FIGURE_COLUMN)
+      continue;
+    n++;
+    *confidence = f->confidence;
+    for (guint k = 0; k < f->evidence->len; k++)
+      if (strcmp(g_array_index(f->evidence, pp_evidence, k).what, what) == 0)
+        score = g_array_index(f->evidence, pp_evidence, k).score;
+  }
+  assert_int_equal(n, 1);
+  pp_page_charts_free(charts);
+  return score;
+}
+
+/* Regular spacing is evidence of a bar chart and enters the confidence: bars drawn at one
+ * pitch (every gap equal by construction) score higher than the same bars at gaps of 30,
+ * 90 and 20 pt (one gap of three within 10% of the median), and the confidence follows. */
+static void test_spacing_in_confidence(void **state) {
+  (void)state;
+  double c_regular = 0, c_irregular = 0;
+  double regular = column_evidence(draw_labelled_chart, "regular-spacing", &c_regular);
+  double irregular = column_evidence(draw_irregular_chart, "regular-spacing", &c_irregular);
+  assert_true(regular > 0);
+  assert_true(isnan(irregular) || irregular < regular / 2);
+  assert_true(c_irregular < c_regular);
+  assert_true(c_regular > 0 && c_regular < 1);
+}
+
 /* Symbols are judged only when their sizes follow their numbers by a power law (log-log
  * fit, exponent > 0, R² ≥ 0.9; src/recognize/symbols.c): the manual's arrows are read as
  * a symbol family (so the check is reached) but not judged. */
@@ -288,6 +417,10 @@ int main(void) {
       cmocka_unit_test(test_chart_stays_judged),
       cmocka_unit_test(test_symbols_sizes_not_numbers),
       cmocka_unit_test(test_symbols_sizes_follow_numbers),
+      cmocka_unit_test(test_kpi_cards),
+      cmocka_unit_test(test_connected_boxes),
+      cmocka_unit_test(test_map),
+      cmocka_unit_test(test_spacing_in_confidence),
   };
   return cmocka_run_group_tests(tests, NULL, NULL);
 }
