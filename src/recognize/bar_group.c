@@ -67,7 +67,8 @@ static int cmp_element(gconstpointer a, gconstpointer b, gpointer vertical) {
 
 /* Category label: the nearest word outside the plot, beyond the baseline, centred on
  * (or, when rotated, ending at) the bar. */
-static char *find_category(const pp_scene *scene, pp_rect bar, pp_rect plot, gboolean vertical) {
+static char *find_category(const pp_scene *scene, pp_rect bar, pp_rect plot, gboolean vertical,
+                           double *dist) {
   const pp_text_run *best = NULL;
   double best_d = INFINITY;
   for (guint i = 0; i < scene->words->len; i++) {
@@ -92,6 +93,8 @@ static char *find_category(const pp_scene *scene, pp_rect bar, pp_rect plot, gbo
       best = w;
     }
   }
+  if (dist)
+    *dist = best_d;
   if (!best)
     return NULL;
   /* Multi-word categories ("North Sea") continue on the same line: to the right under a
@@ -121,6 +124,47 @@ static char *find_category(const pp_scene *scene, pp_rect bar, pp_rect plot, gbo
     }
   }
   return g_string_free(s, FALSE);
+}
+
+/* Bars of one group (one per series, side by side) may stand apart, their category
+ * centred under the gap between them: the gap inside a group is at most this share of a
+ * bar's width, and a group never holds a series twice (common practice, no source). */
+#define PP_GROUP_MAX_GAP_SHARE 1.0
+
+/* A group takes the category centred under it when that is nearer than the ones its bars
+ * found alone (a footnote below the year, say). */
+static void find_group_categories(const pp_scene *scene, pp_figure *fig, pp_rect plot,
+                                  gboolean vertical) {
+  guint n = fig->elements->len;
+  for (guint start = 0, end; start < n; start = end) {
+    pp_element *first = &g_array_index(fig->elements, pp_element, start);
+    pp_rect span = first->box;
+    guint64 seen = 1ull << MIN(first->series, 63u);
+    for (end = start + 1; end < n; end++) {
+      pp_element *prev = &g_array_index(fig->elements, pp_element, end - 1);
+      pp_element *e = &g_array_index(fig->elements, pp_element, end);
+      pp_frame_rect a = pp_frame_of(prev->box, vertical), b = pp_frame_of(e->box, vertical);
+      guint64 bit = 1ull << MIN(e->series, 63u);
+      if ((seen & bit) || b.w0 - a.w1 > PP_GROUP_MAX_GAP_SHARE * fmin(a.w1 - a.w0, b.w1 - b.w0))
+        break;
+      seen |= bit;
+      span = pp_rect_union(span, e->box);
+    }
+    if (end - start < 2)
+      continue;
+    double d = INFINITY;
+    char *category = find_category(scene, span, plot, vertical, &d);
+    for (guint i = start; category && i < end; i++) {
+      pp_element *e = &g_array_index(fig->elements, pp_element, i);
+      double own = INFINITY;
+      g_autofree char *alone = find_category(scene, e->box, plot, vertical, &own);
+      if (d < own) {
+        g_free(e->category);
+        e->category = g_strdup(category);
+      }
+    }
+    g_free(category);
+  }
 }
 
 /* A data label sits at the bar's tip, just beyond it or just inside it; never at
@@ -232,8 +276,9 @@ pp_figure *pp_bars_build(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *sca
   fig->bbox = plot;
   for (guint i = 0; i < fig->elements->len; i++) {
     pp_element *e = &g_array_index(fig->elements, pp_element, i);
-    e->category = find_category(scene, e->box, plot, vertical);
+    e->category = find_category(scene, e->box, plot, vertical, NULL);
   }
+  find_group_categories(scene, fig, plot, vertical);
   attach_data_labels(ctx, fig, vertical, base);
   return fig;
 }

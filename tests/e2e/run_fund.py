@@ -30,6 +30,9 @@ SOURCES = {
     "fund-clipped": "Annex III point 2: the scale adapted to the span of the bars",
     "fund-squeezed": "Annex III point 2: the scale shall not compress the bars",
     "fund-gap-dropped": "Article 15 (from memory): years without data shown as gaps",
+    "fund-apart": "Article 15 (from memory): years read under fund and benchmark bars set apart",
+    "fund-apart-gap-dropped": "Article 15 (from memory): years without data shown as gaps, "
+    "bars set apart",
 }
 failures = []
 
