@@ -436,8 +436,8 @@ def bar3d_grid(seed, honest):
     nearer bars hiding parts of those behind. Honest as a 3D chart can be: thin columns
     seen from low down, values within a narrow band, no bar hiding another. Truth: each
     bar's eight corners on the page (matplotlib's own projection of the data, display
-    units) and its depth; scripts/corpus/truth_shapes.py takes the faces seen, less what
-    nearer bars hide."""
+    units) and view depths; scripts/corpus/truth_shapes.py takes the faces seen, less what
+    bars drawn over them hide."""
     def build():
         from mpl_toolkits.mplot3d import proj3d
         rng = rng_of(seed)
@@ -473,7 +473,7 @@ def bar3d_grid(seed, honest):
             px, py, pz = proj3d.proj_transform(*zip(*pts), M)
             scr = ax.transData.transform(list(zip(px, py)))
             corners.append([[round(float(a), 4), round(float(b), 4)] for a, b in scr])
-            depth.append(round(float(sum(pz) / len(pz)), 6))
+            depth.append([round(float(z), 6) for z in pz])
         d = {"kind": "bar-3d", "misleading": not honest,
              "rule": None if honest else "bars-3d-ink", "values": v,
              "labels": ["%s/%s" % (c, r) for r in rows for c in cols],

@@ -119,15 +119,20 @@ def _hidden(face, covers):
 
 def box_faces_seen(solid):
     """mplot3d bar3d boxes: per bar, (vertical faces seen, top seen) in display units².
-    A face is seen when its outline keeps its outward turn on the page (back-face test);
-    what nearer bars (smaller view depth: matplotlib draws the furthest first) cover is
-    taken off."""
+    A face is seen when its outline keeps its outward turn on the page (back-face test).
+    mplot3d paints faces furthest first by the mean view depth of their corners (its
+    painter's algorithm); a bar is painted over another when its nearest seen face is
+    nearer than the other's, and what it covers is taken off."""
     corners, depth, faces = solid["corners"], solid["depth"], solid["faces"]
     hulls = [_hull(c) for c in corners]
+    near = []
+    for c, z in zip(corners, depth):
+        seen = [idx for idx in faces.values() if _signed([tuple(c[k]) for k in idx]) > 0]
+        near.append(min(sum(z[k] for k in idx) / 4 for idx in seen))
     out = []
     for i, c in enumerate(corners):
         covers = [hulls[j] for j in range(len(corners))
-                  if j != i and depth[j] < depth[i]
+                  if j != i and near[j] < near[i]
                   and len(_clip_convex(hulls[i], hulls[j])) >= 3]
         vert = top = 0.0
         for name, idx in faces.items():
