@@ -229,6 +229,9 @@ typedef struct {
   pp_rect box;
   const pp_label *label; /* its printed number, NULL if none */
   char *category;        /* owned */
+  pp_rect face;          /* perspective: the whole pie's top-face box, distances then read
+                          * on quarter ellipses about the apex; empty: on ellipse */
+  double drop;           /* depth of the rim below the face, pt (names sit below it) */
 } pp_slice;
 
 void pp_slice_coords(const pp_ellipse *e, pp_point p, double *angle, double *dist);
