@@ -27,17 +27,11 @@ typedef struct {
 } edge;
 
 typedef struct {
-  const pp_path *path;
-  pp_fill_rule rule;
-  pp_rect box;
-} region;
-
-typedef struct {
   GArray *edges; /* of edge */
   edge **act;
   size_t n_act;
   guint n_reg;
-  const region *regs;
+  const pp_region *regs;
   int *wind;
   double eps_y, tol_x;
 } sweep;
@@ -478,7 +472,7 @@ static int cmp_edge_ya(const void *a, const void *b) {
 }
 
 /* Area of the intersection of all regions, each (path, rule). */
-static double sweep_area(const region *regs, guint n_reg) {
+double pp_sweep_area(const pp_region *regs, guint n_reg) {
   sweep s = {0};
   s.edges = g_array_new(FALSE, FALSE, sizeof(edge));
   s.regs = regs;
@@ -531,58 +525,5 @@ static double sweep_area(const region *regs, guint n_reg) {
     g_free(s.wind);
   }
   g_array_free(s.edges, TRUE);
-  return area;
-}
-
-double pp_path_clipped_area(const pp_path *path, pp_fill_rule rule, const pp_clip *clip) {
-  if (!path)
-    return 0;
-  if (!pp_path_is_finite(path))
-    return NAN;
-  for (const pp_clip *c = clip; c; c = c->parent)
-    if (c->path && !pp_path_is_finite(c->path))
-      return NAN;
-  pp_rect pbox = pp_path_bbox(path);
-  if (pp_rect_is_empty(pbox))
-    return 0;
-  /* Rectangular clips (the common case: plot areas) collapse into one box. */
-  pp_rect box = {-INFINITY, -INFINITY, INFINITY, INFINITY};
-  GArray *regs = g_array_new(FALSE, FALSE, sizeof(region));
-  region main = {path, rule, pbox};
-  g_array_append_val(regs, main);
-  for (const pp_clip *c = clip; c; c = c->parent) {
-    pp_rect r;
-    if (!c->path) {
-      continue;
-    } else if (pp_path_is_rectangle(c->path, 0, &r)) {
-      box = pp_rect_intersect(box, r);
-    } else {
-      region g = {c->path, c->rule, pp_path_bbox(c->path)};
-      if (pp_rect_is_empty(g.box) || pp_rect_is_empty(pp_rect_intersect(g.box, pbox))) {
-        g_array_free(regs, TRUE);
-        return 0;
-      }
-      g_array_append_val(regs, g);
-    }
-  }
-  double area;
-  pp_rect prect;
-  pp_rect hit = pp_rect_intersect(box, pbox);
-  if (pp_rect_is_empty(hit)) {
-    area = 0;
-  } else if (regs->len == 1 && pp_path_is_rectangle(path, 0, &prect)) {
-    area = pp_rect_area(pp_rect_intersect(prect, box)); /* rect ∩ rect: O(1) */
-  } else {
-    pp_path *box_path = NULL;
-    if (!pp_rect_contains(box, pbox, 0)) {
-      box_path = pp_path_new();
-      pp_path_rectangle(box_path, hit.x0, hit.y0, hit.x1 - hit.x0, hit.y1 - hit.y0);
-      region b = {box_path, PP_FILL_NONZERO, hit};
-      g_array_append_val(regs, b);
-    }
-    area = sweep_area((const region *)regs->data, regs->len);
-    pp_path_free(box_path);
-  }
-  g_array_free(regs, TRUE);
   return area;
 }
