@@ -307,21 +307,44 @@ static void add_sample(search *q, node_end n) {
     q->found = TRUE;
 }
 
-/* The piece's control hull between two ends: its x-range, and how far (in x, at equal y)
- * it strays from its chord (x − chord(y) is affine, so it peaks at a control point). */
-static void hull(edge *e, double y0, double y1, double x0, double x1, double t0, double t1,
-                 double *lo, double *hi, double *dev) {
-  if (!e->curve || !(y1 > y0)) {
-    *lo = fmin(x0, x1), *hi = fmax(x0, x1), *dev = 0;
+/* The control points of a piece between two ends: the sub-curve for cubics (children
+ * of a search node split it once), the end points for lines. */
+typedef struct {
+  pp_point q[4];
+} sub;
+
+static sub sub_between(edge *e, node_end a, node_end b, gboolean is_f) {
+  sub r = {{{0, 0}}};
+  if (!e->curve)
+    return r;
+  double t0 = is_f ? a.tf : a.te, t1 = is_f ? b.tf : b.te;
+  pp_point l[4];
+  bez_split(e->p, t1, l, NULL);
+  bez_split(l, t1 > 0 ? t0 / t1 : 0, NULL, r.q);
+  return r;
+}
+
+/* Splits a sub-curve between a and b at c into its two halves. */
+static void sub_split(edge *e, const sub *p, double ta, double tb, double tc, sub *l, sub *r) {
+  if (!e->curve) { /* a line's hull is its chord: nothing to carry */
+    *l = *p, *r = *p;
     return;
   }
-  pp_point l[4], q[4];
-  bez_split(e->p, t1, l, NULL);
-  bez_split(l, t1 > 0 ? t0 / t1 : 0, NULL, q);
-  double k = (x1 - x0) / (y1 - y0), d = 0, mn = q[0].x, mx = q[0].x;
-  for (int i = 0; i < 4; i++) {
-    d = fmax(d, fabs(q[i].x - (x0 + k * (q[i].y - y0))));
-    mn = fmin(mn, q[i].x), mx = fmax(mx, q[i].x);
+  double u = tb > ta ? (tc - ta) / (tb - ta) : 0.5;
+  bez_split(p->q, u, l->q, r->q);
+}
+
+/* x-range of a sub-curve's hull and how far (in x, at equal y) it strays from the chord
+ * between the ends: x − chord(y) is affine, so over the hull it peaks at a control point. */
+static void hull(const edge *e, const sub *p, double y0, double y1, double x0, double x1,
+                 double *lo, double *hi, double *dev) {
+  double k = y1 > y0 ? (x1 - x0) / (y1 - y0) : 0, d = 0, mn = x0 < x1 ? x0 : x1,
+         mx = x0 < x1 ? x1 : x0;
+  for (int i = 0; e->curve && i < 4; i++) {
+    double x = p->q[i].x, off = fabs(x - (x0 + k * (p->q[i].y - y0)));
+    d = off > d ? off : d;
+    mn = x < mn ? x : mn;
+    mx = x > mx ? x : mx;
   }
   *lo = mn, *hi = mx, *dev = d;
 }
@@ -329,30 +352,36 @@ static void hull(edge *e, double y0, double y1, double x0, double x1, double t0,
 /* Can d change sign on [a,b] from + to −? Not when e's hull lies left of f's (d ≥ 0) or
  * right of it (d < 0 throughout), nor when d stays above the line through d(a) and d(b)
  * less both pieces' strays from their chords. */
-static gboolean may_flip(search *q, node_end a, node_end b) {
+static gboolean may_flip(search *q, node_end a, node_end b, const sub *se, const sub *sf) {
   double elo, ehi, edev, flo, fhi, fdev;
-  hull(q->e, a.y, b.y, a.xe, b.xe, a.te, b.te, &elo, &ehi, &edev);
-  hull(q->f, a.y, b.y, a.xf, b.xf, a.tf, b.tf, &flo, &fhi, &fdev);
+  hull(q->e, se, a.y, b.y, a.xe, b.xe, &elo, &ehi, &edev);
+  hull(q->f, sf, a.y, b.y, a.xf, b.xf, &flo, &fhi, &fdev);
   double tol = q->s->tol_x;
   return ehi - flo > tol && elo - fhi <= tol && fmin(a.d, b.d) - (edev + fdev) < -tol;
 }
 
 /* Samples d(y) on (a,b) by bisection, in y order, pruning sub-intervals where d cannot
- * turn negative, until the first change from + to − is sampled. */
-static void cross_search(search *q, node_end a, node_end b, int depth, int cap) {
+ * turn negative, until the first change from + to − is sampled. se and sf are the
+ * pieces' sub-curves between a and b. */
+static void cross_search(search *q, node_end a, node_end b, const sub *se, const sub *sf, int depth,
+                         int cap) {
   sweep *s = q->s;
-  if (q->found || --q->budget < 0 || b.y - a.y <= s->eps_y || depth >= cap || !may_flip(q, a, b))
+  if (q->found || --q->budget < 0 || b.y - a.y <= s->eps_y || depth >= cap ||
+      !may_flip(q, a, b, se, sf))
     return;
   node_end c = end_at(q, 0.5 * (a.y + b.y), 0.5 * (a.te + b.te), 0.5 * (a.tf + b.tf));
   /* Coincident at three samples: look only a few levels deeper, else overlapping
    * curves would cost 2^depth evaluations for gaps of zero width. */
   if (sign_tol(a.d, s->tol_x) == 0 && sign_tol(b.d, s->tol_x) == 0 && sign_tol(c.d, s->tol_x) == 0)
     cap = MIN(cap, depth + 6);
-  cross_search(q, a, c, depth + 1, cap);
+  sub el, er, fl, fr;
+  sub_split(q->e, se, a.te, b.te, c.te, &el, &er);
+  sub_split(q->f, sf, a.tf, b.tf, c.tf, &fl, &fr);
+  cross_search(q, a, c, &el, &fl, depth + 1, cap);
   if (q->found)
     return;
   add_sample(q, c);
-  cross_search(q, c, b, depth + 1, cap);
+  cross_search(q, c, b, &er, &fr, depth + 1, cap);
 }
 
 static gboolean same_piece(const edge *e, const edge *f, double tol) {
@@ -414,7 +443,8 @@ static double next_flip(sweep *s, edge *l, edge *r, double y0, gboolean just) {
               .just = just};
   node_end a = end_at(&q, y0, 0.5, 0.5), b = end_at(&q, y1, 0.5, 0.5);
   double d0 = a.d, d1 = b.d, flip = INFINITY;
-  if (!may_flip(&q, a, b) && d0 >= -s->tol_x) {
+  sub se = sub_between(l, a, b, FALSE), sf = sub_between(r, a, b, TRUE);
+  if (!may_flip(&q, a, b, &se, &sf) && d0 >= -s->tol_x) {
     /* r stays right of l (within tol) all along */
   } else if (!l->curve && !r->curve) { /* d is linear in y */
     if (d1 >= -s->tol_x)
@@ -425,7 +455,7 @@ static double next_flip(sweep *s, edge *l, edge *r, double y0, gboolean just) {
       flip = just ? INFINITY : y0;
   } else {
     add_sample(&q, a);
-    cross_search(&q, a, b, 0, MAX_CROSS_DEPTH);
+    cross_search(&q, a, b, &se, &sf, 0, MAX_CROSS_DEPTH);
     add_sample(&q, b);
     flip = first_flip(s, &q, l, r, just);
   }
