@@ -733,6 +733,61 @@ def manual_step_arrows(rng):
                           "inside and note boxes: sizes do not follow the numbers")]
 
 
+STACK_BOTTOM = [80, 90, 100, 110]
+STACK_MIDDLE = [300, 320, 330, 350]
+STACK_TOP = [220, 230, 250, 260]
+
+
+def stacked_twin(floor):
+    """Stacked columns with a label centred in each visible segment, on an axis from
+    floor. Totals 600-720: from 40 their ink stays within Tufte's band (growth ratio 1.012,
+    GDI +7%), while the bottom segments (80-110) lose the part under 40 (growth ratio
+    1.27): only the bottom segments show the distortion."""
+    fig, ax = chart()
+    cats = ["2031", "2032", "2033", "2034"]
+    parts = [STACK_BOTTOM, STACK_MIDDLE, STACK_TOP]
+    bottom = [0] * 4
+    for s in range(3):
+        ax.bar(range(4), parts[s], bottom=bottom, width=0.6,
+               color=["#1b9e77", "#d95f02", "#7570b3"][s])
+        for k in range(4):
+            lo = max(bottom[k], floor)
+            ax.text(k, (lo + bottom[k] + parts[s][k]) / 2, str(parts[s][k]), ha="center",
+                    va="center", fontsize=8, color="white")
+        bottom = [bottom[k] + parts[s][k] for k in range(4)]
+    ax.set_ylim(floor, 800)
+    ax.set_xticks(range(4))
+    ax.set_xticklabels(cats)
+    ax.set_title("Tern Pier freight by class, kt")
+    series = [{"name": "class %d" % (s + 1), "values": parts[s]} for s in range(3)]
+    return fig, ax, cats, bottom, series
+
+
+@case
+def stacked_bottom_zero(rng):
+    """Honest twin of stacked_bottom_cut: the same stacks on an axis from 0."""
+    fig, ax, cats, totals, series = stacked_twin(0)
+    return fig, [honest("column", box_of(fig, ax), "stacked columns on zero, a label centred "
+                        "in each segment", values=totals, labels=cats, axis=axis_of(ax, "y"),
+                        baseline=0, style=["stacked", "segment-labels"], series=series)]
+
+
+@case
+def stacked_bottom_cut(rng):
+    """Misleading: the axis starts at 40. The totals stay near proportion; the bottom
+    segments do not, so the truth's values are the bottom segments (read from 0), the
+    layer standing on the floor, as for stacked areas."""
+    fig, ax, cats, totals, series = stacked_twin(40)
+    axis = axis_of(ax, "y")
+    f = honest("column", box_of(fig, ax), "values are the bottom segments: the stack totals "
+               "(600-720) stay within the Lie Factor band on an axis from 40, the bottom "
+               "segments (80-110) do not", values=STACK_BOTTOM, labels=cats, axis=axis,
+               baseline=axis["min"], style=["stacked", "segment-labels", "truncated-axis",
+                                            "clipped"], series=series)
+    f["misleading"], f["rule"] = True, "bars-off-zero"
+    return fig, [f]
+
+
 def main():
     os.makedirs(OUT, exist_ok=True)
     for n, fn in enumerate(CASES):

@@ -169,12 +169,42 @@ static void find_group_categories(const pp_scene *scene, pp_figure *fig, pp_rect
 
 /* A data label sits at the bar's tip, just beyond it or just inside it; never at
  * the baseline end, where category labels live. */
+/* A stack's segments each carry their own label, centred in the segment or at its end
+ * inside it: the free label nearest the segment's centre among those inside it. */
+static void attach_segment_labels(pp_recognize_ctx *ctx, pp_element *e, gboolean vertical) {
+  for (guint k = 0; k < e->parts->len; k++) {
+    pp_part *p = &g_array_index(e->parts, pp_part, k);
+    const pp_mark *m = g_ptr_array_index(ctx->scene->marks, p->mark);
+    pp_frame_rect f = pp_frame_of(m->visible_bbox, vertical);
+    pp_label *best = NULL;
+    double best_d = INFINITY;
+    for (guint j = 0; j < ctx->labels->len; j++) {
+      pp_label *l = g_ptr_array_index(ctx->labels, j);
+      double lw = label_w(l, vertical), lu = label_u(l, vertical);
+      if (!pp_claims_label_free(ctx->claims, l->index) || lw < f.w0 - PP_EDGE_SLACK ||
+          lw > f.w1 + PP_EDGE_SLACK || lu < f.u0 || lu > f.u1)
+        continue;
+      double d = fabs(lu - (f.u0 + f.u1) / 2);
+      if (d < best_d) {
+        best_d = d;
+        best = l;
+      }
+    }
+    if (best) {
+      p->label_value = best->number.value;
+      pp_claims_take_label(ctx->claims, best->index, PP_OWNER_DATA_LABEL);
+    }
+  }
+}
+
 static void attach_data_labels(pp_recognize_ctx *ctx, pp_figure *fig, gboolean vertical,
                                double base) {
   GPtrArray *labels = ctx->labels;
   for (guint i = 0; i < fig->elements->len; i++) {
     pp_element *e = &g_array_index(fig->elements, pp_element, i);
     pp_frame_rect f = pp_frame_of(e->box, vertical);
+    if (e->stacked)
+      attach_segment_labels(ctx, e, vertical);
     double tip = fabs(f.u0 - base) > fabs(f.u1 - base) ? f.u0 : f.u1;
     double dir = tip < base ? -1 : 1; /* from base towards tip */
     pp_label *best = NULL;
@@ -188,8 +218,9 @@ static void attach_data_labels(pp_recognize_ctx *ctx, pp_figure *fig, gboolean v
         continue;
       double beyond = (lu - tip) * dir; /* > 0 outside the bar, < 0 inside */
       double from_base = (lu - base) * dir;
-      if (from_base <= 0 || beyond > PP_LABEL_BEYOND * l->size ||
-          beyond < -PP_LABEL_INSIDE * l->size)
+      /* a stack's total stands beyond its tip: labels inside are its segments' */
+      double inside = e->stacked ? PP_EDGE_SLACK : PP_LABEL_INSIDE * l->size;
+      if (from_base <= 0 || beyond > PP_LABEL_BEYOND * l->size || beyond < -inside)
         continue;
       double d = fabs(beyond);
       if (d < best_d) {
@@ -203,6 +234,15 @@ static void attach_data_labels(pp_recognize_ctx *ctx, pp_figure *fig, gboolean v
       pp_claims_take_label(ctx->claims, best->index, PP_OWNER_DATA_LABEL);
     }
   }
+}
+
+/* The last part's scale readings at its near and far ends (stays NAN without a scale). */
+static void set_reading(pp_element *e, const pp_scale *scale, double near, double far) {
+  if (!scale)
+    return;
+  pp_part *p = &g_array_index(e->parts, pp_part, e->parts->len - 1);
+  p->start = pp_scale_value_at(scale, near);
+  p->end = pp_scale_value_at(scale, far);
 }
 
 /* Bars touching the baseline, then whatever stacks on them in their column: one
@@ -228,6 +268,7 @@ pp_figure *pp_bars_build(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *sca
     double tip = down ? f.u1 : f.u0;
     pp_element e = pp_element_init(PP_ENCODING_LENGTH);
     pp_element_add_part(&e, b->mark, PP_PART_BODY, b->ink);
+    set_reading(&e, scale, base, tip);
     double ink = b->ink;
     pp_rect box = b->rect;
     for (gboolean grew = TRUE; grew;) {
@@ -242,6 +283,7 @@ pp_figure *pp_bars_build(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *sca
           in[j] = TRUE;
           pp_claims_take_mark_if_free(ctx->claims, s->mark, owner);
           pp_element_add_part(&e, s->mark, PP_PART_SEGMENT, s->ink);
+          set_reading(&e, scale, near, far);
           tip = far;
           ink += s->ink;
           box = pp_rect_union(box, s->rect);

@@ -95,7 +95,7 @@ pp_element pp_element_init(pp_encoding encoding) {
 }
 
 void pp_element_add_part(pp_element *e, guint mark, pp_part_role role, double ink) {
-  pp_part p = {mark, role, ink};
+  pp_part p = {mark, role, ink, NAN, NAN, NAN};
   g_array_append_val(e->parts, p);
 }
 

@@ -106,7 +106,9 @@ const char *pp_part_role_name(pp_part_role role);
 typedef struct {
   guint mark; /* index into the scene's marks */
   pp_part_role role;
-  double ink; /* visible ink this mark adds to the element, pt² */
+  double ink;         /* visible ink this mark adds to the element, pt² */
+  double start, end;  /* stacked segments: scale readings where it starts and ends (NAN) */
+  double label_value; /* stacked segments: the printed number paired with it (NAN) */
 } pp_part;
 
 /* The geometry of an element in the form its family needs. */

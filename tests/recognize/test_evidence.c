@@ -385,6 +385,69 @@ static void test_spacing_in_confidence(void **state) {
   assert_true(c_regular > 0 && c_regular < 1);
 }
 
+/* Stacked columns on a value axis 0–400 (0.75 pt per unit, baseline y = 400), a number
+ * centred in every segment and the total over the first stack only. */
+static const double stack_part[3][3] = {{60, 100, 50}, {80, 90, 70}, {70, 120, 60}};
+static void draw_stacked_labelled(cairo_t *cr) {
+  for (int k = 0; k <= 4; k++) {
+    char buf[16];
+    g_snprintf(buf, sizeof buf, "%d", 100 * k);
+    text_at(cr, 62 - 6 * (int)strlen(buf), 403 - 75 * k, buf);
+    cairo_move_to(cr, 66, 400 - 75 * k);
+    cairo_line_to(cr, 70, 400 - 75 * k);
+  }
+  cairo_move_to(cr, 70, 100);
+  cairo_line_to(cr, 70, 400);
+  cairo_set_line_width(cr, 0.6);
+  cairo_stroke(cr);
+  for (int i = 0; i < 3; i++) {
+    double x = 100 + 60 * i, v0 = 0;
+    for (int s = 0; s < 3; s++) {
+      double v1 = v0 + stack_part[i][s];
+      box(cr, x, 400 - 0.75 * v1, 30, 0.75 * stack_part[i][s], 0.25 + 0.25 * s);
+      char buf[16];
+      g_snprintf(buf, sizeof buf, "%g", stack_part[i][s]);
+      text_at(cr, x + 9, 400 - 0.75 * (v0 + v1) / 2 + 3, buf);
+      v0 = v1;
+    }
+    if (i == 0)
+      text_at(cr, x + 6, 400 - 0.75 * v0 - 4, "210");
+  }
+}
+
+/* Each segment of a stack is paired with the number centred in it, and the total over
+ * the stack with the stack; readings at the segments' ends follow the drawing (0.75 pt
+ * per unit, exact by construction, within 1 unit). */
+static void test_stacked_segment_labels(void **state) {
+  (void)state;
+  pp_page_charts *charts = recognise(draw_stacked_labelled);
+  const pp_figure *f = NULL;
+  for (guint i = 0; i < charts->figures->len; i++) {
+    const pp_figure *g = g_ptr_array_index(charts->figures, i);
+    if (g->kind == PP_FIGURE_COLUMN)
+      f = g;
+  }
+  assert_non_null(f);
+  assert_int_equal(f->elements->len, 3);
+  for (guint i = 0; i < 3; i++) {
+    const pp_element *e = &g_array_index(f->elements, pp_element, i);
+    assert_true(e->stacked);
+    assert_int_equal(e->parts->len, 3);
+    double top = 0;
+    for (guint s = 0; s < 3; s++) {
+      const pp_part *p = &g_array_index(e->parts, pp_part, s);
+      top += stack_part[i][s];
+      assert_float_equal(p->label_value, stack_part[i][s], 1e-9);
+      assert_float_equal(p->end, top, 1.0);
+    }
+    if (i == 0)
+      assert_float_equal(e->label_value, 210, 1e-9);
+    else
+      assert_true(isnan(e->label_value));
+  }
+  pp_page_charts_free(charts);
+}
+
 /* Symbols are judged only when their sizes follow their numbers by a power law (log-log
  * fit, exponent > 0, R² ≥ 0.9; src/recognize/symbols.c): the manual's arrows are read as
  * a symbol family (so the check is reached) but not judged. */
@@ -421,6 +484,7 @@ int main(void) {
       cmocka_unit_test(test_connected_boxes),
       cmocka_unit_test(test_map),
       cmocka_unit_test(test_spacing_in_confidence),
+      cmocka_unit_test(test_stacked_segment_labels),
   };
   return cmocka_run_group_tests(tests, NULL, NULL);
 }

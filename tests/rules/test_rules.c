@@ -211,6 +211,50 @@ static void test_area_off_zero(void **state) {
   pp_figure_free(fig);
 }
 
+/* Stacked columns on an axis from 40, 20 pt wide: bottom segments end at 80, 90, 100, 110,
+ * the stack totals at 600, 640, 680, 720 (ink ∝ length above 40). Totals: growth form
+ * (680/560)/(720/600) = 1.0119, Tufte ((680−560)/560)/((720−600)/600) = 1.071 (GDI +7%),
+ * every pair within 1.05: inside the band. Bottom segments: (70/40)/(110/80) = 1.2727,
+ * Tufte (30/40)/(30/80) = 2 (GDI +100%): outside, major (above 1.10, below 2). A stacked
+ * area whose bottom layer has the same numbers gets the same measures: stacked bars and
+ * stacked areas are judged on the layer standing on the floor. */
+static void test_stacked_bottom_layer(void **state) {
+  (void)state;
+  const double bottom[] = {80, 90, 100, 110}, totals[] = {600, 640, 680, 720};
+  double inks[4];
+  for (guint i = 0; i < 4; i++)
+    inks[i] = 20 * (totals[i] - 40);
+  pp_figure *fig = figure(PP_FIGURE_COLUMN, TRUE, PP_SCALE_LINEAR, 40, 800, 4, totals, inks, 40);
+  for (guint i = 0; i < 4; i++) {
+    pp_element *e = &g_array_index(fig->elements, pp_element, i);
+    g_array_set_size(e->parts, 0);
+    pp_element_add_part(e, 3 * i, PP_PART_SEGMENT, 20 * (bottom[i] - 40));
+    pp_element_add_part(e, 3 * i + 1, PP_PART_SEGMENT, 20 * (totals[i] - bottom[i]));
+    pp_part *p = &g_array_index(e->parts, pp_part, 0);
+    p->start = 40, p->end = bottom[i];
+    e->stacked = TRUE;
+  }
+  GPtrArray *out = check(fig);
+  const pp_finding *f = only(out, "bars-off-zero");
+  assert_float_equal(f->measures.growth_ratio, 1.75 / 1.375, 1e-9);
+  assert_float_equal(f->measures.gdi, 100.0, 1e-9);
+  assert_int_equal(f->severity, PP_SEVERITY_MAJOR);
+  double area_inks[4];
+  for (guint i = 0; i < 4; i++)
+    area_inks[i] = bottom[i] - 40;
+  pp_figure *area =
+      figure(PP_FIGURE_AREA, TRUE, PP_SCALE_LINEAR, 40, 800, 4, bottom, area_inks, 40);
+  GPtrArray *area_out = check(area);
+  const pp_finding *a = only(area_out, "area-off-zero");
+  assert_float_equal(a->measures.growth_ratio, f->measures.growth_ratio, 1e-9);
+  assert_float_equal(a->measures.gdi, f->measures.gdi, 1e-9);
+  assert_int_equal(a->severity, f->severity);
+  g_ptr_array_unref(area_out);
+  pp_figure_free(area);
+  g_ptr_array_unref(out);
+  pp_figure_free(fig);
+}
+
 /* Selection by kind and judgement: a line chart on the same truncated scale, a bar
  * figure that was seen but not judged, and a single bar get no finding. */
 static void test_selection(void **state) {
@@ -243,6 +287,7 @@ static void test_selection(void **state) {
 int main(void) {
   const struct CMUnitTest tests[] = {
       cmocka_unit_test(test_bars_off_zero),
+      cmocka_unit_test(test_stacked_bottom_layer),
       cmocka_unit_test(test_zero_baseline_is_clean),
       cmocka_unit_test(test_major),
       cmocka_unit_test(test_labels_only_minor),
