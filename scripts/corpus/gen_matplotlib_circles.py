@@ -93,17 +93,18 @@ def pct_labels(values, decimals=0):
 
 
 def pie(name, values, printed, drawn=None, rule=None, donut=False, legend=False,
-        title="Revenue by segment, 2031", decimals=0, notes=None):
-    """A pie (or donut) drawn from `drawn` (default values) with `printed` percentages."""
+        title="Revenue by segment, 2031", decimals=0, notes=None, min_label=None):
+    """A pie (or donut) drawn from `drawn` (default values) with `printed` percentages;
+    slices printed below `min_label` percent get no percentage (producers drop them)."""
     drawn = drawn or values
     fig = new_fig()
     ax = fig.add_axes([0.05, 0.08, 0.6, 0.8])
     ax.set_aspect("equal")
     wp = {"width": 0.38, "edgecolor": "white", "linewidth": 1.2} if donut else \
         {"edgecolor": "white", "linewidth": 1.0}
-    labels = SEGMENTS[:len(values)]
+    labels = (SEGMENTS + ["Ferry bar", "Parking"])[:len(values)]
     fmt = "%%.%df%%%%" % decimals
-    texts = [fmt % p for p in printed]
+    texts = [fmt % p if min_label is None or p >= min_label else "" for p in printed]
     wedges, *_ = ax.pie(drawn, colors=COLOURS, startangle=90, counterclock=False,
                         wedgeprops=wp, labels=None if legend else labels,
                         labeldistance=1.12)
@@ -122,6 +123,10 @@ def pie(name, values, printed, drawn=None, rule=None, donut=False, legend=False,
               "start": math.pi / 2, "direction": -1, "inner": 0.62 if donut else 0.0}
     style = ["donut"] if donut else []
     style += ["legend"] if legend else ["labels-inside"]
+    if len(values) > len(COLOURS):
+        style += ["colours-wrap"]  # the last slice takes the first one's colour, beside it
+    if min_label is not None:
+        style += ["small-slices-unlabelled"]
     save(fig, name, [figure("pie", bb, values, labels, rule, circle, list(printed), style,
                             notes)])
 
@@ -363,6 +368,13 @@ def main():
     # One decimal, honest: the sum is 100.0 within 5 x 0.05.
     v2 = vary([38.4, 25.1, 17.7, 11.2, 7.6], 1)
     pie("circ_pie_decimals_honest", v2, pct_labels(v2, 1), decimals=1)
+    # Seven slices on six colours: the last (smallest) slice is painted like the first,
+    # beside it. Honest: it has no percentage of its own (below 5%), the first slice's
+    # label fits the first slice alone. Misleading: every slice labelled, angles wrong.
+    v7 = vary([27.0, 21.0, 16.0, 13.0, 10.0, 9.0, 4.0])
+    pie("circ_pie_colour_wrap_honest", v7, pct_labels(v7), min_label=5)
+    pie("circ_pie_colour_wrap_angles_wrong", v7, pct_labels(v7),
+        drawn=mislead(v7, [21.0, 27.0, 16.0, 13.0, 10.0, 6.0, 7.0]), rule="wedges-vs-labels")
     v3 = vary([46.0, 31.0, 15.0, 8.0])
     pie("circ_donut_honest", v3, pct_labels(v3), donut=True, legend=True,
         title="Fund mix, 2031")
