@@ -370,11 +370,13 @@ def main():
     pie("circ_pie_decimals_honest", v2, pct_labels(v2, 1), decimals=1)
     # Seven slices on six colours: the last (smallest) slice is painted like the first,
     # beside it. Honest: it has no percentage of its own (below 5%), the first slice's
-    # label fits the first slice alone. Misleading: every slice labelled, angles wrong.
+    # label fits the first slice alone. Misleading: every slice labelled, angles wrong
+    # (held out: the two largest swapped and the third widened, so labels stay readable).
     v7 = vary([27.0, 21.0, 16.0, 13.0, 10.0, 9.0, 4.0])
     pie("circ_pie_colour_wrap_honest", v7, pct_labels(v7), min_label=5)
     pie("circ_pie_colour_wrap_angles_wrong", v7, pct_labels(v7),
-        drawn=mislead(v7, [21.0, 27.0, 16.0, 13.0, 10.0, 6.0, 7.0]), rule="wedges-vs-labels")
+        drawn=[21.0, 27.0, 16.0, 13.0, 10.0, 6.0, 7.0] if not OFFSET else
+        [v7[1], v7[0], 1.25 * v7[2]] + v7[3:], rule="wedges-vs-labels")
     v3 = vary([46.0, 31.0, 15.0, 8.0])
     pie("circ_donut_honest", v3, pct_labels(v3), donut=True, legend=True,
         title="Fund mix, 2031")
@@ -383,8 +385,10 @@ def main():
         rule="wedges-vs-labels", title="Fund mix, 2031")
     radial_bars("circ_radial_bars", vary([62.0, 48.0, 35.0, 21.0]), 80.0 if not OFFSET else 100.0)
     vs = vary([57.0, 44.0, 31.0, 18.0])
-    radial_bars_scale("circ_radial_scale", vs, 70.0, "radial-ring-ink", 10.0)
-    radial_bars_scale("circ_radial_scale_honest", vs, 70.0, None, 10.0)
+    # The full turn: two tens above the largest value's (70 for the fixed data).
+    full = 10.0 * (math.floor(max(vs) / 10.0) + 2)
+    radial_bars_scale("circ_radial_scale", vs, full, "radial-ring-ink", 10.0)
+    radial_bars_scale("circ_radial_scale_honest", vs, full, None, 10.0)
     vp = vary([120.0, 80.0, 60.0, 35.0, 25.0])
     polar_area("circ_polar_radius", vp, True)
     polar_area("circ_polar_sqrt_honest", vp, False)
