@@ -34,7 +34,7 @@ gboolean pp_rule_bars_off_zero_measure(const pp_figure *fig, const pp_thresholds
   if (!isfinite(base) || pp_rule_baseline_is_zero(fig, base))
     return FALSE;
   pp_rule_measure_elements(fig, f, PP_JUDGE_VALUE, FALSE, base);
-  pp_measures bottom;
+  pp_measures bottom = {0};
   if (!bottom_segments(fig, base, &bottom))
     return TRUE;
   pp_severity sev;
