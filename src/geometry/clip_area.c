@@ -30,7 +30,8 @@ struct edge {
   int dir; /* +1 when the original edge ran towards larger y */
   guint region;
   double t_hint;
-  double slope; /* dx/dy of a line edge */
+  double slope;        /* dx/dy of a line edge */
+  double kx[3], ky[3]; /* cubic: x(t) − x0 = ((kx0·t + kx1)·t + kx2)·t, likewise y */
   /* sweep state */
   size_t pos;     /* index in the active list */
   size_t hpos;    /* index in the crossing heap */
@@ -127,6 +128,13 @@ static void push_mono_cubic(sweep *s, const pp_point *p, guint reg) {
     e.p[i] = e.dir > 0 ? p[i] : p[3 - i];
   e.ya = e.p[0].y, e.yb = e.p[3].y;
   e.t_hint = 0.5;
+  /* Power basis relative to the first point: Horner is a quarter of Bernstein's cost in
+   * the root finding, and the relative form keeps far-away pieces' digits. */
+  const pp_point *q = e.p;
+  double px[4] = {0, q[1].x - q[0].x, q[2].x - q[0].x, q[3].x - q[0].x};
+  double py[4] = {0, q[1].y - q[0].y, q[2].y - q[0].y, q[3].y - q[0].y};
+  e.kx[0] = 3 * px[1] - 3 * px[2] + px[3], e.kx[1] = 3 * (px[2] - 2 * px[1]), e.kx[2] = 3 * px[1];
+  e.ky[0] = 3 * py[1] - 3 * py[2] + py[3], e.ky[1] = 3 * (py[2] - 2 * py[1]), e.ky[2] = 3 * py[1];
   g_array_append_val(s->edges, e);
 }
 
@@ -192,15 +200,17 @@ static double solve_t(edge *e, double y) {
   double lo = 0, hi = 1, t = e->t_hint;
   if (!(t > 0 && t < 1))
     t = (y - e->ya) / (e->yb - e->ya);
+  const double *k = e->ky;
+  double target = y - e->ya;
   for (int it = 0; it < 100; it++) {
-    double f = pp_cubic_point(e->p, t).y - y;
+    double f = ((k[0] * t + k[1]) * t + k[2]) * t - target;
     if (f == 0)
       break;
     if (f < 0)
       lo = t;
     else
       hi = t;
-    double d = pp_cubic_tangent(e->p, t).y;
+    double d = (3 * k[0] * t + 2 * k[1]) * t + k[2];
     double nt = d > 0 ? t - f / d : -1;
     if (!(nt > lo && nt < hi))
       nt = 0.5 * (lo + hi);
@@ -225,7 +235,9 @@ static double edge_x(edge *e, double y, double *t_out) {
   double t = solve_t(e, y);
   if (t_out)
     *t_out = t;
-  return pp_cubic_point(e->p, t).x;
+  if (t <= 0 || t >= 1)
+    return t <= 0 ? e->p[0].x : e->p[3].x;
+  return e->p[0].x + ((e->kx[0] * t + e->kx[1]) * t + e->kx[2]) * t;
 }
 
 /* ∫ (x − xref) dy over [y0, y1] within the edge's y-range.
