@@ -138,17 +138,26 @@ def pie(name, values, drawn=None, rule=None, explode=(), pieces=False, one_path=
                           "printed_kind": "percent", "decimals": 0}}])
 
 
-def tilted(name, values, ratio, depth, rule, persp=None):
+def tilted(name, values, ratio, depth, rule, persp=None, explode=()):
     """Parametric angles counter-clockwise (y up) from 30°. Orthographic: ellipse arcs by
     cairo_scale, rim of `depth` radii under the front half. Perspective: projected through
-    truth_circles' pinhole, top faces only, as 180-point polylines per turn."""
+    truth_circles' pinhole, top faces only, as 180-point polylines per turn. explode: indices
+    of slices pulled out by 0.12 radii along their middle, in the pie's plane (top face and
+    rim move together; the offset changes no area)."""
     d = Doc(name)
     cr = d.cr
-    cx, cy, r = 210, 140, 130
+    cx0, cy0, r = 210, 140, 130
     start = math.radians(30)
     spans = truth_circles.slice_angles(values, start, 1)
     printed = pct(values)
+
+    def centre(i):
+        mid = (spans[i][0] + spans[i][1]) / 2
+        e = 0.12 * r if i in explode else 0.0
+        return cx0 + e * math.cos(mid), cy0 - e * ratio * math.sin(mid)
+
     for i, (t0, t1) in enumerate(spans):
+        cx, cy = centre(i)
         if depth > 0:
             for lo, hi in truth_circles._arc_overlap(t0, t1, math.pi, 2 * math.pi):
                 cr.new_path()
@@ -166,6 +175,7 @@ def tilted(name, values, ratio, depth, rule, persp=None):
                 cr.set_source_rgb(*[0.7 * c for c in RGB[i]])
                 cr.fill()
     for i, (t0, t1) in enumerate(spans):
+        cx, cy = centre(i)
         cr.new_path()
         if persp:
             cr.move_to(cx, cy)
@@ -187,6 +197,7 @@ def tilted(name, values, ratio, depth, rule, persp=None):
         cr.set_source_rgb(*RGB[i])
         cr.fill()
     for i, (t0, t1) in enumerate(spans):
+        cx, cy = centre(i)
         mid = (t0 + t1) / 2
         if persp:
             x, y = truth_circles._project(0.62 * math.cos(mid), 0.62 * math.sin(mid),
@@ -201,6 +212,7 @@ def tilted(name, values, ratio, depth, rule, persp=None):
         else:
             d.text(NAMES[i], cx + 1.2 * r * math.cos(mid), cy - (1.25 * r * ratio + 6) *
                    math.sin(mid) + (depth * r if math.sin(mid) < 0 else 0), 8)
+    cx, cy = cx0, cy0
     d.text("Ridership share by line, 2031", cx, 14, 11)
     if persp:
         pts = [truth_circles._project(math.cos(t / 90 * math.pi), math.sin(t / 90 * math.pi),
@@ -208,7 +220,8 @@ def tilted(name, values, ratio, depth, rule, persp=None):
         xs, ys = [cx + r * p[0] for p in pts], [cy - r * p[1] for p in pts]
         bb = [min(xs), min(ys), max(xs), max(ys)]
     else:
-        bb = [cx - r, cy - r * ratio, cx + r, cy + r * ratio + depth * r]
+        e = 0.12 * r if explode else 0
+        bb = [cx - r - e, cy - (r + e) * ratio, cx + r + e, cy + (r + e) * ratio + depth * r]
     circle = {"ratio": ratio if not persp else math.cos(persp["tilt"]), "depth": depth,
               "start": start, "direction": 1, "printed": printed, "printed_kind": "percent",
               "decimals": 0}
@@ -217,6 +230,7 @@ def tilted(name, values, ratio, depth, rule, persp=None):
     d.finish([{"bbox": [round(x, 2) for x in bb], "kind": "tilted-pie", "rule": rule,
                "values": values, "labels": NAMES[:len(values)], "data_labels": printed,
                "style": ["tilted"] + (["rim"] if depth else []) +
+               (["exploded"] if explode else []) +
                (["perspective"] if persp else []), "circle": circle}])
 
 
@@ -293,6 +307,8 @@ def main():
     tilted("cc_tilted_flat_honest", v2, 0.35, 0.0, None)
     tilted("cc_perspective", v2, 0.0, 0.0, "tilted-pie-ink",
            persp={"tilt": math.radians(62), "distance": 2.6})
+    tilted("cc_tilted_exploded_rim", v2, 0.35, 0.18, "tilted-pie-ink", explode=(0, 3))
+    tilted("cc_tilted_exploded_flat_honest", v2, 0.35, 0.0, None, explode=(0, 3))
     vr = vary([72.0, 58.0, 44.0, 30.0])
     radial("cc_radial_equal_width", vr, 100.0, False, "radial-ring-ink")
     radial("cc_radial_equal_area_honest", vr, 100.0, True, None)

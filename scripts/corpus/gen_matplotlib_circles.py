@@ -154,6 +154,46 @@ def radial_bars(name, values, full, rule="radial-ring-ink", width=0.8, gap=0.25,
                             list(values), ["polar-axes", "data-labels"])])
 
 
+def radial_bars_scale(name, values, full, rule, step):
+    """Radial bars read from their angular scale alone: value tick labels printed around
+    the circle (every `step` from 0 at the top, clockwise), no data labels; ring names
+    sit at the rings' start. Honest rings keep (R² − r²) equal, so equal sweeps take equal
+    ink; misleading rings are of equal width, so outer rings take more ink per unit."""
+    fig = new_fig(5.0, 5.0)
+    ax = fig.add_axes([0.12, 0.1, 0.76, 0.76], projection="polar")
+    ax.set_theta_zero_location("N")
+    ax.set_theta_direction(-1)
+    n, r0, width, gap = len(values), 1.0, 0.8, 0.25
+    rings, bars = [], []
+    for i, v in enumerate(values):
+        if rule is None:
+            # Equal ring areas: ri² − r(i−1)² constant from the innermost ring's area.
+            area = (r0 + width) ** 2 - r0 ** 2
+            ri = r0 if i == 0 else math.sqrt(rings[-1][1] ** 2 + 2 * gap * rings[-1][1])
+            ro = math.sqrt(ri * ri + area)
+        else:
+            ri = r0 + i * (width + gap)
+            ro = ri + width
+        sweep = 2 * math.pi * v / full
+        b = ax.bar(sweep / 2, ro - ri, width=sweep, bottom=ri, color=COLOURS[i],
+                   align="center")
+        bars.extend(b.patches)
+        rings.append([ri, ro])
+        ax.text(-0.03, (ri + ro) / 2, FUNDS[i], ha="right", va="center", fontsize=7)
+    ticks = [k * step for k in range(int(round(full / step)))]
+    ax.set_xticks([2 * math.pi * t / full for t in ticks])
+    ax.set_xticklabels(["%g" % t for t in ticks], fontsize=8)
+    ax.set_ylim(0, rings[-1][1] + 0.1)
+    ax.set_yticks([])
+    ax.grid(False)
+    ax.spines["polar"].set_visible(False)
+    ax.set_title("Assets under management, NOK bn", fontsize=10)
+    bb = box(fig, bars)
+    circle = {"rings": rings, "full_value": full, "start": math.pi / 2, "direction": -1}
+    save(fig, name, [figure("radial-bar", bb, values, FUNDS[:n], rule, circle, None,
+                            ["polar-axes", "angular-scale"])])
+
+
 def polar_area(name, values, by_radius):
     """Equal-angle wedges; radius ∝ value (misleading) or ∝ √value (honest)."""
     fig = new_fig(5.0, 5.0)
@@ -176,6 +216,33 @@ def polar_area(name, values, by_radius):
     save(fig, name, [figure("polar-area", bb, values, SEGMENTS[:n], rule,
                             {"radii": radii}, list(values),
                             ["polar-axes", "radius" if by_radius else "sqrt-radius"])])
+
+
+def polar_area_axis(name, values, by_radius, step):
+    """Equal-angle wedges read from a radial axis alone (value tick labels along a radius,
+    no data labels). Misleading: radius ∝ value and the axis linear in the radius. Honest:
+    radius ∝ √value, the axis' ticks placed at √(tick / top) so that area follows value."""
+    fig = new_fig(5.0, 5.0)
+    ax = fig.add_axes([0.1, 0.1, 0.8, 0.78], projection="polar")
+    n, top = len(values), (math.floor(max(values) / step) + 1) * step
+    pos = (lambda v: v / top) if by_radius else (lambda v: math.sqrt(v / top))
+    radii = [pos(v) for v in values]
+    bars = ax.bar([2 * math.pi * (i + 0.5) / n for i in range(n)], radii,
+                  width=2 * math.pi / n, bottom=0, color=COLOURS[:n], edgecolor="white")
+    ticks = [step * k for k in range(1, int(round(top / step)) + 1)]
+    ax.set_yticks([pos(t) for t in ticks])
+    ax.set_yticklabels(["%g" % t for t in ticks], fontsize=8)
+    ax.set_rlabel_position(0.5 * 360.0 / n)
+    ax.set_ylim(0, 1.02)
+    ax.set_xticks([2 * math.pi * (i + 0.5) / n for i in range(n)])
+    ax.set_xticklabels(SEGMENTS[:n], fontsize=8)
+    ax.set_title("Passengers by route, thousands", fontsize=10)
+    bb = box(fig, bars.patches)
+    rule = "polar-radius" if by_radius else None
+    save(fig, name, [figure("polar-area", bb, values, SEGMENTS[:n], rule,
+                            {"radii": radii}, None,
+                            ["polar-axes", "radial-axis",
+                             "radius" if by_radius else "sqrt-radius"])])
 
 
 def arc_path(t0, t1, rx, ry, cx, cy):
@@ -303,9 +370,14 @@ def main():
         drawn=mislead(v3, [34.0, 33.0, 20.0, 13.0]), donut=True, legend=True,
         rule="wedges-vs-labels", title="Fund mix, 2031")
     radial_bars("circ_radial_bars", vary([62.0, 48.0, 35.0, 21.0]), 80.0 if not OFFSET else 100.0)
+    vs = vary([57.0, 44.0, 31.0, 18.0])
+    radial_bars_scale("circ_radial_scale", vs, 70.0, "radial-ring-ink", 10.0)
+    radial_bars_scale("circ_radial_scale_honest", vs, 70.0, None, 10.0)
     vp = vary([120.0, 80.0, 60.0, 35.0, 25.0])
     polar_area("circ_polar_radius", vp, True)
     polar_area("circ_polar_sqrt_honest", vp, False)
+    polar_area_axis("circ_polar_axis_radius", vp, True, 20.0)
+    polar_area_axis("circ_polar_axis_sqrt_honest", vp, False, 20.0)
     v4 = vary([34.0, 26.0, 18.0, 14.0, 8.0])
     tilted_pie("circ_tilted_rim", v4, 0.42, 0.16, "tilted-pie-ink")
     tilted_pie("circ_tilted_flat_honest", v4, 0.42, 0.0, None)

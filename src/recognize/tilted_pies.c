@@ -20,7 +20,12 @@
  * per-slice fits in perspective. Common practice, no source. */
 #define PP_TILT_TILE_TOL 0.002
 #define PP_PERSPECTIVE_TILE_TOL 0.03
-/* A rim's top arc is centred on the pie's apex within this distance, pt. */
+/* A slice may be pulled out from the pie's centre by up to this many radii (exploded
+ * pies; producers' defaults are 0.1–0.2, as pies.c; common practice, no source), its top
+ * face then an arc of the pie's own ellipse: radius within this share of the pie's. */
+#define PP_TILT_EXPLODE_MAX 0.4
+#define PP_TILT_SAME_RADIUS 0.02
+/* A rim's top arc is centred on its slice's apex within this distance, pt. */
 #define PP_RIM_SAME_CENTRE 2.0
 
 static gboolean tilted_seed(const pp_wedge_candidate *c) {
@@ -68,7 +73,8 @@ static gboolean reread(const pp_scene *scene, guint mark, guint subpath, const p
 }
 
 /* Bands under the front half whose top arc lies on the pie's ellipse: each joins the
- * slice whose angles hold its middle. */
+ * slice whose apex is the band's centre (pulled-out slices carry their rim with them) and
+ * whose angles hold its middle. */
 static void add_rims(pp_recognize_ctx *ctx, GArray *cands, GArray *slices, const pp_ellipse *shape,
                      const gboolean *member) {
   for (guint i = 0; i < cands->len; i++) {
@@ -76,14 +82,14 @@ static void add_rims(pp_recognize_ctx *ctx, GArray *cands, GArray *slices, const
     if (member[i] || c->w.kind != PP_WEDGE_BAND || !pp_claims_mark_free(ctx->claims, c->mark))
       continue;
     pp_wedge w;
-    if (!reread(ctx->scene, c->mark, c->w.subpath, shape, &w) || w.kind != PP_WEDGE_BAND ||
-        hypot(w.outer.centre.x - shape->centre.x, w.outer.centre.y - shape->centre.y) >
-            PP_RIM_SAME_CENTRE)
+    if (!reread(ctx->scene, c->mark, c->w.subpath, shape, &w) || w.kind != PP_WEDGE_BAND)
       continue;
     double mid = (w.a0 + w.a1) / 2;
     for (guint k = 0; k < slices->len; k++) {
       pp_slice *s = &g_array_index(slices, pp_slice, k);
-      if (pp_angle_within(mid, s->a0, s->a1) && s->n_parts < PP_SLICE_MAX_PARTS) {
+      if (hypot(w.outer.centre.x - s->ellipse.centre.x, w.outer.centre.y - s->ellipse.centre.y) <=
+              PP_RIM_SAME_CENTRE &&
+          pp_angle_within(mid, s->a0, s->a1) && s->n_parts < PP_SLICE_MAX_PARTS) {
         s->marks[s->n_parts] = c->mark;
         s->roles[s->n_parts] = PP_PART_RIM;
         s->inks[s->n_parts++] = c->ink;
@@ -91,6 +97,24 @@ static void add_rims(pp_recognize_ctx *ctx, GArray *cands, GArray *slices, const
         break;
       }
     }
+  }
+}
+
+/* Slices pulled out of the pie: free sectors whose apex lies near its centre and whose
+ * arc, re-read on the pie's ellipse, is that ellipse. */
+static void add_pulled_out(const pp_recognize_ctx *ctx, GArray *cands, const pp_ellipse *shape,
+                           gboolean *used, gboolean *member) {
+  for (guint j = 0; j < cands->len; j++) {
+    const pp_wedge_candidate *b = &g_array_index(cands, pp_wedge_candidate, j);
+    pp_wedge w;
+    if (used[j] || b->w.kind != PP_WEDGE_SECTOR || !pp_claims_mark_free(ctx->claims, b->mark) ||
+        hypot(b->w.outer.centre.x - shape->centre.x, b->w.outer.centre.y - shape->centre.y) >
+            PP_TILT_EXPLODE_MAX * shape->rx ||
+        !reread(ctx->scene, b->mark, b->w.subpath, shape, &w) || w.kind != PP_WEDGE_SECTOR ||
+        w.fit_error > PP_TILT_ELLIPSE_FIT ||
+        fabs(w.outer.rx - shape->rx) > PP_TILT_SAME_RADIUS * shape->rx)
+      continue;
+    member[j] = used[j] = TRUE;
   }
 }
 
@@ -119,6 +143,8 @@ static void build(pp_recognize_ctx *ctx, GArray *slices, gboolean perspective,
     el.shape.sector.ry = s->ellipse.ry;
     el.shape.sector.a0 = s->a0;
     el.shape.sector.a1 = s->a1;
+    el.shape.sector.offset =
+        hypot(s->ellipse.centre.x - shape->centre.x, s->ellipse.centre.y - shape->centre.y);
     for (guint p = 0; p < s->n_parts; p++) {
       pp_element_add_part(&el, s->marks[p], s->roles[p], s->inks[p]);
       el.ink += s->inks[p];
@@ -144,8 +170,19 @@ void pp_recognize_tilted_pies(pp_recognize_ctx *ctx) {
     const pp_wedge_candidate *a = &g_array_index(cands, pp_wedge_candidate, i);
     if (used[i] || !tilted_seed(a))
       continue;
+    /* The slices at the seed's apex; a seed pulled out of its pie waits for the others. */
+    guint n = 0;
+    for (guint j = 0; j < cands->len; j++) {
+      const pp_wedge_candidate *b = &g_array_index(cands, pp_wedge_candidate, j);
+      n += !used[j] && b->w.kind == PP_WEDGE_SECTOR &&
+           hypot(a->w.outer.centre.x - b->w.outer.centre.x,
+                 a->w.outer.centre.y - b->w.outer.centre.y) <= PP_TILT_SAME_APEX;
+    }
+    if (n < 2)
+      continue;
     gboolean *member = g_new0(gboolean, cands->len);
-    guint best = i, n = 0;
+    guint best = i;
+    n = 0;
     for (guint j = 0; j < cands->len; j++) {
       const pp_wedge_candidate *b = &g_array_index(cands, pp_wedge_candidate, j);
       if (used[j] || b->w.kind != PP_WEDGE_SECTOR ||
@@ -160,6 +197,7 @@ void pp_recognize_tilted_pies(pp_recognize_ctx *ctx) {
         best = j;
     }
     pp_ellipse shape = g_array_index(cands, pp_wedge_candidate, best).w.outer;
+    add_pulled_out(ctx, cands, &shape, used, member);
     gboolean perspective = FALSE;
     pp_slices_clear(slices);
     for (guint j = 0; j < cands->len && n >= 2; j++) {
