@@ -158,7 +158,17 @@ def tilted(name, values, ratio, depth, rule, persp=None, explode=()):
 
     for i, (t0, t1) in enumerate(spans):
         cx, cy = centre(i)
-        if depth > 0:
+        if depth > 0 and persp:
+            # Only the wall facing the camera: beyond it the band would fold over itself.
+            for lo, hi in truth_circles._arc_overlap(t0, t1, *truth_circles.rim_range(persp)):
+                cr.new_path()
+                for k, (x, y) in enumerate(truth_circles.rim_polygon(lo, hi, persp, depth,
+                                                                     180)):
+                    (cr.line_to if k else cr.move_to)(cx + r * x, cy - r * y)
+                cr.close_path()
+                cr.set_source_rgb(*[0.7 * c for c in RGB[i]])
+                cr.fill()
+        elif depth > 0:
             for lo, hi in truth_circles._arc_overlap(t0, t1, math.pi, 2 * math.pi):
                 cr.new_path()
                 cr.save()
@@ -207,7 +217,8 @@ def tilted(name, values, ratio, depth, rule, persp=None, explode=()):
         d.text("%d%%" % printed[i], cx + r * x, cy - r * y, 9, (1, 1, 1))
         if persp:
             x, y = truth_circles._project(1.15 * math.cos(mid), 1.15 * math.sin(mid),
-                                          persp["tilt"], persp["distance"])
+                                          persp["tilt"], persp["distance"],
+                                          -depth if math.sin(mid) < 0 else 0.0)
             d.text(NAMES[i], cx + r * x, cy - r * y, 8)
         else:
             d.text(NAMES[i], cx + 1.2 * r * math.cos(mid), cy - (1.25 * r * ratio + 6) *
@@ -216,7 +227,8 @@ def tilted(name, values, ratio, depth, rule, persp=None, explode=()):
     d.text("Ridership share by line, 2031", cx, 14, 11)
     if persp:
         pts = [truth_circles._project(math.cos(t / 90 * math.pi), math.sin(t / 90 * math.pi),
-                                      persp["tilt"], persp["distance"]) for t in range(180)]
+                                      persp["tilt"], persp["distance"], h)
+               for t in range(180) for h in {0.0, -depth}]
         xs, ys = [cx + r * p[0] for p in pts], [cy - r * p[1] for p in pts]
         bb = [min(xs), min(ys), max(xs), max(ys)]
     else:
@@ -229,7 +241,7 @@ def tilted(name, values, ratio, depth, rule, persp=None, explode=()):
         circle["perspective"] = persp
     d.finish([{"bbox": [round(x, 2) for x in bb], "kind": "tilted-pie", "rule": rule,
                "values": values, "labels": NAMES[:len(values)], "data_labels": printed,
-               "style": ["tilted"] + (["rim"] if depth else []) +
+               "style": ["tilted", "names-outside"] + (["rim"] if depth else []) +
                (["exploded"] if explode else []) +
                (["perspective"] if persp else []), "circle": circle}])
 
@@ -306,6 +318,8 @@ def main():
     tilted("cc_tilted_rim", v2, 0.35, 0.18, "tilted-pie-ink")
     tilted("cc_tilted_flat_honest", v2, 0.35, 0.0, None)
     tilted("cc_perspective", v2, 0.0, 0.0, "tilted-pie-ink",
+           persp={"tilt": math.radians(62), "distance": 2.6})
+    tilted("cc_perspective_rim", v2, 0.0, 0.14, "tilted-pie-ink",
            persp={"tilt": math.radians(62), "distance": 2.6})
     tilted("cc_tilted_exploded_rim", v2, 0.35, 0.18, "tilted-pie-ink", explode=(0, 3))
     tilted("cc_tilted_exploded_flat_honest", v2, 0.35, 0.0, None, explode=(0, 3))

@@ -415,11 +415,87 @@ def map_symbols(seed):
     return build
 
 
+# --- mplot3d bar3d: a value over two categorical dimensions ---------------------------
+
+# Faces of a box (x0..x1, y0..y1, z0..z1) as corner indices, each counter-clockwise seen
+# from outside (right-hand normal outward): a face is seen when its projected outline
+# keeps that turn on the page (textbook back-face test).
+BOX_FACES = {"bottom": (0, 3, 2, 1), "top": (4, 5, 6, 7), "y0": (0, 1, 5, 4),
+             "x1": (1, 2, 6, 5), "y1": (2, 3, 7, 6), "x0": (3, 0, 4, 7)}
+
+
+def box_corners(x0, y0, z0, dx, dy, dz):
+    return [(x0, y0, z0), (x0 + dx, y0, z0), (x0 + dx, y0 + dy, z0), (x0, y0 + dy, z0),
+            (x0, y0, z0 + dz), (x0 + dx, y0, z0 + dz), (x0 + dx, y0 + dy, z0 + dz),
+            (x0, y0 + dy, z0 + dz)]
+
+
+def bar3d_grid(seed, honest):
+    """Axes3D.bar3d over years x orchards, orthographic view. Misleading: wide footprints
+    seen from above (a top face of constant size on every bar) over values from 6 to 60,
+    nearer bars hiding parts of those behind. Honest as a 3D chart can be: thin columns
+    seen from low down, values within a narrow band, no bar hiding another. Truth: each
+    bar's eight corners on the page (matplotlib's own projection of the data, display
+    units) and view depths; scripts/corpus/truth_shapes.py takes the faces seen, less what
+    bars drawn over them hide."""
+    def build():
+        from mpl_toolkits.mplot3d import proj3d
+        rng = rng_of(seed)
+        cols, rows = ORCHARDS[:4], ["2029", "2030"]
+        n = len(cols) * len(rows)
+        if honest:
+            v = values_between(rng, n, 78, 96)
+            fp, elev, azim, ry = 0.14, 6, -62, 1.6
+        else:
+            v = with_spread(rng, values_between(rng, n, 10, 60), (6, 9), (55, 60))
+            fp, elev, azim, ry = 0.6, 32, -58, 1.0
+        fig = new_fig(6.4, 4.8)
+        ax = fig.add_axes((0.02, 0.04, 0.94, 0.9), projection="3d", proj_type="ortho")
+        ax.view_init(elev=elev, azim=azim)
+        xs = [c for r in range(len(rows)) for c in range(len(cols))]
+        ys = [ry * r for r in range(len(rows)) for c in range(len(cols))]
+        ax.bar3d([x - fp / 2 for x in xs], [y - fp / 2 for y in ys], [0] * n, fp, fp, v,
+                 color=HUES[0][0], shade=True)
+        top = 100 if honest else 70
+        ax.set_zlim(0, top)
+        ax.set_xlim(-0.5, len(cols) - 0.5)
+        ax.set_ylim(-0.5, ry * (len(rows) - 1) + 0.5)
+        ax.set_xticks(range(len(cols)))
+        ax.set_xticklabels(cols)
+        ax.set_yticks([ry * r for r in range(len(rows))])
+        ax.set_yticklabels(rows)
+        ax.set_title("Trees planted by orchard and year", fontsize=11)
+        bbox = box_of(fig, ax)  # draws: the projection below is the one on the page
+        M = ax.get_proj()
+        corners, depth = [], []
+        for x, y, h in zip(xs, ys, v):
+            pts = box_corners(x - fp / 2, y - fp / 2, 0, fp, fp, h)
+            px, py, pz = proj3d.proj_transform(*zip(*pts), M)
+            scr = ax.transData.transform(list(zip(px, py)))
+            corners.append([[round(float(a), 4), round(float(b), 4)] for a, b in scr])
+            depth.append([round(float(z), 6) for z in pz])
+        d = {"kind": "bar-3d", "misleading": not honest,
+             "rule": None if honest else "bars-3d-ink", "values": v,
+             "labels": ["%s/%s" % (c, r) for r in rows for c in cols],
+             "axis": {"min": 0.0, "max": float(top), "scale": "linear", "orientation": "z"},
+             "baseline": 0.0,
+             "solid": {"projection": "box", "base": 0.0, "corners": corners,
+                       "depth": depth, "faces": BOX_FACES, "footprint": [fp, fp],
+                       "view": [elev, azim]},
+             "style": ["bar3d", "ortho", "two-categories"] +
+                      (["thin", "low-view"] if honest else ["occluded"])}
+        d["bbox"] = bbox
+        return fig, [d]
+    return build
+
+
 PLAN = [
     ("shape_oblique_deep", 901, oblique_bars(901, True)),
     ("shape_oblique_shallow", 901, oblique_bars(901, False)),
     ("shape_oblique_wall", 902, oblique_bars(902, True, wall=True)),
     ("shape_oblique_stacked", 903, stacked_oblique(903)),
+    ("shape_bar3d_grid", 904, bar3d_grid(904, False)),
+    ("shape_bar3d_thin", 905, bar3d_grid(905, True)),
     ("shape_pyramid_heights", 911, pyramid(911, False)),
     ("shape_pyramid_areas", 911, pyramid(911, True)),
     ("shape_pyramid_pct", 912, pyramid(912, False, percent=True)),

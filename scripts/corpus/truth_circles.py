@@ -11,8 +11,9 @@ carries a "circle" object (docs/corpus.md, "Circle charts"). Formulas:
 * a rim (side wall) of depth d seen below the front half of an ellipse of semi-axis a
   has, between parametric angles t1 < t2 in [pi, 2pi], the area d * a * |cos t2 - cos t1|
   (a vertical band over the x-interval the arc spans);
-* perspective: top faces are projected through a pinhole and measured by the shoelace
-  formula over 720 points per turn (numerical, independent of plotproof's geometry);
+* perspective: top faces and rims (the edge and the same edge lowered by the depth) are
+  projected through a pinhole and measured by the shoelace formula over 720 points per
+  turn (numerical, independent of plotproof's geometry);
 * Lie Factor: Tufte (1983), p. 57, in its growth form (g2/g1)/(v2/v1).
 """
 
@@ -93,11 +94,33 @@ def slice_angles(values, start, direction):
     return out
 
 
-def _project(x, y, tilt, dist):
-    """A point of the unit pie plane seen through a pinhole: tilt about the x axis, camera
-    at dist radii, focal length dist (so the centre keeps its scale)."""
-    z = dist + y * math.sin(tilt)
-    return dist * x / z, dist * y * math.cos(tilt) / z
+def _project(x, y, tilt, dist, h=0.0):
+    """A point of the unit pie plane (raised by h radii) seen through a pinhole: tilt about
+    the x axis, camera at dist radii, focal length dist (so the centre keeps its scale);
+    (y, h) turn by the tilt."""
+    z = dist + y * math.sin(tilt) - h * math.cos(tilt)
+    return dist * x / z, dist * (y * math.cos(tilt) + h * math.sin(tilt)) / z
+
+
+def rim_range(persp):
+    """The parametric angles of the side wall facing the camera: the wall's normal
+    (cos t, sin t, 0) towards the camera at (0, -dist sin(tilt), dist cos(tilt)) in the
+    pie's frame, i.e. sin t < -1/(dist sin(tilt)); orthographic (no persp): the front half."""
+    if not persp:
+        return math.pi, 2 * math.pi
+    k = math.asin(1.0 / (persp["distance"] * math.sin(persp["tilt"])))
+    return math.pi + k, 2 * math.pi - k
+
+
+def rim_polygon(lo, hi, persp, depth, n_turn):
+    """A perspective rim between parametric angles lo < hi of the front half: the top
+    face's edge, then the same edge `depth` radii lower, backwards (n_turn points a turn)."""
+    n = max(2, int(n_turn * (hi - lo) / (2 * math.pi)))
+    ts = [lo + (hi - lo) * j / n for j in range(n + 1)]
+    top = [_project(math.cos(t), math.sin(t), persp["tilt"], persp["distance"]) for t in ts]
+    bot = [_project(math.cos(t), math.sin(t), persp["tilt"], persp["distance"], -depth)
+           for t in reversed(ts)]
+    return top + bot
 
 
 def _shoelace(pts):
@@ -125,8 +148,13 @@ def _tilted(fig, c):
             top.append(_shoelace(pts))
         else:
             top.append(k * (t1 - t0) / 2)
-        rim.append(sum(depth * abs(math.cos(e) - math.cos(b))
-                       for b, e in _arc_overlap(t0, t1, math.pi, 2 * math.pi)))
+        if persp:
+            # Drawn in units of the radius: the shoelace over 720 points a turn.
+            rim.append(sum(_shoelace(rim_polygon(b, e, persp, depth, 720))
+                           for b, e in _arc_overlap(t0, t1, *rim_range(persp))))
+        else:
+            rim.append(sum(depth * abs(math.cos(e) - math.cos(b))
+                           for b, e in _arc_overlap(t0, t1, math.pi, 2 * math.pi)))
     tt, ta = sum(top), sum(top) + sum(rim)
     ex_top = [top[i] / tt / s[i] for i in range(len(v))]
     ex_all = [(top[i] + rim[i]) / ta / s[i] for i in range(len(v))]

@@ -52,6 +52,102 @@ def _max_pair(v, g):
     return worst
 
 
+def _clip_convex(subject, clip):
+    """Sutherland-Hodgman: the part of polygon subject inside the convex polygon clip
+    (either turn; textbook)."""
+    if _signed(clip) < 0:
+        clip = clip[::-1]
+    out = list(subject)
+    for i in range(len(clip)):
+        a, b = clip[i], clip[(i + 1) % len(clip)]
+        side = lambda p: (b[0] - a[0]) * (p[1] - a[1]) - (b[1] - a[1]) * (p[0] - a[0])  # noqa
+        src, out = out, []
+        for k in range(len(src)):
+            p, q = src[k], src[(k + 1) % len(src)]
+            sp, sq = side(p), side(q)
+            if sp >= 0:
+                out.append(p)
+            if (sp >= 0) != (sq >= 0):
+                t = sp / (sp - sq)
+                out.append((p[0] + t * (q[0] - p[0]), p[1] + t * (q[1] - p[1])))
+        if not out:
+            return []
+    return out
+
+
+def _signed(pts):
+    s = 0.0
+    for i in range(len(pts)):
+        x0, y0 = pts[i]
+        x1, y1 = pts[(i + 1) % len(pts)]
+        s += x0 * y1 - x1 * y0
+    return s / 2
+
+
+def _hull(pts):
+    """Convex hull, counter-clockwise (Andrew's monotone chain; textbook)."""
+    pts = sorted(set(map(tuple, pts)))
+    cross = lambda o, a, b: (a[0] - o[0]) * (b[1] - o[1]) - (a[1] - o[1]) * (b[0] - o[0])  # noqa
+    lo, up = [], []
+    for p in pts:
+        while len(lo) >= 2 and cross(lo[-2], lo[-1], p) <= 0:
+            lo.pop()
+        lo.append(p)
+    for p in reversed(pts):
+        while len(up) >= 2 and cross(up[-2], up[-1], p) <= 0:
+            up.pop()
+        up.append(p)
+    return lo[:-1] + up[:-1]
+
+
+def _hidden(face, covers):
+    """Area of face under the union of convex covers, by inclusion-exclusion over their
+    intersections (each an intersection of convex polygons, so convex)."""
+    from itertools import combinations
+    total = 0.0
+    for k in range(1, len(covers) + 1):
+        for sub in combinations(covers, k):
+            poly = face
+            for c in sub:
+                poly = _clip_convex(poly, c)
+                if len(poly) < 3:
+                    break
+            if len(poly) >= 3:
+                total += (-1) ** (k + 1) * abs(_signed(poly))
+    return total
+
+
+def box_faces_seen(solid):
+    """mplot3d bar3d boxes: per bar, (vertical faces seen, top seen) in display units².
+    A face is seen when its outline keeps its outward turn on the page (back-face test).
+    mplot3d paints faces furthest first by the mean view depth of their corners (its
+    painter's algorithm); a bar is painted over another when its nearest seen face is
+    nearer than the other's, and what it covers is taken off."""
+    corners, depth, faces = solid["corners"], solid["depth"], solid["faces"]
+    hulls = [_hull(c) for c in corners]
+    near = []
+    for c, z in zip(corners, depth):
+        seen = [idx for idx in faces.values() if _signed([tuple(c[k]) for k in idx]) > 0]
+        near.append(min(sum(z[k] for k in idx) / 4 for idx in seen))
+    out = []
+    for i, c in enumerate(corners):
+        covers = [hulls[j] for j in range(len(corners))
+                  if j != i and near[j] < near[i]
+                  and len(_clip_convex(hulls[i], hulls[j])) >= 3]
+        vert = top = 0.0
+        for name, idx in faces.items():
+            poly = [tuple(c[k]) for k in idx]
+            if _signed(poly) <= 0:
+                continue
+            seen = abs(_signed(poly)) - _hidden(poly, covers)
+            if name == "top":
+                top += seen
+            elif name != "bottom":
+                vert += seen
+        out.append((vert, top))
+    return out
+
+
 def perspective_point(p, eye, f):
     """One-point perspective of (x, y, z): scale f/(f+z) towards the eye point."""
     s = f / (f + p[2])
@@ -71,6 +167,8 @@ def bar3d_faces(solid, v):
     (y up here: top < eye y), the side facing the eye; faces by the shoelace formula."""
     proj = solid["projection"]
     b = solid.get("base", 0.0)
+    if proj == "box":  # the top is the constant; what is hidden is off both
+        return [(vt, tp, vt + tp) for vt, tp in box_faces_seen(solid)]
     out = []
     for i, vi in enumerate(v):
         h = vi - b if "segment_base" not in solid else vi  # a segment's own height

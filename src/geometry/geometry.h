@@ -145,6 +145,16 @@ gboolean pp_quads_share_edge(const pp_quad *a, const pp_quad *b, double tol);
  * of first appearance. Returns the number of groups. */
 guint pp_quads_group_by_edges(const pp_quad *quads, guint n, double tol, guint *group);
 
+/* Convex polygons (a box's silhouette, the part of a face a nearer box hides). The hull of
+ * n points into out (room for n), counter-clockwise in page coordinates; returns its
+ * corner count. Clipping: the part of subject inside the convex polygon clip (either
+ * turn) into out (room for PP_CONVEX_MAX); returns its corner count, 0 when empty. */
+#define PP_CONVEX_MAX 64
+guint pp_convex_hull(const pp_point *pts, guint n, pp_point *out);
+guint pp_convex_clip(const pp_point *subject, guint ns, const pp_point *clip, guint nc,
+                     pp_point *out);
+double pp_polygon_area(const pp_point *pts, guint n);
+
 /* size = exp(log_coeff) · value^exponent, least squares on logs over the positive pairs. */
 typedef struct {
   double exponent, log_coeff;

@@ -4,6 +4,7 @@
 #include "internal.h"
 
 #include <math.h>
+#include <string.h>
 
 /* Two edges are parallel when the sine of the angle between them is below this: 0.01 rad
  * ≈ 0.6°, above the rounding of producers writing two decimals on edges of a few points
@@ -204,4 +205,79 @@ guint pp_quads_group_by_edges(const pp_quad *quads, guint n, double tol, guint *
     group[i] = label[r];
   }
   return n_groups;
+}
+
+double pp_polygon_area(const pp_point *pts, guint n) {
+  double s = 0;
+  for (guint i = 0; i < n; i++) {
+    pp_point a = pts[i], b = pts[(i + 1) % n];
+    s += a.x * b.y - b.x * a.y;
+  }
+  return fabs(s) / 2;
+}
+
+static int cmp_point(const void *a, const void *b) {
+  const pp_point *p = a, *q = b;
+  if (p->x != q->x)
+    return p->x < q->x ? -1 : 1;
+  return (p->y > q->y) - (p->y < q->y);
+}
+
+/* Andrew's monotone chain (textbook). */
+guint pp_convex_hull(const pp_point *pts, guint n, pp_point *out) {
+  if (n < 3) {
+    memcpy(out, pts, n * sizeof *pts);
+    return n;
+  }
+  g_autofree pp_point *p = g_memdup2(pts, n * sizeof *pts);
+  qsort(p, n, sizeof *p, cmp_point);
+  g_autofree pp_point *h = g_new(pp_point, 2 * n);
+  guint k = 0;
+  for (guint i = 0; i < n; i++) {
+    while (k >= 2 && cross(h[k - 2], h[k - 1], p[i]) <= 0)
+      k--;
+    h[k++] = p[i];
+  }
+  for (guint i = n - 1, t = k + 1; i-- > 0;) {
+    while (k >= t && cross(h[k - 2], h[k - 1], p[i]) <= 0)
+      k--;
+    h[k++] = p[i];
+  }
+  k = k > 0 ? k - 1 : 0;
+  memcpy(out, h, MIN(k, n) * sizeof *h);
+  return MIN(k, n);
+}
+
+/* Sutherland–Hodgman against each edge of the convex clip (textbook). */
+guint pp_convex_clip(const pp_point *subject, guint ns, const pp_point *clip, guint nc,
+                     pp_point *out) {
+  pp_point a[PP_CONVEX_MAX], b[PP_CONVEX_MAX];
+  if (ns < 3 || nc < 3 || ns > PP_CONVEX_MAX)
+    return 0;
+  double turn = 0;
+  for (guint i = 0; i < nc; i++)
+    turn += clip[i].x * clip[(i + 1) % nc].y - clip[(i + 1) % nc].x * clip[i].y;
+  double sgn = turn < 0 ? -1 : 1;
+  memcpy(a, subject, ns * sizeof *a);
+  guint n = ns;
+  for (guint e = 0; e < nc && n > 0; e++) {
+    pp_point c0 = clip[e], c1 = clip[(e + 1) % nc];
+    guint m = 0;
+    for (guint k = 0; k < n && m + 2 <= PP_CONVEX_MAX; k++) {
+      pp_point p = a[k], q = a[(k + 1) % n];
+      double sp = sgn * cross(c0, c1, p), sq = sgn * cross(c0, c1, q);
+      if (sp >= 0)
+        b[m++] = p;
+      if ((sp >= 0) != (sq >= 0)) {
+        double t = sp / (sp - sq);
+        b[m++] = (pp_point){p.x + t * (q.x - p.x), p.y + t * (q.y - p.y)};
+      }
+    }
+    memcpy(a, b, m * sizeof *a);
+    n = m;
+  }
+  if (n < 3)
+    return 0;
+  memcpy(out, a, n * sizeof *a);
+  return n;
 }

@@ -225,6 +225,9 @@ typedef struct {
   pp_rect box;
   const pp_label *label; /* its printed number, NULL if none */
   char *category;        /* owned */
+  pp_rect face;          /* perspective: the whole pie's top-face box, distances then read
+                          * on quarter ellipses about the apex; empty: on ellipse */
+  double drop;           /* depth of the rim below the face, pt (names sit below it) */
 } pp_slice;
 
 void pp_slice_coords(const pp_ellipse *e, pp_point p, double *angle, double *dist);
@@ -255,6 +258,7 @@ void pp_recognize_labelled_bars(pp_recognize_ctx *ctx); /* labelled.c */
 void pp_recognize_lines(pp_recognize_ctx *ctx);         /* lines.c */
 void pp_recognize_solid_bars(pp_recognize_ctx *ctx);    /* solids.c */
 void pp_recognize_cylinders(pp_recognize_ctx *ctx);     /* cylinders.c */
+void pp_recognize_boxes(pp_recognize_ctx *ctx);         /* boxes.c */
 /* Shared by the solid recognizers (solids.c): the free vertical linear value axis beside
  * a group of solids, the word under a front (its category), the plot frame around them. */
 const pp_axis_candidate *pp_solid_value_axis(const pp_recognize_ctx *ctx, pp_rect all);

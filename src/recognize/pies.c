@@ -48,6 +48,7 @@ static pp_slice slice_of(const pp_wedge_candidate *c) {
   s.roles[0] = PP_PART_BODY;
   s.inks[0] = c->ink;
   s.box = c->box;
+  s.face = pp_rect_empty();
   return s;
 }
 

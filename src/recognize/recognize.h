@@ -180,7 +180,8 @@ typedef struct {
     PP_PROJECTION_PERSPECTIVE,
     PP_PROJECTION_TILTED, /* orthographic tilt of a plane: ellipses of axis ratio `ratio` */
   } kind;
-  double ratio; /* tilted: minor/major axis ratio = cos(tilt); oblique: depth/width */
+  double ratio; /* tilted: minor/major axis ratio = cos(tilt); oblique: depth/width;
+                 * box bars (boxes.c): the largest share of a bar nearer bars hide */
 } pp_projection;
 
 typedef struct {

@@ -18,6 +18,11 @@ const pp_recognizer pp_recognizers[] = {
       "two or more bodies with straight vertical sides on one floor, each with an ellipse of "
       "its width on its top edge; a fitted vertical scale beside them"},
      pp_recognize_cylinders},
+    {{"box-bars", "3D bar charts of one value over two categories (boxes on a floor)",
+      "two or more boxes of six (or three visible) faces with equal vertical edges, seen in "
+      "orthographic projection, not holding other boxes; a fitted vertical scale beside "
+      "them. Ink is the faces seen, less what nearer boxes hide"},
+     pp_recognize_boxes},
     /* Circles first: their printed shares would otherwise look like a column of ticks. */
     {{"pies", "pies and donuts: slices of one circle whose angles tile the full turn",
       "two or more sectors (or donut slices) of one radius about one centre, pulled-out "

@@ -25,6 +25,12 @@
  * face then an arc of the pie's own ellipse: radius within this share of the pie's. */
 #define PP_TILT_EXPLODE_MAX 0.4
 #define PP_TILT_SAME_RADIUS 0.02
+/* A perspective rim's points lie on its slice's outline within this distance, pt, at
+ * least this share of them (its top edge: about half; common practice, no source), both
+ * outlines flattened to this chord deviation, pt. */
+#define PP_RIM_ON_EDGE 0.75
+#define PP_RIM_EDGE_SHARE 0.25
+#define PP_RIM_FLATTEN 0.1
 /* A rim's top arc is centred on its slice's apex within this distance, pt. */
 #define PP_RIM_SAME_CENTRE 2.0
 
@@ -56,6 +62,7 @@ static pp_slice slice_of(const pp_wedge_candidate *c, const pp_wedge *w) {
   s.roles[0] = PP_PART_TOP;
   s.inks[0] = c->ink;
   s.box = c->box;
+  s.face = pp_rect_empty();
   return s;
 }
 
@@ -77,6 +84,7 @@ static gboolean reread(const pp_scene *scene, guint mark, guint subpath, const p
  * whose angles hold its middle. */
 static void add_rims(pp_recognize_ctx *ctx, GArray *cands, GArray *slices, const pp_ellipse *shape,
                      const gboolean *member) {
+  double drop = 0;
   for (guint i = 0; i < cands->len; i++) {
     const pp_wedge_candidate *c = &g_array_index(cands, pp_wedge_candidate, i);
     if (member[i] || c->w.kind != PP_WEDGE_BAND || !pp_claims_mark_free(ctx->claims, c->mark))
@@ -90,6 +98,7 @@ static void add_rims(pp_recognize_ctx *ctx, GArray *cands, GArray *slices, const
       if (hypot(w.outer.centre.x - s->ellipse.centre.x, w.outer.centre.y - s->ellipse.centre.y) <=
               PP_RIM_SAME_CENTRE &&
           pp_angle_within(mid, s->a0, s->a1) && s->n_parts < PP_SLICE_MAX_PARTS) {
+        drop = fmax(drop, hypot(w.depth.x, w.depth.y));
         s->marks[s->n_parts] = c->mark;
         s->roles[s->n_parts] = PP_PART_RIM;
         s->inks[s->n_parts++] = c->ink;
@@ -98,6 +107,9 @@ static void add_rims(pp_recognize_ctx *ctx, GArray *cands, GArray *slices, const
       }
     }
   }
+  /* The pie's rim has one depth: names of the front slices sit below it. */
+  for (guint k = 0; k < slices->len; k++)
+    g_array_index(slices, pp_slice, k).drop = drop;
 }
 
 /* Slices pulled out of the pie: free sectors whose apex lies near its centre and whose
@@ -116,6 +128,61 @@ static void add_pulled_out(const pp_recognize_ctx *ctx, GArray *cands, const pp_
       continue;
     member[j] = used[j] = TRUE;
   }
+}
+
+/* Distance from p to the nearest edge of the polygons (flattened subpaths). */
+static double polygons_distance(GPtrArray *polys, pp_point p) {
+  double best = INFINITY;
+  for (guint k = 0; k < polys->len; k++) {
+    GArray *pts = g_ptr_array_index(polys, k);
+    for (guint i = 0; i + 1 < pts->len; i++) {
+      pp_point a = g_array_index(pts, pp_point, i), b = g_array_index(pts, pp_point, i + 1);
+      double dx = b.x - a.x, dy = b.y - a.y, len2 = dx * dx + dy * dy;
+      double t = len2 > 0 ? fmax(0, fmin(1, ((p.x - a.x) * dx + (p.y - a.y) * dy) / len2)) : 0;
+      best = fmin(best, hypot(p.x - a.x - t * dx, p.y - a.y - t * dy));
+    }
+  }
+  return best;
+}
+
+/* Rims of a perspective pie, whose edges are no ellipse: free fills hanging below the
+ * pie's apex whose top edge runs along a slice's face (enough of their points on its
+ * outline) and whose bulk lies below it. Each joins that slice. */
+static void add_perspective_rims(pp_recognize_ctx *ctx, GArray *slices, const gboolean *mark_in) {
+  const pp_scene *scene = ctx->scene;
+  pp_rect face = g_array_index(slices, pp_slice, 0).face;
+  pp_point apex = g_array_index(slices, pp_slice, 0).ellipse.centre;
+  double bottom = face.y1;
+  for (guint k = 0; k < slices->len; k++) {
+    pp_slice *s = &g_array_index(slices, pp_slice, k);
+    const pp_mark *top = g_ptr_array_index(scene->marks, s->marks[0]);
+    g_autoptr(GPtrArray) edge = pp_path_flatten(top->path, PP_RIM_FLATTEN);
+    for (guint i = 0; i < scene->marks->len && s->n_parts < PP_SLICE_MAX_PARTS; i++) {
+      const pp_mark *m = g_ptr_array_index(scene->marks, i);
+      pp_rect b = m->visible_bbox;
+      if (m->kind != PP_MARK_FILL || mark_in[i] || !(m->ink > 0) ||
+          !pp_claims_mark_free(ctx->claims, i) ||
+          g_hash_table_contains(ctx->glyph_marks, GUINT_TO_POINTER(i)) || b.y0 < apex.y ||
+          b.y1 <= top->visible_bbox.y1 || b.x0 < face.x0 - 1 || b.x1 > face.x1 + 1)
+        continue;
+      g_autoptr(GPtrArray) polys = pp_path_flatten(m->path, PP_RIM_FLATTEN);
+      guint n = 0, on = 0;
+      for (guint p = 0; p < polys->len; p++) {
+        GArray *pts = g_ptr_array_index(polys, p);
+        for (guint q = 0; q < pts->len; q++, n++)
+          on += polygons_distance(edge, g_array_index(pts, pp_point, q)) <= PP_RIM_ON_EDGE;
+      }
+      if (on < 3 || on < PP_RIM_EDGE_SHARE * n)
+        continue;
+      s->marks[s->n_parts] = i;
+      s->roles[s->n_parts] = PP_PART_RIM;
+      s->inks[s->n_parts++] = m->ink;
+      s->box = pp_rect_union(s->box, b);
+      bottom = fmax(bottom, b.y1);
+    }
+  }
+  for (guint k = 0; k < slices->len; k++)
+    g_array_index(slices, pp_slice, k).drop = bottom - face.y1;
 }
 
 static void build(pp_recognize_ctx *ctx, GArray *slices, gboolean perspective,
@@ -215,23 +282,36 @@ void pp_recognize_tilted_pies(pp_recognize_ctx *ctx) {
     if (perspective) {
       /* Not an ellipse: the apparent angles of each slice's own arc must tile the turn. */
       guint k = 0;
+      pp_rect face = pp_rect_empty();
       for (guint j = 0; j < cands->len; j++) {
         if (!member[j])
           continue;
         pp_slice *s = &g_array_index(slices, pp_slice, k++);
         const pp_wedge *w = &g_array_index(cands, pp_wedge_candidate, j).w;
         apparent_angles(w, &s->a0, &s->a1);
-        /* Labels are found about the apex in the page's own circle. */
+        /* Labels are found about the apex in the page's own circle; names beyond the face's
+         * outline (the whole face's box about the apex). */
         s->ellipse = (pp_ellipse){w->outer.centre, fmax(w->outer.rx, w->outer.ry),
                                   fmax(w->outer.rx, w->outer.ry), 0};
+        face = pp_rect_union(face, s->box);
       }
+      for (guint j = 0; j < slices->len; j++)
+        g_array_index(slices, pp_slice, j).face = face;
     }
     gboolean ok =
         slices->len >= 2 &&
         pp_slices_tile_turn(slices, perspective ? PP_PERSPECTIVE_TILE_TOL : PP_TILT_TILE_TOL);
     if (ok) {
-      if (!perspective)
+      if (!perspective) {
         add_rims(ctx, cands, slices, &shape, member);
+      } else {
+        gboolean *mark_in = g_new0(gboolean, ctx->scene->marks->len);
+        for (guint j = 0; j < cands->len; j++)
+          if (member[j])
+            mark_in[g_array_index(cands, pp_wedge_candidate, j).mark] = TRUE;
+        add_perspective_rims(ctx, slices, mark_in);
+        g_free(mark_in);
+      }
       build(ctx, slices, perspective, &shape);
     }
     g_free(member);

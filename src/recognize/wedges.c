@@ -205,8 +205,10 @@ static char *category_of(const pp_scene *scene, const pp_label *lab) {
 }
 
 /* A slice's name printed just outside it, along its angles, when its number is elsewhere
- * (inside the slice or in a legend): the nearest text line that is not a number. */
-static char *name_beside(const pp_scene *scene, const pp_slice *s) {
+ * (inside the slice or in a legend): the nearest text line that is not a number and not
+ * already another slice's name. Below a tilted pie its rim's depth is skipped, and a
+ * perspective face is measured on its fitted outline. */
+static char *name_beside(const pp_scene *scene, const pp_slice *s, GArray *slices) {
   const pp_text_line *best = NULL;
   double best_d = PP_NAME_REACH;
   for (guint i = 0; i < scene->lines->len; i++) {
@@ -214,9 +216,27 @@ static char *name_beside(const pp_scene *scene, const pp_slice *s) {
     pp_point c = {(line->box.x0 + line->box.x1) / 2, (line->box.y0 + line->box.y1) / 2};
     double a, d;
     pp_slice_coords(&s->ellipse, c, &a, &d);
+    pp_point o = s->ellipse.centre;
+    if (c.y > o.y) /* page y runs down: below the apex */
+      c.y -= fmin(s->drop, c.y - o.y);
+    if (!pp_rect_is_empty(s->face)) {
+      pp_rect f = s->face;
+      double rx = c.x >= o.x ? f.x1 - o.x : o.x - f.x0, ry = c.y >= o.y ? f.y1 - o.y : o.y - f.y0;
+      d = rx > 0 && ry > 0 ? hypot((c.x - o.x) / rx, (c.y - o.y) / ry) : 0;
+    } else {
+      double unused;
+      pp_slice_coords(&s->ellipse, c, &unused, &d);
+    }
     pp_number num;
     if (d < 1 || d > best_d || !pp_angle_within(a, s->a0, s->a1) ||
         pp_number_parse(line->text, PP_DECIMAL_UNKNOWN, &num))
+      continue;
+    gboolean named = FALSE;
+    for (guint k = 0; k < slices->len && !named; k++) {
+      const char *other = g_array_index(slices, pp_slice, k).category;
+      named = other && strcmp(other, line->text) == 0;
+    }
+    if (named)
       continue;
     best_d = d;
     best = line;
@@ -281,7 +301,7 @@ guint pp_slices_attach_labels(pp_recognize_ctx *ctx, GArray *slices, const char 
     s->label = lab;
     s->category = category_of(ctx->scene, lab);
     if (!s->category)
-      s->category = name_beside(ctx->scene, s);
+      s->category = name_beside(ctx->scene, s, slices);
     pp_claims_take_label(ctx->claims, lab->index, owner);
     if (swatches[k] != G_MAXUINT)
       pp_claims_take_mark_if_free(ctx->claims, swatches[k], owner);

@@ -42,6 +42,14 @@ gboolean pp_rule_bars_3d_ink_measure(const pp_figure *fig, const pp_thresholds *
 
 char *pp_rule_bars_3d_ink_sentence(const pp_figure *fig, const pp_finding *f,
                                    const pp_thresholds *t) {
+  if (g_strcmp0(fig->recognizer, "box-bars") == 0) { /* one value over two categories */
+    char *lead = g_strdup_printf(
+        "a 3D chart of one value over two categories: up to %.0f%% of a bar's ink is its top, "
+        "which does not grow with its value, and nearer bars hide up to %.0f%% of those "
+        "behind, so ink cannot be proportional",
+        100 * f->measures.extra[0].value, 100 * fig->projection.ratio);
+    return pp_rule_sentence(f, t, lead, "bar");
+  }
   const char *how = fig->projection.kind == PP_PROJECTION_PERSPECTIVE ? "bars drawn in perspective"
                                                                       : "bars drawn as 3D solids";
   char *lead =

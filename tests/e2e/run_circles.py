@@ -84,7 +84,15 @@ for t in truths:
             rules = [f["rule"] for f in found]
             check(fig["rule"] in rules, f"{name}: want {fig['rule']}, got {rules}")
             want = fig["expected"]["lie_factor_growth"]
+            # Names printed beside the slices (outside, below a rim, around a perspective
+            # face) are the generator's own: each slice's name goes with its printed number.
+            named = "names-outside" in fig.get("style", [])
+            pairs = set(zip(fig["labels"], fig.get("data_labels") or []))
             for f in found:
+                if f["rule"] == fig["rule"] and named:
+                    got_pairs = [(e.get("category"), e.get("value")) for e in f["elements"]]
+                    check(all(p in pairs for p in got_pairs),
+                          f"{name}: slice names {got_pairs}, truth {sorted(pairs)}")
                 if f["rule"] == fig["rule"]:
                     got = f["measures"].get("ink_growth_ratio", f["measures"].get("lie_factor"))
                     check(got is not None and abs(got - want) <= TOLERANCE * abs(want),

@@ -216,11 +216,49 @@ static void test_random_curves(void **state) {
   run_cases(40, 4321, TRUE);
 }
 
+static GEOSGeometry *geos_polygon(const pp_point *p, guint n) {
+  GEOSCoordSequence *seq = GEOSCoordSeq_create_r(ctx, n + 1, 2);
+  for (guint i = 0; i <= n; i++)
+    GEOSCoordSeq_setXY_r(ctx, seq, i, p[i % n].x, p[i % n].y);
+  return GEOSGeom_createPolygon_r(ctx, GEOSGeom_createLinearRing_r(ctx, seq), NULL, 0);
+}
+
+/* Convex hulls and convex clips (boxes.c: a 3D bar's silhouette, the part of a face a
+ * nearer bar hides) against GEOS's convex hull and intersection areas. */
+static void test_convex_hull_and_clip(void **state) {
+  (void)state;
+  GRand *rng = g_rand_new_with_seed(777);
+  for (int c = 0; c < 300; c++) {
+    pp_point a[8], b[8], ha[8], hb[8], out[PP_CONVEX_MAX];
+    for (int i = 0; i < 8; i++) {
+      a[i] = (pp_point){g_rand_double_range(rng, 0, 100), g_rand_double_range(rng, 0, 100)};
+      b[i] = (pp_point){g_rand_double_range(rng, 30, 130), g_rand_double_range(rng, 20, 120)};
+    }
+    guint na = pp_convex_hull(a, 8, ha), nb = pp_convex_hull(b, 8, hb);
+    GEOSGeometry *ga = geos_polygon(a, 8), *gb = geos_polygon(b, 8);
+    GEOSGeometry *ca = GEOSConvexHull_r(ctx, ga), *cb = GEOSConvexHull_r(ctx, gb);
+    double want_a, want_b, want_i;
+    GEOSArea_r(ctx, ca, &want_a);
+    GEOSArea_r(ctx, cb, &want_b);
+    assert_true(fabs(pp_polygon_area(ha, na) - want_a) < 1e-9 * want_a + 1e-9);
+    assert_true(fabs(pp_polygon_area(hb, nb) - want_b) < 1e-9 * want_b + 1e-9);
+    GEOSGeometry *gi = GEOSIntersection_r(ctx, ca, cb);
+    GEOSArea_r(ctx, gi, &want_i);
+    guint ni = pp_convex_clip(ha, na, hb, nb, out);
+    double got = ni >= 3 ? pp_polygon_area(out, ni) : 0;
+    assert_true(fabs(got - want_i) < 1e-7 * (want_a + want_b));
+    GEOSGeom_destroy_r(ctx, ga), GEOSGeom_destroy_r(ctx, gb), GEOSGeom_destroy_r(ctx, ca);
+    GEOSGeom_destroy_r(ctx, cb), GEOSGeom_destroy_r(ctx, gi);
+  }
+  g_rand_free(rng);
+}
+
 int main(void) {
   ctx = GEOS_init_r();
   const struct CMUnitTest tests[] = {
       cmocka_unit_test(test_random_polygons),
       cmocka_unit_test(test_random_curves),
+      cmocka_unit_test(test_convex_hull_and_clip),
   };
   int rc = cmocka_run_group_tests(tests, NULL, NULL);
   GEOS_finish_r(ctx);
