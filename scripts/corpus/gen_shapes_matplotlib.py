@@ -169,12 +169,26 @@ def stacked_oblique(seed):
 
 # --- pyramids and funnels ------------------------------------------------------------
 
-def pyramid(seed, honest, inverted=False, percent=False):
+def pyramid(seed, honest, inverted=False, percent=False, decimals=1):
     """Triangle cut into slices. Misleading: slice heights ∝ values, so areas follow
-    h2² − h1². Honest: cut depths h_k = H·sqrt(cumulative share), so areas ∝ values."""
+    h2² − h1². Honest: cut depths h_k = H·sqrt(cumulative share), so areas ∝ values.
+    decimals=0: whole percentages with one thin slice, where rounding alone moves a share
+    by up to a tenth (honest: must stay quiet); the misleading one then has values summing
+    to 100, so its labels print them exactly."""
     def build():
         rng = rng_of(seed)
         v = values_between(rng, 4, 8, 40)
+        if percent and decimals == 0 and not honest:
+            v[rng.randrange(4)] = int(rng.uniform(3, 6))
+            v[-1] = max(3, 100 - sum(v[:-1]))
+        while percent and decimals == 0 and honest:
+            # a thin slice whose share is a third of a point or more off its printed one
+            v = values_between(rng, 4, 80, 400)
+            k = rng.randrange(4)
+            v[k] = int(rng.uniform(12, 20))
+            off = abs(100 * v[k] / sum(v) - round(100 * v[k] / sum(v)))
+            if off >= 0.3:
+                break
         names = TIERS if not inverted else STAGES[:4]
         H, Wb = 10.0, 8.0
         tot = sum(v)
@@ -194,7 +208,7 @@ def pyramid(seed, honest, inverted=False, percent=False):
             xs = [-a1, a1, a2, -a2]
             ax.fill(xs, ys, color=HUES[i % 4][0], edgecolor="white", linewidth=1.0)
             mid = H - (h1 + h2) / 2
-            txt = ("%.1f%%" % (100 * x / tot)) if percent else "%d" % x
+            txt = ("%.*f%%" % (decimals, 100 * x / tot)) if percent else "%d" % x
             ax.text(0, mid, txt, ha="center", va="center", fontsize=9, color="white")
             ax.text(Wb / 2 + 0.3, mid, names[i], ha="left", va="center", fontsize=9)
             shape.append([2 * a1, 2 * a2, h2 - h1])
@@ -208,10 +222,12 @@ def pyramid(seed, honest, inverted=False, percent=False):
         d = {"kind": "pyramid", "misleading": not honest,
              "rule": None if honest else "slices-vs-values", "values": v, "labels": names,
              "axis": None, "baseline": None,
-             "data_labels": [round(100 * x / tot, 1) for x in v] if percent else list(v),
+             "data_labels": [round(100 * x / tot, decimals) for x in v] if percent
+             else list(v),
              "slices": {"shape": shape, "solid": "cone", "order": "top-to-bottom"},
              "style": ["triangle"] + (["inverted"] if inverted else []) +
-                      (["percent"] if percent else [])}
+                      (["percent"] if percent else []) +
+                      (["whole-percent"] if percent and decimals == 0 else [])}
         d["bbox"] = box_of(fig, ax)
         return fig, [d]
     return build
@@ -500,6 +516,8 @@ PLAN = [
     ("shape_pyramid_areas", 911, pyramid(911, True)),
     ("shape_pyramid_pct", 912, pyramid(912, False, percent=True)),
     ("shape_pyramid_pct_honest", 912, pyramid(912, True, percent=True)),
+    ("shape_pyramid_pct0", 916, pyramid(916, False, percent=True, decimals=0)),
+    ("shape_pyramid_pct0_honest", 917, pyramid(917, True, percent=True, decimals=0)),
     ("shape_funnel_trapezoids", 913, funnel(913, False)),
     ("shape_funnel_bars", 913, funnel(913, True)),
     ("shape_population_pyramid", 914, population_pyramid(914)),

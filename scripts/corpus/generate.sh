@@ -74,6 +74,7 @@ if command -v gnuplot >/dev/null 2>&1 && [ -x "$py" ]; then
 fi
 if command -v Rscript >/dev/null 2>&1 && [ -x "$py" ]; then
 	Rscript "$here/gen_r_circles.R" || status=1
+	Rscript "$here/gen_r_shapes.R" || status=1
 fi
 if [ -x "$py" ] && "$py" -c 'import cairo' 2>/dev/null; then
 	"$py" "$here/gen_cairo_circles.py" || status=1
