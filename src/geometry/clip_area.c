@@ -1,6 +1,10 @@
 /* clip_area.c — exact area of (path under its fill rule) ∩ every clip region.
- * Slab sweep: edges become y-monotone pieces; between consecutive event y's no two
- * edges cross, so gaps are ordered by x and ∫(x_right − x_left) dy is taken in closed form. */
+ * Sweep over y (Bentley–Ottmann): edges become y-monotone pieces kept in x order; the
+ * order changes only at end points and at crossings, found between neighbours only and
+ * taken from a heap. Each edge carries a coefficient (+1 right end of an inside run,
+ * −1 left end, 0 otherwise) and ∫ c·x dy is accumulated in closed form per edge, only
+ * when its coefficient changes: O((n + k) log n) for n pieces and k crossings, plus a
+ * pass over the active pieces at each distinct end-point height. */
 #include "internal.h"
 
 #include <float.h>
@@ -8,13 +12,18 @@
 #include <stdlib.h>
 #include <string.h>
 
-/* Sub-slab recursion and crossing-search limits: they only bound work on
- * pathological input (coincident curves, tangencies); see docs/geometry.md. */
-#define MAX_SLAB_DEPTH 48
+/* Crossing-search limits: they only bound work on pathological input (coincident
+ * curves, tangencies); see docs/geometry.md. */
 #define MAX_CROSS_DEPTH 52
 #define CROSS_NODE_BUDGET 4000
+/* Order changes (crossings) one sweep may process before it gives up with NaN: a few
+ * seconds of work at the measured ~0.2 µs a crossing of two lines; a fill crossing itself
+ * more often draws nothing a reader could measure (issue 12 allows 10 s a page).
+ * Measured here, no outside source. */
+#define MAX_SWEEP_SWAPS 20000000
 
-typedef struct {
+typedef struct edge edge;
+struct edge {
   double ya, yb; /* ya < yb */
   pp_point p[4]; /* line: p[0] → p[1]; cubic: control points with y(t) non-decreasing */
   gboolean curve;
@@ -22,24 +31,29 @@ typedef struct {
   guint region;
   double t_hint;
   double slope; /* dx/dy of a line edge */
-  /* per-slab scratch: x and t at slab top, middle and bottom */
-  double xt, xm, xb, tt, tb;
-} edge;
-
-typedef struct {
-  const pp_path *path;
-  pp_fill_rule rule;
-  pp_rect box;
-} region;
+  /* sweep state */
+  size_t pos;     /* index in the active list */
+  size_t hpos;    /* index in the crossing heap */
+  edge *right;    /* the right neighbour cross_y was found with */
+  double cross_y; /* next crossing with that neighbour, +∞ if none */
+  int c;          /* +1 right end of an inside run, −1 left end, 0 neither */
+  double y_from;  /* ∫ c·x dy is accounted up to here */
+};
 
 typedef struct {
   GArray *edges; /* of edge */
   edge **act;
   size_t n_act;
+  edge **heap;
+  size_t n_heap;
   guint n_reg;
-  const region *regs;
-  int *wind;
+  const pp_region *regs;
+  int *gw;     /* windings per region of the gap right of act[i]: n_reg per gap */
+  guint8 *gin; /* that gap is inside every region */
   double eps_y, tol_x;
+  double xref; /* x origin of the integrals, so that far-away scenes keep their digits */
+  double area;
+  long swaps;
 } sweep;
 
 /* de Casteljau split at t: left half into l, right half into r (either may alias nothing). */
@@ -214,11 +228,15 @@ static double edge_x(edge *e, double y, double *t_out) {
   return pp_cubic_point(e->p, t).x;
 }
 
-/* ∫ (x − xref) dy over the slab [y0, y1], using the scratch values of the slab.
+/* ∫ (x − xref) dy over [y0, y1] within the edge's y-range.
  * Cubic: ∫ x(t) y'(t) dt is a degree-5 polynomial, integrated exactly. */
-static double edge_integral(const edge *e, double y0, double y1, double xref) {
-  if (!e->curve)
-    return (0.5 * (e->xt + e->xb) - xref) * (y1 - y0);
+static double edge_integral(edge *e, double y0, double y1, double xref) {
+  if (!e->curve) {
+    double x0 = y0 == e->ya ? e->p[0].x : e->p[0].x + (y0 - e->ya) * e->slope;
+    double x1 = y1 == e->yb ? e->p[1].x : e->p[0].x + (y1 - e->ya) * e->slope;
+    return (0.5 * (x0 + x1) - xref) * (y1 - y0);
+  }
+  double t0 = solve_t(e, y0), t1 = solve_t(e, y1);
   const pp_point *p = e->p;
   double x0 = p[0].x;
   /* Power-basis coefficients of x(t) − x0; all are translation invariant. */
@@ -234,41 +252,22 @@ static double edge_integral(const edge *e, double y0, double y1, double xref) {
       P[i + j] += X[i] * Y[j];
   double F1 = 0, F0 = 0;
   for (int k = 5; k >= 0; k--) {
-    F1 = (F1 + P[k] / (k + 1)) * e->tb;
-    F0 = (F0 + P[k] / (k + 1)) * e->tt;
+    F1 = (F1 + P[k] / (k + 1)) * t1;
+    F0 = (F0 + P[k] / (k + 1)) * t0;
   }
   return (F1 - F0) + (x0 - xref) * (y1 - y0);
 }
 
-static void xrange(edge *e, double lo_y, double hi_y, double *lo, double *hi) {
-  if (!e->curve) {
-    double a = edge_x(e, lo_y, NULL), b = edge_x(e, hi_y, NULL);
-    *lo = fmin(a, b), *hi = fmax(a, b);
-    return;
-  }
-  double t0 = solve_t(e, lo_y), t1 = solve_t(e, hi_y);
-  pp_point l[4], q[4];
-  bez_split(e->p, t1, l, NULL);
-  bez_split(l, t1 > 0 ? t0 / t1 : 0, NULL, q);
-  *lo = fmin(fmin(q[0].x, q[1].x), fmin(q[2].x, q[3].x));
-  *hi = fmax(fmax(q[0].x, q[1].x), fmax(q[2].x, q[3].x));
+/* x at y with the parameter stored in *t, starting Newton from *t's current value. */
+static double x_at(edge *e, double y, double *t) {
+  if (!e->curve)
+    return edge_x(e, y, NULL);
+  e->t_hint = *t;
+  return edge_x(e, y, t);
 }
 
 static int sign_tol(double d, double tol) {
   return d > tol ? 1 : d < -tol ? -1 : 0;
-}
-
-typedef struct {
-  double *ys;
-  size_t n, cap;
-} ylist;
-
-static void ylist_push(ylist *l, double y) {
-  if (l->n == l->cap) {
-    l->cap = l->cap ? 2 * l->cap : 8;
-    l->ys = g_renew(double, l->ys, l->cap);
-  }
-  l->ys[l->n++] = y;
 }
 
 typedef struct {
@@ -278,41 +277,111 @@ typedef struct {
 typedef struct {
   sweep *s;
   edge *e, *f;
-  GArray *samples; /* of sample */
+  GArray *samples; /* of sample, in y order */
   int budget;
+  gboolean just;     /* the pair has just swapped: negatives before a positive are rounding */
+  gboolean seen_pos; /* a positive sample has been added */
+  gboolean found;    /* the first change from + to − (or a first negative) is sampled */
 } search;
 
-static double diff_at(search *q, double y) {
-  double d = edge_x(q->f, y, NULL) - edge_x(q->e, y, NULL);
-  sample sm = {y, d};
-  g_array_append_val(q->samples, sm);
-  return d;
+/* One end of a search interval: y, both pieces' x and parameters there, d = x_f − x_e. */
+typedef struct {
+  double y, d, xe, xf, te, tf;
+} node_end;
+
+static node_end end_at(search *q, double y, double te_guess, double tf_guess) {
+  node_end n = {y, 0, 0, 0, te_guess, tf_guess};
+  n.xe = x_at(q->e, y, &n.te);
+  n.xf = x_at(q->f, y, &n.tf);
+  n.d = n.xf - n.xe;
+  return n;
 }
 
-/* Samples d(y) = x_f(y) − x_e(y) on [a,b] by bisection, pruning sub-intervals where the
- * control hulls of the two sub-pieces are x-disjoint (no root can hide there). */
-static void cross_search(search *q, double a, double b, double da, double db, int depth, int cap) {
+static void add_sample(search *q, node_end n) {
+  sample sm = {n.y, n.d};
+  g_array_append_val(q->samples, sm);
+  int sg = sign_tol(n.d, q->s->tol_x);
+  if (sg > 0)
+    q->seen_pos = TRUE;
+  else if (sg < 0 && (q->seen_pos || !q->just))
+    q->found = TRUE;
+}
+
+/* The control points of a piece between two ends: the sub-curve for cubics (children
+ * of a search node split it once), the end points for lines. */
+typedef struct {
+  pp_point q[4];
+} sub;
+
+static sub sub_between(edge *e, node_end a, node_end b, gboolean is_f) {
+  sub r = {{{0, 0}}};
+  if (!e->curve)
+    return r;
+  double t0 = is_f ? a.tf : a.te, t1 = is_f ? b.tf : b.te;
+  pp_point l[4];
+  bez_split(e->p, t1, l, NULL);
+  bez_split(l, t1 > 0 ? t0 / t1 : 0, NULL, r.q);
+  return r;
+}
+
+/* Splits a sub-curve between a and b at c into its two halves. */
+static void sub_split(edge *e, const sub *p, double ta, double tb, double tc, sub *l, sub *r) {
+  if (!e->curve) { /* a line's hull is its chord: nothing to carry */
+    *l = *p, *r = *p;
+    return;
+  }
+  double u = tb > ta ? (tc - ta) / (tb - ta) : 0.5;
+  bez_split(p->q, u, l->q, r->q);
+}
+
+/* x-range of a sub-curve's hull and how far (in x, at equal y) it strays from the chord
+ * between the ends: x − chord(y) is affine, so over the hull it peaks at a control point. */
+static void hull(const edge *e, const sub *p, double y0, double y1, double x0, double x1,
+                 double *lo, double *hi, double *dev) {
+  double k = y1 > y0 ? (x1 - x0) / (y1 - y0) : 0, d = 0, mn = x0 < x1 ? x0 : x1,
+         mx = x0 < x1 ? x1 : x0;
+  for (int i = 0; e->curve && i < 4; i++) {
+    double x = p->q[i].x, off = fabs(x - (x0 + k * (p->q[i].y - y0)));
+    d = off > d ? off : d;
+    mn = x < mn ? x : mn;
+    mx = x > mx ? x : mx;
+  }
+  *lo = mn, *hi = mx, *dev = d;
+}
+
+/* Can d change sign on [a,b] from + to −? Not when e's hull lies left of f's (d ≥ 0) or
+ * right of it (d < 0 throughout), nor when d stays above the line through d(a) and d(b)
+ * less both pieces' strays from their chords. */
+static gboolean may_flip(search *q, node_end a, node_end b, const sub *se, const sub *sf) {
+  double elo, ehi, edev, flo, fhi, fdev;
+  hull(q->e, se, a.y, b.y, a.xe, b.xe, &elo, &ehi, &edev);
+  hull(q->f, sf, a.y, b.y, a.xf, b.xf, &flo, &fhi, &fdev);
+  double tol = q->s->tol_x;
+  return ehi - flo > tol && elo - fhi <= tol && fmin(a.d, b.d) - (edev + fdev) < -tol;
+}
+
+/* Samples d(y) on (a,b) by bisection, in y order, pruning sub-intervals where d cannot
+ * turn negative, until the first change from + to − is sampled. se and sf are the
+ * pieces' sub-curves between a and b. */
+static void cross_search(search *q, node_end a, node_end b, const sub *se, const sub *sf, int depth,
+                         int cap) {
   sweep *s = q->s;
-  if (--q->budget < 0 || b - a <= s->eps_y || depth >= cap)
+  if (q->found || --q->budget < 0 || b.y - a.y <= s->eps_y || depth >= cap ||
+      !may_flip(q, a, b, se, sf))
     return;
-  double elo, ehi, flo, fhi;
-  xrange(q->e, a, b, &elo, &ehi);
-  xrange(q->f, a, b, &flo, &fhi);
-  if (ehi < flo - s->tol_x || fhi < elo - s->tol_x)
-    return;
-  double c = 0.5 * (a + b);
-  double dc = diff_at(q, c);
+  node_end c = end_at(q, 0.5 * (a.y + b.y), 0.5 * (a.te + b.te), 0.5 * (a.tf + b.tf));
   /* Coincident at three samples: look only a few levels deeper, else overlapping
    * curves would cost 2^depth evaluations for gaps of zero width. */
-  if (sign_tol(da, s->tol_x) == 0 && sign_tol(db, s->tol_x) == 0 && sign_tol(dc, s->tol_x) == 0)
+  if (sign_tol(a.d, s->tol_x) == 0 && sign_tol(b.d, s->tol_x) == 0 && sign_tol(c.d, s->tol_x) == 0)
     cap = MIN(cap, depth + 6);
-  cross_search(q, a, c, da, dc, depth + 1, cap);
-  cross_search(q, c, b, dc, db, depth + 1, cap);
-}
-
-static int cmp_sample(const void *a, const void *b) {
-  double x = ((const sample *)a)->y, y = ((const sample *)b)->y;
-  return x < y ? -1 : x > y;
+  sub el, er, fl, fr;
+  sub_split(q->e, se, a.te, b.te, c.te, &el, &er);
+  sub_split(q->f, sf, a.tf, b.tf, c.tf, &fl, &fr);
+  cross_search(q, a, c, &el, &fl, depth + 1, cap);
+  if (q->found)
+    return;
+  add_sample(q, c);
+  cross_search(q, c, b, &er, &fr, depth + 1, cap);
 }
 
 static gboolean same_piece(const edge *e, const edge *f, double tol) {
@@ -325,151 +394,237 @@ static gboolean same_piece(const edge *e, const edge *f, double tol) {
   return TRUE;
 }
 
-/* Strict sign changes between consecutive non-zero samples are crossings: refine each
- * by bisection (or cut at the zero sample that separates them). */
-static void roots_from_samples(search *q, ylist *out) {
-  sweep *s = q->s;
-  GArray *sm = q->samples;
-  qsort(sm->data, sm->len, sizeof(sample), cmp_sample);
-  int last = 0;
-  double last_y = 0;
-  size_t zero_mid = (size_t)-1, zeros = 0;
+/* First sign change from + to − among the samples, refined by bisection; the first
+ * sample's y when the pair starts out of order (unless just swapped). */
+static double first_flip(sweep *s, search *q, edge *l, edge *r, gboolean just) {
+  GArray *sm = q->samples; /* in y order */
+  double flip = INFINITY, last_pos = NAN;
   for (size_t i = 0; i < sm->len; i++) {
     sample *p = &g_array_index(sm, sample, i);
     int sg = sign_tol(p->d, s->tol_x);
-    if (sg == 0) {
-      if (zeros++ == 0)
-        zero_mid = i;
-      continue;
-    }
-    if (last != 0 && sg != last) {
-      if (zeros > 0) {
-        ylist_push(out, g_array_index(sm, sample, zero_mid + zeros / 2).y);
-      } else {
-        double lo = last_y, hi = p->y;
-        for (int it = 0; it < 80 && hi - lo > s->eps_y; it++) {
-          double m = 0.5 * (lo + hi);
-          double d = edge_x(q->f, m, NULL) - edge_x(q->e, m, NULL);
-          if (sign_tol(d, s->tol_x) == last)
-            lo = m;
-          else if (sign_tol(d, s->tol_x) == 0) {
-            lo = hi = m;
-          } else
-            hi = m;
-        }
-        ylist_push(out, 0.5 * (lo + hi));
+    if (sg > 0) {
+      last_pos = p->y;
+    } else if (sg < 0 && isnan(last_pos)) {
+      if (just)
+        continue;
+      flip = g_array_index(sm, sample, 0).y;
+      break;
+    } else if (sg < 0) { /* refine between the last positive and this negative sample */
+      double lo = last_pos, hi = p->y;
+      for (int it = 0; it < 80 && hi - lo > s->eps_y; it++) {
+        double m = 0.5 * (lo + hi);
+        int sm_ = sign_tol(edge_x(r, m, NULL) - edge_x(l, m, NULL), s->tol_x);
+        if (sm_ > 0)
+          lo = m;
+        else if (sm_ == 0)
+          lo = hi = m;
+        else
+          hi = m;
       }
+      flip = 0.5 * (lo + hi);
+      break;
     }
-    last = sg, last_y = p->y, zeros = 0;
+  }
+  return flip;
+}
+
+/* First y ≥ y0 where r passes to the left of l (x_r − x_l < −tol), +∞ if none before
+ * either ends. After a swap (just), samples left of the pair's first positive one are
+ * rounding at the crossing just handled, not a new one. */
+static double next_flip(sweep *s, edge *l, edge *r, double y0, gboolean just) {
+  double y1 = fmin(l->yb, r->yb);
+  if (y1 <= y0 || same_piece(l, r, s->tol_x))
+    return INFINITY;
+  search q = {.s = s,
+              .e = l,
+              .f = r,
+              .samples = g_array_new(FALSE, FALSE, sizeof(sample)),
+              .budget = CROSS_NODE_BUDGET,
+              .just = just};
+  node_end a = end_at(&q, y0, 0.5, 0.5), b = end_at(&q, y1, 0.5, 0.5);
+  double d0 = a.d, d1 = b.d, flip = INFINITY;
+  sub se = sub_between(l, a, b, FALSE), sf = sub_between(r, a, b, TRUE);
+  if (!may_flip(&q, a, b, &se, &sf) && d0 >= -s->tol_x) {
+    /* r stays right of l (within tol) all along */
+  } else if (!l->curve && !r->curve) { /* d is linear in y */
+    if (d1 >= -s->tol_x)
+      flip = INFINITY;
+    else if (d0 > s->tol_x)
+      flip = y0 + (y1 - y0) * (d0 / (d0 - d1));
+    else
+      flip = just ? INFINITY : y0;
+  } else {
+    add_sample(&q, a);
+    cross_search(&q, a, b, &se, &sf, 0, MAX_CROSS_DEPTH);
+    add_sample(&q, b);
+    flip = first_flip(s, &q, l, r, just);
+  }
+  g_array_free(q.samples, TRUE);
+  return flip;
+}
+
+/* ---- the crossing heap: active edges keyed by cross_y ---- */
+
+static void heap_set(sweep *s, size_t i, edge *e) {
+  s->heap[i] = e;
+  e->hpos = i;
+}
+
+static void heap_up(sweep *s, size_t i) {
+  edge *e = s->heap[i];
+  while (i > 0 && e->cross_y < s->heap[(i - 1) / 2]->cross_y) {
+    heap_set(s, i, s->heap[(i - 1) / 2]);
+    i = (i - 1) / 2;
+  }
+  heap_set(s, i, e);
+}
+
+static void heap_down(sweep *s, size_t i) {
+  edge *e = s->heap[i];
+  for (;;) {
+    size_t c = 2 * i + 1;
+    if (c >= s->n_heap)
+      break;
+    if (c + 1 < s->n_heap && s->heap[c + 1]->cross_y < s->heap[c]->cross_y)
+      c++;
+    if (!(s->heap[c]->cross_y < e->cross_y))
+      break;
+    heap_set(s, i, s->heap[c]);
+    i = c;
+  }
+  heap_set(s, i, e);
+}
+
+static void heap_remove(sweep *s, edge *e) {
+  size_t i = e->hpos;
+  edge *last = s->heap[--s->n_heap];
+  if (last != e) {
+    heap_set(s, i, last);
+    heap_up(s, i);
+    heap_down(s, last->hpos);
   }
 }
 
-static void find_crossings(sweep *s, edge *e, edge *f, double y0, double y1, ylist *out) {
-  double d0 = f->xt - e->xt, d1 = f->xb - e->xb;
-  if (!e->curve && !f->curve) {
-    if ((d0 < 0 && d1 > 0) || (d0 > 0 && d1 < 0)) {
-      double y = y0 + (y1 - y0) * (d0 / (d0 - d1)); /* d is linear in y for two lines */
-      if (y > y0 + s->eps_y && y < y1 - s->eps_y)
-        ylist_push(out, y);
-    }
-    return;
-  }
-  if (same_piece(e, f, s->tol_x))
-    return;
-  search q = {s, e, f, g_array_new(FALSE, FALSE, sizeof(sample)), CROSS_NODE_BUDGET};
-  sample a = {y0, d0}, b = {y1, d1};
-  g_array_append_val(q.samples, a);
-  g_array_append_val(q.samples, b);
-  cross_search(&q, y0, y1, d0, d1, 0, MAX_CROSS_DEPTH);
-  size_t before = out->n;
-  roots_from_samples(&q, out);
-  g_array_free(q.samples, TRUE);
-  /* Drop roots that merely touch the slab bounds. */
-  size_t k = before;
-  for (size_t i = before; i < out->n; i++)
-    if (out->ys[i] > y0 + s->eps_y && out->ys[i] < y1 - s->eps_y)
-      out->ys[k++] = out->ys[i];
-  out->n = k;
+/* Key of l: its next crossing with its right neighbour r (NULL: none). */
+static void set_key(sweep *s, edge *l, edge *r, double y, gboolean just) {
+  l->right = r;
+  l->cross_y = r ? next_flip(s, l, r, y, just) : INFINITY;
+  heap_up(s, l->hpos);
+  heap_down(s, l->hpos);
 }
+
+/* ---- windings and coefficients ---- */
 
 static gboolean inside(pp_fill_rule rule, int w) {
   return rule == PP_FILL_EVEN_ODD ? (w & 1) != 0 : w != 0;
 }
 
-static double integrate_slab(sweep *s, double y0, double y1) {
-  double sum = 0;
-  guint n_in = 0;
-  edge *left = NULL;
-  for (size_t i = 0; i < s->n_act; i++) {
-    edge *e = s->act[i];
-    guint r = e->region;
-    gboolean was = inside(s->regs[r].rule, s->wind[r]);
-    s->wind[r] += e->dir;
-    gboolean now = inside(s->regs[r].rule, s->wind[r]);
-    gboolean all_before = n_in == s->n_reg;
-    n_in = n_in + now - was;
-    gboolean all_after = n_in == s->n_reg;
-    if (!all_before && all_after)
-      left = e;
-    else if (all_before && !all_after && left) {
-      /* Pair left and right boundary with a shared reference so huge coordinates cancel early. */
-      double xref = left->xm;
-      sum += edge_integral(e, y0, y1, xref) - edge_integral(left, y0, y1, xref);
-      left = NULL;
-    }
-  }
-  /* Every region is closed, so windings return to zero; reset anyway against rounding in dir sums.
-   */
-  memset(s->wind, 0, s->n_reg * sizeof(int));
-  return sum;
+/* Gap i (right of act[i]) from gap i − 1 and the edge between them. */
+static void gap_update(sweep *s, size_t i) {
+  guint n = s->n_reg;
+  int *w = s->gw + i * n;
+  if (i > 0)
+    memcpy(w, w - n, n * sizeof(int));
+  else
+    memset(w, 0, n * sizeof(int));
+  w[s->act[i]->region] += s->act[i]->dir;
+  guint in = 0;
+  for (guint r = 0; r < n; r++)
+    in += inside(s->regs[r].rule, w[r]);
+  s->gin[i] = in == n;
 }
 
-static double slab(sweep *s, double y0, double y1, int depth) {
-  double ym = 0.5 * (y0 + y1);
+static int coef(const sweep *s, size_t i) {
+  return (i > 0 ? s->gin[i - 1] : 0) - s->gin[i];
+}
+
+/* Accounts ∫ c·(x − xref) dy from y_from up to y. */
+static void flush(sweep *s, edge *e, double y) {
+  if (e->c != 0 && y > e->y_from)
+    s->area += e->c * edge_integral(e, e->y_from, y, s->xref);
+  e->y_from = y;
+}
+
+static void set_coef(sweep *s, edge *e, int c, double y) {
+  if (c != e->c) {
+    flush(s, e, y);
+    e->c = c;
+  }
+}
+
+/* Is a before e in x order just after y (ties at y broken halfway down their common span)? */
+static gboolean before(sweep *s, edge *a, edge *e, double y) {
+  double xa = edge_x(a, y, NULL), xe = edge_x(e, y, NULL);
+  if (fabs(xa - xe) > s->tol_x)
+    return xa < xe;
+  double h = y + 0.5 * (fmin(a->yb, e->yb) - y);
+  return edge_x(a, h, NULL) < edge_x(e, h, NULL);
+}
+
+/* End points at y: ended edges leave, starting edges enter in x order, then windings,
+ * coefficients and the crossing keys of changed neighbours are renewed. */
+static void vertex(sweep *s, double y, edge **order, size_t n, size_t *next) {
+  size_t m = 0;
   for (size_t i = 0; i < s->n_act; i++) {
     edge *e = s->act[i];
-    if (e->curve) {
-      e->xt = edge_x(e, y0, &e->tt);
-      e->xm = edge_x(e, ym, NULL);
-      e->xb = edge_x(e, y1, &e->tb);
+    if (e->yb <= y) {
+      flush(s, e, e->yb);
+      heap_remove(s, e);
     } else {
-      /* Inline for lines: this loop is the sweep's hot spot. The slab lies within the
-       * edge's y-range, so no clamping is needed (end points are kept exact). */
-      e->xt = y0 == e->ya ? e->p[0].x : e->p[0].x + (y0 - e->ya) * e->slope;
-      e->xm = e->p[0].x + (ym - e->ya) * e->slope;
-      e->xb = y1 == e->yb ? e->p[1].x : e->p[0].x + (y1 - e->ya) * e->slope;
+      s->act[m++] = e;
     }
   }
-  /* Insertion sort: the order changes little from one slab to the next. */
-  for (size_t i = 1; i < s->n_act; i++) {
-    edge *e = s->act[i];
-    size_t j = i;
-    while (j > 0 && s->act[j - 1]->xm > e->xm) {
-      s->act[j] = s->act[j - 1];
-      j--;
+  s->n_act = m;
+  while (*next < n && order[*next]->ya <= y) {
+    edge *e = order[(*next)++];
+    size_t lo = 0, hi = s->n_act;
+    while (lo < hi) {
+      size_t mid = (lo + hi) / 2;
+      if (before(s, s->act[mid], e, y))
+        lo = mid + 1;
+      else
+        hi = mid;
     }
-    s->act[j] = e;
+    memmove(s->act + lo + 1, s->act + lo, (s->n_act - lo) * sizeof(edge *));
+    s->act[lo] = e;
+    s->n_act++;
+    e->c = 0;
+    e->y_from = y;
+    e->cross_y = INFINITY;
+    e->right = NULL;
+    s->heap[s->n_heap] = e;
+    e->hpos = s->n_heap++;
+    heap_up(s, e->hpos);
   }
-  if (depth < MAX_SLAB_DEPTH && y1 - y0 > 2 * s->eps_y) {
-    ylist cuts = {0};
-    for (size_t i = 0; i + 1 < s->n_act; i++)
-      find_crossings(s, s->act[i], s->act[i + 1], y0, y1, &cuts);
-    if (cuts.n > 0) {
-      qsort(cuts.ys, cuts.n, sizeof(double), pp_compare_doubles);
-      double sum = 0, prev = y0;
-      for (size_t i = 0; i <= cuts.n; i++) {
-        double next = i < cuts.n ? cuts.ys[i] : y1;
-        if (next - prev > s->eps_y || i == cuts.n) {
-          sum += slab(s, prev, next, depth + 1);
-          prev = next;
-        }
-      }
-      g_free(cuts.ys);
-      return sum;
-    }
-    g_free(cuts.ys); /* roots found and then dropped at the slab bounds */
+  for (size_t i = 0; i < s->n_act; i++) {
+    s->act[i]->pos = i;
+    gap_update(s, i);
+    set_coef(s, s->act[i], coef(s, i), y);
   }
-  return integrate_slab(s, y0, y1);
+  for (size_t i = 0; i < s->n_act; i++) {
+    edge *r = i + 1 < s->n_act ? s->act[i + 1] : NULL;
+    if (s->act[i]->right != r || r == NULL)
+      set_key(s, s->act[i], r, y, FALSE);
+  }
+}
+
+/* The heap's first crossing: the edge a and its right neighbour b change places. */
+static void swap(sweep *s) {
+  edge *a = s->heap[0];
+  double y = a->cross_y;
+  size_t i = a->pos;
+  edge *b = s->act[i + 1];
+  flush(s, a, y);
+  flush(s, b, y);
+  s->act[i] = b, s->act[i + 1] = a;
+  b->pos = i, a->pos = i + 1;
+  gap_update(s, i);
+  b->c = coef(s, i);
+  a->c = coef(s, i + 1);
+  if (i > 0)
+    set_key(s, s->act[i - 1], b, y, FALSE);
+  set_key(s, b, a, y, TRUE);
+  set_key(s, a, i + 2 < s->n_act ? s->act[i + 2] : NULL, y, FALSE);
 }
 
 static int cmp_edge_ya(const void *a, const void *b) {
@@ -478,12 +633,12 @@ static int cmp_edge_ya(const void *a, const void *b) {
 }
 
 /* Area of the intersection of all regions, each (path, rule). */
-static double sweep_area(const region *regs, guint n_reg) {
+double pp_sweep_area(const pp_region *regs, guint n_reg) {
   sweep s = {0};
   s.edges = g_array_new(FALSE, FALSE, sizeof(edge));
   s.regs = regs;
   s.n_reg = n_reg;
-  double ylo = -INFINITY, yhi = INFINITY, maxabs = 0;
+  double ylo = -INFINITY, yhi = INFINITY;
   pp_rect all = pp_rect_empty();
   for (guint r = 0; r < n_reg; r++) {
     push_path(&s, regs[r].path, r);
@@ -491,98 +646,53 @@ static double sweep_area(const region *regs, guint n_reg) {
     yhi = fmin(yhi, regs[r].box.y1);
     all = pp_rect_union(all, regs[r].box);
   }
-  maxabs = fmax(fmax(fabs(all.x0), fabs(all.x1)), fmax(fabs(all.y0), fabs(all.y1)));
+  double maxabs = fmax(fmax(fabs(all.x0), fabs(all.x1)), fmax(fabs(all.y0), fabs(all.y1)));
   double ext = fmax(pp_rect_width(all), pp_rect_height(all));
   s.eps_y = fmax(1e-12 * ext, 8 * DBL_EPSILON * maxabs);
   s.tol_x = s.eps_y;
-  size_t n = s.edges->len;
-  double area = 0;
+  s.xref = 0.5 * (all.x0 + all.x1);
+  /* Only pieces that reach the band every region shares can bound an inside run. */
+  size_t n = 0;
+  edge *es = (edge *)s.edges->data;
+  for (size_t i = 0; i < s.edges->len; i++)
+    if (es[i].yb > ylo && es[i].ya < yhi)
+      es[n++] = es[i];
   if (n > 0 && ylo < yhi) {
     edge **order = g_new(edge *, n);
     double *ev = g_new(double, 2 * n);
     for (size_t i = 0; i < n; i++) {
-      order[i] = &g_array_index(s.edges, edge, i);
-      ev[2 * i] = order[i]->ya;
-      ev[2 * i + 1] = order[i]->yb;
+      order[i] = &es[i];
+      ev[2 * i] = es[i].ya;
+      ev[2 * i + 1] = es[i].yb;
     }
     qsort(order, n, sizeof(edge *), cmp_edge_ya);
     qsort(ev, 2 * n, sizeof(double), pp_compare_doubles);
     s.act = g_new(edge *, n);
-    s.wind = g_new0(int, n_reg);
+    s.heap = g_new(edge *, n);
+    s.gw = g_new(int, n *n_reg);
+    s.gin = g_new(guint8, n);
     size_t next = 0;
-    for (size_t k = 0; k + 1 < 2 * n; k++) {
-      double y0 = ev[k], y1 = ev[k + 1];
-      if (y1 <= y0)
+    for (size_t k = 0; k < 2 * n; k++) {
+      if (k > 0 && ev[k] == ev[k - 1])
         continue;
-      size_t m = 0;
-      for (size_t i = 0; i < s.n_act; i++)
-        if (s.act[i]->yb > y0)
-          s.act[m++] = s.act[i];
-      s.n_act = m;
-      while (next < n && order[next]->ya <= y0)
-        s.act[s.n_act++] = order[next++];
-      if (y1 <= ylo || y0 >= yhi || s.n_act < 2)
-        continue; /* outside some region's box: nothing can be inside all of them */
-      area += slab(&s, y0, y1, 0);
+      while (s.n_heap > 0 && s.heap[0]->cross_y < ev[k]) {
+        if (++s.swaps > MAX_SWEEP_SWAPS) {
+          s.area = NAN;
+          break;
+        }
+        swap(&s);
+      }
+      if (isnan(s.area))
+        break;
+      vertex(&s, ev[k], order, n, &next);
     }
     g_free(order);
     g_free(ev);
     g_free(s.act);
-    g_free(s.wind);
+    g_free(s.heap);
+    g_free(s.gw);
+    g_free(s.gin);
   }
   g_array_free(s.edges, TRUE);
-  return area;
-}
-
-double pp_path_clipped_area(const pp_path *path, pp_fill_rule rule, const pp_clip *clip) {
-  if (!path)
-    return 0;
-  if (!pp_path_is_finite(path))
-    return NAN;
-  for (const pp_clip *c = clip; c; c = c->parent)
-    if (c->path && !pp_path_is_finite(c->path))
-      return NAN;
-  pp_rect pbox = pp_path_bbox(path);
-  if (pp_rect_is_empty(pbox))
-    return 0;
-  /* Rectangular clips (the common case: plot areas) collapse into one box. */
-  pp_rect box = {-INFINITY, -INFINITY, INFINITY, INFINITY};
-  GArray *regs = g_array_new(FALSE, FALSE, sizeof(region));
-  region main = {path, rule, pbox};
-  g_array_append_val(regs, main);
-  for (const pp_clip *c = clip; c; c = c->parent) {
-    pp_rect r;
-    if (!c->path) {
-      continue;
-    } else if (pp_path_is_rectangle(c->path, 0, &r)) {
-      box = pp_rect_intersect(box, r);
-    } else {
-      region g = {c->path, c->rule, pp_path_bbox(c->path)};
-      if (pp_rect_is_empty(g.box) || pp_rect_is_empty(pp_rect_intersect(g.box, pbox))) {
-        g_array_free(regs, TRUE);
-        return 0;
-      }
-      g_array_append_val(regs, g);
-    }
-  }
-  double area;
-  pp_rect prect;
-  pp_rect hit = pp_rect_intersect(box, pbox);
-  if (pp_rect_is_empty(hit)) {
-    area = 0;
-  } else if (regs->len == 1 && pp_path_is_rectangle(path, 0, &prect)) {
-    area = pp_rect_area(pp_rect_intersect(prect, box)); /* rect ∩ rect: O(1) */
-  } else {
-    pp_path *box_path = NULL;
-    if (!pp_rect_contains(box, pbox, 0)) {
-      box_path = pp_path_new();
-      pp_path_rectangle(box_path, hit.x0, hit.y0, hit.x1 - hit.x0, hit.y1 - hit.y0);
-      region b = {box_path, PP_FILL_NONZERO, hit};
-      g_array_append_val(regs, b);
-    }
-    area = sweep_area((const region *)regs->data, regs->len);
-    pp_path_free(box_path);
-  }
-  g_array_free(regs, TRUE);
-  return area;
+  return s.area;
 }

@@ -27,3 +27,35 @@ gboolean pp_path_is_finite(const pp_path *path);
 
 /* qsort comparator for doubles. */
 int pp_compare_doubles(const void *a, const void *b);
+
+/* ---- Areas: the sweep (clip_area.c), groups and convex subpaths (pieces.c), prepared
+ * clip chains (clip_info.c). */
+
+/* One region of an intersection: a path filled under its rule, with its bbox. */
+typedef struct {
+  const pp_path *path;
+  pp_fill_rule rule;
+  pp_rect box;
+} pp_region;
+
+/* Exact area of the intersection of all regions; NaN past the sweep's work bound. */
+double pp_sweep_area(const pp_region *regs, guint n_reg);
+
+/* The path's subpaths in groups whose boxes do not overlap (of pp_path*); empty when the
+ * path has at most one subpath that draws. */
+GPtrArray *pp_path_split_disjoint(const pp_path *path);
+/* One closed convex subpath (see pieces.c): its fill area is |signed area|. */
+gboolean pp_path_is_convex(const pp_path *path);
+
+/* A clip chain digested once for many marks: finiteness, the intersection of its
+ * rectangular members and the list of its other members. */
+typedef struct {
+  gboolean finite;
+  gboolean empty;  /* some member's box is empty: nothing is visible */
+  pp_rect box;     /* intersection of the rectangular members (infinite if none) */
+  GArray *regions; /* of pp_region: the other members */
+} pp_clip_info;
+
+pp_clip_info *pp_clip_info_new(const pp_clip *clip);
+void pp_clip_info_free(pp_clip_info *info);
+double pp_clip_info_area(const pp_clip_info *info, const pp_path *path, pp_fill_rule rule);

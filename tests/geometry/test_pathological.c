@@ -1,0 +1,112 @@
+/* test_pathological.c — fills that once took minutes (issue 12): a many-turn arc found by
+ * the fuzzer, a self-intersecting polygon of random points, a path of random curves and a
+ * path of thousands of separate circles. Each must give cairo's pixel count (or πr²);
+ * meson's timeout for this file (tests/geometry/meson.build) is the speed check. */
+#include <setjmp.h>
+#include <stdarg.h>
+#include <stddef.h>
+
+#include <cmocka.h>
+
+#include "test_util.h"
+
+#define SCALE 2
+#define SIZE 600 /* scene is [0, SIZE]² points */
+
+/* Σ alpha/255 of cairo's fill under the rule, at SCALE pixels a point, in pt². */
+static double cairo_ink(const pp_path *p, pp_fill_rule rule) {
+  int px = SIZE * SCALE;
+  cairo_surface_t *s = cairo_image_surface_create(CAIRO_FORMAT_A8, px, px);
+  cairo_t *cr = cairo_create(s);
+  cairo_scale(cr, SCALE, SCALE);
+  tu_path_to_cairo(cr, p);
+  cairo_set_fill_rule(cr, tu_cairo_rule(rule));
+  cairo_fill(cr);
+  cairo_surface_flush(s);
+  const unsigned char *data = cairo_image_surface_get_data(s);
+  int stride = cairo_image_surface_get_stride(s);
+  double sum = 0;
+  for (int y = 0; y < px; y++)
+    for (int x = 0; x < px; x++)
+      sum += data[y * stride + x] / 255.0;
+  cairo_destroy(cr);
+  cairo_surface_destroy(s);
+  return sum / (SCALE * SCALE);
+}
+
+/* tests/fuzz/known/scene-slow-clip-area.bin: cairo_arc(0, 48.3125, 110, 4, 40), about
+ * 5.7 turns of one circle, then a stray move, filled. Nonzero: every point inside winds
+ * 5 or 6 times, so the disc, πr² within cairo's arc tolerance (cairo_set_tolerance, cairo
+ * API docs) over the circumference. Even-odd against cairo's pixels (within 1%, as in
+ * test_raster.c: antialiasing at 2 px a point; common practice, no source). */
+static void test_many_turn_arc(void **state) {
+  (void)state;
+  cairo_t *cr = tu_path_context();
+  /* moved by (300, 300) onto the raster; areas do not move */
+  cairo_arc(cr, 300, 348.3125, 110, 4, 40);
+  cairo_move_to(cr, 444.25, 296.5);
+  pp_path *p = tu_path_from_cairo(cr);
+  double r = 110, tol = cairo_get_tolerance(cr);
+  tu_assert_near(pp_path_fill_area(p, PP_FILL_NONZERO), G_PI * r * r, 2 * G_PI * r * tol);
+  double want = cairo_ink(p, PP_FILL_EVEN_ODD);
+  tu_assert_near(pp_path_fill_area(p, PP_FILL_EVEN_ODD), want, 0.01 * want);
+  pp_path_free(p);
+  cairo_destroy(cr);
+}
+
+/* 1,500 random points joined in one polygon: ~10⁵ self-crossings. */
+static void test_random_polygon(void **state) {
+  (void)state;
+  GRand *rng = g_rand_new_with_seed(12);
+  pp_path *p = pp_path_new();
+  tu_random_ring(p, rng, 1500, 50, 550);
+  for (int rule = 0; rule < 2; rule++) {
+    double want = cairo_ink(p, rule);
+    tu_assert_near(pp_path_fill_area(p, rule), want, 0.01 * want);
+  }
+  pp_path_free(p);
+  g_rand_free(rng);
+}
+
+/* 60 random cubics in one closed path: thousands of curve–curve crossings. */
+static void test_random_curves(void **state) {
+  (void)state;
+  GRand *rng = g_rand_new_with_seed(7);
+  pp_path *p = pp_path_new();
+  tu_random_curvy(p, rng, 60, 50, 550);
+  for (int rule = 0; rule < 2; rule++) {
+    double want = cairo_ink(p, rule);
+    tu_assert_near(pp_path_fill_area(p, rule), want, 0.01 * want);
+  }
+  pp_path_free(p);
+  g_rand_free(rng);
+}
+
+/* 40,000 separate circles of radius 1 in one path: 40,000 πr² within cairo's tolerance,
+ * which applies in device space, here 100 units a point (so the arcs get fine pieces). */
+static void test_many_circles(void **state) {
+  (void)state;
+  cairo_t *cr = tu_path_context();
+  cairo_scale(cr, 100, 100);
+  int n = 0;
+  for (int i = 0; i < 200; i++)
+    for (int j = 0; j < 200; j++, n++) {
+      cairo_new_sub_path(cr);
+      cairo_arc(cr, 3 * i + 1.5, 3 * j + 1.5, 1, 0, 2 * G_PI);
+    }
+  pp_path *p = tu_path_from_cairo(cr);
+  double tol = cairo_get_tolerance(cr) / 100;
+  tu_assert_near(pp_path_fill_area(p, PP_FILL_NONZERO), n * G_PI, n * 2 * G_PI * tol);
+  pp_path_free(p);
+  cairo_destroy(cr);
+}
+
+int main(void) {
+  const struct CMUnitTest tests[] = {
+      cmocka_unit_test(test_many_turn_arc),
+      cmocka_unit_test(test_random_polygon),
+      cmocka_unit_test(test_random_curves),
+      cmocka_unit_test(test_many_circles),
+  };
+  return cmocka_run_group_tests(tests, NULL, NULL);
+}
