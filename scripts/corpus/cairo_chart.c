@@ -49,6 +49,15 @@ static GArray *value_ticks(const pp_gen_chart *c) {
   return t;
 }
 
+/* Enough decimals to print v as drawn: the step's decimals for a regular tick, more for
+ * a frame-edge label off the step (0.21 printed "0.2" would put a label where its value
+ * is not, and the truth records 0.21). Six at most: common practice, no source. */
+static int label_decimals(double v, int decimals) {
+  while (decimals < 6 && fabs(round(v * pow(10, decimals)) - v * pow(10, decimals)) > 1e-6)
+    decimals++;
+  return decimals;
+}
+
 static void draw_value_axis(cairo_t *cr, const pp_gen_chart *c, gboolean grid_only) {
   GArray *ticks = value_ticks(c);
   pp_gen_font(cr, 7.5, FALSE);
@@ -73,8 +82,8 @@ static void draw_value_axis(cairo_t *cr, const pp_gen_chart *c, gboolean grid_on
     }
     cairo_set_source_rgb(cr, 0.2, 0.2, 0.2);
     cairo_set_line_width(cr, 0.6);
-    pp_gen_format(v, c->log_axis ? PP_GEN_FMT_THOUSANDS : c->fmt, c->log_axis ? 0 : c->decimals,
-                  buf, sizeof buf);
+    pp_gen_format(v, c->log_axis ? PP_GEN_FMT_THOUSANDS : c->fmt,
+                  c->log_axis ? 0 : label_decimals(v, c->decimals), buf, sizeof buf);
     if (c->horizontal) {
       cairo_move_to(cr, p, c->y + c->h);
       cairo_line_to(cr, p, c->y + c->h + 4);

@@ -95,13 +95,17 @@ static void collect_segments(const pp_scene *scene, GArray *horiz, GArray *vert)
 }
 
 /* Position of the tick a label marks: the nearest segment across the label's centre
- * that starts within reach of the label; the label centre when none. */
-static double snap(const pp_label *l, gboolean vertical, GArray *segs, gboolean *snapped) {
+ * that starts within reach of the label; the label centre when none. With a finite
+ * column, only segments whose end nearest the label is on that edge count. *near gets
+ * that end of the segment chosen. */
+static double snap(const pp_label *l, gboolean vertical, GArray *segs, double column,
+                   gboolean *snapped, double *near) {
   double centre = vertical ? l->centre.y : l->centre.x;
   double half = vertical ? pp_rect_height(l->box) / 2 : pp_rect_width(l->box) / 2;
   double e0 = vertical ? l->box.x0 : l->box.y0, e1 = vertical ? l->box.x1 : l->box.y1;
   /* Rotated labels are long along the axis; the text size bounds the window then. */
   double best = centre, best_d = fmin(PP_SNAP_HALF_SHARE * half, PP_SNAP_SIZE_SHARE * l->size);
+  double mid = (e0 + e1) / 2; /* font boxes are tall: only the label's middle counts */
   *snapped = FALSE;
   for (guint i = 0; i < segs->len; i++) {
     tick_seg *t = &g_array_index(segs, tick_seg, i);
@@ -110,14 +114,51 @@ static double snap(const pp_label *l, gboolean vertical, GArray *segs, gboolean 
       continue;
     double reach = fmin(fabs(t->lo - e1), fabs(t->hi - e0));
     reach = fmin(reach, fmin(fabs(t->lo - e0), fabs(t->hi - e1)));
-    double mid = (e0 + e1) / 2; /* font boxes are tall: only the label's middle counts */
     if (reach > PP_SNAP_REACH || (t->lo < mid && t->hi > mid))
       continue; /* too far away, or running through the label */
+    double end = fabs(t->lo - mid) < fabs(t->hi - mid) ? t->lo : t->hi;
+    if (isfinite(column) && !pp_same_edge(end, column))
+      continue;
     best = t->along;
     best_d = d;
     *snapped = TRUE;
+    *near = end;
   }
   return best;
+}
+
+static int cmp_double(const void *a, const void *b) {
+  double x = *(const double *)a, y = *(const double *)b;
+  return (x > y) - (x < y);
+}
+
+/* Snaps every label of a run. The ticks (or gridlines) of one axis start on one drawn
+ * edge, the axis line; a legend frame or another chart's edge that passes nearer a
+ * label's centre does not. When two or more labels snapped, their median near end is
+ * that edge, and each label is snapped again to segments starting there; a label with
+ * none there keeps its first snap. */
+static guint snap_run(GPtrArray *run, gboolean vertical, GArray *segs, double *pos) {
+  guint n = run->len, n_snapped = 0;
+  double *ends = g_new(double, MAX(n, 1));
+  for (guint i = 0; i < n; i++) {
+    gboolean snapped;
+    double end = NAN;
+    pos[i] = snap(g_ptr_array_index(run, i), vertical, segs, NAN, &snapped, &end);
+    if (snapped)
+      ends[n_snapped++] = end;
+  }
+  if (n_snapped >= 2) {
+    qsort(ends, n_snapped, sizeof(double), cmp_double);
+    double column = ends[n_snapped / 2];
+    for (guint i = 0; i < n; i++) {
+      gboolean snapped;
+      double end, p = snap(g_ptr_array_index(run, i), vertical, segs, column, &snapped, &end);
+      if (snapped)
+        pos[i] = p;
+    }
+  }
+  g_free(ends);
+  return n_snapped;
 }
 
 static gboolean fit(const double *x, const double *y, guint n, double *a, double *b,
@@ -170,7 +211,7 @@ static pp_axis_candidate *make_candidate(GPtrArray *run, gboolean vertical, GArr
     texts[i] = ((pp_label *)g_ptr_array_index(run, i))->text;
   pp_number_parse_series(texts, n, nums, ok);
   double *pos = g_new(double, n), *val = g_new(double, n), *lval = g_new(double, n);
-  guint m = 0, n_snapped = 0;
+  guint m = 0, n_snapped = snap_run(run, vertical, segs, pos);
   gboolean all_positive = TRUE;
   pp_axis_candidate *c = g_new0(pp_axis_candidate, 1);
   c->labels = g_ptr_array_new();
@@ -181,9 +222,6 @@ static pp_axis_candidate *make_candidate(GPtrArray *run, gboolean vertical, GArr
     pp_label *l = g_ptr_array_index(run, i);
     /* Every label parsed on its own; the series reading wins where it exists. */
     double v = ok[i] ? nums[i].value : l->number.value;
-    gboolean snapped;
-    pos[m] = snap(l, vertical, segs, &snapped);
-    n_snapped += snapped;
     val[m] = v;
     all_positive &= v > 0;
     lval[m] = v > 0 ? log10(v) : 0;

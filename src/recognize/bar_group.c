@@ -161,6 +161,41 @@ static void attach_data_labels(pp_recognize_ctx *ctx, pp_figure *fig, gboolean v
   }
 }
 
+/* Bars of one chart are drawn at one width; the capture resolves 1/1024 pt, so two
+ * equal widths can come back 0.001 pt apart, and a Lie Factor between two bars of
+ * nearly equal value magnifies that a hundredfold. Widths within two same-edge
+ * tolerances of the median (each side may be off by one) are set to the median, their
+ * ink scaled with them; a chart of deliberately varied widths keeps its own. */
+static void common_width(pp_figure *fig, gboolean vertical) {
+  guint n = fig->elements->len;
+  if (n < 2)
+    return;
+  double *w = g_new(double, n);
+  for (guint i = 0; i < n; i++) {
+    pp_frame_rect f = pp_frame_of(g_array_index(fig->elements, pp_element, i).box, vertical);
+    w[i] = f.w1 - f.w0;
+  }
+  double *sorted = g_memdup2(w, n * sizeof(double));
+  for (guint i = 1; i < n; i++) /* small n: insertion sort for the median */
+    for (guint j = i; j > 0 && sorted[j] < sorted[j - 1]; j--) {
+      double t = sorted[j];
+      sorted[j] = sorted[j - 1];
+      sorted[j - 1] = t;
+    }
+  double median = sorted[n / 2];
+  g_free(sorted);
+  for (guint i = 0; i < n; i++) {
+    pp_element *e = &g_array_index(fig->elements, pp_element, i);
+    if (!(w[i] > 0) || fabs(w[i] - median) >= 2 * PP_SAME_EDGE_TOL)
+      continue;
+    double k = median / w[i];
+    e->ink *= k;
+    for (guint p = 0; p < e->parts->len; p++)
+      g_array_index(e->parts, pp_part, p).ink *= k;
+  }
+  g_free(w);
+}
+
 /* Bars touching the baseline, then whatever stacks on them in their column: one
  * element per column, its segments kept as parts. scale may be NULL (labels-only
  * charts). Claims every bar and data label it uses, for owner. */
@@ -226,6 +261,7 @@ pp_figure *pp_bars_build(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *sca
       plot = pp_rect_union(plot, b->clip);
   }
   g_free(in);
+  common_width(fig, vertical);
   fig->n_series = colours->len;
   g_array_unref(colours);
   g_array_sort_with_data(fig->elements, cmp_element, GINT_TO_POINTER(vertical));
