@@ -93,17 +93,18 @@ def pct_labels(values, decimals=0):
 
 
 def pie(name, values, printed, drawn=None, rule=None, donut=False, legend=False,
-        title="Revenue by segment, 2031", decimals=0, notes=None):
-    """A pie (or donut) drawn from `drawn` (default values) with `printed` percentages."""
+        title="Revenue by segment, 2031", decimals=0, notes=None, min_label=None):
+    """A pie (or donut) drawn from `drawn` (default values) with `printed` percentages;
+    slices printed below `min_label` percent get no percentage (producers drop them)."""
     drawn = drawn or values
     fig = new_fig()
     ax = fig.add_axes([0.05, 0.08, 0.6, 0.8])
     ax.set_aspect("equal")
     wp = {"width": 0.38, "edgecolor": "white", "linewidth": 1.2} if donut else \
         {"edgecolor": "white", "linewidth": 1.0}
-    labels = SEGMENTS[:len(values)]
+    labels = (SEGMENTS + ["Ferry bar", "Parking"])[:len(values)]
     fmt = "%%.%df%%%%" % decimals
-    texts = [fmt % p for p in printed]
+    texts = [fmt % p if min_label is None or p >= min_label else "" for p in printed]
     wedges, *_ = ax.pie(drawn, colors=COLOURS, startangle=90, counterclock=False,
                         wedgeprops=wp, labels=None if legend else labels,
                         labeldistance=1.12)
@@ -122,6 +123,10 @@ def pie(name, values, printed, drawn=None, rule=None, donut=False, legend=False,
               "start": math.pi / 2, "direction": -1, "inner": 0.62 if donut else 0.0}
     style = ["donut"] if donut else []
     style += ["legend"] if legend else ["labels-inside"]
+    if len(values) > len(COLOURS):
+        style += ["colours-wrap"]  # the last slice takes the first one's colour, beside it
+    if min_label is not None:
+        style += ["small-slices-unlabelled"]
     save(fig, name, [figure("pie", bb, values, labels, rule, circle, list(printed), style,
                             notes)])
 
@@ -363,6 +368,15 @@ def main():
     # One decimal, honest: the sum is 100.0 within 5 x 0.05.
     v2 = vary([38.4, 25.1, 17.7, 11.2, 7.6], 1)
     pie("circ_pie_decimals_honest", v2, pct_labels(v2, 1), decimals=1)
+    # Seven slices on six colours: the last (smallest) slice is painted like the first,
+    # beside it. Honest: it has no percentage of its own (below 5%), the first slice's
+    # label fits the first slice alone. Misleading: every slice labelled, angles wrong
+    # (held out: the two largest swapped and the third widened, so labels stay readable).
+    v7 = vary([27.0, 21.0, 16.0, 13.0, 10.0, 9.0, 4.0])
+    pie("circ_pie_colour_wrap_honest", v7, pct_labels(v7), min_label=5)
+    pie("circ_pie_colour_wrap_angles_wrong", v7, pct_labels(v7),
+        drawn=[21.0, 27.0, 16.0, 13.0, 10.0, 6.0, 7.0] if not OFFSET else
+        [v7[1], v7[0], 1.25 * v7[2]] + v7[3:], rule="wedges-vs-labels")
     v3 = vary([46.0, 31.0, 15.0, 8.0])
     pie("circ_donut_honest", v3, pct_labels(v3), donut=True, legend=True,
         title="Fund mix, 2031")
@@ -371,8 +385,10 @@ def main():
         rule="wedges-vs-labels", title="Fund mix, 2031")
     radial_bars("circ_radial_bars", vary([62.0, 48.0, 35.0, 21.0]), 80.0 if not OFFSET else 100.0)
     vs = vary([57.0, 44.0, 31.0, 18.0])
-    radial_bars_scale("circ_radial_scale", vs, 70.0, "radial-ring-ink", 10.0)
-    radial_bars_scale("circ_radial_scale_honest", vs, 70.0, None, 10.0)
+    # The full turn: two tens above the largest value's (70 for the fixed data).
+    full = 10.0 * (math.floor(max(vs) / 10.0) + 2)
+    radial_bars_scale("circ_radial_scale", vs, full, "radial-ring-ink", 10.0)
+    radial_bars_scale("circ_radial_scale_honest", vs, full, None, 10.0)
     vp = vary([120.0, 80.0, 60.0, 35.0, 25.0])
     polar_area("circ_polar_radius", vp, True)
     polar_area("circ_polar_sqrt_honest", vp, False)

@@ -4,6 +4,7 @@
  * inside it, at a leader line's end or in a legend matched by colour. A circle, a gauge,
  * a logo or a progress ring does not tile a turn with two or more slices: no pie. */
 #include <math.h>
+#include <string.h>
 
 #include "internal.h"
 
@@ -52,13 +53,39 @@ static pp_slice slice_of(const pp_wedge_candidate *c) {
   return s;
 }
 
+/* Digits after the printed number's decimal mark. */
+static int decimals_of(const char *text) {
+  const char *dot = strpbrk(text, ".,");
+  int n = 0;
+  while (dot && dot[1 + n] >= '0' && dot[1 + n] <= '9')
+    n++;
+  return n == 3 && *dot == ',' ? 0 : n; /* "1,250" groups thousands */
+}
+
+/* A printed percentage fits the sweep within half a unit of its last digit. */
+static gboolean percent_fits(const pp_label *lab, double sweep) {
+  double half = 0.5 * pow(10, -decimals_of(lab->text)) / 100;
+  return fabs(sweep / (2 * G_PI) - lab->number.value / 100) <= half + PP_PIE_TILE_TOL;
+}
+
+/* Two pieces are two slices of one colour (a palette that wraps, say) when one carries a
+ * percentage that fits it alone and not the two together. */
+static gboolean label_fits_alone(const pp_slice *a, const pp_slice *b) {
+  const pp_slice *l = a->label ? a : b;
+  if (!l->label || !l->label->number.percent)
+    return FALSE;
+  double both = (a->a1 - a->a0) + (b->a1 - b->a0);
+  return percent_fits(l->label, l->a1 - l->a0) && !percent_fits(l->label, both);
+}
+
 static int cmp_a0(gconstpointer pa, gconstpointer pb) {
   const pp_slice *a = pa, *b = pb;
   return (a->a0 > b->a0) - (a->a0 < b->a0);
 }
 
 /* Pieces of one slice: same colour and apex, one ending where the next starts, and not
- * both labelled (two labelled slices of one colour side by side are two slices). */
+ * both labelled (two labelled slices of one colour side by side are two slices), nor one
+ * whose percentage fits it alone. */
 static void merge_pieces(GArray *slices) {
   g_array_sort(slices, cmp_a0);
   gboolean merged = TRUE;
@@ -68,6 +95,7 @@ static void merge_pieces(GArray *slices) {
       guint j = (k + 1) % slices->len;
       pp_slice *a = &g_array_index(slices, pp_slice, k), *b = &g_array_index(slices, pp_slice, j);
       if (!pp_paint_same(&a->paint, &b->paint) || (a->label && b->label) ||
+          label_fits_alone(a, b) ||
           hypot(a->ellipse.centre.x - b->ellipse.centre.x,
                 a->ellipse.centre.y - b->ellipse.centre.y) > PP_PIE_SAME_APEX ||
           fabs(remainder(b->a0 - a->a1, 2 * G_PI)) > PP_PIE_TILE_TOL * 2 * G_PI ||

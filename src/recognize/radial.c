@@ -181,14 +181,31 @@ static gboolean angular_scale(const pp_recognize_ctx *ctx, const pp_ellipse *out
   }
   if (umax - umin < PP_ANGULAR_MIN_SPREAD)
     return FALSE;
-  double su = 0, sv = 0, suu = 0, suv = 0;
+  /* A number printed at the start is the scale's value there exactly (its text may sit
+   * a little off the ray; the others fix the slope). */
+  int at_start = -1;
   for (guint i = 0; i < n; i++)
-    su += us[i], sv += vs[i], suu += us[i] * us[i], suv += us[i] * vs[i];
-  double det = n * suu - su * su;
-  if (!(det > 0))
-    return FALSE;
-  sc->slope = (n * suv - su * sv) / det;
-  sc->offset = (sv - sc->slope * su) / n;
+    if (fabs(us[i]) < PP_ANGULAR_AT_START)
+      at_start = (int)i;
+  if (at_start >= 0) {
+    double v0 = vs[at_start], suu = 0, suv = 0;
+    for (guint i = 0; i < n; i++)
+      if ((int)i != at_start)
+        suu += us[i] * us[i], suv += us[i] * (vs[i] - v0);
+    if (!(suu > 0))
+      return FALSE;
+    sc->offset = v0;
+    sc->slope = suv / suu;
+  } else {
+    double su = 0, sv = 0, suu = 0, suv = 0;
+    for (guint i = 0; i < n; i++)
+      su += us[i], sv += vs[i], suu += us[i] * us[i], suv += us[i] * vs[i];
+    double det = n * suu - su * su;
+    if (!(det > 0))
+      return FALSE;
+    sc->slope = (n * suv - su * sv) / det;
+    sc->offset = (sv - sc->slope * su) / n;
+  }
   double rss = 0;
   for (guint i = 0; i < n; i++) {
     double r = vs[i] - sc->offset - sc->slope * us[i];

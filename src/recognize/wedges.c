@@ -210,7 +210,7 @@ static char *category_of(const pp_scene *scene, const pp_label *lab) {
  * perspective face is measured on its fitted outline. */
 static char *name_beside(const pp_scene *scene, const pp_slice *s, GArray *slices) {
   const pp_text_line *best = NULL;
-  double best_d = PP_NAME_REACH;
+  double best_score = INFINITY, mid = (s->a0 + s->a1) / 2, half = (s->a1 - s->a0) / 2;
   for (guint i = 0; i < scene->lines->len; i++) {
     const pp_text_line *line = g_ptr_array_index(scene->lines, i);
     pp_point c = {(line->box.x0 + line->box.x1) / 2, (line->box.y0 + line->box.y1) / 2};
@@ -228,7 +228,10 @@ static char *name_beside(const pp_scene *scene, const pp_slice *s, GArray *slice
       pp_slice_coords(&s->ellipse, c, &unused, &d);
     }
     pp_number num;
-    if (d < 1 || d > best_d || !pp_angle_within(a, s->a0, s->a1) ||
+    /* Nearest the slice's middle ray first (a neighbour's name may stray into its
+     * angles), then nearest the rim. */
+    double score = fabs(remainder(a - mid, 2 * G_PI)) / fmax(half, 1e-9) + (d - 1);
+    if (d < 1 || d > PP_NAME_REACH || score >= best_score || !pp_angle_within(a, s->a0, s->a1) ||
         pp_number_parse(line->text, PP_DECIMAL_UNKNOWN, &num))
       continue;
     gboolean named = FALSE;
@@ -238,7 +241,7 @@ static char *name_beside(const pp_scene *scene, const pp_slice *s, GArray *slice
     }
     if (named)
       continue;
-    best_d = d;
+    best_score = score;
     best = line;
   }
   return best ? g_strdup(best->text) : NULL;
