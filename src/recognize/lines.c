@@ -14,8 +14,11 @@
  * practice, no source). */
 #define PP_LINE_REACH_SLACK 10.0
 /* The data must start within this of the tick labels, pt, not in the next chart over
- * (common practice, no source). */
+ * (common practice, no source)... */
 #define PP_LINE_MAX_DISTANCE 60.0
+/* ...or within this share of the axis' tick span: a scatter's nearest point may sit far
+ * into a plot about as wide as it is tall (common practice, no source). */
+#define PP_LINE_MAX_DISTANCE_SHARE 0.5
 /* A data line spans at least this both ways, pt (straight rules and gridlines do not),
  * and a marker covers more than PP_LINE_MARKER_MIN_AREA pt² (dots of dotted rules do
  * not; common practice, no source). */
@@ -62,7 +65,7 @@ static pp_figure *build_on_axis(pp_recognize_ctx *ctx, const pp_axis_candidate *
     dist = axis->vertical ? fabs((cand->side > 0 ? box.x0 : box.x1) -
                                  (cand->side > 0 ? axis->box.x1 : axis->box.x0))
                           : fmin(fabs(box.y1 - axis->box.y0), fabs(box.y0 - axis->box.y1));
-  if (dist > PP_LINE_MAX_DISTANCE) {
+  if (dist > fmax(PP_LINE_MAX_DISTANCE, PP_LINE_MAX_DISTANCE_SHARE * (cand->span1 - cand->span0))) {
     g_array_unref(taken);
     return NULL;
   }

@@ -1,6 +1,6 @@
-"""End-to-end measurement checks of the real plotproof binary on PDFs written byte by byte
+"""End-to-end checks of the real plotproof binary on PDFs written byte by byte
 here, so that every coordinate is what this file says (cairo's PDF surface rounds paths
-to 1/256 pt and cannot draw the cases below; pgfplots writes 5-decimal coordinates).
+to 1/256 pt and cannot draw the first case below; pgfplots writes 5-decimal coordinates).
 
 usage: run_measures.py PLOTPROOF
 
@@ -94,6 +94,24 @@ with tempfile.TemporaryDirectory() as tmp:
         growth, gwant = m["ink_growth_ratio"], (245 / 246) / (345 / 346)
         check(abs(growth - gwant) <= 1e-4 * gwant,
               f"equal widths: ink growth ratio {growth:.6f}, expected {gwant:.6f}")
+
+    # A scatter plot whose nearest point sits 85 pt right of its tick labels (the axis is
+    # 200 pt tall): still one chart, read as lines/scatter and never judged by ink.
+    y_of = lambda v: 50 + (v - 100) * 0.5
+    ops = value_axis(100, 500, 100, y_of)
+    ops.append("0.3 0.6 0.3 rg")
+    k = 0.5523 * 3  # a circle of radius 3 from four Béziers (the usual kappa)
+    for i, (x, v) in enumerate(((140, 180), (200, 420), (240, 300), (300, 250), (350, 470))):
+        y = y_of(v)
+        ops.append(f"{x + 3} {y} m {x + 3} {y + k} {x + k} {y + 3} {x} {y + 3} c "
+                   f"{x - k} {y + 3} {x - 3} {y + k} {x - 3} {y} c "
+                   f"{x - 3} {y - k} {x - k} {y - 3} {x} {y - 3} c "
+                   f"{x + k} {y - 3} {x + 3} {y - k} {x + 3} {y} c f")
+    doc = scan(tmp, "far_scatter", "\n".join(ops))
+    figs = [f for p in doc["pages"] for f in p["figures"]]
+    check([f["kind"] for f in figs] == ["line"],
+          f"far scatter: one line figure, got {[f['kind'] for f in figs]}")
+    check(not doc["findings"], f"far scatter: no finding, got {len(doc['findings'])}")
 
 if failures:
     print(f"{len(failures)} failure(s)")
