@@ -256,9 +256,10 @@ def arc_path(t0, t1, rx, ry, cx, cy):
     return [(cx + rx * x, cy + ry * y) for x, y in p.vertices], list(p.codes)
 
 
-def tilted_pie(name, values, ratio, depth, rule):
+def tilted_pie(name, values, ratio, depth, rule, explode=()):
     """A '3D' pie: wedges squeezed by `ratio`, plus a rim of `depth` (radii) under the
-    front half. Parametric angles run counter-clockwise from `start`."""
+    front half. Parametric angles run counter-clockwise from `start`. explode: indices of
+    slices pulled out by 0.12 radii along their middle (top face and rim move together)."""
     fig = new_fig(6.0, 4.0)
     ax = fig.add_axes([0.05, 0.05, 0.9, 0.8])
     ax.set_aspect("equal")
@@ -271,10 +272,15 @@ def tilted_pie(name, values, ratio, depth, rule):
     artists = []
     for i, (t0, t1) in enumerate(spans):
         a0, a1 = math.degrees(t0), math.degrees(t1)
+        mid = (t0 + t1) / 2
+        e = 0.12 if i in explode else 0.0
+        ox, oy = e * math.cos(mid), e * math.sin(mid)  # in the un-squeezed pie
         if depth > 0:
             for lo, hi in truth.truth_circles._arc_overlap(t0, t1, math.pi, 2 * math.pi):
-                top_v, top_c = arc_path(math.degrees(lo), math.degrees(hi), 1, ratio, 0, 0)
-                bot_v, _ = arc_path(math.degrees(lo), math.degrees(hi), 1, ratio, 0, -depth)
+                top_v, top_c = arc_path(math.degrees(lo), math.degrees(hi), 1, ratio, ox,
+                                        oy * ratio)
+                bot_v, _ = arc_path(math.degrees(lo), math.degrees(hi), 1, ratio, ox,
+                                    oy * ratio - depth)
                 verts = top_v + bot_v[::-1] + [top_v[0]]
                 codes = top_c + [Path.LINETO] + [Path.CURVE4] * (len(bot_v) - 1) + \
                     [Path.CLOSEPOLY]
@@ -282,19 +288,18 @@ def tilted_pie(name, values, ratio, depth, rule):
                 rim = PathPatch(Path(verts, codes), facecolor=shade, edgecolor="none")
                 ax.add_patch(rim)
                 artists.append(rim)
-        w = Wedge((0, 0), 1.0, a0, a1, facecolor=COLOURS[i], edgecolor="none",
+        w = Wedge((ox, oy), 1.0, a0, a1, facecolor=COLOURS[i], edgecolor="none",
                   transform=squeeze)
         ax.add_patch(w)
         artists.append(w)
-        mid = (t0 + t1) / 2
-        ax.text(0.65 * math.cos(mid), 0.65 * ratio * math.sin(mid),
+        ax.text(ox + 0.65 * math.cos(mid), (oy + 0.65 * math.sin(mid)) * ratio,
                 "%.0f%%" % (100.0 * values[i] / sum(values)), ha="center", va="center",
                 fontsize=9, color="white")
     ax.set_title("Fleet hours by service, 2031", fontsize=11)
     bb = box(fig, artists)
     circle = {"ratio": ratio, "depth": depth, "start": math.radians(start), "direction": 1,
               "printed": pct_labels(values), "printed_kind": "percent", "decimals": 0}
-    style = ["tilted"] + (["rim"] if depth > 0 else [])
+    style = ["tilted"] + (["rim"] if depth > 0 else []) + (["exploded"] if explode else [])
     save(fig, name, [figure("tilted-pie", bb, values, SEGMENTS[:len(values)], rule, circle,
                             pct_labels(values), style)])
 
@@ -397,6 +402,8 @@ def main():
     v4 = vary([34.0, 26.0, 18.0, 14.0, 8.0])
     tilted_pie("circ_tilted_rim", v4, 0.42, 0.16, "tilted-pie-ink")
     tilted_pie("circ_tilted_flat_honest", v4, 0.42, 0.0, None)
+    tilted_pie("circ_tilted_exploded_rim", v4, 0.42, 0.16, "tilted-pie-ink", explode=(1,))
+    tilted_pie("circ_tilted_exploded_flat_honest", v4, 0.42, 0.0, None, explode=(1,))
     lookalikes()
 
 

@@ -1,10 +1,13 @@
 /* docworker.c — inside a batch worker: limits, stderr caught for the findings file's
- * warnings, the document opened once, each page forked under the page budget. A page
- * child inherits the opened document (copy-on-write), so nothing is parsed twice. */
+ * warnings, the document opened once, pages run in forked page children, each page under
+ * the page budget. A page child inherits the opened document (copy-on-write), so nothing
+ * is parsed twice, and takes a run of pages so poppler's caches (fonts, objects) stay warm;
+ * a page that fails ends its child, and the next page starts in a fresh one. */
 #include <signal.h>
 #include <stdio.h>
 #include <string.h>
 #include <sys/mman.h>
+#include <sys/resource.h>
 #include <unistd.h>
 
 #include "analyse.h"
@@ -15,6 +18,10 @@
  * budget is taken as out of memory (RLIMIT_AS makes allocations fail, and poppler and
  * GLib then abort). Common practice, no source. */
 #define PP_DOCWORKER_MEMORY_SHARE 0.5
+/* Pages one page child takes before a fresh one replaces it: bounds what poppler's caches
+ * can hold, while the fork and the cold caches cost 1/32 of them per page (measured on
+ * the 300-page report of scripts/bench-speed; common practice, no source). */
+#define PP_DOCWORKER_PAGES_PER_CHILD 32
 
 static void send_line(int fd, const char *line) {
   char *with_nl = g_strconcat(line, "\n", NULL);
@@ -61,6 +68,92 @@ static char *page_failure(const pp_worker_result *r, const pp_cli_options *opt, 
                          r->exit_status);
 }
 
+/* A page child's run: pages from first, at most PP_DOCWORKER_PAGES_PER_CHILD of them. */
+typedef struct {
+  pp_analyse_job page; /* page_index is set for each page */
+  guint first, n_pages;
+  const pp_worker_limits *page_limits;
+} page_run;
+
+static double self_cpu(void) {
+  struct rusage ru;
+  getrusage(RUSAGE_SELF, &ru);
+  return (double)ru.ru_utime.tv_sec + ru.ru_utime.tv_usec / 1e6 + (double)ru.ru_stime.tv_sec +
+         ru.ru_stime.tv_usec / 1e6;
+}
+
+/* In the page child: one line per page, "INDEX RSS_KIB CPU_S REPORT". */
+static gboolean page_run_child(int fd, gpointer data) {
+  page_run *run = data;
+  guint last = MIN(run->first + PP_DOCWORKER_PAGES_PER_CHILD, run->n_pages);
+  double cpu0 = self_cpu();
+  for (guint i = run->first; i < last; i++) {
+    pp_worker_child_rearm(run->page_limits);
+    pp_analyse_job job = run->page;
+    job.page_index = i;
+    char *payload = pp_analyse_report_page(&job);
+    /* JSON without pretty printing has no raw newline; make sure of it for the framing. */
+    for (char *c = payload; *c; c++)
+      if (*c == '\n' || *c == '\r')
+        *c = ' ';
+    struct rusage ru;
+    getrusage(RUSAGE_SELF, &ru);
+    double cpu = self_cpu();
+    char *line = g_strdup_printf("%u %ld %.6f %s\n", i, ru.ru_maxrss, cpu - cpu0, payload);
+    cpu0 = cpu;
+    gboolean ok = pp_worker_write_all(fd, line, strlen(line));
+    g_free(line);
+    g_free(payload);
+    if (!ok)
+      return FALSE;
+    /* Messages printed after the page's capture was read belong to no page. */
+    if (job.messages_fd >= 0 && ftruncate(job.messages_fd, 0) == 0)
+      lseek(job.messages_fd, 0, SEEK_SET);
+  }
+  return TRUE;
+}
+
+/* The document worker's side of the page children. */
+typedef struct {
+  int fd; /* to the scheduler */
+  const pp_cli_options *opt;
+  guint n_pages;
+  guint next;    /* first page without a result */
+  guint started; /* pages announced with "start" */
+  gboolean over_cpu;
+  double cpu_used;  /* CPU seconds of the pages so far */
+  double child_cpu; /* of those, reported by the current child */
+} run_state;
+
+static gboolean on_page_line(const char *text, gpointer data) {
+  run_state *st = data;
+  guint index;
+  long rss;
+  double cpu;
+  int at = 0;
+  if (sscanf(text, "%u %ld %lf %n", &index, &rss, &cpu, &at) != 3 || at == 0 || index != st->next ||
+      text[at] != '{')
+    return FALSE; /* not ours: the child is ended and the page counted as failed */
+  char *line =
+      g_strdup_printf("{\"page\":%u,\"rss_kib\":%ld,\"report\":%s}", index, rss, text + at);
+  send_line(st->fd, line);
+  g_free(line);
+  st->next = index + 1;
+  st->cpu_used += cpu;
+  st->child_cpu += cpu;
+  if (st->opt->cpu_s && st->cpu_used > st->opt->cpu_s && st->next < st->n_pages) {
+    st->over_cpu = TRUE;
+    return FALSE;
+  }
+  if (st->next < st->n_pages && st->started <= st->next) {
+    line = g_strdup_printf("{\"start\":%u}", st->next);
+    send_line(st->fd, line);
+    g_free(line);
+    st->started = st->next + 1;
+  }
+  return TRUE;
+}
+
 int pp_docworker_main(int fd, const pp_docworker_job *job, pid_t parent) {
   const pp_cli_options *opt = job->opt;
   pp_worker_limits doc_limits = {opt->timeout_s, opt->cpu_s,
@@ -84,36 +177,51 @@ int pp_docworker_main(int fd, const pp_docworker_job *job, pid_t parent) {
   g_free(line);
   g_free(header);
 
+  /* Each page has page_s of wall clock and page_s + 1 of CPU (pp_worker_child_rearm); the
+   * child's hard CPU limit covers its whole run. */
   pp_worker_limits page_limits = {opt->page_s, opt->page_s + 1, doc_limits.memory_bytes};
-  double cpu_used = 0;
-  for (guint i = 0; i < info->n_pages; i++) {
-    line = g_strdup_printf("{\"start\":%u}", i);
-    send_line(fd, line);
-    g_free(line);
-    pp_analyse_job page = {job->path, job->password, opt, FALSE, doc, i, messages_fd};
+  pp_worker_limits run_limits = {opt->page_s, (opt->page_s + 1) * PP_DOCWORKER_PAGES_PER_CHILD,
+                                 doc_limits.memory_bytes};
+  page_run run = {
+      {job->path, job->password, opt, FALSE, doc, 0, messages_fd}, 0, info->n_pages, &page_limits};
+  run_state st = {fd, opt, info->n_pages, 0, 0, FALSE, 0, 0};
+  while (st.next < info->n_pages) {
+    if (st.started <= st.next) {
+      line = g_strdup_printf("{\"start\":%u}", st.next);
+      send_line(fd, line);
+      g_free(line);
+      st.started = st.next + 1;
+    }
+    run.first = st.next;
+    st.child_cpu = 0;
+    guint before = st.next;
     pp_worker_result r;
-    pp_worker_run(pp_analyse_report_page, &page, &page_limits, &r);
-    cpu_used += r.cpu_s;
-    if (r.outcome == PP_WORKER_DONE && r.payload->str[0] == '{') {
-      line = g_strdup_printf("{\"page\":%u,\"rss_kib\":%ld,\"report\":%s}", i, r.max_rss_kib,
-                             r.payload->str);
-    } else {
+    pp_worker_run_lines(page_run_child, &run, &run_limits, on_page_line, &st, &r);
+    gboolean ended_well =
+        (r.outcome == PP_WORKER_DONE || (r.outcome == PP_WORKER_EXITED && r.exit_status == 0)) &&
+        st.next > before;
+    if (!ended_well && !st.over_cpu && st.next < info->n_pages) {
+      /* The page in progress ended its child: it alone is lost. */
+      st.cpu_used += MAX(r.cpu_s - st.child_cpu, 0);
       char *why = page_failure(&r, opt, messages_fd);
-      JsonNode *s = json_node_new(JSON_NODE_VALUE);
-      json_node_set_string(s, why);
-      char *quoted = json_to_string(s, FALSE);
-      line =
-          g_strdup_printf("{\"page\":%u,\"rss_kib\":%ld,\"error\":%s}", i, r.max_rss_kib, quoted);
+      JsonNode *js = json_node_new(JSON_NODE_VALUE);
+      json_node_set_string(js, why);
+      char *quoted = json_to_string(js, FALSE);
+      line = g_strdup_printf("{\"page\":%u,\"rss_kib\":%ld,\"error\":%s}", st.next, r.max_rss_kib,
+                             quoted);
       g_free(quoted);
-      json_node_unref(s);
+      json_node_unref(js);
       g_free(why);
+      send_line(fd, line);
+      g_free(line);
+      st.next++;
+      if (messages_fd >= 0 && ftruncate(messages_fd, 0) == 0)
+        lseek(messages_fd, 0, SEEK_SET);
+      if (opt->cpu_s && st.cpu_used > opt->cpu_s && st.next < info->n_pages)
+        st.over_cpu = TRUE;
     }
     g_string_free(r.payload, TRUE);
-    send_line(fd, line);
-    g_free(line);
-    if (messages_fd >= 0 && ftruncate(messages_fd, 0) == 0)
-      lseek(messages_fd, 0, SEEK_SET);
-    if (opt->cpu_s && cpu_used > opt->cpu_s && i + 1 < info->n_pages) {
+    if (st.over_cpu) {
       line =
           g_strdup_printf("{\"stop\":\"over the document's limit of %u CPU seconds\"}", opt->cpu_s);
       send_line(fd, line);

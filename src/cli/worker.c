@@ -125,40 +125,54 @@ static void child_main(int fd, pp_worker_func func, gpointer data, const pp_work
   _exit(ok ? 0 : 1);
 }
 
-void pp_worker_run(pp_worker_func func, gpointer data, const pp_worker_limits *limits,
-                   pp_worker_result *res) {
-  memset(res, 0, sizeof *res);
-  res->payload = g_string_new(NULL);
+static void lines_child_main(int fd, pp_worker_lines_func func, gpointer data,
+                             const pp_worker_limits *limits, pid_t parent) {
+  pp_worker_child_setup(limits, parent);
+  gboolean ok = func(fd, data);
+  close(fd);
+  _exit(ok ? 0 : 1);
+}
+
+/* Forks with a pipe from child to parent; returns the child's pid (the read end in *rfd),
+ * 0 in the child (the write end in *wfd), or -1 with the reason in res. */
+static pid_t fork_with_pipe(int *rfd, int *wfd, pp_worker_result *res) {
   int fds[2];
   if (pipe2(fds, O_CLOEXEC) != 0) {
     res->outcome = PP_WORKER_NO_FORK;
     g_string_assign(res->payload, g_strerror(errno));
-    return;
+    return -1;
   }
   /* Buffered output would otherwise be written twice, once by each process. */
   fflush(stdout);
   fflush(stderr);
-  pid_t parent = getpid();
   pid_t pid = fork();
   if (pid < 0) {
     res->outcome = PP_WORKER_NO_FORK;
     g_string_assign(res->payload, g_strerror(errno));
     close(fds[0]);
     close(fds[1]);
-    return;
+    return -1;
   }
   if (pid == 0) {
     close(fds[0]);
-    child_main(fds[1], func, data, limits, parent);
+    *wfd = fds[1];
+  } else {
+    close(fds[1]);
+    *rfd = fds[0];
   }
-  close(fds[1]);
-  gint64 deadline = limits && limits->wall_s
-                        ? g_get_monotonic_time() + (gint64)limits->wall_s * G_USEC_PER_SEC
-                        : 0;
+  return pid;
+}
+
+static gint64 deadline_after(const pp_worker_limits *limits) {
+  return limits && limits->wall_s ? g_get_monotonic_time() + (gint64)limits->wall_s * G_USEC_PER_SEC
+                                  : 0;
+}
+
+/* Waits for the child (killing it when eof is FALSE or the deadline passes) and fills in
+ * the outcome, peak memory and CPU time. */
+static void finish_child(pid_t pid, gboolean eof, gint64 deadline, pp_worker_result *res) {
   int status = 0;
   struct rusage ru = {0};
-  gboolean eof = read_until_eof(fds[0], deadline, res->payload);
-  close(fds[0]);
   if (!eof || !wait_child(pid, deadline, &status, &ru)) {
     kill(pid, SIGKILL);
     while (wait4(pid, &status, 0, &ru) < 0 && errno == EINTR)
@@ -176,4 +190,95 @@ void pp_worker_run(pp_worker_func func, gpointer data, const pp_worker_limits *l
   res->max_rss_kib = ru.ru_maxrss;
   res->cpu_s = (double)ru.ru_utime.tv_sec + ru.ru_utime.tv_usec / 1e6 + (double)ru.ru_stime.tv_sec +
                ru.ru_stime.tv_usec / 1e6;
+}
+
+void pp_worker_run(pp_worker_func func, gpointer data, const pp_worker_limits *limits,
+                   pp_worker_result *res) {
+  memset(res, 0, sizeof *res);
+  res->payload = g_string_new(NULL);
+  pid_t parent = getpid();
+  int rfd = -1, wfd = -1;
+  pid_t pid = fork_with_pipe(&rfd, &wfd, res);
+  if (pid < 0)
+    return;
+  if (pid == 0)
+    child_main(wfd, func, data, limits, parent);
+  gint64 deadline = deadline_after(limits);
+  gboolean eof = read_until_eof(rfd, deadline, res->payload);
+  close(rfd);
+  finish_child(pid, eof, deadline, res);
+}
+
+/* Reads lines until end of file, each within the wall limit of the one before; a line
+ * handler that says stop ends the reading (the child is then killed). */
+static gboolean read_lines(int fd, const pp_worker_limits *limits, pp_worker_line_func on_line,
+                           gpointer line_data, GString *all) {
+  char buf[65536];
+  GString *line = g_string_new(NULL);
+  gint64 deadline = deadline_after(limits);
+  gboolean eof = FALSE;
+  for (;;) {
+    struct pollfd p = {fd, POLLIN, 0};
+    int left = ms_left(deadline);
+    if (left == 0)
+      break;
+    int r = poll(&p, 1, left);
+    if (r < 0 && errno == EINTR)
+      continue;
+    if (r <= 0) {
+      eof = r < 0;
+      break;
+    }
+    ssize_t n = read(fd, buf, sizeof buf);
+    if (n < 0 && errno == EINTR)
+      continue;
+    if (n <= 0) {
+      eof = TRUE;
+      break;
+    }
+    gboolean go_on = TRUE;
+    for (ssize_t i = 0; i < n && go_on; i++) {
+      if (buf[i] != '\n') {
+        g_string_append_c(line, buf[i]);
+        continue;
+      }
+      g_string_append(all, line->str);
+      go_on = on_line(line->str, line_data);
+      g_string_truncate(line, 0);
+      deadline = deadline_after(limits);
+    }
+    if (!go_on)
+      break;
+  }
+  g_string_free(line, TRUE);
+  return eof;
+}
+
+void pp_worker_run_lines(pp_worker_lines_func func, gpointer data, const pp_worker_limits *limits,
+                         pp_worker_line_func on_line, gpointer line_data, pp_worker_result *res) {
+  memset(res, 0, sizeof *res);
+  res->payload = g_string_new(NULL);
+  pid_t parent = getpid();
+  int rfd = -1, wfd = -1;
+  pid_t pid = fork_with_pipe(&rfd, &wfd, res);
+  if (pid < 0)
+    return;
+  if (pid == 0)
+    lines_child_main(wfd, func, data, limits, parent);
+  gboolean eof = read_lines(rfd, limits, on_line, line_data, res->payload);
+  close(rfd);
+  finish_child(pid, eof, deadline_after(limits), res);
+}
+
+void pp_worker_child_rearm(const pp_worker_limits *job) {
+  if (job->wall_s)
+    alarm(job->wall_s + PP_WORKER_ALARM_GRACE_S);
+  struct rlimit cur;
+  struct rusage ru;
+  if (job->cpu_s && getrlimit(RLIMIT_CPU, &cur) == 0 && getrusage(RUSAGE_SELF, &ru) == 0) {
+    rlim_t used = (rlim_t)(ru.ru_utime.tv_sec + ru.ru_stime.tv_sec + 1);
+    rlim_t soft = used + job->cpu_s;
+    cur.rlim_cur = cur.rlim_max == RLIM_INFINITY ? soft : MIN(soft, cur.rlim_max);
+    setrlimit(RLIMIT_CPU, &cur);
+  }
 }

@@ -38,6 +38,22 @@ typedef struct {
 void pp_worker_run(pp_worker_func func, gpointer data, const pp_worker_limits *limits,
                    pp_worker_result *result);
 
+/* Runs in the child of pp_worker_run_lines: writes newline-ended lines to fd, returns FALSE
+ * on failure. */
+typedef gboolean (*pp_worker_lines_func)(int fd, gpointer data);
+/* Called in the parent for each line (without its newline); FALSE stops the child. */
+typedef gboolean (*pp_worker_line_func)(const char *line, gpointer data);
+
+/* Like pp_worker_run for a child that reports in lines: the wall limit applies to each
+ * line (from the start, then from the line before), so one child can do many short jobs
+ * each under the limit. result->payload gets the lines joined; DONE needs at least one. */
+void pp_worker_run_lines(pp_worker_lines_func func, gpointer data, const pp_worker_limits *limits,
+                         pp_worker_line_func on_line, gpointer line_data, pp_worker_result *result);
+
+/* In a pp_worker_run_lines child before each job: the alarm and the CPU limit (soft, under
+ * the child's hard limit) start again for the job's own wall_s and cpu_s. */
+void pp_worker_child_rearm(const pp_worker_limits *job);
+
 /* What every child does first: default signal dispositions, death with the parent
  * (PR_SET_PDEATHSIG, and _exit if the parent is already gone), no core files, the
  * limits, and an alarm a little after the wall limit so that even an orphan ends. */

@@ -34,8 +34,35 @@ static gboolean all_labelled(const pp_recognize_ctx *ctx, pp_figure *fig) {
   return labelled == fig->elements->len && labelled >= 2 && !pp_bars_legend_like(ctx->scene, fig);
 }
 
+/* An edge already tried in this pass: the selection depends only on the orientation, the
+ * edge and the width (claims do not change until a figure is committed), so each row of
+ * a grid of tiles is built once instead of once per tile. */
+typedef struct {
+  double edge, width;
+  int orient;
+} tried_edge;
+
+static guint tried_hash(gconstpointer p) {
+  const tried_edge *t = p;
+  return g_double_hash(&t->edge) * 31u + g_double_hash(&t->width) * 7u + (guint)t->orient;
+}
+
+static gboolean tried_equal(gconstpointer a, gconstpointer b) {
+  const tried_edge *x = a, *y = b;
+  return x->edge == y->edge && x->width == y->width && x->orient == y->orient;
+}
+
+static gboolean first_try(GHashTable *tried, int orient, double edge, double width) {
+  tried_edge key = {edge, width, orient};
+  if (g_hash_table_contains(tried, &key))
+    return FALSE;
+  g_hash_table_add(tried, g_memdup2(&key, sizeof key));
+  return TRUE;
+}
+
 /* One labels-only figure, committed and finished; FALSE when there is none left. */
 static gboolean find_one(pp_recognize_ctx *ctx) {
+  g_autoptr(GHashTable) tried = g_hash_table_new_full(tried_hash, tried_equal, g_free, NULL);
   for (int orient = 0; orient < 2; orient++) {
     gboolean vertical = orient == 0;
     for (guint i = 0; i < ctx->bars->len; i++) {
@@ -45,6 +72,8 @@ static gboolean find_one(pp_recognize_ctx *ctx) {
       pp_frame_rect fa = pp_frame_of(a->rect, vertical);
       double edges[2] = {fa.u0, fa.u1};
       for (int e = 0; e < 2; e++) {
+        if (!first_try(tried, orient, edges[e], fa.w1 - fa.w0))
+          continue;
         GArray *sel = select_on_edge(ctx, vertical, edges[e], fa.w1 - fa.w0);
         if (sel->len < 2) {
           g_array_unref(sel);

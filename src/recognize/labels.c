@@ -69,29 +69,47 @@ static gboolean same_baseline(const pp_text_run *a, const pp_text_run *b) {
 /* A minus sign drawn as a filled bar just left of the digits: matplotlib's Type 3
  * fonts draw U+2212 as a path, so the text API never sees it (capture notes §7).
  * Thin (under a tenth of the text height), about a digit wide, at mid-height. */
-static gint find_path_minus(const pp_scene *scene, const pp_label *l) {
-  double h = pp_rect_height(l->box);
+typedef struct {
+  guint mark;
+  pp_rect r;
+} rect_fill;
+
+/* The page's rectangular fills in paint order, found once per page rather than once per
+ * label (a page of labelled tiles has as many labels as fills). */
+static GArray *rect_fills(const pp_scene *scene) {
+  GArray *out = g_array_new(FALSE, FALSE, sizeof(rect_fill));
   for (guint i = 0; i < scene->marks->len; i++) {
     const pp_mark *m = g_ptr_array_index(scene->marks, i);
-    pp_rect r;
-    if (m->kind != PP_MARK_FILL || !pp_path_is_rectangle(m->path, PP_RECT_TOL, &r))
-      continue;
+    rect_fill f = {i, pp_rect_empty()};
+    if (m->kind == PP_MARK_FILL && pp_path_is_rectangle(m->path, PP_RECT_TOL, &f.r))
+      g_array_append_val(out, f);
+  }
+  return out;
+}
+
+static gint find_path_minus(GArray *fills, const pp_label *l) {
+  double h = pp_rect_height(l->box);
+  for (guint i = 0; i < fills->len; i++) {
+    pp_rect r = g_array_index(fills, rect_fill, i).r;
     double w = pp_rect_width(r), t = pp_rect_height(r), cy = (r.y0 + r.y1) / 2;
     double gap = l->box.x0 - r.x1;
     if (t > PP_MINUS_MIN_THICK && t < PP_MINUS_MAX_THICK * h && w > PP_MINUS_MIN_WIDTH * h &&
         w < PP_MINUS_MAX_WIDTH * h && gap > -PP_MINUS_OVERLAP && gap < PP_MINUS_MAX_GAP * h &&
         cy > l->box.y0 + PP_MINUS_LOW * h && cy < l->box.y0 + PP_MINUS_HIGH * h)
-      return (gint)i;
+      return (gint)g_array_index(fills, rect_fill, i).mark;
   }
   return -1;
 }
 
 static void recover_minus_signs(const pp_scene *scene, GPtrArray *labels, GHashTable *glyph_marks) {
+  GArray *fills = NULL;
   for (guint k = 0; k < labels->len; k++) {
     pp_label *l = g_ptr_array_index(labels, k);
     if (!g_ascii_isdigit(l->text[0]) || l->number.value <= 0 || l->angle != 0)
       continue;
-    gint mark = find_path_minus(scene, l);
+    if (!fills)
+      fills = rect_fills(scene);
+    gint mark = find_path_minus(fills, l);
     if (mark < 0)
       continue;
     const pp_mark *m = g_ptr_array_index(scene->marks, (guint)mark);
@@ -103,6 +121,8 @@ static void recover_minus_signs(const pp_scene *scene, GPtrArray *labels, GHashT
     l->centre = (pp_point){(l->box.x0 + l->box.x1) / 2, (l->box.y0 + l->box.y1) / 2};
     g_hash_table_add(glyph_marks, GUINT_TO_POINTER((guint)mark));
   }
+  if (fills)
+    g_array_unref(fills);
 }
 
 GPtrArray *pp_labels_collect(const pp_scene *scene, GHashTable *glyph_marks) {

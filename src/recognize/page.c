@@ -60,10 +60,15 @@ static gboolean has_bars_beside(const pp_recognize_ctx *ctx, const pp_axis_candi
       g_array_append_val(near, b->rect);
   }
   gboolean found = FALSE;
+  /* Each edge is counted once: bars of a grid share their edges by the row. */
+  GHashTable *tried = g_hash_table_new_full(g_double_hash, g_double_equal, g_free, NULL);
   for (guint i = 0; i < near->len && !found; i++) {
     pp_frame_rect a = pp_frame_of(g_array_index(near, pp_rect, i), vertical);
     double edges[2] = {a.u0, a.u1};
     for (int e = 0; e < 2 && !found; e++) {
+      if (g_hash_table_contains(tried, &edges[e]))
+        continue;
+      g_hash_table_add(tried, g_memdup2(&edges[e], sizeof(double)));
       guint sharing = 0;
       double shortest = INFINITY, longest = 0;
       for (guint j = 0; j < near->len; j++) {
@@ -79,6 +84,7 @@ static gboolean has_bars_beside(const pp_recognize_ctx *ctx, const pp_axis_candi
               longest >= PP_FAILED_SCALE_MIN_LONGEST * (c->span1 - c->span0);
     }
   }
+  g_hash_table_unref(tried);
   g_array_unref(near);
   return found;
 }

@@ -13,6 +13,7 @@ reported; with none installed the test is skipped (exit 77), never passed."""
 import glob
 import json
 import os
+import shutil
 import subprocess
 import sys
 import tempfile
@@ -54,6 +55,13 @@ for gen in ("matplotlib", "gnuplot", "cairo", "r"):
                        capture_output=True, text=True)
     check(p.returncode == 0, f"{gen} generator: {p.stderr[-300:]}")
     ran += 1
+# LibreOffice and pgfplots/TikZ pies are asked for by the issue but not installed here (nor
+# by .ci/run: their packages cost too much CI time): shown as not tested, never passed.
+for tool, probe in (("libreoffice", "soffice"), ("pgfplots", "pdflatex")):
+    if not shutil.which(probe):
+        print(f"not installed, not tested: {tool} (circle charts)")
+    else:
+        print(f"installed but no circle generator yet, not tested: {tool}")
 if not ran:
     print("SKIP: no producer installed")
     sys.exit(77)
