@@ -146,6 +146,31 @@ static void oblique_bar(pp_path **faces, double x, double h, double w, double dx
   faces[2] = polygon(side, 4);
 }
 
+/* A grid of tiles that touch is one connected group and the same grid with gaps is one group
+ * per tile, by construction (neighbouring cells share a side); the grid is given in an order
+ * that is not left to right, so the box sweep must not depend on input order. */
+static void test_grouping_tile_grid(void **state) {
+  (void)state;
+  enum { side = 30, n = side * side };
+  pp_quad *q = g_new0(pp_quad, n);
+  guint *group = g_new(guint, n);
+  for (int gap = 0; gap <= 1; gap++) {
+    const double pitch = 10 + 2 * gap;
+    for (int i = 0; i < n; i++) {
+      int r = (i * 7) % side, c = i / side; /* a shuffled row order */
+      double x = c * pitch, y = r * pitch;
+      q[i] =
+          (pp_quad){PP_QUAD_RECTANGLE, {{x, y}, {x + 10, y}, {x + 10, y + 10}, {x, y + 10}}, 100};
+    }
+    assert_int_equal(pp_quads_group_by_edges(q, n, 0.01, group), gap ? n : 1);
+    if (gap)
+      for (int i = 0; i < n; i++)
+        assert_int_equal(group[i], i);
+  }
+  g_free(q);
+  g_free(group);
+}
+
 static void test_oblique_bars(void **state) {
   (void)state;
   const double w = 30, dx = 12, dy = 8, hs[] = {60, 150, 240};
@@ -264,11 +289,11 @@ static void test_quad_vs_cairo_pixels(void **state) {
 
 int main(void) {
   const struct CMUnitTest tests[] = {
-      cmocka_unit_test(test_triangle_slices),      cmocka_unit_test(test_solid_slices),
-      cmocka_unit_test(test_radius_scaling),       cmocka_unit_test(test_power_fit_r2),
-      cmocka_unit_test(test_oblique_bars),         cmocka_unit_test(test_grouping_neighbours),
-      cmocka_unit_test(test_perspective_faces),    cmocka_unit_test(test_not_quads),
-      cmocka_unit_test(test_quad_vs_cairo_pixels),
+      cmocka_unit_test(test_triangle_slices),     cmocka_unit_test(test_solid_slices),
+      cmocka_unit_test(test_radius_scaling),      cmocka_unit_test(test_power_fit_r2),
+      cmocka_unit_test(test_oblique_bars),        cmocka_unit_test(test_grouping_tile_grid),
+      cmocka_unit_test(test_grouping_neighbours), cmocka_unit_test(test_perspective_faces),
+      cmocka_unit_test(test_not_quads),           cmocka_unit_test(test_quad_vs_cairo_pixels),
   };
   return cmocka_run_group_tests(tests, NULL, NULL);
 }
