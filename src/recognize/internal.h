@@ -259,6 +259,8 @@ void pp_recognize_lines(pp_recognize_ctx *ctx);         /* lines.c */
 void pp_recognize_solid_bars(pp_recognize_ctx *ctx);    /* solids.c */
 void pp_recognize_cylinders(pp_recognize_ctx *ctx);     /* cylinders.c */
 void pp_recognize_boxes(pp_recognize_ctx *ctx);         /* boxes.c */
+void pp_recognize_dots(pp_recognize_ctx *ctx);          /* dots.c */
+void pp_recognize_two_sided(pp_recognize_ctx *ctx);     /* two_sided.c */
 /* Shared by the solid recognizers (solids.c): the free vertical linear value axis beside
  * a group of solids, the word under a front (its category), the plot frame around them. */
 const pp_axis_candidate *pp_solid_value_axis(const pp_recognize_ctx *ctx, pp_rect all);

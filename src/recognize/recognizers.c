@@ -43,6 +43,12 @@ const pp_recognizer pp_recognizers[] = {
       "starting at one angle; polar area: three or more sectors of equal angle about one "
       "apex tiling 360° with different radii; judged when each has a printed value"},
      pp_recognize_radial},
+    /* Before bars: a fit over part of a mirrored scale would read one side as a chart. */
+    {{"two-sided", "two-sided bars (population pyramids) from one zero line",
+      "three or more rows of a bar reaching left and one reaching right from one vertical "
+      "line, under or over tick labels with a 0 on that line and equal numbers mirrored "
+      "about it. Counted, not judged"},
+     pp_recognize_two_sided},
     {{"bars", "bars and columns standing on a shared baseline beside a fitted value axis",
       "a fitted linear or log scale; two or more bars sharing a baseline edge, not legend "
       "keys, not overlapping across the axis, the longest at least a tenth of the tick span; "
@@ -72,6 +78,10 @@ const pp_recognizer pp_recognizers[] = {
       "a fitted scale that took no bars or areas; polylines or small markers beside its "
       "labels. Counted, never judged"},
      pp_recognize_lines},
+    {{"dots", "dot plots and scatter plots of one marker size beside a value axis",
+      "five or more free markers of one size and colour; a fitted scale of either "
+      "orientation whose ticks cover them, its labels beside them. Counted, never judged"},
+     pp_recognize_dots},
 };
 
 const guint pp_n_recognizers = G_N_ELEMENTS(pp_recognizers);
