@@ -4,6 +4,7 @@
 #include <string.h>
 
 #include "assemble.h"
+#include "record.h"
 #include "rules/rules.h"
 
 struct pp_assembly {
@@ -99,7 +100,8 @@ static void take_report(pp_assembly *as, guint index, JsonObject *report) {
 
 void pp_assembly_feed(pp_assembly *as, const char *line, gsize len) {
   g_autoptr(JsonParser) parser = json_parser_new();
-  if (!json_parser_load_from_data(parser, line, (gssize)len, NULL) ||
+  if (!pp_json_is_one_object(line, len) ||
+      !json_parser_load_from_data(parser, line, (gssize)len, NULL) ||
       !JSON_NODE_HOLDS_OBJECT(json_parser_get_root(parser))) {
     as->bad_lines++;
     return;

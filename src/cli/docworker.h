@@ -22,8 +22,9 @@ typedef struct {
  *   {"page": I, "error": "too complex: ..."}     page I over its budget, or crashed
  *   {"stop": "..."}                              the document's CPU limit is spent
  *   {"end": true}                                all pages done
- * Never returns: the process ends with _exit(). */
-G_NORETURN void pp_docworker_main(int fd, const pp_docworker_job *job, pid_t parent);
+ * Returns the exit status for the worker process (0 whenever the lines were written; a
+ * failed write ends the process at once with _exit(3)). */
+int pp_docworker_main(int fd, const pp_docworker_job *job, pid_t parent);
 
 /* The job as the scheduler writes it to the worker's standard input (password included,
  * so it never shows on a command line). */

@@ -51,6 +51,37 @@ char *pp_record_to_line(const pp_record *r) {
   return line;
 }
 
+gboolean pp_json_is_one_object(const char *text, gsize len) {
+  gsize i = 0;
+  while (i < len && g_ascii_isspace(text[i]))
+    i++;
+  if (i == len || text[i] != '{')
+    return FALSE;
+  gsize depth = 0;
+  gboolean in_string = FALSE;
+  for (; i < len; i++) {
+    char c = text[i];
+    if (in_string) {
+      if (c == '\\')
+        i++; /* the escaped character */
+      else if (c == '"')
+        in_string = FALSE;
+    } else if (c == '"') {
+      in_string = TRUE;
+    } else if (c == '{' || c == '[') {
+      depth++;
+    } else if ((c == '}' || c == ']') && --depth == 0) {
+      i++;
+      break;
+    }
+  }
+  if (depth != 0)
+    return FALSE;
+  while (i < len && g_ascii_isspace(text[i]))
+    i++;
+  return i >= len;
+}
+
 GHashTable *pp_records_parse(const char *data, gsize len, JsonObject **summary) {
   GHashTable *records =
       g_hash_table_new_full(g_str_hash, g_str_equal, g_free, (GDestroyNotify)json_object_unref);
@@ -61,7 +92,8 @@ GHashTable *pp_records_parse(const char *data, gsize len, JsonObject **summary) 
   while (p < end) {
     const char *nl = memchr(p, '\n', (size_t)(end - p));
     const char *stop = nl ? nl : end;
-    if (stop > p && json_parser_load_from_data(parser, p, stop - p, NULL)) {
+    if (pp_json_is_one_object(p, (gsize)(stop - p)) &&
+        json_parser_load_from_data(parser, p, stop - p, NULL)) {
       JsonNode *root = json_parser_get_root(parser);
       JsonObject *o = root && JSON_NODE_HOLDS_OBJECT(root) ? json_node_get_object(root) : NULL;
       JsonNode *s = o ? json_object_get_member(o, "summary") : NULL;

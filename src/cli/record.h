@@ -27,6 +27,12 @@ typedef struct {
 /* Compact JSON object, no newline. NULL strings are left out. */
 char *pp_record_to_line(const pp_record *r);
 
+/* TRUE when text[0..len) is one JSON object with nothing but white space around it (only
+ * the nesting is checked; the JSON parser checks the rest). json-glib 1.6 takes "{..}{..}"
+ * as a document, keeps the last object and loses the others unfreed, so lines that read
+ * hostile or cut JSON check this first. */
+gboolean pp_json_is_one_object(const char *text, gsize len);
+
 /* Parses JSON Lines text: returns output name → JsonObject* (owned by the table) of the
  * last well-formed record per output; *summary (may be NULL) gets a new reference to the
  * last summary object, or NULL. Never fails: what cannot be read is skipped. */
