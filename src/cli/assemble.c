@@ -60,6 +60,8 @@ static JsonNode *failed_page(guint index, const char *reason) {
   return n;
 }
 
+static guint header_pages(const pp_assembly *as);
+
 static void set_page(pp_assembly *as, guint index, JsonNode *node, const char *error) {
   if (index >= 1u << 24) { /* far beyond any page count poppler accepts: a corrupt line */
     json_node_unref(node);
@@ -123,8 +125,13 @@ void pp_assembly_feed(pp_assembly *as, const char *line, gsize len) {
       as->last_started = (int)i;
   } else if ((n = json_object_get_member(o, "page")) && JSON_NODE_HOLDS_VALUE(n)) {
     gint64 i = json_node_get_int(n);
-    if (i < 0 || i >= G_MAXINT)
+    /* A page index outside the document the header opened is a corrupt line: growing the
+     * page table to it would cost memory and time in proportion to a number from a
+     * damaged worker (fuzz_events found {"page":02222222}, tests/fuzz/known). */
+    if (i < 0 || i >= (gint64)header_pages(as)) {
+      as->bad_lines++;
       return;
+    }
     as->max_rss_kib =
         MAX(as->max_rss_kib, json_object_get_int_member_with_default(o, "rss_kib", 0));
     JsonNode *r = json_object_get_member(o, "report");
