@@ -112,19 +112,6 @@ static void add_element(JsonBuilder *b, const pp_element *e) {
   json_builder_end_object(b);
 }
 
-static void add_evidence(JsonBuilder *b, const pp_figure *f) {
-  json_builder_set_member_name(b, "evidence");
-  json_builder_begin_array(b);
-  for (guint i = 0; f->evidence && i < f->evidence->len; i++) {
-    const pp_evidence *ev = &g_array_index(f->evidence, pp_evidence, i);
-    json_builder_begin_object(b);
-    pp_json_member_string(b, "what", ev->what);
-    pp_json_member_number(b, "score", ev->score);
-    json_builder_end_object(b);
-  }
-  json_builder_end_array(b);
-}
-
 static void add_figure(JsonBuilder *b, const pp_scene *scene, const pp_figure *f) {
   static const char *const projections[] = {"flat", "oblique", "perspective", "tilted"};
   json_builder_begin_object(b);
@@ -143,7 +130,7 @@ static void add_figure(JsonBuilder *b, const pp_scene *scene, const pp_figure *f
   pp_json_member_bool(b, "judged", f->judged);
   pp_json_member_string(b, "not_judged_reason", f->not_judged_reason);
   pp_json_member_number(b, "confidence", f->confidence);
-  add_evidence(b, f);
+  pp_json_member_evidence(b, f);
   add_scale(b, f->scale);
   json_builder_set_member_name(b, "elements");
   json_builder_begin_array(b);

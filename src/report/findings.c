@@ -95,20 +95,6 @@ static void add_boxes(JsonBuilder *b, pp_rect r, const pp_scene *scene) {
   pp_json_member_rect(b, "pdf_bbox", pp_rect_transform(r, scene->to_pdf));
 }
 
-/* What made the figure a chart, each piece with its score (the confidence combines them). */
-static void add_figure_evidence(JsonBuilder *b, const pp_figure *f) {
-  json_builder_set_member_name(b, "evidence");
-  json_builder_begin_array(b);
-  for (guint i = 0; f->evidence && i < f->evidence->len; i++) {
-    const pp_evidence *ev = &g_array_index(f->evidence, pp_evidence, i);
-    json_builder_begin_object(b);
-    pp_json_member_string(b, "what", ev->what);
-    pp_json_member_number(b, "score", ev->score);
-    json_builder_end_object(b);
-  }
-  json_builder_end_array(b);
-}
-
 static void add_figures(JsonBuilder *b, const pp_scene *scene, const pp_page_charts *charts) {
   json_builder_set_member_name(b, "figures");
   json_builder_begin_array(b);
@@ -125,7 +111,7 @@ static void add_figures(JsonBuilder *b, const pp_scene *scene, const pp_page_cha
     pp_json_member_int(b, "series", f->n_series);
     pp_json_member_bool(b, "judged", f->judged);
     pp_json_member_number(b, "confidence", f->confidence);
-    add_figure_evidence(b, f);
+    pp_json_member_evidence(b, f);
     pp_json_member_string(b, "not_judged_reason", f->judged ? NULL : f->not_judged_reason);
     json_builder_end_object(b);
   }

@@ -87,3 +87,16 @@ pp_rect pp_json_rect_map(pp_rect r, pp_matrix m) {
 void pp_json_member_mapped_rect(JsonBuilder *b, const char *name, pp_rect r, pp_matrix m) {
   pp_json_member_rect(b, name, pp_json_rect_map(r, m));
 }
+
+void pp_json_member_evidence(JsonBuilder *b, const pp_figure *f) {
+  json_builder_set_member_name(b, "evidence");
+  json_builder_begin_array(b);
+  for (guint i = 0; f->evidence && i < f->evidence->len; i++) {
+    const pp_evidence *ev = &g_array_index(f->evidence, pp_evidence, i);
+    json_builder_begin_object(b);
+    pp_json_member_string(b, "what", ev->what);
+    pp_json_member_number(b, "score", ev->score);
+    json_builder_end_object(b);
+  }
+  json_builder_end_array(b);
+}

@@ -1,10 +1,12 @@
 /* json_util.h — report-stage helpers shared by its writers only: numbers that turn
- * NaN/inf into null (json-glib would print "nan.0", which is not JSON), rectangles, strings. */
+ * NaN/inf into null (json-glib would print "nan.0", which is not JSON), rectangles, strings, and
+ * the figure evidence both writers print. */
 #pragma once
 
 #include <json-glib/json-glib.h>
 
 #include "core/core.h"
+#include "recognize/recognize.h"
 
 void pp_json_add_number(JsonBuilder *b, double v);
 /* v, or its neighbour toward zero when json-glib would print v as invalid JSON ("1e+20.0"). */
@@ -19,3 +21,6 @@ void pp_json_member_rect(JsonBuilder *b, const char *name, pp_rect r);
 /* The same box mapped through m (page points → PDF user space), re-normalised. */
 void pp_json_member_mapped_rect(JsonBuilder *b, const char *name, pp_rect r, pp_matrix m);
 pp_rect pp_json_rect_map(pp_rect r, pp_matrix m);
+/* "evidence": what made the figure a chart, each piece with its score (the confidence
+ * combines them); written alike in the findings file and the charts JSON. */
+void pp_json_member_evidence(JsonBuilder *b, const pp_figure *f);

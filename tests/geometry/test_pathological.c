@@ -15,23 +15,11 @@
 
 /* Σ alpha/255 of cairo's fill under the rule, at SCALE pixels a point, in pt². */
 static double cairo_ink(const pp_path *p, pp_fill_rule rule) {
-  int px = SIZE * SCALE;
-  cairo_surface_t *s = cairo_image_surface_create(CAIRO_FORMAT_A8, px, px);
-  cairo_t *cr = cairo_create(s);
-  cairo_scale(cr, SCALE, SCALE);
+  cairo_t *cr = tu_coverage_begin(SIZE, SCALE);
   tu_path_to_cairo(cr, p);
   cairo_set_fill_rule(cr, tu_cairo_rule(rule));
   cairo_fill(cr);
-  cairo_surface_flush(s);
-  const unsigned char *data = cairo_image_surface_get_data(s);
-  int stride = cairo_image_surface_get_stride(s);
-  double sum = 0;
-  for (int y = 0; y < px; y++)
-    for (int x = 0; x < px; x++)
-      sum += data[y * stride + x] / 255.0;
-  cairo_destroy(cr);
-  cairo_surface_destroy(s);
-  return sum / (SCALE * SCALE);
+  return tu_coverage_end(cr);
 }
 
 /* tests/fuzz/known/scene-slow-clip-area.bin: cairo_arc(0, 48.3125, 110, 4, 40), about

@@ -16,10 +16,7 @@
 
 /* Σ alpha/255 of cairo's fill under the rule and an optional clip path (nonzero), pt². */
 static double cairo_ink(const pp_path *p, pp_fill_rule rule, const pp_path *clip) {
-  int px = SIZE * SCALE;
-  cairo_surface_t *s = cairo_image_surface_create(CAIRO_FORMAT_A8, px, px);
-  cairo_t *cr = cairo_create(s);
-  cairo_scale(cr, SCALE, SCALE);
+  cairo_t *cr = tu_coverage_begin(SIZE, SCALE);
   if (clip) {
     tu_path_to_cairo(cr, clip);
     cairo_clip(cr);
@@ -27,16 +24,7 @@ static double cairo_ink(const pp_path *p, pp_fill_rule rule, const pp_path *clip
   tu_path_to_cairo(cr, p);
   cairo_set_fill_rule(cr, tu_cairo_rule(rule));
   cairo_fill(cr);
-  cairo_surface_flush(s);
-  const unsigned char *data = cairo_image_surface_get_data(s);
-  int stride = cairo_image_surface_get_stride(s);
-  double sum = 0;
-  for (int y = 0; y < px; y++)
-    for (int x = 0; x < px; x++)
-      sum += data[y * stride + x] / 255.0;
-  cairo_destroy(cr);
-  cairo_surface_destroy(s);
-  return sum / (SCALE * SCALE);
+  return tu_coverage_end(cr);
 }
 
 static pp_path *poly(const double *xy, int n) {

@@ -46,25 +46,39 @@ static inline cairo_fill_rule_t tu_cairo_rule(pp_fill_rule r) {
   return r == PP_FILL_EVEN_ODD ? CAIRO_FILL_RULE_EVEN_ODD : CAIRO_FILL_RULE_WINDING;
 }
 
+/* An A8 canvas of size² points at `scale` pixels a point: draw on it, then
+ * tu_coverage_end() gives Σ alpha/255 over its pixels in pt² and frees it. */
+static inline cairo_t *tu_coverage_begin(int size, int scale) {
+  cairo_surface_t *s = cairo_image_surface_create(CAIRO_FORMAT_A8, size * scale, size * scale);
+  cairo_t *cr = cairo_create(s);
+  cairo_surface_destroy(s); /* the context holds its own reference */
+  cairo_scale(cr, scale, scale);
+  return cr;
+}
+
+static inline double tu_coverage_end(cairo_t *cr) {
+  cairo_surface_t *s = cairo_get_target(cr);
+  cairo_surface_flush(s);
+  double scale = 1, zero = 0;
+  cairo_user_to_device_distance(cr, &scale, &zero);
+  const unsigned char *data = cairo_image_surface_get_data(s);
+  int stride = cairo_image_surface_get_stride(s);
+  int w = cairo_image_surface_get_width(s), h = cairo_image_surface_get_height(s);
+  double sum = 0;
+  for (int y = 0; y < h; y++)
+    for (int x = 0; x < w; x++)
+      sum += data[y * stride + x] / 255.0;
+  cairo_destroy(cr);
+  return sum / (scale * scale);
+}
+
 /* Σ coverage of cairo's non-zero fill of p on a size×size pt square, rendered at
  * `scale` pixels per point, in pt²: the pixel-count reference of the geometry tests. */
 static inline double tu_cairo_fill_coverage(const pp_path *p, int size, int scale) {
-  int px = size * scale;
-  cairo_surface_t *s = cairo_image_surface_create(CAIRO_FORMAT_A8, px, px);
-  cairo_t *cr = cairo_create(s);
-  cairo_scale(cr, scale, scale);
+  cairo_t *cr = tu_coverage_begin(size, scale);
   tu_path_to_cairo(cr, p);
   cairo_fill(cr);
-  cairo_surface_flush(s);
-  const unsigned char *data = cairo_image_surface_get_data(s);
-  int stride = cairo_image_surface_get_stride(s);
-  double sum = 0;
-  for (int y = 0; y < px; y++)
-    for (int x = 0; x < px; x++)
-      sum += data[y * stride + x] / 255.0;
-  cairo_destroy(cr);
-  cairo_surface_destroy(s);
-  return sum / ((double)scale * scale);
+  return tu_coverage_end(cr);
 }
 
 /* A cairo context on a throw-away surface, used only to build paths. */
