@@ -6,6 +6,7 @@
  * when its coefficient changes: O((n + k) log n) for n pieces and k crossings, plus a
  * pass over the active pieces at each distinct end-point height. */
 #include "internal.h"
+#include "sweep_edges.h"
 
 #include <float.h>
 #include <math.h>
@@ -33,26 +34,7 @@
  * pieces' separation. Common practice for subdivision floors, no source. */
 #define MIN_TOUCH_SHARE (1.0 / 65536)
 
-typedef struct edge edge;
-struct edge {
-  double ya, yb; /* ya < yb */
-  pp_point p[4]; /* line: p[0] → p[1]; cubic: control points with y(t) non-decreasing */
-  gboolean curve;
-  int dir; /* +1 when the original edge ran towards larger y */
-  guint region;
-  double t_hint;
-  double slope;        /* dx/dy of a line edge */
-  double kx[3], ky[3]; /* cubic: x(t) − x0 = ((kx0·t + kx1)·t + kx2)·t, likewise y */
-  /* sweep state */
-  size_t pos;       /* index in the active list */
-  size_t hpos;      /* index in the crossing heap */
-  edge *right;      /* the right neighbour cross_y was found with */
-  double cross_y;   /* next crossing with that neighbour, +∞ if none */
-  gboolean recheck; /* cross_y only ends the window searched so far (see set_key) */
-  double window;    /* height of that window */
-  int c;            /* +1 right end of an inside run, −1 left end, 0 neither */
-  double y_from;    /* ∫ c·x dy is accounted up to here */
-};
+typedef pp_sweep_edge edge;
 
 typedef struct {
   GArray *edges; /* of edge */
@@ -69,140 +51,6 @@ typedef struct {
   double area;
   long swaps;
 } sweep;
-
-/* de Casteljau split at t: left half into l, right half into r (either may alias nothing). */
-static void bez_split(const pp_point *p, double t, pp_point *l, pp_point *r) {
-  pp_point p01 = {p[0].x + (p[1].x - p[0].x) * t, p[0].y + (p[1].y - p[0].y) * t};
-  pp_point p12 = {p[1].x + (p[2].x - p[1].x) * t, p[1].y + (p[2].y - p[1].y) * t};
-  pp_point p23 = {p[2].x + (p[3].x - p[2].x) * t, p[2].y + (p[3].y - p[2].y) * t};
-  pp_point a = {p01.x + (p12.x - p01.x) * t, p01.y + (p12.y - p01.y) * t};
-  pp_point b = {p12.x + (p23.x - p12.x) * t, p12.y + (p23.y - p12.y) * t};
-  pp_point m = {a.x + (b.x - a.x) * t, a.y + (b.y - a.y) * t};
-  pp_point p0 = p[0], p3 = p[3];
-  if (l) {
-    l[0] = p0, l[1] = p01, l[2] = a, l[3] = m;
-  }
-  if (r) {
-    r[0] = m, r[1] = b, r[2] = p23, r[3] = p3;
-  }
-}
-
-/* Roots of a·t² + b·t + c in the open interval (0,1), ascending. */
-static int quad_roots01(double a, double b, double c, double *out) {
-  double r[2];
-  int n = 0;
-  double scale = fmax(fabs(a), fmax(fabs(b), fabs(c)));
-  if (scale == 0)
-    return 0;
-  if (fabs(a) <= 1e-14 * scale) {
-    if (b != 0)
-      r[n++] = -c / b;
-  } else {
-    double disc = b * b - 4 * a * c;
-    if (disc >= 0) {
-      double q = -0.5 * (b + copysign(sqrt(disc), b));
-      r[n++] = q / a;
-      if (q != 0)
-        r[n++] = c / q;
-    }
-  }
-  int m = 0;
-  for (int i = 0; i < n; i++)
-    if (r[i] > 0 && r[i] < 1)
-      out[m++] = r[i];
-  if (m == 2 && out[0] > out[1]) {
-    double t = out[0];
-    out[0] = out[1], out[1] = t;
-  }
-  return m;
-}
-
-static void push_line(sweep *s, pp_point a, pp_point b, guint reg) {
-  if (a.y == b.y)
-    return; /* horizontal edges bound no slab */
-  edge e = {0};
-  e.region = reg;
-  e.dir = a.y < b.y ? 1 : -1;
-  e.p[0] = a.y < b.y ? a : b;
-  e.p[1] = a.y < b.y ? b : a;
-  e.ya = e.p[0].y, e.yb = e.p[1].y;
-  e.slope = (e.p[1].x - e.p[0].x) / (e.yb - e.ya);
-  g_array_append_val(s->edges, e);
-}
-
-static void push_mono_cubic(sweep *s, const pp_point *p, guint reg) {
-  if (p[0].y == p[3].y)
-    return; /* a y-monotone piece with equal end y is horizontal */
-  edge e = {0};
-  e.region = reg;
-  e.curve = TRUE;
-  e.dir = p[0].y < p[3].y ? 1 : -1;
-  for (int i = 0; i < 4; i++)
-    e.p[i] = e.dir > 0 ? p[i] : p[3 - i];
-  e.ya = e.p[0].y, e.yb = e.p[3].y;
-  e.t_hint = 0.5;
-  /* Power basis relative to the first point: Horner is a quarter of Bernstein's cost in
-   * the root finding, and the relative form keeps far-away pieces' digits. */
-  const pp_point *q = e.p;
-  double px[4] = {0, q[1].x - q[0].x, q[2].x - q[0].x, q[3].x - q[0].x};
-  double py[4] = {0, q[1].y - q[0].y, q[2].y - q[0].y, q[3].y - q[0].y};
-  e.kx[0] = 3 * px[1] - 3 * px[2] + px[3], e.kx[1] = 3 * (px[2] - 2 * px[1]), e.kx[2] = 3 * px[1];
-  e.ky[0] = 3 * py[1] - 3 * py[2] + py[3], e.ky[1] = 3 * (py[2] - 2 * py[1]), e.ky[2] = 3 * py[1];
-  g_array_append_val(s->edges, e);
-}
-
-static void push_cubic(sweep *s, pp_point p0, const pp_point *c, guint reg) {
-  pp_point p[4] = {p0, c[0], c[1], c[2]};
-  double d0 = p[1].y - p[0].y, d1 = p[2].y - p[1].y, d2 = p[3].y - p[2].y;
-  double roots[2];
-  int n = quad_roots01(d0 - 2 * d1 + d2, 2 * (d1 - d0), d0, roots);
-  double prev = 0;
-  pp_point rest[4];
-  memcpy(rest, p, sizeof rest);
-  for (int i = 0; i < n; i++) {
-    double t = (roots[i] - prev) / (1 - prev);
-    pp_point l[4], r[4];
-    bez_split(rest, t, l, r);
-    push_mono_cubic(s, l, reg);
-    memcpy(rest, r, sizeof rest);
-    prev = roots[i];
-  }
-  push_mono_cubic(s, rest, reg);
-}
-
-static void push_path(sweep *s, const pp_path *path, guint reg) {
-  pp_point start = {0, 0}, cur = {0, 0};
-  gboolean open = FALSE;
-  for (size_t i = 0; i < path->n_segs; i++) {
-    const pp_seg *sg = &path->segs[i];
-    switch (sg->kind) {
-    case PP_SEG_MOVE:
-      if (open)
-        push_line(s, cur, start, reg); /* fills close every subpath */
-      start = cur = sg->pt[0];
-      open = TRUE;
-      break;
-    case PP_SEG_LINE:
-      if (!open)
-        start = cur, open = TRUE;
-      push_line(s, cur, sg->pt[0], reg);
-      cur = sg->pt[0];
-      break;
-    case PP_SEG_CURVE:
-      if (!open)
-        start = cur, open = TRUE;
-      push_cubic(s, cur, sg->pt, reg);
-      cur = sg->pt[2];
-      break;
-    case PP_SEG_CLOSE:
-      push_line(s, cur, start, reg);
-      cur = start;
-      break;
-    }
-  }
-  if (open)
-    push_line(s, cur, start, reg);
-}
 
 /* t in [0,1] with y(t) = y on a monotone piece: safeguarded Newton (bisection fallback). */
 static double solve_t(edge *e, double y) {
@@ -345,8 +193,8 @@ static sub sub_between(edge *e, node_end a, node_end b, gboolean is_f) {
     return r;
   double t0 = is_f ? a.tf : a.te, t1 = is_f ? b.tf : b.te;
   pp_point l[4];
-  bez_split(e->p, t1, l, NULL);
-  bez_split(l, t1 > 0 ? t0 / t1 : 0, NULL, r.q);
+  pp_bez_split(e->p, t1, l, NULL);
+  pp_bez_split(l, t1 > 0 ? t0 / t1 : 0, NULL, r.q);
   return r;
 }
 
@@ -357,7 +205,7 @@ static void sub_split(edge *e, const sub *p, double ta, double tb, double tc, su
     return;
   }
   double u = tb > ta ? (tc - ta) / (tb - ta) : 0.5;
-  bez_split(p->q, u, l->q, r->q);
+  pp_bez_split(p->q, u, l->q, r->q);
 }
 
 /* x-range of a sub-curve's hull and how far (in x, at equal y) it strays from the chord
@@ -689,7 +537,7 @@ double pp_sweep_area(const pp_region *regs, guint n_reg) {
   double ylo = -INFINITY, yhi = INFINITY;
   pp_rect all = pp_rect_empty();
   for (guint r = 0; r < n_reg; r++) {
-    push_path(&s, regs[r].path, r);
+    pp_sweep_edges_add_path(s.edges, regs[r].path, r);
     ylo = fmax(ylo, regs[r].box.y0);
     yhi = fmin(yhi, regs[r].box.y1);
     all = pp_rect_union(all, regs[r].box);

@@ -1,0 +1,32 @@
+/* sweep_edges.h — geometry-internal: the y-monotone edge pieces of the area sweep
+ * (clip_area.c), built from a path's lines and cubics by sweep_edges.c. */
+#pragma once
+
+#include "internal.h"
+
+typedef struct pp_sweep_edge pp_sweep_edge;
+struct pp_sweep_edge {
+  double ya, yb; /* ya < yb */
+  pp_point p[4]; /* line: p[0] → p[1]; cubic: control points with y(t) non-decreasing */
+  gboolean curve;
+  int dir; /* +1 when the original edge ran towards larger y */
+  guint region;
+  double t_hint;
+  double slope;        /* dx/dy of a line edge */
+  double kx[3], ky[3]; /* cubic: x(t) − x0 = ((kx0·t + kx1)·t + kx2)·t, likewise y */
+  /* sweep state */
+  size_t pos;           /* index in the active list */
+  size_t hpos;          /* index in the crossing heap */
+  pp_sweep_edge *right; /* the right neighbour cross_y was found with */
+  double cross_y;       /* next crossing with that neighbour, +∞ if none */
+  gboolean recheck;     /* cross_y only ends the window searched so far (see set_key) */
+  double window;        /* height of that window */
+  int c;                /* +1 right end of an inside run, −1 left end, 0 neither */
+  double y_from;        /* ∫ c·x dy is accounted up to here */
+};
+
+/* de Casteljau split at t: left half into l, right half into r (either may be NULL). */
+void pp_bez_split(const pp_point *p, double t, pp_point *l, pp_point *r);
+/* Appends the path's edges, each subpath closed as a fill closes it, cut into y-monotone
+ * pieces (horizontal ones dropped: they bound no area), to edges (of pp_sweep_edge). */
+void pp_sweep_edges_add_path(GArray *edges, const pp_path *path, guint region);
