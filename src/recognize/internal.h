@@ -106,6 +106,7 @@ typedef struct {
   GArray *bars;            /* pp_bar_candidate */
   GPtrArray *areas;        /* pp_area_candidate* */
   pp_claims *claims;       /* the ledger */
+  GArray *wedges;          /* pp_wedge_candidate of every fill, claimed or not (wedges.c) */
   pp_page_charts *out;     /* figures found so far */
 } pp_recognize_ctx;
 
@@ -208,8 +209,9 @@ typedef struct {
   pp_rect box; /* the mark's visible box */
 } pp_wedge_candidate;
 
-/* Every free filled mark's wedges (geometry's reading, no shared shape). */
-GArray *pp_wedge_candidates_collect(const pp_recognize_ctx *ctx);
+/* Every free filled mark's wedges (geometry's reading, no shared shape). The page's
+ * wedges are read on the first call and kept in ctx->wedges. */
+GArray *pp_wedge_candidates_collect(pp_recognize_ctx *ctx);
 gboolean pp_paint_same(const pp_paint *a, const pp_paint *b);
 /* a lies in [a0, a1] modulo a turn. */
 gboolean pp_angle_within(double a, double a0, double a1);
