@@ -148,6 +148,31 @@ def box_faces_seen(solid):
     return out
 
 
+def oblique_faces_seen(solid, v):
+    """Oblique bars placed at solid["x"] (front left edges, data units, y up), painted in
+    that order, each as front, side and cap: per bar (front, cap, total) seen. A face seen
+    is its shoelace area less the union of the faces painted after it, by
+    inclusion-exclusion over Sutherland-Hodgman clips (textbook)."""
+    w, (dx, dy) = solid["front_width"], solid["depth"]
+    b = solid.get("base", 0.0)
+    bars = []
+    for x0, vi in zip(solid["x"], v):
+        x1 = x0 + w
+        bars.append([[(x0, b), (x1, b), (x1, vi), (x0, vi)],
+                     [(x1, b), (x1 + dx, b + dy), (x1 + dx, vi + dy), (x1, vi)],
+                     [(x0, vi), (x1, vi), (x1 + dx, vi + dy), (x0 + dx, vi + dy)]])
+    order = sorted(range(len(bars)), key=lambda k: solid["x"][k])
+    out = [None] * len(bars)
+    for rank, i in enumerate(order):
+        later = [f for j in order[rank + 1:] for f in bars[j]]
+        seen = []
+        for face in bars[i]:
+            covers = [c for c in later if len(_clip_convex(face, c)) >= 3]
+            seen.append(abs(_signed(face)) - _hidden(face, covers))
+        out[i] = (seen[0], seen[2], sum(seen))
+    return out
+
+
 def perspective_point(p, eye, f):
     """One-point perspective of (x, y, z): scale f/(f+z) towards the eye point."""
     s = f / (f + p[2])
@@ -172,7 +197,9 @@ def bar3d_faces(solid, v):
     out = []
     for i, vi in enumerate(v):
         h = vi - b if "segment_base" not in solid else vi  # a segment's own height
-        if proj == "oblique":
+        if proj == "oblique" and "x" in solid:  # placed bars: what later bars hide is off
+            out.append(oblique_faces_seen(solid, v)[i])
+        elif proj == "oblique":
             w, (dx, dy) = solid["front_width"], solid["depth"]
             front = w * h
             side = abs(dx) * h
