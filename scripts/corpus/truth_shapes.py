@@ -186,7 +186,9 @@ def bar3d_faces(solid, v):
     cap w*|dy| (base w, height |dy|): the cap is the same on every bar. Stacked segments
     (solid["segment_base"] given): height v, and the cap only where solid["capped"].
     cylinder: body w*(v-b) plus the lower half ellipse pi*(w/2)*e/2 and the top ellipse
-    pi*(w/2)*e (e = the ellipse's vertical semi-axis): both ellipse parts are constant.
+    pi*(w/2)*e (e = the ellipse's vertical semi-axis): both ellipse parts are constant; the
+    top ellipse is painted over the body's top edge, so the front shows w*(v-b) less half
+    the ellipse (ellipse area pi*a*b, textbook).
     perspective: the box x0..x1, y from base to value, z 0..depth projected towards the eye
     point; the front at depth z0 (each bar's own), the cap when the top is below the eye
     (y up here: top < eye y), the side facing the eye; faces by the shoelace formula."""
@@ -208,7 +210,9 @@ def bar3d_faces(solid, v):
             out.append((front, const, front + side + const))
         elif proj == "cylinder":
             w, e = solid["front_width"], solid["ellipse"]
-            front = w * h
+            # the top ellipse, painted over the body, covers the body's rectangle with its
+            # lower half: the front shows w*h less that half
+            front = w * h - math.pi * (w / 2) * e / 2
             const = math.pi * (w / 2) * e + math.pi * (w / 2) * e / 2
             out.append((front, const, front + const))
         elif proj == "perspective":

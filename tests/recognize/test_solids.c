@@ -131,7 +131,7 @@ typedef struct {
   pp_page_charts *charts;
 } page;
 
-static page recognise(const layout *l) {
+static page recognise_with(void (*drawer)(cairo_t *, const layout *), const layout *l) {
   char *path = g_build_filename(g_get_tmp_dir(), "pp-test-solids-XXXXXX.pdf", NULL);
   int fd = g_mkstemp(path);
   assert_true(fd >= 0);
@@ -139,7 +139,7 @@ static page recognise(const layout *l) {
   cairo_surface_t *s = cairo_pdf_surface_create(path, 595, 842);
   cairo_t *cr = cairo_create(s);
   cairo_select_font_face(cr, "DejaVu Sans", CAIRO_FONT_SLANT_NORMAL, CAIRO_FONT_WEIGHT_NORMAL);
-  draw(cr, l);
+  drawer(cr, l);
   cairo_destroy(cr);
   cairo_surface_destroy(s);
   page p;
@@ -153,6 +153,10 @@ static page recognise(const layout *l) {
   g_free(path);
   p.charts = pp_page_charts_find(p.scene);
   return p;
+}
+
+static page recognise(const layout *l) {
+  return recognise_with(draw, l);
 }
 
 static void page_free(page *p) {
@@ -230,10 +234,109 @@ static void test_wall_gridlines(void **state) {
   page_free(&p);
 }
 
+/* ---- cylinders: a body (front rectangle and the lower half of the base ellipse) and a
+ * top ellipse painted over the body's top edge ---------------------------------------- */
+#define CYL_RY 8.0
+
+static void cyl_body(cairo_t *cr, int i) {
+  double x0 = X0 + i * SLOT, x1 = x0 + W, yt = Y0 - values[i] * K;
+  cairo_move_to(cr, x0, yt);
+  cairo_line_to(cr, x0, Y0);
+  cairo_save(cr);
+  cairo_translate(cr, (x0 + x1) / 2, Y0);
+  cairo_scale(cr, W / 2, CYL_RY);
+  cairo_arc_negative(cr, 0, 0, 1, G_PI, 0);
+  cairo_restore(cr);
+  cairo_line_to(cr, x1, yt);
+  cairo_close_path(cr);
+}
+
+static void cyl_top(cairo_t *cr, int i) {
+  double x0 = X0 + i * SLOT, yt = Y0 - values[i] * K;
+  cairo_new_sub_path(cr);
+  cairo_save(cr);
+  cairo_translate(cr, x0 + W / 2, yt);
+  cairo_scale(cr, W / 2, CYL_RY);
+  cairo_arc(cr, 0, 0, 1, 0, 2 * G_PI);
+  cairo_restore(cr);
+  cairo_close_path(cr);
+}
+
+static void draw_cylinders(cairo_t *cr) {
+  for (int v = 0; v <= 100; v += 20) {
+    char buf[16];
+    g_snprintf(buf, sizeof buf, "%d", v);
+    line(cr, AXIS_X, Y0 - v * K, X0 + N_BARS * SLOT, Y0 - v * K);
+    label(cr, AXIS_X - 6, Y0 - v * K, buf);
+  }
+  for (int i = 0; i < N_BARS; i++) {
+    cairo_set_source_rgb(cr, 0.1, 0.35, 0.6);
+    cyl_body(cr, i);
+    cairo_fill(cr);
+    cairo_set_source_rgb(cr, 0.1, 0.55, 0.6);
+    cyl_top(cr, i);
+    cairo_fill(cr);
+  }
+}
+
+/* cairo's coverage of cylinder i's body and top together (the top cleared over nothing
+ * else: neighbours do not meet), and of its body alone less the top. */
+static double cyl_pixels(int i, gboolean body_only) {
+  cairo_surface_t *s = cairo_image_surface_create(CAIRO_FORMAT_A8, 600 * 4, 500 * 4);
+  cairo_t *cr = cairo_create(s);
+  cairo_scale(cr, 4, 4);
+  cyl_body(cr, i);
+  cairo_fill(cr);
+  if (body_only)
+    cairo_set_operator(cr, CAIRO_OPERATOR_CLEAR);
+  cyl_top(cr, i);
+  cairo_fill(cr);
+  cairo_surface_flush(s);
+  const unsigned char *data = cairo_image_surface_get_data(s);
+  int stride = cairo_image_surface_get_stride(s);
+  double sum = 0;
+  for (int y = 0; y < 500 * 4; y++)
+    for (int x = 0; x < 600 * 4; x++)
+      sum += data[y * stride + x] / 255.0;
+  cairo_destroy(cr);
+  cairo_surface_destroy(s);
+  return sum / 16;
+}
+
+static void draw_cylinders_layout(cairo_t *cr, const layout *l) {
+  (void)l;
+  draw_cylinders(cr);
+}
+
+/* The top ellipse covers the body's top edge: a bar's ink is body and top as cairo shows
+ * them, not their sum (which counts half the ellipse twice). */
+static void test_cylinders(void **state) {
+  (void)state;
+  page p = recognise_with(draw_cylinders_layout, NULL);
+  const pp_figure *fig = only_bar_3d(&p);
+  for (int i = 0; i < N_BARS; i++) {
+    const pp_element *e = &g_array_index(fig->elements, pp_element, i);
+    assert_true(fabs(e->value - values[i]) <= 0.005 * values[i]);
+    double total = cyl_pixels(i, FALSE), body = cyl_pixels(i, TRUE); /* cairo pixel counts */
+    if (fabs(e->ink - total) > PIXEL_SHARE * total)
+      fail_msg("cylinder %d: ink %.2f, cairo %.2f", i, e->ink, total);
+    /* the body's parts (front and bulge) are what cairo leaves of it under the top */
+    const pp_part *p0 = &g_array_index(e->parts, pp_part, 0);
+    double seen = 0;
+    for (guint k = 0; k < e->parts->len; k++)
+      if (g_array_index(e->parts, pp_part, k).mark == p0->mark)
+        seen += g_array_index(e->parts, pp_part, k).ink;
+    if (fabs(seen - body) > PIXEL_SHARE * body)
+      fail_msg("cylinder %d: body ink %.2f, cairo %.2f", i, seen, body);
+  }
+  page_free(&p);
+}
+
 int main(void) {
   const struct CMUnitTest tests[] = {
       cmocka_unit_test(test_overlapping_oblique),
       cmocka_unit_test(test_wall_gridlines),
+      cmocka_unit_test(test_cylinders),
   };
   return cmocka_run_group_tests(tests, NULL, NULL);
 }
