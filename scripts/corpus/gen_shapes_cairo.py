@@ -162,7 +162,9 @@ def oblique_bars(name, seed, deep, wall=False):
     v = with_spread(rng, [rng.randint(20, 95) for _ in range(n)], (15, 22), (88, 95)) \
         if deep else [rng.randint(70, 95) for _ in range(n)]
     w = 0.6
-    dx, dy = ((0.3, 6.0) if wall else (0.7, 9.0)) if deep else (0.05, 0.35)
+    # depths off the integers: a cap's back edge never lines up with the next bar's top
+    # (integer values), which would join the two bars' faces by a shared edge
+    dx, dy = ((0.3, 6.0) if wall else (0.7, 9.5)) if deep else (0.05, 0.35)
     wx, wy = (3 * dx, 3 * dy) if wall else (0.0, 0.0)  # the wall's offset from the front
     top = 100.0
     xs = [0.3 + i for i in range(n)]
