@@ -163,19 +163,25 @@ const pp_axis_candidate *pp_solid_value_axis(const pp_recognize_ctx *ctx, pp_rec
   return best;
 }
 
-/* A straight stroke of one segment: its ends. */
-static gboolean straight_stroke(const pp_mark *m, pp_point *a, pp_point *b) {
-  const pp_path *p = m->path;
-  if (m->kind != PP_MARK_STROKE || p->n_segs != 2 || p->segs[0].kind != PP_SEG_MOVE ||
-      p->segs[1].kind != PP_SEG_LINE)
-    return FALSE;
-  *a = p->segs[0].pt[0], *b = p->segs[1].pt[0];
-  return TRUE;
-}
-
 typedef struct {
   pp_point e[2];
 } stroke_ends;
+
+/* The straight segments a stroke draws: each line of each subpath (a gridline drawn alone,
+ * many in one path, or bent where the side wall meets the back wall). */
+static void straight_strokes(const pp_mark *m, GArray *out) {
+  const pp_path *p = m->path;
+  if (m->kind != PP_MARK_STROKE)
+    return;
+  for (size_t i = 1; i < p->n_segs; i++) {
+    const pp_seg *prev = &p->segs[i - 1];
+    if (p->segs[i].kind == PP_SEG_LINE &&
+        (prev->kind == PP_SEG_MOVE || prev->kind == PP_SEG_LINE)) {
+      stroke_ends se = {{prev->pt[0], p->segs[i].pt[0]}};
+      g_array_append_val(out, se);
+    }
+  }
+}
 
 /* A wall gridline at page y with the front end of its connector. */
 typedef struct {
@@ -198,11 +204,12 @@ static double wall_shift(const pp_recognize_ctx *ctx, pp_rect all, const pp_scal
   g_autoptr(GArray) flat = g_array_new(FALSE, FALSE, sizeof(stroke_ends));
   g_autoptr(GArray) slant = g_array_new(FALSE, FALSE, sizeof(stroke_ends));
   double width = pp_rect_width(all);
-  for (guint i = 0; i < scene->marks->len; i++) {
-    stroke_ends se;
+  g_autoptr(GArray) segs = g_array_new(FALSE, FALSE, sizeof(stroke_ends));
+  for (guint i = 0; i < scene->marks->len; i++)
+    straight_strokes(g_ptr_array_index(scene->marks, i), segs);
+  for (guint i = 0; i < segs->len; i++) {
+    stroke_ends se = g_array_index(segs, stroke_ends, i);
     pp_point *e = se.e;
-    if (!straight_stroke(g_ptr_array_index(scene->marks, i), &e[0], &e[1]))
-      continue;
     if (e[0].x > e[1].x) { /* left end first */
       pp_point t = e[0];
       e[0] = e[1], e[1] = t;
