@@ -95,10 +95,11 @@ def value_axis(pg, top, to_page_y, step):
         t += step
 
 
-def perspective_bars(name, seed, deep, receding=False):
+def perspective_bars(name, seed, deep, receding=False, spacing=1.0):
     """Bars as boxes in one-point perspective, eye above the chart so caps show. All at
     depth 0 with a front-plane value axis, or receding (bar i at depth i·dz) with data
-    labels and no axis."""
+    labels and no axis; spacing under 1 slot packs receding bars so that nearer ones cover
+    parts of those behind."""
     rng = rng_of(seed)
     n = 6
     v = with_spread(rng, [rng.randint(20, 95) for _ in range(n)], (15, 22), (88, 95))
@@ -109,7 +110,7 @@ def perspective_bars(name, seed, deep, receding=False):
     f = 6.0
     top = 100.0
     eye = (n / 2.0, 160.0)  # world: x in slots, y in value units
-    xs = [i + 0.2 for i in range(n)]
+    xs = [spacing * i + 0.2 for i in range(n)]
     zs = [1.1 * i if receding else 0.0 for i in range(n)]
     sx = (BOX[2] - BOX[0]) / n
     sy = (BOX[3] - BOX[1]) / (top * 1.15)
@@ -146,7 +147,9 @@ def perspective_bars(name, seed, deep, receding=False):
                      "x": xs, "z": zs, "front_width": w, "depth": depth, "base": 0.0},
            "bbox": list(BOX),
            "style": ["perspective"] + (["receding", "data-labels-only"] if receding else
-                                       ["gridlines"])}
+                                       ["gridlines"]) + (["overlapping"] if spacing < 1.0 else [])}
+    if spacing < 1.0:  # nearer bars cover farther ones: the truth takes that off
+        fig["solid"]["painted"] = True
     pg.finish(seed, fig)
 
 
@@ -323,6 +326,7 @@ def main():
     perspective_bars("shape_persp_deep", 941, True)
     perspective_bars("shape_persp_shallow", 941, False)
     perspective_bars("shape_persp_receding", 942, True, receding=True)
+    perspective_bars("shape_persp_receding_overlap", 948, True, receding=True, spacing=0.4)
     oblique_bars("shape_oblique_overlap", 946, True)
     oblique_bars("shape_oblique_overlap_shallow", 946, False)
     oblique_bars("shape_oblique_wall_deep", 947, True, wall=True)
@@ -331,7 +335,7 @@ def main():
     pictograms("shape_icons_side", 944, "side")
     pictograms("shape_icons_area", 944, "area")
     repeated_icons("shape_icons_repeated", 945)
-    print("cairo shapes: 11 charts")
+    print("cairo shapes: 12 charts")
 
 
 if __name__ == "__main__":

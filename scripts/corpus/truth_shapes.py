@@ -173,6 +173,35 @@ def oblique_faces_seen(solid, v):
     return out
 
 
+def perspective_faces_seen(solid, v):
+    """Perspective bars painted furthest first (each as cap, side, front): per bar (front,
+    cap + side, total) seen, each face less the union of the faces painted after it
+    (inclusion-exclusion over Sutherland-Hodgman clips, textbook)."""
+    eye, f, w, d = solid["eye"], solid["focal"], solid["front_width"], solid["depth"]
+    b = solid.get("base", 0.0)
+    P = lambda x, y, z: perspective_point((x, y, z), eye, f)  # noqa: E731
+    bars = []
+    for i, vi in enumerate(v):
+        x0, z0 = solid["x"][i], solid["z"][i]
+        x1, z1 = x0 + w, z0 + d
+        faces = []
+        if vi < eye[1]:
+            faces.append(("cap", [P(x0, vi, z0), P(x1, vi, z0), P(x1, vi, z1), P(x0, vi, z1)]))
+        xs = x1 if x1 < eye[0] else (x0 if x0 > eye[0] else None)
+        if xs is not None:
+            faces.append(("side", [P(xs, b, z0), P(xs, vi, z0), P(xs, vi, z1), P(xs, b, z1)]))
+        faces.append(("front", [P(x0, b, z0), P(x1, b, z0), P(x1, vi, z0), P(x0, vi, z0)]))
+        bars.append(faces)
+    order = sorted(range(len(v)), key=lambda k: -solid["z"][k])
+    painted = [(i, name, poly) for i in order for name, poly in bars[i]]
+    seen = [[0.0, 0.0] for _ in v]
+    for k, (i, name, poly) in enumerate(painted):
+        covers = [c for _, _, c in painted[k + 1:] if len(_clip_convex(poly, c)) >= 3]
+        a = abs(_signed(poly)) - _hidden(poly, covers)
+        seen[i][0 if name == "front" else 1] += a
+    return [(fr, co, fr + co) for fr, co in seen]
+
+
 def perspective_point(p, eye, f):
     """One-point perspective of (x, y, z): scale f/(f+z) towards the eye point."""
     s = f / (f + p[2])
@@ -215,6 +244,8 @@ def bar3d_faces(solid, v):
             front = w * h - math.pi * (w / 2) * e / 2
             const = math.pi * (w / 2) * e + math.pi * (w / 2) * e / 2
             out.append((front, const, front + const))
+        elif proj == "perspective" and solid.get("painted"):
+            out.append(perspective_faces_seen(solid, v)[i])
         elif proj == "perspective":
             eye, f = solid["eye"], solid["focal"]
             x0 = solid["x"][i]
