@@ -275,6 +275,9 @@ void pp_recognize_two_sided(pp_recognize_ctx *ctx);     /* two_sided.c */
 const pp_axis_candidate *pp_solid_value_axis(const pp_recognize_ctx *ctx, pp_rect all);
 char *pp_solid_category(const pp_scene *scene, pp_rect front, double base);
 pp_rect pp_solid_frame(const pp_scene *scene, pp_rect all);
+/* The ink of a fill as it shows on the page: less what opaque fills painted after it cover
+ * (painter's order), measured exactly by the geometry stage. */
+double pp_solid_visible_ink(const pp_recognize_ctx *ctx, guint mark);
 void pp_recognize_pyramids(pp_recognize_ctx *ctx);    /* pyramids.c */
 void pp_recognize_symbols(pp_recognize_ctx *ctx);     /* symbols.c */
 void pp_recognize_pies(pp_recognize_ctx *ctx);        /* pies.c */
