@@ -272,8 +272,11 @@ def funnel(seed, honest):
     return build
 
 
-def population_pyramid(seed):
-    """Two-sided horizontal bars from a central zero: honest bars, not slices."""
+def population_pyramid(seed, cut=0):
+    """Two-sided horizontal bars from a central zero: honest bars, not slices. With cut > 0
+    the bars start from the value cut at the shared line (its tick label prints it), so
+    their lengths stand for value - cut: bars off zero. Truth: the values drawn; the ink of
+    each bar is proportional to value - cut (truth.py, the baseline)."""
     def build():
         rng = rng_of(seed)
         ages = ["0-9", "10-19", "20-29", "30-39", "40-49", "50-59", "60+"]
@@ -282,20 +285,30 @@ def population_pyramid(seed):
         fig = new_fig()
         ax = fig.add_axes((0.13, 0.12, 0.8, 0.78))
         y = list(range(len(ages)))
-        ax.barh(y, [-a for a in left], color=HUES[0][0], height=0.8)
-        ax.barh(y, right, color=HUES[1][0], height=0.8)
+        ax.barh(y, [-(a - cut) for a in left], color=HUES[0][0], height=0.8)
+        ax.barh(y, [b - cut for b in right], color=HUES[1][0], height=0.8)
         ax.set_yticks(y)
         ax.set_yticklabels(ages)
-        ax.set_xlim(-500, 500)
-        ax.set_xticks([-400, -200, 0, 200, 400])
-        ax.set_xticklabels(["400", "200", "0", "200", "400"])
+        if cut:
+            ax.set_xlim(-(500 - cut), 500 - cut)
+            ticks = [t for t in range(-400, 401, 100) if abs(t) <= 500 - cut]
+            ax.set_xticks(ticks)
+            ax.set_xticklabels(["%d" % (abs(t) + cut) for t in ticks])
+        else:
+            ax.set_xlim(-500, 500)
+            ax.set_xticks([-400, -200, 0, 200, 400])
+            ax.set_xticklabels(["400", "200", "0", "200", "400"])
         ax.set_title("Orchard workers by age (left: seasonal, right: permanent)", fontsize=10)
-        d = {"kind": "bar", "misleading": False, "rule": None,
-             "values": [-a for a in left] + right,
+        d = {"kind": "bar", "misleading": cut > 0, "rule": "bars-off-zero" if cut else None,
+             # magnitudes when judged (the scale reads them on both sides)
+             "values": ([a for a in left] if cut else [-a for a in left]) + right,
              "labels": ["%s/seasonal" % a for a in ages] + ["%s/permanent" % a for a in ages],
-             "axis": {"min": -500.0, "max": 500.0, "scale": "linear", "orientation": "x"},
-             "baseline": 0.0, "style": ["population-pyramid", "two-sided"],
-             "notes": "tick labels print magnitudes on both sides"}
+             "axis": {"min": -500.0 if not cut else float(cut), "max": 500.0, "scale": "linear",
+                      "orientation": "x"},
+             "baseline": float(cut), "style": ["population-pyramid", "two-sided"] +
+                                               (["truncated"] if cut else []),
+             "notes": "tick labels print magnitudes on both sides" +
+                      (", from %d at the shared line" % cut if cut else "")}
         d["bbox"] = box_of(fig, ax)
         return fig, [d]
     return build
@@ -606,6 +619,7 @@ PLAN = [
     ("shape_funnel_trapezoids", 913, funnel(913, False)),
     ("shape_funnel_bars", 913, funnel(913, True)),
     ("shape_population_pyramid", 914, population_pyramid(914)),
+    ("shape_population_pyramid_cut", 918, population_pyramid(918, cut=100)),
     ("shape_chevrons", 915, chevrons(915)),
     ("shape_bubbles_radius", 921, bubbles(921, "radius")),
     ("shape_bubbles_area", 921, bubbles(921, "area")),
