@@ -842,6 +842,62 @@ def stacked_labels_stretched(rng):
     return fig, [f]
 
 
+FULL_COUNTS = [[34, 12, 21], [8, 40, 17], [25, 25, 9], [14, 19, 38]]
+
+
+def full_stacks(horizontal, label):
+    """100% stacks: each column (or row) the shares of its own total, each segment
+    labelled by label(count, share)."""
+    fig, ax = chart()
+    cats = ["North Quay", "Tern Pier", "Old Slip", "Gullwharf"]
+    base = [0.0] * 4
+    for s in range(3):
+        share = [100.0 * FULL_COUNTS[k][s] / sum(FULL_COUNTS[k]) for k in range(4)]
+        colour = ["#66c2a5", "#fc8d62", "#8da0cb"][s]
+        if horizontal:
+            ax.barh(range(4), share, left=base, height=0.6, color=colour)
+        else:
+            ax.bar(range(4), share, bottom=base, width=0.6, color=colour)
+        for k in range(4):
+            mid = base[k] + share[k] / 2
+            xy = (mid, k) if horizontal else (k, mid)
+            ax.text(*xy, label(FULL_COUNTS[k][s], share[k]), ha="center", va="center",
+                    fontsize=8)
+        base = [base[k] + share[k] for k in range(4)]
+    if horizontal:
+        ax.set_xlim(0, 100)
+        ax.set_yticks(range(4))
+        ax.set_yticklabels(cats, fontsize=8)
+        ax.invert_yaxis()
+    else:
+        ax.set_ylim(0, 100)
+        ax.set_xticks(range(4))
+        ax.set_xticklabels(cats, fontsize=8)
+    return fig, ax
+
+
+@case
+def stacked_100_counts(rng):
+    """Honest: 100% stacked columns labelled with the counts, not the shares drawn."""
+    fig, ax = full_stacks(False, lambda n, share: "%d" % n)
+    ax.set_title("Crossings by fare class (100% stacked, counts printed)")
+    return fig, [honest("column", box_of(fig, ax), "100% stacked columns, each segment "
+                        "labelled with its count: ink follows the counts within each "
+                        "column, not across columns", axis=axis_of(ax, "y"), baseline=0,
+                        style=["stacked", "segment-labels", "100-percent"])]
+
+
+@case
+def stacked_100_shares(rng):
+    """Honest: 100% stacked horizontal bars labelled with their shares, rounded."""
+    fig, ax = full_stacks(True, lambda n, share: "%.0f%%" % share)
+    ax.set_title("Crossings by fare class (100% stacked, shares printed)")
+    return fig, [honest("bar", box_of(fig, ax), "100% stacked horizontal bars, each "
+                        "segment labelled with its share rounded to a whole percent",
+                        axis=axis_of(ax, "x"), baseline=0,
+                        style=["stacked", "segment-labels", "100-percent"])]
+
+
 def main():
     os.makedirs(OUT, exist_ok=True)
     for n, fn in enumerate(CASES):

@@ -298,6 +298,9 @@ void pp_box_view_clear(pp_box_view *view);
 gboolean pp_recognize_boxes_in_perspective(pp_recognize_ctx *ctx, const pp_quad *faces,
                                            const guint *marks, guint n, const pp_quad *panes,
                                            const guint *pane_marks, guint n_panes);
+/* The ink of a fill as it shows on the page: less what opaque fills painted after it cover
+ * (painter's order), measured exactly by the geometry stage. */
+double pp_solid_visible_ink(const pp_recognize_ctx *ctx, guint mark);
 void pp_recognize_pyramids(pp_recognize_ctx *ctx);    /* pyramids.c */
 void pp_recognize_symbols(pp_recognize_ctx *ctx);     /* symbols.c */
 void pp_recognize_pies(pp_recognize_ctx *ctx);        /* pies.c */
