@@ -275,3 +275,13 @@ void pp_recognize_symbols(pp_recognize_ctx *ctx);     /* symbols.c */
 void pp_recognize_pies(pp_recognize_ctx *ctx);        /* pies.c */
 void pp_recognize_tilted_pies(pp_recognize_ctx *ctx); /* tilted_pies.c */
 void pp_recognize_radial(pp_recognize_ctx *ctx);      /* radial.c */
+
+/* ---- A bucket grid over fixed boxes (box_grid.c) ------------------------------------ */
+typedef struct pp_box_grid pp_box_grid;
+/* Boxes that are empty are never returned. */
+pp_box_grid *pp_box_grid_new(const pp_rect *boxes, guint n);
+void pp_box_grid_free(pp_box_grid *grid);
+/* Sets out (guint) to the indices, ascending and once each, of every box that touches q,
+ * plus possibly some that do not: callers apply their exact test to each. */
+void pp_box_grid_query(pp_box_grid *grid, pp_rect q, GArray *out);
+G_DEFINE_AUTOPTR_CLEANUP_FUNC(pp_box_grid, pp_box_grid_free)
