@@ -65,7 +65,10 @@ static gint64 look_key(const pp_mark *m, gint64 dw, gint64 dh) {
   }
   h = (h ^ (guint64)(size_cell(pp_rect_width(m->bbox)) + dw)) * 0x100000001b3ull;
   h = (h ^ (guint64)(size_cell(pp_rect_height(m->bbox)) + dh)) * 0x100000001b3ull;
-  return (gint64)h;
+  /* splitmix64's finaliser: GLib's int64 hash keeps only the low bits */
+  h = (h ^ (h >> 30)) * 0xbf58476d1ce4e5b9ull;
+  h = (h ^ (h >> 27)) * 0x94d049bb133111ebull;
+  return (gint64)(h ^ (h >> 31));
 }
 
 /* The largest set of free markers of one size and colour. Each marker joins the set of
