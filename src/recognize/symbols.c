@@ -47,40 +47,9 @@
 #define PP_SYMBOL_COLOUR_TOL 0.02
 /* A label under an icon starts within this many icon heights below it (common practice). */
 #define PP_SYMBOL_BELOW_REACH 0.8
-/* A size key shows at most this many sizes (a key, not a chart; common practice). */
-#define PP_SYMBOL_KEY_MAX 16
 /* Colours are bucketed in cells a little wider than PP_SYMBOL_COLOUR_TOL, so two colours
  * within the tolerance always fall in the same or neighbouring cells despite rounding. */
 #define PP_SYMBOL_COLOUR_CELL (PP_SYMBOL_COLOUR_TOL * 1.005)
-
-typedef struct {
-  guint mark;
-  gboolean circle;
-  pp_point centre;
-  double r; /* circles: radius; icons: half the bbox diagonal */
-  pp_rect box;
-  double ink;
-  pp_paint paint;
-  int family;
-  const pp_label *label;
-} symbol;
-
-/* What every family's build shares on one page, built once, so that the work grows with
- * the symbols, labels and words rather than with their products (dense scatters hold
- * 10^5 symbols in 10^3 colours). */
-typedef struct {
-  pp_recognize_ctx *ctx;
-  GArray *syms;
-  GPtrArray *members;      /* per family: GArray of guint indices into syms, ascending */
-  pp_box_grid *labels;     /* item k: ctx->labels[k], its box with its centre */
-  double label_size;       /* the largest label's font size */
-  pp_box_grid *centres;    /* item i: syms[i]'s centre */
-  pp_box_grid *words;      /* item k: scene->words[k] at (centre x, top); on first use */
-  double word_size;        /* the largest word's font size */
-  GArray *frames;          /* pp_rect: rectangle marks that may frame a plot; on first use */
-  GHashTable *tick_labels; /* labels of evenly stepped fitted axes: never a symbol's */
-  GArray *key_families;    /* int: families that may still be a size key, ascending */
-} page;
 
 static gboolean same_colour(const pp_paint *a, const pp_paint *b) {
   return fabs(a->r - b->r) < PP_SYMBOL_COLOUR_TOL && fabs(a->g - b->g) < PP_SYMBOL_COLOUR_TOL &&
@@ -131,22 +100,36 @@ static gboolean similar(const pp_mark *a, const pp_mark *b) {
   return TRUE;
 }
 
+/* Filled circles and icons, and outlined circles (a size key's nested circles are drawn
+ * as outlines so that the smaller ones show). */
 static GArray *collect(const pp_recognize_ctx *ctx) {
-  GArray *out = g_array_new(FALSE, FALSE, sizeof(symbol));
+  GArray *out = g_array_new(FALSE, FALSE, sizeof(pp_symbol));
   const pp_scene *scene = ctx->scene;
   for (guint i = 0; i < scene->marks->len; i++) {
     const pp_mark *m = g_ptr_array_index(scene->marks, i);
-    if (m->kind != PP_MARK_FILL || m->paint.kind != PP_PAINT_SOLID ||
-        !(m->ink >= PP_SYMBOL_MIN_INK) || !pp_claims_mark_free(ctx->claims, i) ||
+    gboolean outline = m->kind == PP_MARK_STROKE && !m->dashed;
+    if ((m->kind != PP_MARK_FILL && !outline) || m->paint.kind != PP_PAINT_SOLID ||
+        !(outline || m->ink >= PP_SYMBOL_MIN_INK) || !pp_claims_mark_free(ctx->claims, i) ||
         g_hash_table_contains(ctx->glyph_marks, GUINT_TO_POINTER(i)) ||
         pp_page_sized(scene, m->bbox))
       continue;
-    /* a symbol cut by its clip is not measurable as drawn */
-    if (fabs(pp_rect_area(m->visible_bbox) - pp_rect_area(m->bbox)) > 0.01 * pp_rect_area(m->bbox))
+    /* a symbol cut by its clip is not measurable as drawn (an outline's visible box holds
+     * half its line width) */
+    double pen = outline ? m->line_width / 2 : 0;
+    pp_rect drawn = {m->bbox.x0 - pen, m->bbox.y0 - pen, m->bbox.x1 + pen, m->bbox.y1 + pen};
+    if (fabs(pp_rect_area(m->visible_bbox) - pp_rect_area(drawn)) > 0.01 * pp_rect_area(drawn))
       continue;
-    symbol s = {.mark = i, .box = m->bbox, .ink = m->ink, .paint = m->paint, .family = -1};
+    pp_symbol s = {.mark = i, .box = m->bbox, .ink = m->ink, .paint = m->paint, .family = -1};
     s.centre = (pp_point){(m->bbox.x0 + m->bbox.x1) / 2, (m->bbox.y0 + m->bbox.y1) / 2};
     s.circle = is_circle(m);
+    if (outline) {
+      if (!s.circle)
+        continue;
+      s.outline = TRUE;
+      s.ink = pp_path_fill_area(m->path, m->rule);
+      if (!(s.ink >= PP_SYMBOL_MIN_INK))
+        continue;
+    }
     s.r = s.circle ? pp_rect_width(m->bbox) / 2
                    : hypot(pp_rect_width(m->bbox), pp_rect_height(m->bbox)) / 2;
     g_array_append_val(out, s);
@@ -159,11 +142,16 @@ static int colour_cell(double v) {
   return !(c >= 1) ? 1 : c > 2046 ? 2046 : (int)c;
 }
 
-static gint64 family_key(const symbol *s, const pp_mark *m, int dr, int dg, int db) {
-  gint64 shape = s->circle ? 0 : (gint64)MIN(m->path->n_segs, 1u << 20) + 1;
-  return ((shape * 2048 + colour_cell(s->paint.r) + dr) * 2048 + colour_cell(s->paint.g) + dg) *
-             2048 +
-         colour_cell(s->paint.b) + db;
+static gint64 family_key(const pp_symbol *s, const pp_mark *m, int dr, int dg, int db) {
+  gint64 shape = s->outline ? 1 : s->circle ? 0 : (gint64)MIN(m->path->n_segs, 1u << 20) + 2;
+  guint64 h = (guint64)(((shape * 2048 + colour_cell(s->paint.r) + dr) * 2048 +
+                         colour_cell(s->paint.g) + dg) *
+                            2048 +
+                        colour_cell(s->paint.b) + db);
+  /* splitmix64's finaliser: GLib's int64 hash keeps only the low bits */
+  h = (h ^ (h >> 30)) * 0xbf58476d1ce4e5b9ull;
+  h = (h ^ (h >> 27)) * 0x94d049bb133111ebull;
+  return (gint64)(h ^ (h >> 31));
 }
 
 /* Families: circles of one colour, or copies of one icon outline in one colour. Each
@@ -175,9 +163,9 @@ static int assign_families(const pp_scene *scene, GArray *syms) {
       g_hash_table_new_full(g_int64_hash, g_int64_equal, g_free, (GDestroyNotify)g_array_unref);
   int n = 0;
   for (guint i = 0; i < syms->len; i++) {
-    symbol *b = &g_array_index(syms, symbol, i);
+    pp_symbol *b = &g_array_index(syms, pp_symbol, i);
     const pp_mark *mb = g_ptr_array_index(scene->marks, b->mark);
-    const symbol *found = NULL;
+    const pp_symbol *found = NULL;
     guint found_i = G_MAXUINT;
     for (int d = 0; d < 27; d++) {
       gint64 key = family_key(b, mb, d % 3 - 1, d / 3 % 3 - 1, d / 9 - 1);
@@ -186,8 +174,9 @@ static int assign_families(const pp_scene *scene, GArray *syms) {
         guint li = g_array_index(bucket, guint, k);
         if (li >= found_i)
           break;
-        const symbol *a = &g_array_index(syms, symbol, li);
-        if (a->circle == b->circle && same_colour(&a->paint, &b->paint) &&
+        const pp_symbol *a = &g_array_index(syms, pp_symbol, li);
+        if (a->circle == b->circle && a->outline == b->outline &&
+            same_colour(&a->paint, &b->paint) &&
             (a->circle || similar(g_ptr_array_index(scene->marks, a->mark), mb))) {
           found = a, found_i = li;
           break;
@@ -210,10 +199,10 @@ static int assign_families(const pp_scene *scene, GArray *syms) {
   return n;
 }
 
-/* The free numeric label on the symbol (its centre within the symbol, or the symbol's
+/* The free numeric label on the symbol (its centre within the pp_symbol, or the symbol's
  * centre within the label), else just below it (pictograms). Only labels the grid finds
  * near the symbol are tested. */
-static const pp_label *label_of(page *pg, const symbol *s, GHashTable *used) {
+static const pp_label *label_of(pp_symbol_page *pg, const pp_symbol *s, GHashTable *used) {
   const pp_recognize_ctx *ctx = pg->ctx;
   double h = pp_rect_height(s->box);
   pp_rect q = {s->box.x0 - 0.5, s->box.y0 - 0.5, s->box.x1 + 0.5, s->box.y1 + 0.5};
@@ -248,7 +237,7 @@ static const pp_label *label_of(page *pg, const symbol *s, GHashTable *used) {
           pg->centres,
           (pp_rect){l->centre.x - d, l->centre.y - d, l->centre.x + d, l->centre.y + d}, near);
     for (guint i = 0; on && i < near->len && !nearer; i++) {
-      const symbol *o = &g_array_index(pg->syms, symbol, g_array_index(near, guint, i));
+      const pp_symbol *o = &g_array_index(pg->syms, pp_symbol, g_array_index(near, guint, i));
       nearer = o != s && o->family == s->family &&
                hypot(l->centre.x - o->centre.x, l->centre.y - o->centre.y) < d;
     }
@@ -264,70 +253,13 @@ static const pp_label *label_of(page *pg, const symbol *s, GHashTable *used) {
   return best;
 }
 
-/* A size key: two or more symbols of another family, each with a number just to its
- * right on its own line, stacked in one column or lined up in one row. Fits area against
- * value over the key; FALSE when there is none. A family that once lacks a free label
- * for a symbol never becomes a key (labels are only ever claimed), so it is dropped. */
-static gboolean find_key(page *pg, int family, pp_power_fit *fit, GArray *key_members) {
-  const pp_recognize_ctx *ctx = pg->ctx;
-  g_autoptr(GArray) hits = g_array_new(FALSE, FALSE, sizeof(guint));
-  GArray *cands = pg->key_families;
-  guint kept = 0;
-  gboolean found = FALSE;
-  for (guint c = 0; c < cands->len; c++) {
-    int f = g_array_index(cands, int, c);
-    g_array_index(cands, int, kept++) = f;
-    if (f == family || found)
-      continue;
-    const GArray *mem = g_ptr_array_index(pg->members, f);
-    g_array_set_size(key_members, 0);
-    double v[PP_SYMBOL_KEY_MAX], a[PP_SYMBOL_KEY_MAX];
-    guint n = 0;
-    gboolean ok = TRUE;
-    for (guint i = 0; i < mem->len && ok; i++) {
-      symbol *s = &g_array_index(pg->syms, symbol, g_array_index(mem, guint, i));
-      double band = fmax(0.5 * s->r, pg->label_size);
-      pp_box_grid_query(pg->labels,
-                        (pp_rect){s->centre.x, s->centre.y - band, s->box.x1 + 4 * pg->label_size,
-                                  s->centre.y + band},
-                        hits);
-      const pp_label *best = NULL;
-      for (guint j = 0; j < hits->len; j++) {
-        const pp_label *l = g_ptr_array_index(ctx->labels, g_array_index(hits, guint, j));
-        if (pp_claims_label_free(ctx->claims, l->index) && l->box.x0 >= s->centre.x &&
-            l->box.x0 - s->box.x1 <= 4 * l->size &&
-            fabs(l->centre.y - s->centre.y) <= fmax(0.5 * s->r, l->size) &&
-            (!best || l->box.x0 < best->box.x0))
-          best = l;
-      }
-      if (!best || n >= PP_SYMBOL_KEY_MAX) {
-        ok = FALSE;
-        kept--; /* never a key: no free label will appear, nor fewer symbols */
-        break;
-      }
-      s->label = best;
-      v[n] = best->number.value, a[n] = s->ink, n++;
-      guint idx = g_array_index(mem, guint, i);
-      g_array_append_val(key_members, idx);
-    }
-    if (ok && n >= 2 && pp_power_fit_compute(v, a, n, fit) && fit->exponent > 0)
-      found = TRUE;
-    else if (ok && n < 2)
-      kept--;
-  }
-  g_array_set_size(cands, kept);
-  if (!found)
-    g_array_set_size(key_members, 0);
-  return found;
-}
-
 /* The plot: the smallest non-page rectangle mark around every symbol centre. */
-static pp_rect plot_box(page *pg, int family) {
+static pp_rect plot_box(pp_symbol_page *pg, int family) {
   const pp_scene *scene = pg->ctx->scene;
   const GArray *mem = g_ptr_array_index(pg->members, family);
   pp_rect all = pp_rect_empty(), centres = pp_rect_empty();
   for (guint i = 0; i < mem->len; i++) {
-    const symbol *s = &g_array_index(pg->syms, symbol, g_array_index(mem, guint, i));
+    const pp_symbol *s = &g_array_index(pg->syms, pp_symbol, g_array_index(mem, guint, i));
     all = pp_rect_union(all, s->box);
     centres = pp_rect_add_point(centres, s->centre);
   }
@@ -358,7 +290,7 @@ static pp_rect plot_box(page *pg, int family) {
 
 /* The symbol's name: the nearest word under it (below its number, for icons) that is not
  * a number, centred on it. */
-static char *name_of(page *pg, const symbol *s) {
+static char *name_of(pp_symbol_page *pg, const pp_symbol *s) {
   const pp_scene *scene = pg->ctx->scene;
   if (!pg->words) {
     g_autofree pp_rect *at = g_new(pp_rect, MAX(scene->words->len, 1));
@@ -436,23 +368,24 @@ static void weigh_size_law(pp_figure *fig) {
       g_strdup("symbol sizes do not grow with their numbers: the numbers are not sizes");
 }
 
-static void build(page *pg, int family) {
+static void build(pp_symbol_page *pg, int family) {
   pp_recognize_ctx *ctx = pg->ctx;
   const GArray *mem = g_ptr_array_index(pg->members, family);
   guint n = mem->len;
   double lo = INFINITY, hi = 0;
   for (guint i = 0; i < n; i++) {
-    const symbol *s = &g_array_index(pg->syms, symbol, g_array_index(mem, guint, i));
+    const pp_symbol *s = &g_array_index(pg->syms, pp_symbol, g_array_index(mem, guint, i));
     lo = fmin(lo, s->ink), hi = fmax(hi, s->ink);
   }
-  if (n < PP_SYMBOL_MIN_COUNT || hi < PP_SYMBOL_MIN_SPREAD * lo)
-    return;
-  /* values: a number on every symbol, else a size key; tick labels of a fitted axis are
+  if (n < PP_SYMBOL_MIN_COUNT || hi < PP_SYMBOL_MIN_SPREAD * lo ||
+      g_array_index(pg->syms, pp_symbol, g_array_index(mem, guint, 0)).outline)
+    return; /* outlined circles are read only as a size key */
+  /* values: a number on every pp_symbol, else a size key; tick labels of a fitted axis are
    * never a symbol's number (pg->tick_labels) */
   g_autoptr(GHashTable) used = g_hash_table_new(NULL, NULL);
   guint labelled = 0;
   for (guint i = 0; i < n; i++) {
-    symbol *s = &g_array_index(pg->syms, symbol, g_array_index(mem, guint, i));
+    pp_symbol *s = &g_array_index(pg->syms, pp_symbol, g_array_index(mem, guint, i));
     s->label = label_of(pg, s, used);
     if (s->label) {
       g_hash_table_add(used, (gpointer)s->label);
@@ -463,7 +396,7 @@ static void build(page *pg, int family) {
   g_autoptr(GArray) key_members = g_array_new(FALSE, FALSE, sizeof(guint));
   gboolean by_key = FALSE;
   if (labelled < n && labelled < PP_SYMBOL_MIN_LABELLED * n) {
-    if (labelled > 0 || !find_key(pg, family, &key, key_members))
+    if (labelled > 0 || !pp_size_key_find(pg, family, &key, key_members))
       return;
     by_key = TRUE;
   }
@@ -471,7 +404,7 @@ static void build(page *pg, int family) {
   pp_figure *fig = pp_figure_new(PP_FIGURE_BUBBLE);
   fig->recognizer = OWNER;
   for (guint i = 0; i < n; i++) {
-    symbol *s = &g_array_index(pg->syms, symbol, g_array_index(mem, guint, i));
+    pp_symbol *s = &g_array_index(pg->syms, pp_symbol, g_array_index(mem, guint, i));
     pp_claims_take_mark(ctx->claims, s->mark, OWNER);
     if (!by_key && !s->label)
       continue; /* part of the chart, but its number is hidden: no element */
@@ -501,7 +434,7 @@ static void build(page *pg, int family) {
     g_array_append_val(fig->elements, e);
   }
   for (guint k = 0; k < key_members->len; k++) {
-    symbol *s = &g_array_index(pg->syms, symbol, g_array_index(key_members, guint, k));
+    pp_symbol *s = &g_array_index(pg->syms, pp_symbol, g_array_index(key_members, guint, k));
     pp_claims_take_mark(ctx->claims, s->mark, OWNER);
     pp_claims_take_label(ctx->claims, s->label->index, OWNER);
   }
@@ -518,13 +451,13 @@ static void build(page *pg, int family) {
 void pp_recognize_symbols(pp_recognize_ctx *ctx) {
   g_autoptr(GArray) syms = collect(ctx);
   int n = assign_families(ctx->scene, syms);
-  page pg = {.ctx = ctx, .syms = syms};
+  pp_symbol_page pg = {.ctx = ctx, .syms = syms};
   pg.members = g_ptr_array_new_with_free_func((GDestroyNotify)g_array_unref);
   for (int f = 0; f < n; f++)
     g_ptr_array_add(pg.members, g_array_new(FALSE, FALSE, sizeof(guint)));
   g_autofree pp_rect *at = g_new(pp_rect, MAX(MAX(syms->len, ctx->labels->len), 1));
   for (guint i = 0; i < syms->len; i++) {
-    const symbol *s = &g_array_index(syms, symbol, i);
+    const pp_symbol *s = &g_array_index(syms, pp_symbol, i);
     g_array_append_val(g_ptr_array_index(pg.members, s->family), i);
     at[i] = (pp_rect){s->centre.x, s->centre.y, s->centre.x, s->centre.y};
   }
