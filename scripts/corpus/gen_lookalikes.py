@@ -788,6 +788,116 @@ def stacked_bottom_cut(rng):
     return fig, [f]
 
 
+# Segment values with one decimal, printed rounded to whole numbers: the smallest (8.4,
+# printed 8) is 5% off its label, so only the labels' rounding keeps the twin honest.
+LABEL_STACKS = [[8.4, 31.6, 22.7], [12.3, 28.4, 17.6], [9.6, 35.2, 20.4], [14.6, 30.3, 24.6]]
+
+
+def labelled_stacks(stretch):
+    """Stacked columns on a zero axis, each segment's value printed (rounded) at its
+    centre; the top series drawn `stretch` times its value."""
+    fig, ax = chart()
+    cats = ["2031", "2032", "2033", "2034"]
+    bottom = [0.0] * 4
+    drawn = [[v * (stretch if s == 2 else 1) for s, v in enumerate(st)] for st in LABEL_STACKS]
+    for s in range(3):
+        h = [drawn[k][s] for k in range(4)]
+        ax.bar(range(4), h, bottom=bottom, width=0.6, color=["#1b9e77", "#d95f02", "#7570b3"][s])
+        for k in range(4):
+            ax.text(k, bottom[k] + h[k] / 2, "%.0f" % LABEL_STACKS[k][s], ha="center",
+                    va="center", fontsize=8, color="white")
+        bottom = [bottom[k] + h[k] for k in range(4)]
+    ax.set_ylim(0, 110)
+    ax.set_xticks(range(4))
+    ax.set_xticklabels(cats)
+    ax.set_title("Gullwharf cargo by class, kt")
+    # the judged values: every segment's printed number, stack by stack from the base
+    values = [round(v) for st in LABEL_STACKS for v in st]
+    names = ["segment %d of %s" % (s + 1, c) for c in cats for s in range(3)]
+    return fig, ax, values, names, [d for st in drawn for d in st]
+
+
+@case
+def stacked_labels_rounded(rng):
+    """Honest twin of stacked_labels_stretched: segments drawn to their values, labels
+    rounded to whole numbers."""
+    fig, ax, values, names, drawn = labelled_stacks(1.0)
+    return fig, [honest("column", box_of(fig, ax), "stacked columns on zero, each segment "
+                        "labelled with its value rounded to a whole number", values=[],
+                        labels=[], axis=axis_of(ax, "y"), baseline=0,
+                        style=["stacked", "segment-labels"])]
+
+
+@case
+def stacked_labels_stretched(rng):
+    """Misleading: the printed numbers are the data, but the top series is drawn 1.4 times
+    its value, so its segments' lengths disagree with their own labels."""
+    fig, ax, values, names, drawn = labelled_stacks(1.4)
+    f = honest("column", box_of(fig, ax), "values are the segments' printed numbers, drawn "
+               "values their drawn thicknesses (top series 1.4 times its value)",
+               values=values, labels=names, axis=axis_of(ax, "y"), baseline=0,
+               style=["stacked", "segment-labels"])
+    f["drawn_values"] = drawn
+    f["misleading"], f["rule"] = True, "bars-vs-labels"
+    return fig, [f]
+
+
+FULL_COUNTS = [[34, 12, 21], [8, 40, 17], [25, 25, 9], [14, 19, 38]]
+
+
+def full_stacks(horizontal, label):
+    """100% stacks: each column (or row) the shares of its own total, each segment
+    labelled by label(count, share)."""
+    fig, ax = chart()
+    cats = ["North Quay", "Tern Pier", "Old Slip", "Gullwharf"]
+    base = [0.0] * 4
+    for s in range(3):
+        share = [100.0 * FULL_COUNTS[k][s] / sum(FULL_COUNTS[k]) for k in range(4)]
+        colour = ["#66c2a5", "#fc8d62", "#8da0cb"][s]
+        if horizontal:
+            ax.barh(range(4), share, left=base, height=0.6, color=colour)
+        else:
+            ax.bar(range(4), share, bottom=base, width=0.6, color=colour)
+        for k in range(4):
+            mid = base[k] + share[k] / 2
+            xy = (mid, k) if horizontal else (k, mid)
+            ax.text(*xy, label(FULL_COUNTS[k][s], share[k]), ha="center", va="center",
+                    fontsize=8)
+        base = [base[k] + share[k] for k in range(4)]
+    if horizontal:
+        ax.set_xlim(0, 100)
+        ax.set_yticks(range(4))
+        ax.set_yticklabels(cats, fontsize=8)
+        ax.invert_yaxis()
+    else:
+        ax.set_ylim(0, 100)
+        ax.set_xticks(range(4))
+        ax.set_xticklabels(cats, fontsize=8)
+    return fig, ax
+
+
+@case
+def stacked_100_counts(rng):
+    """Honest: 100% stacked columns labelled with the counts, not the shares drawn."""
+    fig, ax = full_stacks(False, lambda n, share: "%d" % n)
+    ax.set_title("Crossings by fare class (100% stacked, counts printed)")
+    return fig, [honest("column", box_of(fig, ax), "100% stacked columns, each segment "
+                        "labelled with its count: ink follows the counts within each "
+                        "column, not across columns", axis=axis_of(ax, "y"), baseline=0,
+                        style=["stacked", "segment-labels", "100-percent"])]
+
+
+@case
+def stacked_100_shares(rng):
+    """Honest: 100% stacked horizontal bars labelled with their shares, rounded."""
+    fig, ax = full_stacks(True, lambda n, share: "%.0f%%" % share)
+    ax.set_title("Crossings by fare class (100% stacked, shares printed)")
+    return fig, [honest("bar", box_of(fig, ax), "100% stacked horizontal bars, each "
+                        "segment labelled with its share rounded to a whole percent",
+                        axis=axis_of(ax, "x"), baseline=0,
+                        style=["stacked", "segment-labels", "100-percent"])]
+
+
 def main():
     os.makedirs(OUT, exist_ok=True)
     for n, fn in enumerate(CASES):

@@ -8,44 +8,11 @@
 argv <- commandArgs(trailingOnly = FALSE)
 me <- sub("^--file=", "", argv[grep("^--file=", argv)])
 here <- normalizePath(dirname(me))
-root <- Sys.getenv("PP_CORPUS_ROOT", normalizePath(file.path(here, "..", "..")))
-out_dir <- file.path(root, "corpus", "r")
-truth_py <- file.path(here, "truth.py")
-dir.create(out_dir, showWarnings = FALSE, recursive = TRUE)
+source(file.path(here, "r_common.R"))
 seed <- 4507
 W <- 6; H <- 5  # inches
 
-to_json <- function(x) {
-  if (is.null(x)) return("null")
-  if (is.list(x) && !is.null(names(x))) {
-    items <- mapply(function(k, v) paste0("\"", k, "\": ", to_json(v)), names(x), x)
-    return(paste0("{", paste(items, collapse = ", "), "}"))
-  }
-  if (is.list(x))
-    return(paste0("[", paste(vapply(x, to_json, ""), collapse = ", "), "]"))
-  one <- function(v) {
-    if (is.na(v)) return("null")
-    if (is.logical(v)) return(if (v) "true" else "false")
-    if (is.character(v)) return(paste0("\"", v, "\""))
-    format(v, digits = 15)
-  }
-  parts <- vapply(as.list(unclass(x)), one, "")
-  if (inherits(x, "AsIs") || length(x) != 1)
-    return(paste0("[", paste(parts, collapse = ", "), "]"))
-  parts
-}
-
-write_truth <- function(name, dev, fig) {
-  t <- list(file = paste0("corpus/r/", name, ".pdf"),
-            producer = sprintf("R %s %s()", getRversion(), dev),
-            seed = seed, pages = 1, figures = list(fig))
-  tmp <- tempfile(fileext = ".json")
-  writeLines(to_json(t), tmp, useBytes = TRUE)
-  dst <- file.path(out_dir, paste0(name, ".truth.json"))
-  rc <- system2("/usr/bin/python3", c(truth_py, "fill"), stdin = tmp, stdout = dst)
-  unlink(tmp)
-  if (rc != 0) stop("truth.py fill failed for ", name)
-}
+write_truth <- function(name, dev, fig) write_truth_file(name, dev, seed, 1, list(fig))
 
 open_dev <- function(name, dev) {
   path <- file.path(out_dir, paste0(name, ".pdf"))

@@ -10,44 +10,11 @@
 argv <- commandArgs(trailingOnly = FALSE)
 me <- sub("^--file=", "", argv[grep("^--file=", argv)])
 here <- normalizePath(dirname(me))
-root <- Sys.getenv("PP_CORPUS_ROOT", normalizePath(file.path(here, "..", "..")))
-out_dir <- file.path(root, "corpus", "r")
-truth_py <- file.path(here, "truth.py")
-dir.create(out_dir, showWarnings = FALSE, recursive = TRUE)
+source(file.path(here, "r_common.R"))
 seed <- 4611
 W <- 6; H <- 5  # inches
 
-to_json <- function(x) {
-  if (is.null(x)) return("null")
-  if (is.list(x) && !is.null(names(x))) {
-    items <- mapply(function(k, v) paste0("\"", k, "\": ", to_json(v)), names(x), x)
-    return(paste0("{", paste(items, collapse = ", "), "}"))
-  }
-  if (is.list(x))
-    return(paste0("[", paste(vapply(x, to_json, ""), collapse = ", "), "]"))
-  one <- function(v) {
-    if (is.na(v)) return("null")
-    if (is.logical(v)) return(if (v) "true" else "false")
-    if (is.character(v)) return(paste0("\"", v, "\""))
-    format(v, digits = 15)
-  }
-  parts <- vapply(as.list(unclass(x)), one, "")
-  if (inherits(x, "AsIs") || length(x) != 1)
-    return(paste0("[", paste(parts, collapse = ", "), "]"))
-  parts
-}
-
-write_truth <- function(name, dev, fig) {
-  t <- list(file = paste0("corpus/r/", name, ".pdf"),
-            producer = sprintf("R %s %s()", getRversion(), dev),
-            seed = seed, pages = 1, figures = list(fig))
-  tmp <- tempfile(fileext = ".json")
-  writeLines(to_json(t), tmp, useBytes = TRUE)
-  dst <- file.path(out_dir, paste0(name, ".truth.json"))
-  rc <- system2("/usr/bin/python3", c(truth_py, "fill"), stdin = tmp, stdout = dst)
-  unlink(tmp)
-  if (rc != 0) stop("truth.py fill failed for ", name)
-}
+write_truth <- function(name, dev, fig) write_truth_file(name, dev, seed, 1, list(fig))
 
 open_dev <- function(name, dev) {
   path <- file.path(out_dir, paste0(name, ".pdf"))
@@ -129,17 +96,30 @@ r_pyramid <- function(name, dev, values, honest, funnel = FALSE) {
 }
 
 bub <- c(6, 14, 23, 31, 40, 52, 58)
-r_bubbles("rs_bubbles_radius", "pdf", bub, "radius")
-r_bubbles("rs_bubbles_area", "pdf", bub, "area")
 # cairo draws a circle under about 4 pt of radius with two Bézier curves, ink about 2%
 # over πr² (seen here): the cairo twins keep every radius above that.
 bub_c <- c(11, 14, 23, 31, 40, 52, 58)
+tiers_v <- c(12, 21, 30, 37)
+funnel_v <- c(41, 27, 16, 10, 6)
+# Held-out corpora (scripts/holdout sets PP_CORPUS_SEED_OFFSET): other invented values of
+# the same shapes, each set spanning a wide range so that the misleading twins stay
+# misleading (the committed corpus keeps the values above).
+offset <- as.integer(Sys.getenv("PP_CORPUS_SEED_OFFSET", "0"))
+if (!is.na(offset) && offset != 0) {
+  set.seed(seed + offset)
+  spread <- function(n, lo, hi) sort(c(lo + sample(0:3, 1), hi - sample(0:3, 1),
+                                       sample((lo + 5):(hi - 5), n - 2)))
+  bub <- spread(7, 6, 60)
+  bub_c <- spread(7, 11, 60)
+  tiers_v <- spread(4, 8, 40)
+  funnel_v <- rev(spread(5, 5, 45))
+}
+r_bubbles("rs_bubbles_radius", "pdf", bub, "radius")
+r_bubbles("rs_bubbles_area", "pdf", bub, "area")
 r_bubbles("rs_bubbles_radius_cairo", "cairo_pdf", rev(bub_c), "radius")
 r_bubbles("rs_bubbles_area_cairo", "cairo_pdf", rev(bub_c), "area")
-tiers_v <- c(12, 21, 30, 37)
 r_pyramid("rs_pyramid_heights", "pdf", tiers_v, FALSE)
 r_pyramid("rs_pyramid_areas", "pdf", tiers_v, TRUE)
-funnel_v <- c(41, 27, 16, 10, 6)
 r_pyramid("rs_funnel_heights", "cairo_pdf", funnel_v, FALSE, funnel = TRUE)
 r_pyramid("rs_funnel_areas", "cairo_pdf", funnel_v, TRUE, funnel = TRUE)
 cat("gen_r_shapes: 8 files\n")

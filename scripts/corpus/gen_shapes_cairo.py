@@ -95,10 +95,11 @@ def value_axis(pg, top, to_page_y, step):
         t += step
 
 
-def perspective_bars(name, seed, deep, receding=False):
+def perspective_bars(name, seed, deep, receding=False, spacing=1.0):
     """Bars as boxes in one-point perspective, eye above the chart so caps show. All at
     depth 0 with a front-plane value axis, or receding (bar i at depth i·dz) with data
-    labels and no axis."""
+    labels and no axis; spacing under 1 slot packs receding bars so that nearer ones cover
+    parts of those behind."""
     rng = rng_of(seed)
     n = 6
     v = with_spread(rng, [rng.randint(20, 95) for _ in range(n)], (15, 22), (88, 95))
@@ -109,7 +110,7 @@ def perspective_bars(name, seed, deep, receding=False):
     f = 6.0
     top = 100.0
     eye = (n / 2.0, 160.0)  # world: x in slots, y in value units
-    xs = [i + 0.2 for i in range(n)]
+    xs = [spacing * i + 0.2 for i in range(n)]
     zs = [1.1 * i if receding else 0.0 for i in range(n)]
     sx = (BOX[2] - BOX[0]) / n
     sy = (BOX[3] - BOX[1]) / (top * 1.15)
@@ -146,7 +147,68 @@ def perspective_bars(name, seed, deep, receding=False):
                      "x": xs, "z": zs, "front_width": w, "depth": depth, "base": 0.0},
            "bbox": list(BOX),
            "style": ["perspective"] + (["receding", "data-labels-only"] if receding else
-                                       ["gridlines"])}
+                                       ["gridlines"]) + (["overlapping"] if spacing < 1.0 else [])}
+    if spacing < 1.0:  # nearer bars cover farther ones: the truth takes that off
+        fig["solid"]["painted"] = True
+    pg.finish(seed, fig)
+
+
+def oblique_bars(name, seed, deep, wall=False):
+    """Bars with oblique faces painted left to right, each as front, side and cap, so a
+    bar's side and cap go under the next bar where the depth reaches past the gap (deep).
+    Value axis on the front plane (gridlines behind), or on a back wall (wall=True) three
+    times as deep as the caps: gridlines at the wall's height, joined to the front plane by
+    slanted gridlines on the floor's side, tick labels at the wall's gridlines; a bar's
+    value is where its top meets the wall's plane."""
+    rng = rng_of(seed)
+    n = 6
+    v = with_spread(rng, [rng.randint(20, 95) for _ in range(n)], (15, 22), (88, 95)) \
+        if deep else [rng.randint(70, 95) for _ in range(n)]
+    w = 0.6
+    # depths off the integers: a cap's back edge never lines up with the next bar's top
+    # (integer values), which would join the two bars' faces by a shared edge
+    dx, dy = ((0.3, 6.0) if wall else (0.7, 9.5)) if deep else (0.05, 0.35)
+    wx, wy = (3 * dx, 3 * dy) if wall else (0.0, 0.0)  # the wall's offset from the front
+    top = 100.0
+    xs = [0.3 + i for i in range(n)]
+    sx = (BOX[2] - BOX[0]) / (n + 0.3 + max(wx, dx))
+    sy = (BOX[3] - BOX[1]) / (top + wy + dy + 5)
+
+    def page(x, y):
+        return (BOX[0] + sx * x, BOX[3] - sy * y)
+
+    pg = Page(name, "Cider pressed per orchard (t)")
+    cr = pg.cr
+    if wall:
+        for t in range(0, int(top) + 1, 20):
+            cr.set_source_rgb(0.75, 0.75, 0.75)
+            cr.set_line_width(0.6)
+            cr.move_to(*page(0, t))  # on the floor's side, front to back
+            cr.line_to(*page(wx, t + wy))
+            cr.stroke()
+            cr.move_to(*page(wx, t + wy))  # across the wall
+            cr.line_to(*page(n + 0.3 + wx, t + wy))
+            cr.stroke()
+            pg.text("%d" % t, BOX[0] - 6, page(0, t + wy)[1], 8, 1.0)
+    else:
+        value_axis(pg, top, lambda t: page(0, t)[1], 20)
+    for i in range(n):
+        x0, x1, h = xs[i], xs[i] + w, v[i]
+        pg.poly([page(x0, 0), page(x1, 0), page(x1, h), page(x0, h)], BLUE[0])
+        pg.poly([page(x1, 0), page(x1 + dx, dy), page(x1 + dx, h + dy), page(x1, h)], BLUE[2])
+        pg.poly([page(x0, h), page(x1, h), page(x1 + dx, h + dy), page(x0 + dx, h + dy)],
+                BLUE[1])
+        lx, ly = page((x0 + x1) / 2, 0)
+        pg.text(MILLS[i], lx, ly + 10, 8, 0.5)
+    fig = {"kind": "bar-3d", "misleading": deep, "rule": "bars-3d-ink" if deep else None,
+           "values": v, "labels": MILLS[:n],
+           "axis": {"min": 0.0, "max": top, "scale": "linear", "orientation": "y"},
+           "baseline": 0.0,
+           "solid": {"projection": "oblique", "front_width": w, "depth": [dx, dy],
+                     "base": 0.0, "x": xs},
+           "bbox": list(BOX),
+           "style": ["oblique", "gridlines"] + (["wall"] if wall else []) +
+           (["overlapping"] if dx > 1 - w else [])}
     pg.finish(seed, fig)
 
 
@@ -264,12 +326,16 @@ def main():
     perspective_bars("shape_persp_deep", 941, True)
     perspective_bars("shape_persp_shallow", 941, False)
     perspective_bars("shape_persp_receding", 942, True, receding=True)
+    perspective_bars("shape_persp_receding_overlap", 948, True, receding=True, spacing=0.5)
+    oblique_bars("shape_oblique_overlap", 946, True)
+    oblique_bars("shape_oblique_overlap_shallow", 946, False)
+    oblique_bars("shape_oblique_wall_deep", 947, True, wall=True)
     cylinders("shape_cylinders", 943, True)
     cylinders("shape_cylinders_flat", 943, False)
     pictograms("shape_icons_side", 944, "side")
     pictograms("shape_icons_area", 944, "area")
     repeated_icons("shape_icons_repeated", 945)
-    print("cairo shapes: 8 charts")
+    print("cairo shapes: 12 charts")
 
 
 if __name__ == "__main__":

@@ -148,6 +148,110 @@ def box_faces_seen(solid):
     return out
 
 
+def _minus_convex(pieces, cover):
+    """Convex pieces less a convex cover: each piece split by the cover's edges into the
+    parts outside it (textbook convex decomposition)."""
+    if _signed(cover) < 0:
+        cover = cover[::-1]
+    out = []
+    for rem in pieces:
+        for i in range(len(cover)):
+            a, b = cover[i], cover[(i + 1) % len(cover)]
+            if len(rem) < 3:
+                break
+            part = _half(rem, b, a)  # right of a->b: outside this edge
+            if len(part) >= 3 and abs(_signed(part)) > 1e-12:
+                out.append(part)
+            rem = _half(rem, a, b)
+    return out
+
+
+def _half(poly, a, b):
+    """The part of a convex polygon left of a->b (counter-clockwise inside; textbook)."""
+    side = lambda p: (b[0] - a[0]) * (p[1] - a[1]) - (b[1] - a[1]) * (p[0] - a[0])  # noqa
+    out = []
+    for k in range(len(poly)):
+        p, q = poly[k], poly[(k + 1) % len(poly)]
+        sp, sq = side(p), side(q)
+        if sp >= 0:
+            out.append(p)
+        if (sp >= 0) != (sq >= 0):
+            t = sp / (sp - sq)
+            out.append((p[0] + t * (q[0] - p[0]), p[1] + t * (q[1] - p[1])))
+    return out
+
+
+def drawn_faces_seen(solid, n):
+    """Faces as painted (solid["faces"]: bar, part, corners, in painting order): what each
+    shows after every face painted later, in display units²; per bar (vertical, top)."""
+    faces = solid["faces"]
+    vert, top = [0.0] * n, [0.0] * n
+    for i, f in enumerate(faces):
+        pieces = [[tuple(p) for p in f["corners"]]]
+        for g in faces[i + 1:]:
+            pieces = _minus_convex(pieces, [tuple(p) for p in g["corners"]])
+        seen = sum(abs(_signed(p)) for p in pieces)
+        if f["part"] == "top":
+            top[f["bar"]] += seen
+        else:  # the bottom too: whatever of it shows is ink (it never does from above)
+            vert[f["bar"]] += seen
+    return list(zip(vert, top))
+
+
+def oblique_faces_seen(solid, v):
+    """Oblique bars placed at solid["x"] (front left edges, data units, y up), painted in
+    that order, each as front, side and cap: per bar (front, cap, total) seen. A face seen
+    is its shoelace area less the union of the faces painted after it, by
+    inclusion-exclusion over Sutherland-Hodgman clips (textbook)."""
+    w, (dx, dy) = solid["front_width"], solid["depth"]
+    b = solid.get("base", 0.0)
+    bars = []
+    for x0, vi in zip(solid["x"], v):
+        x1 = x0 + w
+        bars.append([[(x0, b), (x1, b), (x1, vi), (x0, vi)],
+                     [(x1, b), (x1 + dx, b + dy), (x1 + dx, vi + dy), (x1, vi)],
+                     [(x0, vi), (x1, vi), (x1 + dx, vi + dy), (x0 + dx, vi + dy)]])
+    order = sorted(range(len(bars)), key=lambda k: solid["x"][k])
+    out = [None] * len(bars)
+    for rank, i in enumerate(order):
+        later = [f for j in order[rank + 1:] for f in bars[j]]
+        seen = []
+        for face in bars[i]:
+            covers = [c for c in later if len(_clip_convex(face, c)) >= 3]
+            seen.append(abs(_signed(face)) - _hidden(face, covers))
+        out[i] = (seen[0], seen[2], sum(seen))
+    return out
+
+
+def perspective_faces_seen(solid, v):
+    """Perspective bars painted furthest first (each as cap, side, front): per bar (front,
+    cap + side, total) seen, each face less the union of the faces painted after it
+    (inclusion-exclusion over Sutherland-Hodgman clips, textbook)."""
+    eye, f, w, d = solid["eye"], solid["focal"], solid["front_width"], solid["depth"]
+    b = solid.get("base", 0.0)
+    P = lambda x, y, z: perspective_point((x, y, z), eye, f)  # noqa: E731
+    bars = []
+    for i, vi in enumerate(v):
+        x0, z0 = solid["x"][i], solid["z"][i]
+        x1, z1 = x0 + w, z0 + d
+        faces = []
+        if vi < eye[1]:
+            faces.append(("cap", [P(x0, vi, z0), P(x1, vi, z0), P(x1, vi, z1), P(x0, vi, z1)]))
+        xs = x1 if x1 < eye[0] else (x0 if x0 > eye[0] else None)
+        if xs is not None:
+            faces.append(("side", [P(xs, b, z0), P(xs, vi, z0), P(xs, vi, z1), P(xs, b, z1)]))
+        faces.append(("front", [P(x0, b, z0), P(x1, b, z0), P(x1, vi, z0), P(x0, vi, z0)]))
+        bars.append(faces)
+    order = sorted(range(len(v)), key=lambda k: -solid["z"][k])
+    painted = [(i, name, poly) for i in order for name, poly in bars[i]]
+    seen = [[0.0, 0.0] for _ in v]
+    for k, (i, name, poly) in enumerate(painted):
+        covers = [c for _, _, c in painted[k + 1:] if len(_clip_convex(poly, c)) >= 3]
+        a = abs(_signed(poly)) - _hidden(poly, covers)
+        seen[i][0 if name == "front" else 1] += a
+    return [(fr, co, fr + co) for fr, co in seen]
+
+
 def perspective_point(p, eye, f):
     """One-point perspective of (x, y, z): scale f/(f+z) towards the eye point."""
     s = f / (f + p[2])
@@ -161,7 +265,9 @@ def bar3d_faces(solid, v):
     cap w*|dy| (base w, height |dy|): the cap is the same on every bar. Stacked segments
     (solid["segment_base"] given): height v, and the cap only where solid["capped"].
     cylinder: body w*(v-b) plus the lower half ellipse pi*(w/2)*e/2 and the top ellipse
-    pi*(w/2)*e (e = the ellipse's vertical semi-axis): both ellipse parts are constant.
+    pi*(w/2)*e (e = the ellipse's vertical semi-axis): both ellipse parts are constant; the
+    top ellipse is painted over the body's top edge, so the front shows w*(v-b) less half
+    the ellipse (ellipse area pi*a*b, textbook).
     perspective: the box x0..x1, y from base to value, z 0..depth projected towards the eye
     point; the front at depth z0 (each bar's own), the cap when the top is below the eye
     (y up here: top < eye y), the side facing the eye; faces by the shoelace formula."""
@@ -169,10 +275,14 @@ def bar3d_faces(solid, v):
     b = solid.get("base", 0.0)
     if proj == "box":  # the top is the constant; what is hidden is off both
         return [(vt, tp, vt + tp) for vt, tp in box_faces_seen(solid)]
+    if proj == "drawn":  # faces as painted, each less what is painted over it
+        return [(vt, tp, vt + tp) for vt, tp in drawn_faces_seen(solid, len(v))]
     out = []
     for i, vi in enumerate(v):
         h = vi - b if "segment_base" not in solid else vi  # a segment's own height
-        if proj == "oblique":
+        if proj == "oblique" and "x" in solid:  # placed bars: what later bars hide is off
+            out.append(oblique_faces_seen(solid, v)[i])
+        elif proj == "oblique":
             w, (dx, dy) = solid["front_width"], solid["depth"]
             front = w * h
             side = abs(dx) * h
@@ -181,9 +291,13 @@ def bar3d_faces(solid, v):
             out.append((front, const, front + side + const))
         elif proj == "cylinder":
             w, e = solid["front_width"], solid["ellipse"]
-            front = w * h
+            # the top ellipse, painted over the body, covers the body's rectangle with its
+            # lower half: the front shows w*h less that half
+            front = w * h - math.pi * (w / 2) * e / 2
             const = math.pi * (w / 2) * e + math.pi * (w / 2) * e / 2
             out.append((front, const, front + const))
+        elif proj == "perspective" and solid.get("painted"):
+            out.append(perspective_faces_seen(solid, v)[i])
         elif proj == "perspective":
             eye, f = solid["eye"], solid["focal"]
             x0 = solid["x"][i]

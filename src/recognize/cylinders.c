@@ -1,7 +1,8 @@
 /* cylinders.c — recognizer: bars drawn as cylinders (or cones cut flat). A body with two
  * vertical straight sides and a curved bottom, and an ellipse on its top edge of the same
  * width, are one bar. The body's bulge below the floor and the top ellipse are the same on
- * every bar: ink that does not follow the value. */
+ * every bar: ink that does not follow the value. Ink is what shows (the ellipse hides the
+ * body's top). */
 #include <math.h>
 #include <string.h>
 
@@ -143,12 +144,16 @@ void pp_recognize_cylinders(pp_recognize_ctx *ctx) {
     /* the body's straight part is the front; its bulge below the floor is as constant
      * as the top ellipse, so it is booked with the cap */
     double front = (b->x1 - b->x0) * (b->bottom - b->top);
-    pp_element_add_part(&e, b->mark, PP_PART_FRONT, fmin(front, b->ink));
-    pp_element_add_part(&e, b->mark, PP_PART_CAP, fmax(0, b->ink - front));
-    pp_element_add_part(&e, cap->mark, PP_PART_CAP, cap->ink);
+    double bulge = fmax(0, b->ink - front);
+    /* what shows: the top ellipse (painted after) hides the body's top edge, so the front
+     * loses that and the bulge below the floor stays whole */
+    double body = pp_solid_visible_ink(ctx, b->mark), top = pp_solid_visible_ink(ctx, cap->mark);
+    pp_element_add_part(&e, b->mark, PP_PART_FRONT, fmax(0, fmin(front, body - bulge)));
+    pp_element_add_part(&e, b->mark, PP_PART_CAP, fmin(bulge, body));
+    pp_element_add_part(&e, cap->mark, PP_PART_CAP, top);
     pp_claims_take_mark(ctx->claims, b->mark, OWNER);
     pp_claims_take_mark(ctx->claims, cap->mark, OWNER);
-    e.ink = b->ink + cap->ink;
+    e.ink = body + top;
     e.box = pp_rect_union(b->box, cap->box);
     e.extent = b->bottom - b->top;
     e.shape.kind = PP_SHAPE_RECT;

@@ -26,6 +26,15 @@
 #define PP_SOLID_WALL_ZERO 0.02
 /* A label above a bar sits within this many font sizes over its top (common practice). */
 #define PP_SOLID_LABEL_REACH 3.0
+/* A back-wall gridline runs behind at least this share of the solids' width, and a wall
+ * is taken from at least PP_SOLID_WALL_MIN gridlines with their connectors (common
+ * practice, no source). */
+#define PP_SOLID_WALL_SPAN 0.8
+#define PP_SOLID_WALL_MIN 2
+/* A tick sits on a gridline (or a connector's front end) when it is nearer to it than
+ * this share of the wall's rise: the two candidates are one rise apart (common practice,
+ * no source). */
+#define PP_SOLID_WALL_TICK 0.25
 
 typedef struct {
   guint mark;
@@ -154,6 +163,109 @@ const pp_axis_candidate *pp_solid_value_axis(const pp_recognize_ctx *ctx, pp_rec
   return best;
 }
 
+typedef struct {
+  pp_point e[2];
+} stroke_ends;
+
+/* The straight segments a stroke draws: each line of each subpath (a gridline drawn alone,
+ * many in one path, or bent where the side wall meets the back wall). */
+static void straight_strokes(const pp_mark *m, GArray *out) {
+  const pp_path *p = m->path;
+  if (m->kind != PP_MARK_STROKE)
+    return;
+  for (size_t i = 1; i < p->n_segs; i++) {
+    const pp_seg *prev = &p->segs[i - 1];
+    if (p->segs[i].kind == PP_SEG_LINE &&
+        (prev->kind == PP_SEG_MOVE || prev->kind == PP_SEG_LINE)) {
+      stroke_ends se = {{prev->pt[0], p->segs[i].pt[0]}};
+      g_array_append_val(out, se);
+    }
+  }
+}
+
+/* A wall gridline at page y with the front end of its connector. */
+typedef struct {
+  double wall_y, front_y, rise;
+} wall_line;
+
+static int cmp_double(gconstpointer a, gconstpointer b) {
+  double x = *(const double *)a, y = *(const double *)b;
+  return (x > y) - (x < y);
+}
+
+/* The back wall as its gridlines draw it: horizontal strokes running behind the solids,
+ * each met at one end by a slanted stroke (the gridline carried along the side wall or
+ * floor to the front plane). The connectors' rise is how far the wall stands above the
+ * front plane on the page. Returns the rise the value axis must be read with: the rise
+ * when the axis's ticks sit on the wall's gridlines, 0 when they sit on the connectors'
+ * front ends; NAN when no such wall is drawn or the ticks sit on neither. */
+static double wall_shift(const pp_recognize_ctx *ctx, pp_rect all, const pp_scale *scale) {
+  const pp_scene *scene = ctx->scene;
+  g_autoptr(GArray) flat = g_array_new(FALSE, FALSE, sizeof(stroke_ends));
+  g_autoptr(GArray) slant = g_array_new(FALSE, FALSE, sizeof(stroke_ends));
+  double width = pp_rect_width(all);
+  g_autoptr(GArray) segs = g_array_new(FALSE, FALSE, sizeof(stroke_ends));
+  for (guint i = 0; i < scene->marks->len; i++)
+    straight_strokes(g_ptr_array_index(scene->marks, i), segs);
+  for (guint i = 0; i < segs->len; i++) {
+    stroke_ends se = g_array_index(segs, stroke_ends, i);
+    pp_point *e = se.e;
+    if (e[0].x > e[1].x) { /* left end first */
+      pp_point t = e[0];
+      e[0] = e[1], e[1] = t;
+    }
+    double run = e[1].x - e[0].x, rise = fabs(e[1].y - e[0].y);
+    if (rise <= PP_SOLID_TOL &&
+        fmin(e[1].x, all.x1) - fmax(e[0].x, all.x0) >= PP_SOLID_WALL_SPAN * width &&
+        e[0].y < all.y1)
+      g_array_append_val(flat, se);
+    else if (rise > PP_SOLID_EDGE_TOL && run > PP_SOLID_EDGE_TOL)
+      g_array_append_val(slant, se);
+  }
+  g_autoptr(GArray) lines = g_array_new(FALSE, FALSE, sizeof(wall_line));
+  g_autoptr(GArray) rises = g_array_new(FALSE, FALSE, sizeof(double));
+  for (guint i = 0; i < flat->len; i++) {
+    const pp_point *h = g_array_index(flat, stroke_ends, i).e;
+    for (guint k = 0; k < slant->len; k++) {
+      const pp_point *c = g_array_index(slant, stroke_ends, k).e;
+      pp_point up = c[0].y < c[1].y ? c[0] : c[1], down = c[0].y < c[1].y ? c[1] : c[0];
+      gboolean meets = FALSE;
+      for (int j = 0; j < 2; j++)
+        meets |=
+            fabs(up.x - h[j].x) <= PP_SOLID_EDGE_TOL && fabs(up.y - h[j].y) <= PP_SOLID_EDGE_TOL;
+      if (meets) {
+        wall_line w = {h[0].y, down.y, down.y - up.y};
+        g_array_append_val(lines, w);
+        g_array_append_val(rises, w.rise);
+        break;
+      }
+    }
+  }
+  if (lines->len < PP_SOLID_WALL_MIN)
+    return NAN;
+  g_array_sort(rises, cmp_double);
+  double rise = g_array_index(rises, double, rises->len / 2);
+  for (guint i = 0; i < lines->len; i++)
+    if (fabs(g_array_index(lines, wall_line, i).rise - rise) > PP_SOLID_EDGE_TOL)
+      return NAN; /* one wall, one depth */
+  /* each tick on the nearer of a gridline and a connector's front end */
+  guint on_wall = 0, on_front = 0;
+  for (guint t = 0; t < scale->ticks->len; t++) {
+    double pos = g_array_index(scale->ticks, pp_tick, t).pos, dw = INFINITY, df = INFINITY;
+    for (guint i = 0; i < lines->len; i++) {
+      const wall_line *w = &g_array_index(lines, wall_line, i);
+      dw = fmin(dw, fabs(pos - w->wall_y)), df = fmin(df, fabs(pos - w->front_y));
+    }
+    if (fmin(dw, df) <= PP_SOLID_WALL_TICK * rise)
+      dw < df ? on_wall++ : on_front++;
+  }
+  if (on_wall >= PP_SOLID_WALL_MIN && on_front == 0)
+    return rise;
+  if (on_front >= PP_SOLID_WALL_MIN && on_wall == 0)
+    return 0;
+  return NAN;
+}
+
 /* A number over the bar: above its front, on its cap or just above the whole solid. */
 static const pp_label *label_above(const pp_recognize_ctx *ctx, const solid *s) {
   const pp_label *best = NULL;
@@ -197,6 +309,79 @@ pp_rect pp_solid_frame(const pp_scene *scene, pp_rect all) {
   return best;
 }
 
+/* A fill hides what lies under it when it is painted opaque, outside any transparency
+ * group or soft mask, and unclipped (its whole path shows; a clipped cover is left out,
+ * which can only overstate the ink under it). */
+static gboolean hides(const pp_mark *c, const pp_mark *under) {
+  return c->kind == PP_MARK_FILL && c->paint.kind == PP_PAINT_SOLID && c->paint.a >= 1 &&
+         c->group_depth == 0 && !c->soft_masked && c->ink > 0 && pp_path_n_subpaths(c->path) == 1 &&
+         pp_rect_area(pp_rect_intersect(c->bbox, under->visible_bbox)) > 0 &&
+         fabs(pp_rect_area(c->visible_bbox) - pp_rect_area(c->bbox)) <=
+             1e-9 * pp_rect_area(c->bbox);
+}
+
+/* Appends one subpath turning counter-clockwise (as seen on the page): covers that all
+ * turn one way, filled under the nonzero rule, paint their union (ISO 32000-1, 8.5.3.3.2). */
+static void append_oriented(pp_path *out, const pp_path *p) {
+  if (pp_path_signed_area(p) >= 0) {
+    for (size_t i = 0; i < p->n_segs; i++) {
+      const pp_seg *s = &p->segs[i];
+      if (s->kind == PP_SEG_MOVE)
+        pp_path_move_to(out, s->pt[0].x, s->pt[0].y);
+      else if (s->kind == PP_SEG_LINE)
+        pp_path_line_to(out, s->pt[0].x, s->pt[0].y);
+      else if (s->kind == PP_SEG_CURVE)
+        pp_path_curve_to(out, s->pt[0].x, s->pt[0].y, s->pt[1].x, s->pt[1].y, s->pt[2].x,
+                         s->pt[2].y);
+    }
+    pp_path_close(out);
+    return;
+  }
+  /* reversed: from the start back along the implicit closing edge, then each segment
+   * backwards (a cubic's control points swap) */
+  size_t n = 0;
+  g_autofree pp_point *end = g_new(pp_point, p->n_segs + 1);
+  for (size_t i = 0; i < p->n_segs; i++)
+    if (p->segs[i].kind != PP_SEG_CLOSE)
+      end[n++] = p->segs[i].pt[p->segs[i].kind == PP_SEG_CURVE ? 2 : 0];
+  if (n == 0)
+    return;
+  pp_path_move_to(out, end[0].x, end[0].y);
+  pp_path_line_to(out, end[n - 1].x, end[n - 1].y);
+  for (size_t i = p->n_segs, k = n - 1; i-- > 0;) {
+    const pp_seg *s = &p->segs[i];
+    if (s->kind == PP_SEG_CLOSE || s->kind == PP_SEG_MOVE)
+      continue;
+    if (s->kind == PP_SEG_LINE)
+      pp_path_line_to(out, end[k - 1].x, end[k - 1].y);
+    else
+      pp_path_curve_to(out, s->pt[1].x, s->pt[1].y, s->pt[0].x, s->pt[0].y, end[k - 1].x,
+                       end[k - 1].y);
+    k--;
+  }
+  pp_path_close(out);
+}
+
+double pp_solid_visible_ink(const pp_recognize_ctx *ctx, guint mark) {
+  const pp_scene *scene = ctx->scene;
+  const pp_mark *m = g_ptr_array_index(scene->marks, mark);
+  if (!(m->ink > 0))
+    return m->ink;
+  g_autoptr(pp_path) covers = pp_path_new();
+  guint n = 0;
+  for (guint i = mark + 1; i < scene->marks->len; i++) {
+    const pp_mark *c = g_ptr_array_index(scene->marks, i);
+    if (!g_hash_table_contains(ctx->glyph_marks, GUINT_TO_POINTER(i)) && hides(c, m))
+      append_oriented(covers, c->path), n++;
+  }
+  if (n == 0)
+    return m->ink;
+  /* the covers' union inside this fill (and its clip): exact, by the geometry stage */
+  g_autoptr(pp_clip) within = pp_clip_new(m->clip, pp_path_copy(m->path), m->rule);
+  double hidden = pp_path_clipped_area(covers, PP_FILL_NONZERO, within);
+  return isfinite(hidden) ? fmax(0, m->ink - hidden) : m->ink;
+}
+
 /* The segment a side face belongs to: the front its height range overlaps most (a side
  * rises by the depth above its own front, so it overlaps the one above only a little). */
 static guint side_owner(GArray *faces, const solid *s, const face *side) {
@@ -236,8 +421,10 @@ static void build(pp_recognize_ctx *ctx, GArray *faces, GArray *solids) {
   for (guint i = 0; i < solids->len; i++)
     all = pp_rect_union(all, g_array_index(solids, solid, i).box);
   const pp_axis_candidate *axis = shared ? pp_solid_value_axis(ctx, all) : NULL;
-  double shift = 0;
-  if (axis) { /* front plane, or the back wall the caps recede to */
+  double shift = 0, wall = axis ? wall_shift(ctx, all, axis->scale) : NAN;
+  if (isfinite(wall)) { /* the wall's gridlines say which plane the ticks are on */
+    shift = wall;
+  } else if (axis) { /* front plane, or a back wall as deep as the caps */
     double depth = 0;
     for (guint i = 0; i < solids->len; i++)
       depth = fmax(depth, g_array_index(solids, solid, i).depth);
@@ -272,23 +459,26 @@ static void build(pp_recognize_ctx *ctx, GArray *faces, GArray *solids) {
     for (guint k = s->fronts->len; k-- > 0;) { /* bottom segment first */
       const face *fr = &g_array_index(faces, face, g_array_index(s->fronts, guint, k));
       pp_element e = pp_element_init(PP_ENCODING_AREA);
-      pp_element_add_part(&e, fr->mark, PP_PART_FRONT, fr->ink);
+      double seen = pp_solid_visible_ink(ctx, fr->mark);
+      pp_element_add_part(&e, fr->mark, PP_PART_FRONT, seen);
       pp_claims_take_mark(ctx->claims, fr->mark, OWNER);
-      e.ink = fr->ink;
+      e.ink = seen;
       e.box = fr->box;
       for (guint j = 0; j < s->sides->len; j++) {
         const face *sd = &g_array_index(faces, face, g_array_index(s->sides, guint, j));
         if (side_owner(faces, s, sd) == k && pp_claims_mark_free(ctx->claims, sd->mark)) {
-          pp_element_add_part(&e, sd->mark, PP_PART_SIDE, sd->ink);
+          seen = pp_solid_visible_ink(ctx, sd->mark);
+          pp_element_add_part(&e, sd->mark, PP_PART_SIDE, seen);
           pp_claims_take_mark(ctx->claims, sd->mark, OWNER);
-          e.ink += sd->ink, e.box = pp_rect_union(e.box, sd->box);
+          e.ink += seen, e.box = pp_rect_union(e.box, sd->box);
         }
       }
       if (k == 0 && s->cap >= 0) {
         const face *cp = &g_array_index(faces, face, s->cap);
-        pp_element_add_part(&e, cp->mark, PP_PART_CAP, cp->ink);
+        seen = pp_solid_visible_ink(ctx, cp->mark);
+        pp_element_add_part(&e, cp->mark, PP_PART_CAP, seen);
         pp_claims_take_mark(ctx->claims, cp->mark, OWNER);
-        e.ink += cp->ink, e.box = pp_rect_union(e.box, cp->box);
+        e.ink += seen, e.box = pp_rect_union(e.box, cp->box);
       }
       e.shape.kind = PP_SHAPE_QUAD;
       memcpy(e.shape.quad.p, fr->q.p, sizeof e.shape.quad.p);
@@ -325,6 +515,8 @@ static void build(pp_recognize_ctx *ctx, GArray *faces, GArray *solids) {
   fig->bbox = pp_solid_frame(ctx->scene, all);
   pp_figure_add_evidence(fig, "faces-share-edges", 1);
   pp_figure_add_evidence(fig, shared ? "shared-baseline" : "data-labels", 1);
+  if (isfinite(wall))
+    pp_figure_add_evidence(fig, "wall-gridlines", 1);
   if (axis) {
     pp_figure_add_evidence(fig, "scale-fits", 1);
     pp_axis_claim_labels(ctx, axis);
@@ -332,6 +524,39 @@ static void build(pp_recognize_ctx *ctx, GArray *faces, GArray *solids) {
   pp_claims_commit(ctx->claims);
   pp_figure_finish(ctx, fig, axis);
   (void)oblique;
+}
+
+/* A group that is not one bar may be two whose edges merely come near: packed or
+ * overlapping bars put one bar's side edge within PP_SOLID_EDGE_TOL of the next bar's front
+ * edge. The faces of one solid share edges to the producer's rounding, so the group is
+ * joined again at that closeness (PP_SOLID_TOL) and each part tried as a bar. */
+static void split_group(GArray *faces, const guint *group, guint g, guint n_groups,
+                        GArray *solids) {
+  g_autoptr(GArray) idx = g_array_new(FALSE, FALSE, sizeof(guint));
+  g_autoptr(GArray) quads = g_array_new(FALSE, FALSE, sizeof(pp_quad));
+  for (guint i = 0; i < faces->len; i++)
+    if (group[i] == g) {
+      g_array_append_val(idx, i);
+      g_array_append_val(quads, g_array_index(faces, face, i).q);
+    }
+  if (idx->len < 4)
+    return; /* two bars have at least a front and one more face each */
+  g_autofree guint *part = g_new(guint, idx->len);
+  guint n = pp_quads_group_by_edges((pp_quad *)quads->data, idx->len, PP_SOLID_TOL, part);
+  if (n < 2)
+    return;
+  g_autofree guint *sub = g_new(guint, faces->len);
+  for (guint i = 0; i < faces->len; i++)
+    sub[i] = G_MAXUINT;
+  for (guint k = 0; k < idx->len; k++)
+    sub[g_array_index(idx, guint, k)] = n_groups + part[k];
+  for (guint k = 0; k < n; k++) {
+    solid s = {0};
+    if (make_solid(faces, sub, n_groups + k, &s))
+      g_array_append_val(solids, s);
+    else
+      solid_clear(&s);
+  }
 }
 
 void pp_recognize_solid_bars(pp_recognize_ctx *ctx) {
@@ -349,8 +574,10 @@ void pp_recognize_solid_bars(pp_recognize_ctx *ctx) {
     solid s = {0};
     if (make_solid(faces, group, g, &s))
       g_array_append_val(solids, s);
-    else
+    else {
       solid_clear(&s);
+      split_group(faces, group, g, n, solids);
+    }
   }
   build(ctx, faces, solids);
 }

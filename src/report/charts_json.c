@@ -81,7 +81,23 @@ static void add_shape(JsonBuilder *b, const pp_shape *s) {
   json_builder_end_object(b);
 }
 
-static void add_element(JsonBuilder *b, const pp_element *e) {
+/* A stack segment's reading, for a reviewer to check against the page: where the scale
+ * puts its ends, the value it gives the segment (its thickness; the bottom segment's is
+ * its end's reading, a bar from 0, as the rules read it), its printed number, its box. */
+static void add_segment_reading(JsonBuilder *b, const pp_scene *scene, const pp_part *p,
+                                gboolean bottom) {
+  pp_json_member_number(b, "start", p->start);
+  pp_json_member_number(b, "end", p->end);
+  pp_json_member_number(b, "scale_value", bottom ? p->end : p->end - p->start);
+  pp_json_member_number(b, "label_value", p->label_value);
+  if (p->mark < scene->marks->len) {
+    const pp_mark *m = g_ptr_array_index(scene->marks, p->mark);
+    pp_json_member_rect(b, "box", m->visible_bbox);
+    pp_json_member_rect(b, "pdf_box", pp_rect_transform(m->visible_bbox, scene->to_pdf));
+  }
+}
+
+static void add_element(JsonBuilder *b, const pp_scene *scene, const pp_element *e) {
   json_builder_begin_object(b);
   pp_json_member_string(b, "encoding", pp_encoding_name(e->encoding));
   add_shape(b, &e->shape);
@@ -93,6 +109,8 @@ static void add_element(JsonBuilder *b, const pp_element *e) {
     pp_json_member_int(b, "mark", p->mark);
     pp_json_member_string(b, "role", pp_part_role_name(p->role));
     pp_json_member_number(b, "ink", p->ink);
+    if (p->role == PP_PART_SEGMENT)
+      add_segment_reading(b, scene, p, i == 0);
     json_builder_end_object(b);
   }
   json_builder_end_array(b);
@@ -135,7 +153,7 @@ static void add_figure(JsonBuilder *b, const pp_scene *scene, const pp_figure *f
   json_builder_set_member_name(b, "elements");
   json_builder_begin_array(b);
   for (guint i = 0; f->elements && i < f->elements->len; i++)
-    add_element(b, &g_array_index(f->elements, pp_element, i));
+    add_element(b, scene, &g_array_index(f->elements, pp_element, i));
   json_builder_end_array(b);
   json_builder_end_object(b);
 }
