@@ -96,17 +96,30 @@ r_pyramid <- function(name, dev, values, honest, funnel = FALSE) {
 }
 
 bub <- c(6, 14, 23, 31, 40, 52, 58)
-r_bubbles("rs_bubbles_radius", "pdf", bub, "radius")
-r_bubbles("rs_bubbles_area", "pdf", bub, "area")
 # cairo draws a circle under about 4 pt of radius with two Bézier curves, ink about 2%
 # over πr² (seen here): the cairo twins keep every radius above that.
 bub_c <- c(11, 14, 23, 31, 40, 52, 58)
+tiers_v <- c(12, 21, 30, 37)
+funnel_v <- c(41, 27, 16, 10, 6)
+# Held-out corpora (scripts/holdout sets PP_CORPUS_SEED_OFFSET): other invented values of
+# the same shapes, each set spanning a wide range so that the misleading twins stay
+# misleading (the committed corpus keeps the values above).
+offset <- as.integer(Sys.getenv("PP_CORPUS_SEED_OFFSET", "0"))
+if (!is.na(offset) && offset != 0) {
+  set.seed(seed + offset)
+  spread <- function(n, lo, hi) sort(c(lo + sample(0:3, 1), hi - sample(0:3, 1),
+                                       sample((lo + 5):(hi - 5), n - 2)))
+  bub <- spread(7, 6, 60)
+  bub_c <- spread(7, 11, 60)
+  tiers_v <- spread(4, 8, 40)
+  funnel_v <- rev(spread(5, 5, 45))
+}
+r_bubbles("rs_bubbles_radius", "pdf", bub, "radius")
+r_bubbles("rs_bubbles_area", "pdf", bub, "area")
 r_bubbles("rs_bubbles_radius_cairo", "cairo_pdf", rev(bub_c), "radius")
 r_bubbles("rs_bubbles_area_cairo", "cairo_pdf", rev(bub_c), "area")
-tiers_v <- c(12, 21, 30, 37)
 r_pyramid("rs_pyramid_heights", "pdf", tiers_v, FALSE)
 r_pyramid("rs_pyramid_areas", "pdf", tiers_v, TRUE)
-funnel_v <- c(41, 27, 16, 10, 6)
 r_pyramid("rs_funnel_heights", "cairo_pdf", funnel_v, FALSE, funnel = TRUE)
 r_pyramid("rs_funnel_areas", "cairo_pdf", funnel_v, TRUE, funnel = TRUE)
 cat("gen_r_shapes: 8 files\n")

@@ -326,7 +326,7 @@ def main():
     perspective_bars("shape_persp_deep", 941, True)
     perspective_bars("shape_persp_shallow", 941, False)
     perspective_bars("shape_persp_receding", 942, True, receding=True)
-    perspective_bars("shape_persp_receding_overlap", 948, True, receding=True, spacing=0.4)
+    perspective_bars("shape_persp_receding_overlap", 948, True, receding=True, spacing=0.5)
     oblique_bars("shape_oblique_overlap", 946, True)
     oblique_bars("shape_oblique_overlap_shallow", 946, False)
     oblique_bars("shape_oblique_wall_deep", 947, True, wall=True)

@@ -272,8 +272,11 @@ def funnel(seed, honest):
     return build
 
 
-def population_pyramid(seed):
-    """Two-sided horizontal bars from a central zero: honest bars, not slices."""
+def population_pyramid(seed, cut=0):
+    """Two-sided horizontal bars from a central zero: honest bars, not slices. With cut > 0
+    the bars start from the value cut at the shared line (its tick label prints it), so
+    their lengths stand for value - cut: bars off zero. Truth: the values drawn; the ink of
+    each bar is proportional to value - cut (truth.py, the baseline)."""
     def build():
         rng = rng_of(seed)
         ages = ["0-9", "10-19", "20-29", "30-39", "40-49", "50-59", "60+"]
@@ -282,20 +285,30 @@ def population_pyramid(seed):
         fig = new_fig()
         ax = fig.add_axes((0.13, 0.12, 0.8, 0.78))
         y = list(range(len(ages)))
-        ax.barh(y, [-a for a in left], color=HUES[0][0], height=0.8)
-        ax.barh(y, right, color=HUES[1][0], height=0.8)
+        ax.barh(y, [-(a - cut) for a in left], color=HUES[0][0], height=0.8)
+        ax.barh(y, [b - cut for b in right], color=HUES[1][0], height=0.8)
         ax.set_yticks(y)
         ax.set_yticklabels(ages)
-        ax.set_xlim(-500, 500)
-        ax.set_xticks([-400, -200, 0, 200, 400])
-        ax.set_xticklabels(["400", "200", "0", "200", "400"])
+        if cut:
+            ax.set_xlim(-(500 - cut), 500 - cut)
+            ticks = [t for t in range(-400, 401, 100) if abs(t) <= 500 - cut]
+            ax.set_xticks(ticks)
+            ax.set_xticklabels(["%d" % (abs(t) + cut) for t in ticks])
+        else:
+            ax.set_xlim(-500, 500)
+            ax.set_xticks([-400, -200, 0, 200, 400])
+            ax.set_xticklabels(["400", "200", "0", "200", "400"])
         ax.set_title("Orchard workers by age (left: seasonal, right: permanent)", fontsize=10)
-        d = {"kind": "bar", "misleading": False, "rule": None,
-             "values": [-a for a in left] + right,
+        d = {"kind": "bar", "misleading": cut > 0, "rule": "bars-off-zero" if cut else None,
+             # magnitudes when judged (the scale reads them on both sides)
+             "values": ([a for a in left] if cut else [-a for a in left]) + right,
              "labels": ["%s/seasonal" % a for a in ages] + ["%s/permanent" % a for a in ages],
-             "axis": {"min": -500.0, "max": 500.0, "scale": "linear", "orientation": "x"},
-             "baseline": 0.0, "style": ["population-pyramid", "two-sided"],
-             "notes": "tick labels print magnitudes on both sides"}
+             "axis": {"min": -500.0 if not cut else float(cut), "max": 500.0, "scale": "linear",
+                      "orientation": "x"},
+             "baseline": float(cut), "style": ["population-pyramid", "two-sided"] +
+                                               (["truncated"] if cut else []),
+             "notes": "tick labels print magnitudes on both sides" +
+                      (", from %d at the shared line" % cut if cut else "")}
         d["bbox"] = box_of(fig, ax)
         return fig, [d]
     return build
@@ -505,6 +518,89 @@ def bar3d_grid(seed, honest):
     return build
 
 
+def drawn_faces(ax, coll, corners):
+    """The faces of a bar3d collection in the order matplotlib painted them (its own depth
+    sort, read back after drawing), each as (bar, part, corners in display units): matched
+    to the bars by their projected corners."""
+    out = []
+    for path in coll.get_paths():
+        pts = ax.transData.transform(path.vertices[:4])
+        best = None
+        for i, c in enumerate(corners):
+            for name, idx in BOX_FACES.items():
+                d = sum(min(math.hypot(px - c[k][0], py - c[k][1]) for k in idx)
+                        for px, py in pts)
+                if best is None or d < best[0]:
+                    best = (d, i, name)
+        if best[0] > 0.05:
+            raise SystemExit("bar3d face not matched to a bar (%.3f)" % best[0])
+        out.append({"bar": best[1], "part": best[2],
+                    "corners": [[round(float(a), 4), round(float(b), 4)] for a, b in pts]})
+    return out
+
+
+def bar3d_persp(seed, honest):
+    """Axes3D.bar3d in matplotlib's default perspective view. Misleading: two rows of wide
+    bars seen from above (tops of constant size, fronts shrinking with depth, nearer bars
+    hiding parts of those behind) over values from 6 to 60. Honest as a 3D chart can be: one
+    row of thin slabs seen face on from low down (fronts all at one depth, so in proportion),
+    values from 40 to 96. Truth: every face matplotlib painted, in its painting order
+    and at its page corners (its own projection and depth sort, read back after drawing);
+    scripts/corpus/truth_shapes.py takes what each face shows after the faces painted over
+    it."""
+    def build():
+        from mpl_toolkits.mplot3d import proj3d
+        rng = rng_of(seed)
+        if honest:
+            cols, rows = ORCHARDS[:5], ["2030"]
+            v = with_spread(rng, values_between(rng, len(cols), 40, 96), (40, 45), (90, 96))
+            fw, fd, elev, azim, top = 0.5, 0.05, 5, -90, 100
+        else:
+            cols, rows = ORCHARDS[:4], ["2029", "2030"]
+            v = sorted(with_spread(rng, values_between(rng, 8, 10, 60), (6, 9), (55, 60)))
+            front, back = v[:4], v[4:]
+            rng.shuffle(front)
+            rng.shuffle(back)
+            v = front + back  # the taller row behind, so that every bar shows
+            fw, fd, elev, azim, top = 0.6, 0.6, 30, -60, 70
+        n = len(v)
+        fig = new_fig(6.4, 4.8)
+        ax = fig.add_axes((0.02, 0.04, 0.94, 0.9), projection="3d")
+        ax.view_init(elev=elev, azim=azim)
+        xs = [c for r in range(len(rows)) for c in range(len(cols))]
+        ys = [r for r in range(len(rows)) for c in range(len(cols))]
+        coll = ax.bar3d([x - fw / 2 for x in xs], [y - fd / 2 for y in ys], [0] * n, fw, fd,
+                        v, color=HUES[1][0] if honest else HUES[0][0], shade=True)
+        ax.set_zlim(0, top)
+        ax.set_xlim(-0.5, len(cols) - 0.5)
+        ax.set_ylim(-0.5, len(rows) - 0.5)
+        ax.set_xticks(range(len(cols)))
+        ax.set_xticklabels(cols)
+        ax.set_yticks(range(len(rows)))
+        ax.set_yticklabels(rows)
+        ax.set_title("Trees planted by orchard and year", fontsize=11)
+        bbox = box_of(fig, ax)  # draws: the projection and order below are the page's
+        M = ax.get_proj()
+        corners = []
+        for x, y, h in zip(xs, ys, v):
+            pts = box_corners(x - fw / 2, y - fd / 2, 0, fw, fd, h)
+            px, py, _ = proj3d.proj_transform(*zip(*pts), M)
+            corners.append([tuple(p) for p in ax.transData.transform(list(zip(px, py)))])
+        d = {"kind": "bar-3d", "misleading": not honest,
+             "rule": None if honest else "bars-3d-ink", "values": v,
+             "labels": ["%s/%s" % (c, r) for r in rows for c in cols],
+             "axis": {"min": 0.0, "max": float(top), "scale": "linear", "orientation": "z"},
+             "baseline": 0.0,
+             "solid": {"projection": "drawn", "base": 0.0,
+                       "faces": drawn_faces(ax, coll, corners),
+                       "footprint": [fw, fd], "view": [elev, azim]},
+             "style": ["bar3d", "perspective"] +
+                      (["one-row", "low-view"] if honest else ["two-categories", "occluded"])}
+        d["bbox"] = bbox
+        return fig, [d]
+    return build
+
+
 PLAN = [
     ("shape_oblique_deep", 901, oblique_bars(901, True)),
     ("shape_oblique_shallow", 901, oblique_bars(901, False)),
@@ -512,6 +608,8 @@ PLAN = [
     ("shape_oblique_stacked", 903, stacked_oblique(903)),
     ("shape_bar3d_grid", 904, bar3d_grid(904, False)),
     ("shape_bar3d_thin", 905, bar3d_grid(905, True)),
+    ("shape_bar3d_persp", 906, bar3d_persp(906, False)),
+    ("shape_bar3d_persp_honest", 907, bar3d_persp(907, True)),
     ("shape_pyramid_heights", 911, pyramid(911, False)),
     ("shape_pyramid_areas", 911, pyramid(911, True)),
     ("shape_pyramid_pct", 912, pyramid(912, False, percent=True)),
@@ -521,6 +619,7 @@ PLAN = [
     ("shape_funnel_trapezoids", 913, funnel(913, False)),
     ("shape_funnel_bars", 913, funnel(913, True)),
     ("shape_population_pyramid", 914, population_pyramid(914)),
+    ("shape_population_pyramid_cut", 918, population_pyramid(918, cut=100)),
     ("shape_chevrons", 915, chevrons(915)),
     ("shape_bubbles_radius", 921, bubbles(921, "radius")),
     ("shape_bubbles_area", 921, bubbles(921, "area")),

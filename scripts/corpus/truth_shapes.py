@@ -148,6 +148,56 @@ def box_faces_seen(solid):
     return out
 
 
+def _minus_convex(pieces, cover):
+    """Convex pieces less a convex cover: each piece split by the cover's edges into the
+    parts outside it (textbook convex decomposition)."""
+    if _signed(cover) < 0:
+        cover = cover[::-1]
+    out = []
+    for rem in pieces:
+        for i in range(len(cover)):
+            a, b = cover[i], cover[(i + 1) % len(cover)]
+            if len(rem) < 3:
+                break
+            part = _half(rem, b, a)  # right of a->b: outside this edge
+            if len(part) >= 3 and abs(_signed(part)) > 1e-12:
+                out.append(part)
+            rem = _half(rem, a, b)
+    return out
+
+
+def _half(poly, a, b):
+    """The part of a convex polygon left of a->b (counter-clockwise inside; textbook)."""
+    side = lambda p: (b[0] - a[0]) * (p[1] - a[1]) - (b[1] - a[1]) * (p[0] - a[0])  # noqa
+    out = []
+    for k in range(len(poly)):
+        p, q = poly[k], poly[(k + 1) % len(poly)]
+        sp, sq = side(p), side(q)
+        if sp >= 0:
+            out.append(p)
+        if (sp >= 0) != (sq >= 0):
+            t = sp / (sp - sq)
+            out.append((p[0] + t * (q[0] - p[0]), p[1] + t * (q[1] - p[1])))
+    return out
+
+
+def drawn_faces_seen(solid, n):
+    """Faces as painted (solid["faces"]: bar, part, corners, in painting order): what each
+    shows after every face painted later, in display units²; per bar (vertical, top)."""
+    faces = solid["faces"]
+    vert, top = [0.0] * n, [0.0] * n
+    for i, f in enumerate(faces):
+        pieces = [[tuple(p) for p in f["corners"]]]
+        for g in faces[i + 1:]:
+            pieces = _minus_convex(pieces, [tuple(p) for p in g["corners"]])
+        seen = sum(abs(_signed(p)) for p in pieces)
+        if f["part"] == "top":
+            top[f["bar"]] += seen
+        else:  # the bottom too: whatever of it shows is ink (it never does from above)
+            vert[f["bar"]] += seen
+    return list(zip(vert, top))
+
+
 def oblique_faces_seen(solid, v):
     """Oblique bars placed at solid["x"] (front left edges, data units, y up), painted in
     that order, each as front, side and cap: per bar (front, cap, total) seen. A face seen
@@ -225,6 +275,8 @@ def bar3d_faces(solid, v):
     b = solid.get("base", 0.0)
     if proj == "box":  # the top is the constant; what is hidden is off both
         return [(vt, tp, vt + tp) for vt, tp in box_faces_seen(solid)]
+    if proj == "drawn":  # faces as painted, each less what is painted over it
+        return [(vt, tp, vt + tp) for vt, tp in drawn_faces_seen(solid, len(v))]
     out = []
     for i, vi in enumerate(v):
         h = vi - b if "segment_base" not in solid else vi  # a segment's own height

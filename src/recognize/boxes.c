@@ -300,8 +300,23 @@ void pp_recognize_boxes(pp_recognize_ctx *ctx) {
   if (faces->len < 6)
     return;
   g_autoptr(GArray) quads = g_array_sized_new(FALSE, FALSE, sizeof(pp_quad), faces->len);
-  for (guint i = 0; i < faces->len; i++)
+  g_autofree guint *marks = g_new(guint, faces->len);
+  for (guint i = 0; i < faces->len; i++) {
     g_array_append_val(quads, g_array_index(faces, face, i).q);
+    marks[i] = g_array_index(faces, face, i).mark;
+  }
+  /* Boxes seen in perspective (box_persp.c) have no vertical edges on the page: when the
+   * floor and walls show a perspective view, the boxes are read there and not here. */
+  g_autoptr(GArray) pane_quads = g_array_sized_new(FALSE, FALSE, sizeof(pp_quad), panes->len);
+  g_autofree guint *pane_marks = g_new(guint, panes->len + 1);
+  for (guint i = 0; i < panes->len; i++) {
+    g_array_append_val(pane_quads, g_array_index(panes, face, i).q);
+    pane_marks[i] = g_array_index(panes, face, i).mark;
+  }
+  if (pp_recognize_boxes_in_perspective(ctx, (const pp_quad *)quads->data, marks, faces->len,
+                                        (const pp_quad *)pane_quads->data, pane_marks,
+                                        pane_quads->len))
+    return;
   g_autofree guint *group = g_new(guint, faces->len);
   guint n = pp_quads_group_by_edges((pp_quad *)quads->data, faces->len, PP_BOX_TOL, group);
   g_autoptr(GArray) boxes = g_array_new(FALSE, FALSE, sizeof(box));

@@ -270,6 +270,34 @@ void pp_recognize_two_sided(pp_recognize_ctx *ctx);     /* two_sided.c */
 const pp_axis_candidate *pp_solid_value_axis(const pp_recognize_ctx *ctx, pp_rect all);
 char *pp_solid_category(const pp_scene *scene, pp_rect front, double base);
 pp_rect pp_solid_frame(const pp_scene *scene, pp_rect all);
+/* The view of a 3D chart's box in perspective (box_view.c): page ~ p · (X, Y, Z, 1) over
+ * the box's unit cube (Z up), the value scale value = offset + slope·Z read from the ticks
+ * of one vertical edge, and the labels (indices into ctx->labels) it read. */
+typedef struct {
+  double p[3][4];
+  pp_rect frame;      /* the panes' extent */
+  guint panes[3];     /* which of the candidate panes are the floor and walls */
+  double depth_ratio; /* largest over smallest depth of the box's corners: 1 orthographic */
+  double offset, slope, tick_lo, tick_hi;
+  guint n_ticks;
+  GArray *labels;   /* guint */
+  GArray *tick_pos; /* pp_point, where each labelled tick meets the edge */
+} pp_box_view;
+/* The first three of the quads that meet as a floor and two walls and carry a value scale
+ * on a vertical edge; the labels are not claimed. */
+gboolean pp_box_view_find(const pp_recognize_ctx *ctx, const pp_quad *quads, guint n,
+                          pp_box_view *view);
+pp_point pp_box_view_project(const pp_box_view *view, double x, double y, double z);
+gboolean pp_box_view_on_plane(const pp_box_view *view, pp_point page, double z, double *x,
+                              double *y);
+double pp_box_view_height(const pp_box_view *view, double x, double y, pp_point page);
+void pp_box_view_clear(pp_box_view *view);
+/* boxes.c's perspective half (box_persp.c): faces (quads) with their mark indices, and the
+ * panes (quads holding others) among which the floor and two walls are looked for. FALSE
+ * when they show no view in perspective (the orthographic reading is boxes.c's). */
+gboolean pp_recognize_boxes_in_perspective(pp_recognize_ctx *ctx, const pp_quad *faces,
+                                           const guint *marks, guint n, const pp_quad *panes,
+                                           const guint *pane_marks, guint n_panes);
 /* The ink of a fill as it shows on the page: less what opaque fills painted after it cover
  * (painter's order), measured exactly by the geometry stage. */
 double pp_solid_visible_ink(const pp_recognize_ctx *ctx, guint mark);

@@ -526,6 +526,39 @@ static void build(pp_recognize_ctx *ctx, GArray *faces, GArray *solids) {
   (void)oblique;
 }
 
+/* A group that is not one bar may be two whose edges merely come near: packed or
+ * overlapping bars put one bar's side edge within PP_SOLID_EDGE_TOL of the next bar's front
+ * edge. The faces of one solid share edges to the producer's rounding, so the group is
+ * joined again at that closeness (PP_SOLID_TOL) and each part tried as a bar. */
+static void split_group(GArray *faces, const guint *group, guint g, guint n_groups,
+                        GArray *solids) {
+  g_autoptr(GArray) idx = g_array_new(FALSE, FALSE, sizeof(guint));
+  g_autoptr(GArray) quads = g_array_new(FALSE, FALSE, sizeof(pp_quad));
+  for (guint i = 0; i < faces->len; i++)
+    if (group[i] == g) {
+      g_array_append_val(idx, i);
+      g_array_append_val(quads, g_array_index(faces, face, i).q);
+    }
+  if (idx->len < 4)
+    return; /* two bars have at least a front and one more face each */
+  g_autofree guint *part = g_new(guint, idx->len);
+  guint n = pp_quads_group_by_edges((pp_quad *)quads->data, idx->len, PP_SOLID_TOL, part);
+  if (n < 2)
+    return;
+  g_autofree guint *sub = g_new(guint, faces->len);
+  for (guint i = 0; i < faces->len; i++)
+    sub[i] = G_MAXUINT;
+  for (guint k = 0; k < idx->len; k++)
+    sub[g_array_index(idx, guint, k)] = n_groups + part[k];
+  for (guint k = 0; k < n; k++) {
+    solid s = {0};
+    if (make_solid(faces, sub, n_groups + k, &s))
+      g_array_append_val(solids, s);
+    else
+      solid_clear(&s);
+  }
+}
+
 void pp_recognize_solid_bars(pp_recognize_ctx *ctx) {
   g_autoptr(GArray) faces = collect_faces(ctx);
   if (faces->len < 4)
@@ -541,8 +574,10 @@ void pp_recognize_solid_bars(pp_recognize_ctx *ctx) {
     solid s = {0};
     if (make_solid(faces, group, g, &s))
       g_array_append_val(solids, s);
-    else
+    else {
       solid_clear(&s);
+      split_group(faces, group, g, n, solids);
+    }
   }
   build(ctx, faces, solids);
 }

@@ -1,7 +1,8 @@
 /* two_sided.c — recognizer: two-sided bars (population pyramids, back-to-back bars): rows
- * of bars reaching left and right from one shared zero line, under a value axis that prints
- * magnitudes on both sides (400 200 0 200 400), which no linear fit takes. Read and counted
- * as a bar chart; not judged by an ink rule (no one scale runs across it). */
+ * of bars reaching left and right from one shared line, under a value axis that prints
+ * magnitudes on both sides (400 200 0 200 400), which no linear fit across the page takes.
+ * The scale is read as value = a + b·(distance from the shared line) on both sides at once:
+ * bars from a line that reads a ≠ 0 are bars off zero. */
 #include <math.h>
 
 #include "internal.h"
@@ -18,9 +19,13 @@
  * most below or above the bars, pt (common practice, no source). */
 #define PP_TWO_MIRROR_TOL 2.0
 #define PP_TWO_LABEL_REACH 40.0
+/* The printed values follow their distance from the shared line within this share of their
+ * range: tick labels are centred on their ticks to a fraction of a point (common practice,
+ * no source). */
+#define PP_TWO_SCALE_TOL 0.005
 
 /* Pairs of labels of one value at mirrored places about x = c, on one row near the bars,
- * with a 0 at c. */
+ * with a label at c. */
 static guint mirrored_labels(const pp_recognize_ctx *ctx, double c, pp_rect bars) {
   gboolean zero = FALSE;
   guint pairs = 0;
@@ -31,7 +36,8 @@ static guint mirrored_labels(const pp_recognize_ctx *ctx, double c, pp_rect bars
         !((below >= -1 && below <= PP_TWO_LABEL_REACH) ||
           (above >= -1 && above <= PP_TWO_LABEL_REACH)))
       continue;
-    if (a->number.value == 0 && fabs(a->centre.x - c) <= PP_TWO_MIRROR_TOL)
+    /* the line's own label: 0, or the value the bars start from when they are cut */
+    if (a->number.value >= 0 && fabs(a->centre.x - c) <= PP_TWO_MIRROR_TOL)
       zero = TRUE;
     if (a->centre.x <= c + PP_TWO_MIRROR_TOL || !(a->number.value > 0))
       continue;
@@ -45,6 +51,76 @@ static guint mirrored_labels(const pp_recognize_ctx *ctx, double c, pp_rect bars
     }
   }
   return zero ? pairs : 0;
+}
+
+/* The mirrored scale: every free numeric label of the row of tick labels (the fullest row
+ * within reach below or above the bars), its distance d from x = c; value = a + b·d by
+ * least squares. FALSE unless three or more distinct distances fit within
+ * PP_TWO_SCALE_TOL of their range with b > 0. The labels read are added to used. */
+typedef struct {
+  double a, b, lo, hi; /* value at the line, per pt, the labels' range */
+  double d_max;        /* farthest label from the line, pt */
+} mirrored;
+
+static gboolean in_reach(const pp_label *l, pp_rect bars) {
+  double below = l->box.y0 - bars.y1, above = bars.y0 - l->box.y1;
+  return (below >= -1 && below <= PP_TWO_LABEL_REACH) ||
+         (above >= -1 && above <= PP_TWO_LABEL_REACH);
+}
+
+static gboolean mirrored_scale(const pp_recognize_ctx *ctx, double c, pp_rect bars, mirrored *m,
+                               GArray *used) {
+  /* the row: the label centre height shared by most labels in reach */
+  double row = NAN;
+  guint best = 0;
+  for (guint i = 0; i < ctx->labels->len; i++) {
+    const pp_label *a = g_ptr_array_index(ctx->labels, i);
+    if (!pp_claims_label_free(ctx->claims, a->index) || !in_reach(a, bars))
+      continue;
+    guint n = 0;
+    for (guint k = 0; k < ctx->labels->len; k++) {
+      const pp_label *b = g_ptr_array_index(ctx->labels, k);
+      n += pp_claims_label_free(ctx->claims, b->index) && in_reach(b, bars) &&
+           fabs(b->centre.y - a->centre.y) < 1;
+    }
+    if (n > best)
+      best = n, row = a->centre.y;
+  }
+  double sd = 0, sv = 0, sdd = 0, sdv = 0, n = 0;
+  m->lo = INFINITY, m->hi = -INFINITY, m->d_max = 0;
+  g_array_set_size(used, 0);
+  for (guint i = 0; i < ctx->labels->len; i++) {
+    const pp_label *l = g_ptr_array_index(ctx->labels, i);
+    if (!pp_claims_label_free(ctx->claims, l->index) || !in_reach(l, bars) ||
+        !(fabs(l->centre.y - row) < 1))
+      continue;
+    double d = fabs(l->centre.x - c), v = l->number.value;
+    sd += d, sv += v, sdd += d * d, sdv += d * v, n++;
+    m->lo = fmin(m->lo, v), m->hi = fmax(m->hi, v), m->d_max = fmax(m->d_max, d);
+    g_array_append_val(used, i);
+  }
+  double den = n * sdd - sd * sd;
+  if (n < 3 || !(den > 0) || !(m->hi > m->lo))
+    return FALSE;
+  m->b = (n * sdv - sd * sv) / den;
+  m->a = (sv - m->b * sd) / n;
+  guint distinct = 0;
+  for (guint k = 0; k < used->len; k++) {
+    const pp_label *l = g_ptr_array_index(ctx->labels, g_array_index(used, guint, k));
+    double d = fabs(l->centre.x - c);
+    if (fabs(m->a + m->b * d - l->number.value) > PP_TWO_SCALE_TOL * (m->hi - m->lo))
+      return FALSE;
+    gboolean again = FALSE;
+    for (guint j = 0; j < k && !again; j++)
+      again =
+          fabs(
+              fabs(((const pp_label *)g_ptr_array_index(ctx->labels, g_array_index(used, guint, j)))
+                       ->centre.x -
+                   c) -
+              d) <= PP_TWO_MIRROR_TOL;
+    distinct += !again;
+  }
+  return distinct >= 3 && m->b > 0;
 }
 
 static gboolean same_row(pp_rect a, pp_rect b) {
@@ -81,6 +157,11 @@ void pp_recognize_two_sided(pp_recognize_ctx *ctx) {
                      g_array_index(bars, pp_bar_candidate, g_array_index(right, guint, b)).rect);
     if (rows < PP_TWO_MIN_ROWS || mirrored_labels(ctx, c, all) < 1)
       continue;
+    mirrored m;
+    g_autoptr(GArray) used = g_array_new(FALSE, FALSE, sizeof(guint));
+    gboolean scaled = mirrored_scale(ctx, c, all, &m, used);
+    if (scaled && fabs(m.a) <= PP_TWO_SCALE_TOL * (m.hi - m.lo))
+      m.a = 0; /* the line prints 0 up to the labels' rounding */
     pp_claims_begin(ctx->claims);
     pp_figure *f = pp_figure_new(PP_FIGURE_BAR);
     f->recognizer = OWNER;
@@ -98,6 +179,11 @@ void pp_recognize_two_sided(pp_recognize_ctx *ctx) {
         e.ink = b->ink;
         e.extent = pp_rect_width(b->rect);
         e.series = side;
+        if (scaled) {
+          e.value = e.scale_value = m.a + m.b * e.extent;
+          e.base_value = m.a;
+          e.source = PP_VALUE_SCALE;
+        }
         g_array_append_val(f->elements, e);
       }
     }
@@ -105,10 +191,30 @@ void pp_recognize_two_sided(pp_recognize_ctx *ctx) {
     f->bbox = pp_solid_frame(ctx->scene, all);
     pp_figure_add_evidence(f, "shared-baseline", 1);
     pp_figure_add_evidence(f, "mirrored-scale", 1);
-    f->judged = FALSE;
-    f->not_judged_reason =
-        g_strdup("two-sided bars from one zero line (a population pyramid): the scale prints "
-                 "magnitudes on both sides; read, not judged");
+    if (scaled) {
+      /* the right half of the scale stands for both: value = a + b·(x − c) */
+      pp_scale *sc = pp_scale_new(FALSE);
+      sc->box = pp_rect_empty();
+      for (guint k = 0; k < used->len; k++) {
+        const pp_label *l = g_ptr_array_index(ctx->labels, g_array_index(used, guint, k));
+        pp_claims_take_label(ctx->claims, l->index, OWNER);
+        sc->box = pp_rect_union(sc->box, l->box);
+        if (l->centre.x < c - PP_TWO_MIRROR_TOL)
+          continue;
+        pp_tick t = {l->centre.x, l->number.value, g_strdup(l->text)};
+        g_array_append_val(sc->ticks, t);
+      }
+      sc->slope = m.b, sc->offset = m.a - m.b * c;
+      sc->min_value = m.a;
+      sc->max_value = m.a + m.b * fmax(m.d_max, fmax(all.x1 - c, c - all.x0));
+      f->scale = sc;
+      pp_figure_add_evidence(f, "scale-fits", 1);
+    } else {
+      f->judged = FALSE;
+      f->not_judged_reason =
+          g_strdup("two-sided bars from one line (a population pyramid): no scale was read "
+                   "across its mirrored labels; read, not judged");
+    }
     pp_claims_commit(ctx->claims);
     pp_figure_finish(ctx, f, NULL);
   }
