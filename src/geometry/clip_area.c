@@ -10,6 +10,7 @@
 
 #include <float.h>
 #include <math.h>
+#include <stdint.h>
 #include <stdlib.h>
 #include <string.h>
 
@@ -44,8 +45,10 @@ typedef struct {
   size_t n_heap;
   guint n_reg;
   const pp_region *regs;
-  int *gw;     /* windings per region of the gap right of act[i]: n_reg per gap */
-  guint8 *gin; /* that gap is inside every region */
+  int *gw;       /* windings per region of the gap right of act[i]: n_reg per gap */
+  guint8 *gin;   /* that gap is inside every region */
+  int *gw_spare; /* the previous height's gw and gin, swapped with them at each height */
+  guint8 *gin_spare;
   double eps_y, tol_x;
   double xref; /* x origin of the integrals, so that far-away scenes keep their digits */
   double area;
@@ -458,14 +461,20 @@ static gboolean before(sweep *s, edge *a, edge *e, double y) {
 }
 
 /* End points at y: ended edges leave, starting edges enter in x order, then windings,
- * coefficients and the crossing keys of changed neighbours are renewed. */
+ * coefficients and the crossing keys of changed neighbours are renewed. Gaps left of the
+ * first change keep their windings; right of the last change, once a gap's windings equal
+ * what they were before this height, every later gap's do too (same edges, same order):
+ * those are copied, not recounted, which keeps a page of many crossing pieces from
+ * recounting every active gap at every end point. */
 static void vertex(sweep *s, double y, edge **order, size_t n, size_t *next) {
-  size_t m = 0;
+  const size_t old_n = s->n_act;
+  size_t m = 0, lo = SIZE_MAX;
   for (size_t i = 0; i < s->n_act; i++) {
     edge *e = s->act[i];
     if (e->yb <= y) {
       flush(s, e, e->yb);
       heap_remove(s, e);
+      lo = MIN(lo, m);
     } else {
       s->act[m++] = e;
     }
@@ -473,29 +482,57 @@ static void vertex(sweep *s, double y, edge **order, size_t n, size_t *next) {
   s->n_act = m;
   while (*next < n && order[*next]->ya <= y) {
     edge *e = order[(*next)++];
-    size_t lo = 0, hi = s->n_act;
-    while (lo < hi) {
-      size_t mid = (lo + hi) / 2;
+    size_t lo_b = 0, hi_b = s->n_act;
+    while (lo_b < hi_b) {
+      size_t mid = (lo_b + hi_b) / 2;
       if (before(s, s->act[mid], e, y))
-        lo = mid + 1;
+        lo_b = mid + 1;
       else
-        hi = mid;
+        hi_b = mid;
     }
-    memmove(s->act + lo + 1, s->act + lo, (s->n_act - lo) * sizeof(edge *));
-    s->act[lo] = e;
+    memmove(s->act + lo_b + 1, s->act + lo_b, (s->n_act - lo_b) * sizeof(edge *));
+    s->act[lo_b] = e;
     s->n_act++;
+    lo = MIN(lo, lo_b);
     e->c = 0;
     e->y_from = y;
     e->cross_y = INFINITY;
     e->right = NULL;
+    e->pos = SIZE_MAX; /* new: no gap of its own before this height */
     s->heap[s->n_heap] = e;
     e->hpos = s->n_heap++;
     heap_up(s, e->hpos);
   }
-  for (size_t i = 0; i < s->n_act; i++) {
-    s->act[i]->pos = i;
-    gap_update(s, i);
-    set_coef(s, s->act[i], coef(s, i), y);
+  if (lo != SIZE_MAX) {
+    /* tail: the first index of the unchanged run at the end (old edges, one shift). */
+    const guint nr = s->n_reg;
+    size_t tail = s->n_act;
+    while (tail > lo && s->act[tail - 1]->pos != SIZE_MAX &&
+           s->act[tail - 1]->pos + s->n_act == tail - 1 + old_n)
+      tail--;
+    int *old_w = s->gw;
+    guint8 *old_in = s->gin;
+    s->gw = s->gw_spare, s->gw_spare = old_w;
+    s->gin = s->gin_spare, s->gin_spare = old_in;
+    memcpy(s->gw, old_w, lo * nr * sizeof(int));
+    memcpy(s->gin, old_in, lo);
+    size_t i = lo;
+    for (; i < s->n_act; i++) {
+      edge *e = s->act[i];
+      size_t was = e->pos;
+      e->pos = i;
+      gap_update(s, i);
+      set_coef(s, e, coef(s, i), y);
+      if (i >= tail && memcmp(s->gw + i * nr, old_w + was * nr, nr * sizeof(int)) == 0)
+        break;
+    }
+    if (i < s->n_act) { /* the rest as before, shifted */
+      size_t from = i + 1 + old_n - s->n_act, k = s->n_act - i - 1;
+      memcpy(s->gw + (i + 1) * nr, old_w + from * nr, k * nr * sizeof(int));
+      memcpy(s->gin + i + 1, old_in + from, k);
+      for (size_t j = i + 1; j < s->n_act; j++)
+        s->act[j]->pos = j;
+    }
   }
   for (size_t i = 0; i < s->n_act; i++) {
     edge *r = i + 1 < s->n_act ? s->act[i + 1] : NULL;
@@ -567,6 +604,8 @@ double pp_sweep_area(const pp_region *regs, guint n_reg) {
     s.heap = g_new(edge *, n);
     s.gw = g_new(int, n *n_reg);
     s.gin = g_new(guint8, n);
+    s.gw_spare = g_new(int, n *n_reg);
+    s.gin_spare = g_new(guint8, n);
     size_t next = 0;
     for (size_t k = 0; k < 2 * n; k++) {
       if (k > 0 && ev[k] == ev[k - 1])
@@ -593,6 +632,8 @@ double pp_sweep_area(const pp_region *regs, guint n_reg) {
     g_free(s.heap);
     g_free(s.gw);
     g_free(s.gin);
+    g_free(s.gw_spare);
+    g_free(s.gin_spare);
   }
   g_array_free(s.edges, TRUE);
   return s.area;

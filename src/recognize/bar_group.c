@@ -65,32 +65,163 @@ static int cmp_element(gconstpointer a, gconstpointer b, gpointer vertical) {
   return (pa > pb) - (pa < pb);
 }
 
+/* The page's words and labels in coordinate order, built on the first bar figure of a
+ * page (ctx->bar_text) so that categories and data labels are looked up in the band
+ * where they can lie instead of among every word per bar: a page of a thousand labelled
+ * tiles has as many words as bars. Lookups keep the linear scans' answers: the first
+ * word or label in page order among the nearest. Words with a NaN key, which the scans
+ * never chose, are skipped; labels with one are still tried. */
+struct pp_bar_text {
+  guint n_words, n_labels;
+  guint *by_y0;                                   /* word indices by box.y0 */
+  guint *by_x1;                                   /* word indices by box.x1 */
+  guint *labels_x;                                /* label indices by centre.x */
+  guint *labels_y;                                /* label indices by centre.y */
+  guint n_by_y0, n_by_x1, n_labels_x, n_labels_y; /* entries with a key (not NaN) */
+  gboolean lines_in_order; /* words' line numbers never decrease (capture's reading order) */
+};
+
+static double key_of(const void *base, gsize stride, guint i) {
+  return *(const double *)((const char *)base + stride * i);
+}
+
+static const void *sort_base;
+static gsize sort_stride;
+
+/* Key, then index: ties stay in page order. */
+static int cmp_by_key(const void *a, const void *b) {
+  guint i = *(const guint *)a, j = *(const guint *)b;
+  double x = key_of(sort_base, sort_stride, i), y = key_of(sort_base, sort_stride, j);
+  if (x != y)
+    return x < y ? -1 : 1;
+  return (i > j) - (i < j);
+}
+
+/* Indices 0..n-1 of the items (their key a double at byte offset off), those with a key
+ * sorted by it in the first *n_out places, those with a NaN key after them. */
+static guint *sorted_indices(GPtrArray *items, gsize off, guint *n_out) {
+  guint n = items->len, m = 0, back = n;
+  double *keys = g_new(double, MAX(n, 1));
+  guint *idx = g_new(guint, MAX(n, 1));
+  for (guint i = 0; i < n; i++) {
+    keys[i] = *(const double *)((const char *)g_ptr_array_index(items, i) + off);
+    if (!isnan(keys[i]))
+      idx[m++] = i;
+  }
+  for (guint i = n; i-- > 0;) /* NaN keys last, in page order */
+    if (isnan(keys[i]))
+      idx[--back] = i;
+  sort_base = keys, sort_stride = sizeof(double);
+  qsort(idx, m, sizeof(guint), cmp_by_key);
+  sort_base = NULL;
+  g_free(keys);
+  *n_out = m;
+  return idx;
+}
+
+static const pp_bar_text *bar_text(pp_recognize_ctx *ctx) {
+  if (ctx->bar_text)
+    return ctx->bar_text;
+  pp_bar_text *t = g_new0(pp_bar_text, 1);
+  GPtrArray *words = ctx->scene->words;
+  t->n_words = words->len;
+  t->n_labels = ctx->labels->len;
+  t->by_y0 = sorted_indices(words, G_STRUCT_OFFSET(pp_text_run, box.y0), &t->n_by_y0);
+  t->by_x1 = sorted_indices(words, G_STRUCT_OFFSET(pp_text_run, box.x1), &t->n_by_x1);
+  t->labels_x = sorted_indices(ctx->labels, G_STRUCT_OFFSET(pp_label, centre.x), &t->n_labels_x);
+  t->labels_y = sorted_indices(ctx->labels, G_STRUCT_OFFSET(pp_label, centre.y), &t->n_labels_y);
+  t->lines_in_order = TRUE;
+  for (guint i = 1; i < words->len && t->lines_in_order; i++)
+    t->lines_in_order = ((const pp_text_run *)g_ptr_array_index(words, i - 1))->line <=
+                        ((const pp_text_run *)g_ptr_array_index(words, i))->line;
+  ctx->bar_text = t;
+  return t;
+}
+
+void pp_bar_text_free(pp_bar_text *t) {
+  if (!t)
+    return;
+  g_free(t->by_y0);
+  g_free(t->by_x1);
+  g_free(t->labels_x);
+  g_free(t->labels_y);
+  g_free(t);
+}
+
+/* First position in idx (n sorted entries of items) whose key at off is >= v. */
+static guint lower_bound(GPtrArray *items, gsize off, const guint *idx, guint n, double v) {
+  guint lo = 0, hi = n;
+  while (lo < hi) {
+    guint mid = lo + (hi - lo) / 2;
+    if (*(const double *)((const char *)g_ptr_array_index(items, idx[mid]) + off) < v)
+      lo = mid + 1;
+    else
+      hi = mid;
+  }
+  return lo;
+}
+
+/* First position whose key is > v. */
+static guint upper_bound(GPtrArray *items, gsize off, const guint *idx, guint n, double v) {
+  guint lo = 0, hi = n;
+  while (lo < hi) {
+    guint mid = lo + (hi - lo) / 2;
+    if (*(const double *)((const char *)g_ptr_array_index(items, idx[mid]) + off) <= v)
+      lo = mid + 1;
+    else
+      hi = mid;
+  }
+  return lo;
+}
+
 /* Category label: the nearest word outside the plot, beyond the baseline, centred on
  * (or, when rotated, ending at) the bar. */
-static char *find_category(const pp_scene *scene, pp_rect bar, pp_rect plot, gboolean vertical,
+static char *find_category(pp_recognize_ctx *ctx, pp_rect bar, pp_rect plot, gboolean vertical,
                            double *dist) {
+  const pp_scene *scene = ctx->scene;
+  const pp_bar_text *t = bar_text(ctx);
+  GPtrArray *words = scene->words;
   const pp_text_run *best = NULL;
+  guint best_i = G_MAXUINT;
   double best_d = INFINITY;
-  for (guint i = 0; i < scene->words->len; i++) {
-    const pp_text_run *w = g_ptr_array_index(scene->words, i);
-    double cx = (w->box.x0 + w->box.x1) / 2, cy = (w->box.y0 + w->box.y1) / 2;
-    double d;
-    if (vertical) {
+  if (vertical) {
+    /* Words whose top is at most PP_EDGE_SLACK above the plot's bottom, nearest first. */
+    guint k = lower_bound(words, G_STRUCT_OFFSET(pp_text_run, box.y0), t->by_y0, t->n_by_y0,
+                          plot.y1 - PP_EDGE_SLACK);
+    for (; k < t->n_by_y0; k++) {
+      guint i = t->by_y0[k];
+      const pp_text_run *w = g_ptr_array_index(words, i);
+      double d = w->box.y0 - plot.y1; /* never decreases along by_y0 */
+      if (!(d < PP_CATEGORY_MAX_GAP) || d > best_d)
+        break;
+      double cx = (w->box.x0 + w->box.x1) / 2;
       gboolean over =
           (cx >= bar.x0 - PP_CATEGORY_SLACK && cx <= bar.x1 + PP_CATEGORY_SLACK) ||
           (w->angle != 0 && w->box.x1 >= bar.x0 && w->box.x1 <= bar.x1 + PP_CATEGORY_ROTATED_SLACK);
-      if (!over || w->box.y0 < plot.y1 - PP_EDGE_SLACK)
-        continue;
-      d = w->box.y0 - plot.y1;
-    } else {
-      if (cy < bar.y0 - PP_CATEGORY_SLACK || cy > bar.y1 + PP_CATEGORY_SLACK ||
-          w->box.x1 > plot.x0 + PP_EDGE_SLACK)
-        continue;
-      d = plot.x0 - w->box.x1;
+      if (over && (d < best_d || (d == best_d && i < best_i))) {
+        best_d = d;
+        best = w;
+        best_i = i;
+      }
     }
-    if (d < best_d && d < PP_CATEGORY_MAX_GAP) {
-      best_d = d;
-      best = w;
+  } else {
+    /* Words ending at most PP_EDGE_SLACK right of the plot's left edge, nearest first. */
+    guint k = upper_bound(words, G_STRUCT_OFFSET(pp_text_run, box.x1), t->by_x1, t->n_by_x1,
+                          plot.x0 + PP_EDGE_SLACK);
+    while (k-- > 0) {
+      guint i = t->by_x1[k];
+      const pp_text_run *w = g_ptr_array_index(words, i);
+      double d = plot.x0 - w->box.x1; /* never decreases along by_x1 taken backwards */
+      if (!(d < PP_CATEGORY_MAX_GAP) || d > best_d)
+        break;
+      double cy = (w->box.y0 + w->box.y1) / 2;
+      if (cy < bar.y0 - PP_CATEGORY_SLACK || cy > bar.y1 + PP_CATEGORY_SLACK)
+        continue;
+      if (d < best_d || (d == best_d && i < best_i)) {
+        best_d = d;
+        best = w;
+        best_i = i;
+      }
     }
   }
   if (dist)
@@ -101,9 +232,21 @@ static char *find_category(const pp_scene *scene, pp_rect bar, pp_rect plot, gbo
    * column, to the left (towards the margin) beside a horizontal bar. */
   GString *s = g_string_new(best->text);
   const pp_text_run *edge = best;
+  /* Only words of best's line can continue it: with lines in order, that is one run. */
+  guint first = 0, end = words->len;
+  if (t->lines_in_order) {
+    for (first = best_i;
+         first > 0 &&
+         ((const pp_text_run *)g_ptr_array_index(words, first - 1))->line == best->line;)
+      first--;
+    for (end = best_i + 1;
+         end < words->len &&
+         ((const pp_text_run *)g_ptr_array_index(words, end))->line == best->line;)
+      end++;
+  }
   for (gboolean grew = TRUE; grew;) {
     grew = FALSE;
-    for (guint i = 0; i < scene->words->len && !grew; i++) {
+    for (guint i = first; i < end && !grew; i++) {
       const pp_text_run *w = g_ptr_array_index(scene->words, i);
       double gap = vertical ? w->box.x0 - edge->box.x1 : edge->box.x0 - w->box.x1;
       pp_number num; /* "2017" "2018" side by side are two categories, not one name */
@@ -133,7 +276,7 @@ static char *find_category(const pp_scene *scene, pp_rect bar, pp_rect plot, gbo
 
 /* A group takes the category centred under it when that is nearer than the ones its bars
  * found alone (a footnote below the year, say). */
-static void find_group_categories(const pp_scene *scene, pp_figure *fig, pp_rect plot,
+static void find_group_categories(pp_recognize_ctx *ctx, pp_figure *fig, pp_rect plot,
                                   gboolean vertical) {
   guint n = fig->elements->len;
   for (guint start = 0, end; start < n; start = end) {
@@ -153,11 +296,11 @@ static void find_group_categories(const pp_scene *scene, pp_figure *fig, pp_rect
     if (end - start < 2)
       continue;
     double d = INFINITY;
-    char *category = find_category(scene, span, plot, vertical, &d);
+    char *category = find_category(ctx, span, plot, vertical, &d);
     for (guint i = start; category && i < end; i++) {
       pp_element *e = &g_array_index(fig->elements, pp_element, i);
       double own = INFINITY;
-      g_autofree char *alone = find_category(scene, e->box, plot, vertical, &own);
+      g_autofree char *alone = find_category(ctx, e->box, plot, vertical, &own);
       if (d < own) {
         g_free(e->category);
         e->category = g_strdup(category);
@@ -197,25 +340,29 @@ static void attach_segment_labels(pp_recognize_ctx *ctx, pp_element *e, gboolean
   }
 }
 
-static void attach_data_labels(pp_recognize_ctx *ctx, pp_figure *fig, gboolean vertical,
-                               double base) {
+/* The data label of one bar: the free label nearest its tip, just beyond it or inside it
+ * (first in page order among equals). */
+static pp_label *tip_label(pp_recognize_ctx *ctx, const pp_element *e, gboolean vertical,
+                           double base) {
   GPtrArray *labels = ctx->labels;
-  for (guint i = 0; i < fig->elements->len; i++) {
-    pp_element *e = &g_array_index(fig->elements, pp_element, i);
-    pp_frame_rect f = pp_frame_of(e->box, vertical);
-    if (e->stacked)
-      attach_segment_labels(ctx, e, vertical);
-    double tip = fabs(f.u0 - base) > fabs(f.u1 - base) ? f.u0 : f.u1;
-    double dir = tip < base ? -1 : 1; /* from base towards tip */
-    pp_label *best = NULL;
-    double best_d = INFINITY;
-    for (guint k = 0; k < labels->len; k++) {
-      pp_label *l = g_ptr_array_index(labels, k);
+  const pp_bar_text *t = bar_text(ctx);
+  pp_frame_rect f = pp_frame_of(e->box, vertical);
+  double tip = fabs(f.u0 - base) > fabs(f.u1 - base) ? f.u0 : f.u1;
+  double dir = tip < base ? -1 : 1; /* from base towards tip */
+  pp_label *best = NULL;
+  double best_d = INFINITY;
+  /* The labels across the bar's width, then those with no position across (NaN). */
+  gsize off = vertical ? G_STRUCT_OFFSET(pp_label, centre.x) : G_STRUCT_OFFSET(pp_label, centre.y);
+  const guint *idx = vertical ? t->labels_x : t->labels_y;
+  guint n_idx = vertical ? t->n_labels_x : t->n_labels_y;
+  guint from[2] = {lower_bound(labels, off, idx, n_idx, f.w0 - PP_EDGE_SLACK), n_idx};
+  guint to[2] = {upper_bound(labels, off, idx, n_idx, f.w1 + PP_EDGE_SLACK), t->n_labels};
+  for (int r = 0; r < 2; r++)
+    for (guint k = from[r]; k < to[r]; k++) {
+      pp_label *l = g_ptr_array_index(labels, idx[k]);
       if (!pp_claims_label_free(ctx->claims, l->index))
         continue;
-      double lw = label_w(l, vertical), lu = label_u(l, vertical);
-      if (lw < f.w0 - PP_EDGE_SLACK || lw > f.w1 + PP_EDGE_SLACK)
-        continue;
+      double lu = label_u(l, vertical);
       double beyond = (lu - tip) * dir; /* > 0 outside the bar, < 0 inside */
       double from_base = (lu - base) * dir;
       /* a stack's total stands beyond its tip: labels inside are its segments' */
@@ -223,11 +370,21 @@ static void attach_data_labels(pp_recognize_ctx *ctx, pp_figure *fig, gboolean v
       if (from_base <= 0 || beyond > PP_LABEL_BEYOND * l->size || beyond < -inside)
         continue;
       double d = fabs(beyond);
-      if (d < best_d) {
+      if (d < best_d || (d == best_d && best && l->index < best->index)) {
         best_d = d;
         best = l;
       }
     }
+  return best;
+}
+
+static void attach_data_labels(pp_recognize_ctx *ctx, pp_figure *fig, gboolean vertical,
+                               double base) {
+  for (guint i = 0; i < fig->elements->len; i++) {
+    pp_element *e = &g_array_index(fig->elements, pp_element, i);
+    if (e->stacked)
+      attach_segment_labels(ctx, e, vertical);
+    pp_label *best = tip_label(ctx, e, vertical, base);
     if (best) {
       e->label_value = best->number.value;
       e->label_text = g_strdup(best->text);
@@ -354,39 +511,86 @@ pp_figure *pp_bars_build(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *sca
   fig->bbox = plot;
   for (guint i = 0; i < fig->elements->len; i++) {
     pp_element *e = &g_array_index(fig->elements, pp_element, i);
-    e->category = find_category(scene, e->box, plot, vertical, NULL);
+    e->category = find_category(ctx, e->box, plot, vertical, NULL);
   }
-  find_group_categories(scene, fig, plot, vertical);
+  find_group_categories(ctx, fig, plot, vertical);
   attach_data_labels(ctx, fig, vertical, base);
   return fig;
 }
 
 /* Legend keys: swatches of one size, each with a series name beside, above or below
  * it. They share edges like bars do but stand for no value. */
+static gboolean swatch_named(const pp_text_run *word, pp_rect b) {
+  double reach = fmin(pp_rect_width(b), pp_rect_height(b)) + PP_SWATCH_NAME_GAP;
+  pp_rect w = word->box;
+  double e = PP_EDGE_SLACK;
+  gboolean right = w.x0 >= b.x1 - e && w.x0 <= b.x1 + reach && w.y0 < b.y1 && w.y1 > b.y0;
+  gboolean below = w.y0 >= b.y1 - e && w.y0 <= b.y1 + reach && w.x0 < b.x1 && w.x1 > b.x0;
+  gboolean above = w.y1 <= b.y0 + e && w.y1 >= b.y0 - reach && w.x0 < b.x1 && w.x1 > b.x0;
+  pp_number num; /* a number beside a bar is its data label, not a series name */
+  return (right || below || above) && !pp_number_parse(word->text, PP_DECIMAL_UNKNOWN, &num);
+}
+
+/* Figures with more swatches than this look their names up by height (a page of tiles
+ * can hold thousands); fewer scan every word (common practice, no source). */
+#define PP_LEGEND_INDEX_MIN 8
+/* Slack on that lookup's band, pt: far above rounding, so no word that names a swatch is
+ * left out of it (common practice, no source). */
+#define PP_LEGEND_BAND_SLACK 1.0
+
 gboolean pp_bars_legend_like(const pp_scene *scene, const pp_figure *fig) {
-  pp_rect first = g_array_index(fig->elements, pp_element, 0).box;
-  for (guint i = 0; i < fig->elements->len; i++) {
-    pp_rect b = g_array_index(fig->elements, pp_element, i).box;
+  GArray *els = fig->elements;
+  pp_rect first = g_array_index(els, pp_element, 0).box;
+  for (guint i = 0; i < els->len; i++) {
+    pp_rect b = g_array_index(els, pp_element, i).box;
     if (fabs(pp_rect_width(b) - pp_rect_width(first)) > PP_EDGE_SLACK ||
         fabs(pp_rect_height(b) - pp_rect_height(first)) > PP_EDGE_SLACK ||
         pp_rect_width(b) > PP_SWATCH_MAX || pp_rect_height(b) > PP_SWATCH_MAX)
       return FALSE;
-    double reach = fmin(pp_rect_width(b), pp_rect_height(b)) + PP_SWATCH_NAME_GAP;
-    gboolean named = FALSE;
-    for (guint k = 0; k < scene->words->len && !named; k++) {
-      const pp_text_run *word = g_ptr_array_index(scene->words, k);
-      pp_rect w = word->box;
-      double e = PP_EDGE_SLACK;
-      gboolean right = w.x0 >= b.x1 - e && w.x0 <= b.x1 + reach && w.y0 < b.y1 && w.y1 > b.y0;
-      gboolean below = w.y0 >= b.y1 - e && w.y0 <= b.y1 + reach && w.x0 < b.x1 && w.x1 > b.x0;
-      gboolean above = w.y1 <= b.y0 + e && w.y1 >= b.y0 - reach && w.x0 < b.x1 && w.x1 > b.x0;
-      pp_number num; /* a number beside a bar is its data label, not a series name */
-      named = (right || below || above) && !pp_number_parse(word->text, PP_DECIMAL_UNKNOWN, &num);
-    }
-    if (!named)
-      return FALSE;
   }
-  return TRUE;
+  GPtrArray *words = scene->words;
+  if (els->len < PP_LEGEND_INDEX_MIN) {
+    for (guint i = 0; i < els->len; i++) {
+      pp_rect b = g_array_index(els, pp_element, i).box;
+      gboolean named = FALSE;
+      for (guint k = 0; k < words->len && !named; k++)
+        named = swatch_named(g_ptr_array_index(words, k), b);
+      if (!named)
+        return FALSE;
+    }
+    return TRUE;
+  }
+  /* A word names a swatch only if its top lies within reach below the swatch and its
+   * bottom within reach above it: the words by top, in that band widened by the tallest
+   * word (and any box with y0 > y1); words without a top (NaN) are always tried. */
+  guint n_top;
+  guint *by_y0 = sorted_indices(words, G_STRUCT_OFFSET(pp_text_run, box.y0), &n_top);
+  double tallest = 0, upside_down = 0; /* capture's boxes have y0 <= y1; not assumed */
+  for (guint k = 0; k < words->len; k++) {
+    const pp_text_run *w = g_ptr_array_index(words, k);
+    tallest = fmax(tallest, w->box.y1 - w->box.y0);
+    upside_down = fmax(upside_down, w->box.y0 - w->box.y1);
+  }
+  gboolean all = TRUE;
+  for (guint i = 0; i < els->len && all; i++) {
+    pp_rect b = g_array_index(els, pp_element, i).box;
+    double reach = fmin(pp_rect_width(b), pp_rect_height(b)) + PP_SWATCH_NAME_GAP;
+    double lo = b.y0 - reach - tallest - PP_LEGEND_BAND_SLACK;
+    double hi = b.y1 + reach + upside_down + PP_LEGEND_BAND_SLACK;
+    gboolean named = FALSE;
+    guint k = lower_bound(words, G_STRUCT_OFFSET(pp_text_run, box.y0), by_y0, n_top, lo);
+    for (; k < n_top && !named; k++) {
+      const pp_text_run *w = g_ptr_array_index(words, by_y0[k]);
+      if (w->box.y0 > hi)
+        break;
+      named = swatch_named(w, b);
+    }
+    for (k = n_top; k < words->len && !named; k++)
+      named = swatch_named(g_ptr_array_index(words, by_y0[k]), b);
+    all = named;
+  }
+  g_free(by_y0);
+  return all;
 }
 
 /* How much a shared baseline says on its own: table cells and tags share edges too

@@ -100,13 +100,15 @@ guint pp_claims_depth(const pp_claims *claims);
 /* ---- What every recognizer sees ------------------------------------------------------ */
 typedef struct {
   const pp_scene *scene;
-  GHashTable *glyph_marks; /* marks that are parts of text (path-drawn minus signs) */
-  GPtrArray *labels;       /* pp_label*, every numeric phrase */
-  GPtrArray *axes;         /* pp_axis_candidate*, fitted or not */
-  GArray *bars;            /* pp_bar_candidate */
-  GPtrArray *areas;        /* pp_area_candidate* */
-  pp_claims *claims;       /* the ledger */
-  pp_page_charts *out;     /* figures found so far */
+  GHashTable *glyph_marks;      /* marks that are parts of text (path-drawn minus signs) */
+  GPtrArray *labels;            /* pp_label*, every numeric phrase */
+  GPtrArray *axes;              /* pp_axis_candidate*, fitted or not */
+  GArray *bars;                 /* pp_bar_candidate */
+  GPtrArray *areas;             /* pp_area_candidate* */
+  pp_claims *claims;            /* the ledger */
+  GArray *wedges;               /* pp_wedge_candidate of every fill, claimed or not (wedges.c) */
+  struct pp_bar_text *bar_text; /* words and labels in coordinate order (bar_group.c) */
+  pp_page_charts *out;          /* figures found so far */
 } pp_recognize_ctx;
 
 /* A recognizer finds every figure of its family on the page, claiming marks and labels
@@ -187,6 +189,8 @@ gboolean pp_same_column(pp_frame_rect a, pp_frame_rect b);
  * marks and the data labels for owner; the caller runs it inside a transaction. */
 pp_figure *pp_bars_build(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *scale,
                          gboolean vertical, double base, const char *owner);
+typedef struct pp_bar_text pp_bar_text;
+void pp_bar_text_free(pp_bar_text *t);
 /* Legend keys: swatches of one size, each named beside it. */
 gboolean pp_bars_legend_like(const pp_scene *scene, const pp_figure *fig);
 /* Evidence of a bar layout: the shared baseline and how regularly the bars of each series
@@ -208,8 +212,9 @@ typedef struct {
   pp_rect box; /* the mark's visible box */
 } pp_wedge_candidate;
 
-/* Every free filled mark's wedges (geometry's reading, no shared shape). */
-GArray *pp_wedge_candidates_collect(const pp_recognize_ctx *ctx);
+/* Every free filled mark's wedges (geometry's reading, no shared shape). The page's
+ * wedges are read on the first call and kept in ctx->wedges. */
+GArray *pp_wedge_candidates_collect(pp_recognize_ctx *ctx);
 gboolean pp_paint_same(const pp_paint *a, const pp_paint *b);
 /* a lies in [a0, a1] modulo a turn. */
 gboolean pp_angle_within(double a, double a0, double a1);

@@ -133,6 +133,7 @@ GPtrArray *pp_labels_collect(const pp_scene *scene, GHashTable *glyph_marks) {
     guint best = 0;
     pp_number best_num;
     GString *phrase = g_string_new(NULL);
+    gboolean has_digit = FALSE;
     for (guint k = 0; k < 4 && i + k < n; k++) {
       const pp_text_run *w = g_ptr_array_index(scene->words, i + k);
       if (k > 0 && !same_baseline(g_ptr_array_index(scene->words, i + k - 1), w))
@@ -140,8 +141,11 @@ GPtrArray *pp_labels_collect(const pp_scene *scene, GHashTable *glyph_marks) {
       if (k > 0)
         g_string_append(phrase, joiner(phrase->str, w->text));
       g_string_append(phrase, w->text);
+      /* Every number in number.c's grammar holds an ASCII digit: a phrase without one is
+       * not parsed (most words of a text page), which spares the parser's unit search. */
+      has_digit = has_digit || strpbrk(w->text, "0123456789") != NULL;
       pp_number num;
-      if (pp_number_parse(phrase->str, PP_DECIMAL_UNKNOWN, &num)) {
+      if (has_digit && pp_number_parse(phrase->str, PP_DECIMAL_UNKNOWN, &num)) {
         best = k + 1;
         best_num = num;
       }

@@ -136,6 +136,9 @@ pp_page_charts *pp_page_charts_find(const pp_scene *scene) {
   add_raster_images(scene, ctx.out);
 
   pp_claims_free(ctx.claims);
+  if (ctx.wedges)
+    g_array_unref(ctx.wedges);
+  pp_bar_text_free(ctx.bar_text);
   g_ptr_array_unref(ctx.areas);
   g_array_unref(ctx.bars);
   g_hash_table_unref(ctx.glyph_marks);
