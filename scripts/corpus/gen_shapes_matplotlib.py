@@ -539,7 +539,7 @@ def drawn_faces(ax, coll, corners):
     return out
 
 
-def bar3d_persp(seed, honest):
+def bar3d_persp(seed, honest, auto=False):
     """Axes3D.bar3d in matplotlib's default perspective view. Misleading: two rows of wide
     bars seen from above (tops of constant size, fronts shrinking with depth, nearer bars
     hiding parts of those behind) over values from 6 to 60. Honest as a 3D chart can be: one
@@ -547,11 +547,20 @@ def bar3d_persp(seed, honest):
     values from 40 to 96. Truth: every face matplotlib painted, in its painting order
     and at its page corners (its own projection and depth sort, read back after drawing);
     scripts/corpus/truth_shapes.py takes what each face shows after the faces painted over
-    it."""
+    it. auto: matplotlib's own view and value limits, three columns of narrower bars whose
+    columns line up on the page."""
     def build():
         from mpl_toolkits.mplot3d import proj3d
         rng = rng_of(seed)
-        if honest:
+        if auto:
+            cols, rows = ORCHARDS[:3], ["2029", "2030"]
+            v = sorted(with_spread(rng, values_between(rng, 6, 10, 45), (5, 8), (40, 45)))
+            front, back = v[:3], v[3:]
+            rng.shuffle(front)
+            rng.shuffle(back)
+            v = front + back
+            fw, fd, elev, azim, top = 0.5, 0.5, 30, -60, None
+        elif honest:
             cols, rows = ORCHARDS[:5], ["2030"]
             v = with_spread(rng, values_between(rng, len(cols), 40, 96), (40, 45), (90, 96))
             fw, fd, elev, azim, top = 0.5, 0.05, 5, -90, 100
@@ -571,9 +580,10 @@ def bar3d_persp(seed, honest):
         ys = [r for r in range(len(rows)) for c in range(len(cols))]
         coll = ax.bar3d([x - fw / 2 for x in xs], [y - fd / 2 for y in ys], [0] * n, fw, fd,
                         v, color=HUES[1][0] if honest else HUES[0][0], shade=True)
-        ax.set_zlim(0, top)
-        ax.set_xlim(-0.5, len(cols) - 0.5)
-        ax.set_ylim(-0.5, len(rows) - 0.5)
+        if top is not None:
+            ax.set_zlim(0, top)
+            ax.set_xlim(-0.5, len(cols) - 0.5)
+            ax.set_ylim(-0.5, len(rows) - 0.5)
         ax.set_xticks(range(len(cols)))
         ax.set_xticklabels(cols)
         ax.set_yticks(range(len(rows)))
@@ -589,13 +599,15 @@ def bar3d_persp(seed, honest):
         d = {"kind": "bar-3d", "misleading": not honest,
              "rule": None if honest else "bars-3d-ink", "values": v,
              "labels": ["%s/%s" % (c, r) for r in rows for c in cols],
-             "axis": {"min": 0.0, "max": float(top), "scale": "linear", "orientation": "z"},
+             "axis": {"min": 0.0, "max": float(top if top else ax.get_zlim()[1]),
+                      "scale": "linear", "orientation": "z"},
              "baseline": 0.0,
              "solid": {"projection": "drawn", "base": 0.0,
                        "faces": drawn_faces(ax, coll, corners),
                        "footprint": [fw, fd], "view": [elev, azim]},
              "style": ["bar3d", "perspective"] +
-                      (["one-row", "low-view"] if honest else ["two-categories", "occluded"])}
+                      (["one-row", "low-view"] if honest else ["two-categories", "occluded"]) +
+                      (["default-view"] if auto else [])}
         d["bbox"] = bbox
         return fig, [d]
     return build
@@ -610,6 +622,7 @@ PLAN = [
     ("shape_bar3d_thin", 905, bar3d_grid(905, True)),
     ("shape_bar3d_persp", 906, bar3d_persp(906, False)),
     ("shape_bar3d_persp_honest", 907, bar3d_persp(907, True)),
+    ("shape_bar3d_persp_auto", 908, bar3d_persp(908, False, auto=True)),
     ("shape_pyramid_heights", 911, pyramid(911, False)),
     ("shape_pyramid_areas", 911, pyramid(911, True)),
     ("shape_pyramid_pct", 912, pyramid(912, False, percent=True)),

@@ -16,6 +16,7 @@ status=0
 if [ -x "$py" ] && "$py" -c 'import matplotlib' 2>/dev/null; then
 	"$py" "$here/gen_matplotlib.py" || status=1
 	"$py" "$here/gen_shapes_matplotlib.py" || status=1
+	"$py" "$here/gen_size_keys_matplotlib.py" || status=1
 else
 	echo "skip matplotlib: /usr/bin/python3 with matplotlib not found" >&2
 fi

@@ -1,6 +1,7 @@
 /* box_persp.c — the boxes of a 3D bar chart drawn in perspective (mplot3d's default view),
  * for boxes.c: each bar's value read where its top meets the value scale through the box's
  * view (box_view.c), its ink what can be seen of its faces after every face painted later. */
+#define G_LOG_DOMAIN "plotproof-recognize"
 #include <math.h>
 #include <string.h>
 
@@ -137,6 +138,44 @@ static gboolean make_box(const pp_box_view *v, const pp_quad *q, const guint *gr
   return TRUE;
 }
 
+/* Faces joined when they have two corners in common (a box's faces meet along whole edges;
+ * faces of different boxes may only line up on the page), transitively: union–find. */
+static guint root_of(guint *parent, guint i) {
+  while (parent[i] != i)
+    i = parent[i] = parent[parent[i]];
+  return i;
+}
+
+static guint group_by_corners(const pp_quad *q, guint n, guint *group) {
+  g_autofree guint *parent = g_new(guint, MAX(n, 1));
+  g_autofree pp_rect *box = g_new(pp_rect, MAX(n, 1));
+  for (guint i = 0; i < n; i++)
+    parent[i] = i, box[i] = quad_box(&q[i]);
+  for (guint i = 0; i < n; i++)
+    for (guint j = i + 1; j < n; j++) {
+      if (box[i].x0 > box[j].x1 + PP_PERSP_TOL || box[j].x0 > box[i].x1 + PP_PERSP_TOL ||
+          box[i].y0 > box[j].y1 + PP_PERSP_TOL || box[j].y0 > box[i].y1 + PP_PERSP_TOL)
+        continue;
+      guint common = 0;
+      for (int a = 0; a < 4; a++)
+        for (int b = 0; b < 4; b++)
+          common += near_pt(q[i].p[a], q[j].p[b]);
+      if (common >= 2)
+        parent[root_of(parent, i)] = root_of(parent, j);
+    }
+  g_autofree guint *label = g_new(guint, MAX(n, 1));
+  guint ng = 0;
+  for (guint i = 0; i < n; i++)
+    label[i] = G_MAXUINT;
+  for (guint i = 0; i < n; i++) {
+    guint r = root_of(parent, i);
+    if (label[r] == G_MAXUINT)
+      label[r] = ng++;
+    group[i] = label[r];
+  }
+  return ng;
+}
+
 /* ---- exact visible areas: a convex face less the convex faces painted over it ---------- */
 typedef struct {
   guint n;
@@ -246,7 +285,7 @@ gboolean pp_recognize_boxes_in_perspective(pp_recognize_ctx *ctx, const pp_quad 
   const guint *marks = (const guint *)mk->data;
   guint n = q->len;
   g_autofree guint *group = g_new(guint, n);
-  guint ng = pp_quads_group_by_edges(faces, n, PP_PERSP_TOL, group);
+  guint ng = group_by_corners(faces, n, group);
   g_autoptr(GArray) boxes = g_array_new(FALSE, FALSE, sizeof(pbox));
   for (guint g = 0; g < ng; g++) {
     pbox b;

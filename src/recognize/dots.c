@@ -3,6 +3,7 @@
  * categories down the side). Markers of one size carry no number by their ink, so the
  * figure is counted (the reviewer sees it was read) and never judged by an ink rule. */
 #include <math.h>
+#include <string.h>
 
 #include "internal.h"
 
@@ -43,26 +44,81 @@ static gboolean same_look(const pp_mark *a, const pp_mark *b) {
          a->paint.b == b->paint.b && a->paint.a == b->paint.a;
 }
 
-/* The largest set of free markers of one size and colour. */
+/* Sizes are bucketed in cells a little wider than PP_DOT_SIZE_TOL, so two sizes within
+ * the tolerance always fall in the same or neighbouring cells despite rounding. */
+#define PP_DOT_SIZE_CELL (PP_DOT_SIZE_TOL * 1.005)
+
+static gint64 size_cell(double v) {
+  double c = floor(v / PP_DOT_SIZE_CELL);
+  return !(c >= 0) ? 0 : c > 1e6 ? 1000000 : (gint64)c;
+}
+
+/* One key per paint and size cell: equal paints give equal keys (0 and -0 alike). */
+static gint64 look_key(const pp_mark *m, gint64 dw, gint64 dh) {
+  const double p[4] = {m->paint.r, m->paint.g, m->paint.b, m->paint.a};
+  guint64 h = (guint64)m->paint.kind;
+  for (int i = 0; i < 4; i++) {
+    double v = p[i] == 0 ? 0 : p[i];
+    guint64 bits;
+    memcpy(&bits, &v, sizeof bits);
+    h = (h ^ bits) * 0x100000001b3ull;
+  }
+  h = (h ^ (guint64)(size_cell(pp_rect_width(m->bbox)) + dw)) * 0x100000001b3ull;
+  h = (h ^ (guint64)(size_cell(pp_rect_height(m->bbox)) + dh)) * 0x100000001b3ull;
+  /* splitmix64's finaliser: GLib's int64 hash keeps only the low bits */
+  h = (h ^ (h >> 30)) * 0xbf58476d1ce4e5b9ull;
+  h = (h ^ (h >> 27)) * 0x94d049bb133111ebull;
+  return (gint64)(h ^ (h >> 31));
+}
+
+/* The largest set of free markers of one size and colour. Each marker joins the set of
+ * the earliest first marker it looks like, else starts one (the first set wins a tie);
+ * first markers are bucketed by paint and size cell, and a match lies in the same or a
+ * neighbouring cell. */
 static GArray *largest_set(const pp_recognize_ctx *ctx) {
   const pp_scene *scene = ctx->scene;
-  GArray *best = g_array_new(FALSE, FALSE, sizeof(dot));
-  g_autofree gboolean *used = g_new0(gboolean, scene->marks->len ? scene->marks->len : 1);
-  for (guint i = 0; i < scene->marks->len; i++) {
-    const pp_mark *m = g_ptr_array_index(scene->marks, i);
-    if (used[i] || !pp_claims_mark_free(ctx->claims, i) || !is_dot(m) ||
-        g_hash_table_contains(ctx->glyph_marks, GUINT_TO_POINTER(i)))
+  g_autoptr(GHashTable) buckets =
+      g_hash_table_new_full(g_int64_hash, g_int64_equal, g_free, (GDestroyNotify)g_array_unref);
+  g_autoptr(GPtrArray) sets = g_ptr_array_new_with_free_func((GDestroyNotify)g_array_unref);
+  g_autoptr(GArray) firsts = g_array_new(FALSE, FALSE, sizeof(guint));
+  for (guint k = 0; k < scene->marks->len; k++) {
+    const pp_mark *o = g_ptr_array_index(scene->marks, k);
+    if (!pp_claims_mark_free(ctx->claims, k) || !is_dot(o) ||
+        g_hash_table_contains(ctx->glyph_marks, GUINT_TO_POINTER(k)) || !same_look(o, o))
       continue;
-    g_autoptr(GArray) set = g_array_new(FALSE, FALSE, sizeof(dot));
-    for (guint k = i; k < scene->marks->len; k++) {
-      const pp_mark *o = g_ptr_array_index(scene->marks, k);
-      if (used[k] || !pp_claims_mark_free(ctx->claims, k) || !is_dot(o) || !same_look(m, o) ||
-          g_hash_table_contains(ctx->glyph_marks, GUINT_TO_POINTER(k)))
-        continue;
-      used[k] = TRUE;
-      dot d = {k, o->bbox};
-      g_array_append_val(set, d);
+    guint found = G_MAXUINT;
+    for (int d = 0; d < 9; d++) {
+      gint64 key = look_key(o, d % 3 - 1, d / 3 - 1);
+      GArray *bucket = g_hash_table_lookup(buckets, &key);
+      for (guint j = 0; bucket && j < bucket->len; j++) {
+        guint set = g_array_index(bucket, guint, j);
+        if (set >= found)
+          break;
+        const pp_mark *m = g_ptr_array_index(scene->marks, g_array_index(firsts, guint, set));
+        if (same_look(m, o)) {
+          found = set;
+          break;
+        }
+      }
     }
+    if (found == G_MAXUINT) {
+      found = sets->len;
+      g_ptr_array_add(sets, g_array_new(FALSE, FALSE, sizeof(dot)));
+      g_array_append_val(firsts, k);
+      gint64 key = look_key(o, 0, 0);
+      GArray *bucket = g_hash_table_lookup(buckets, &key);
+      if (!bucket) {
+        bucket = g_array_new(FALSE, FALSE, sizeof(guint));
+        g_hash_table_insert(buckets, g_memdup2(&key, sizeof key), bucket);
+      }
+      g_array_append_val(bucket, found);
+    }
+    dot d = {k, o->bbox};
+    g_array_append_val(g_ptr_array_index(sets, found), d);
+  }
+  GArray *best = g_array_new(FALSE, FALSE, sizeof(dot));
+  for (guint i = 0; i < sets->len; i++) {
+    GArray *set = g_ptr_array_index(sets, i);
     if (set->len > best->len) {
       g_array_set_size(best, 0);
       g_array_append_vals(best, set->data, set->len);

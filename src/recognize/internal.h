@@ -311,3 +311,54 @@ void pp_recognize_symbols(pp_recognize_ctx *ctx);     /* symbols.c */
 void pp_recognize_pies(pp_recognize_ctx *ctx);        /* pies.c */
 void pp_recognize_tilted_pies(pp_recognize_ctx *ctx); /* tilted_pies.c */
 void pp_recognize_radial(pp_recognize_ctx *ctx);      /* radial.c */
+
+/* ---- A bucket grid over fixed boxes (box_grid.c) ------------------------------------ */
+typedef struct pp_box_grid pp_box_grid;
+/* Boxes that are empty are never returned. */
+pp_box_grid *pp_box_grid_new(const pp_rect *boxes, guint n);
+void pp_box_grid_free(pp_box_grid *grid);
+/* Sets out (guint) to the indices, ascending and once each, of every box that touches q,
+ * plus possibly some that do not: callers apply their exact test to each. */
+void pp_box_grid_query(pp_box_grid *grid, pp_rect q, GArray *out);
+G_DEFINE_AUTOPTR_CLEANUP_FUNC(pp_box_grid, pp_box_grid_free)
+
+/* ---- Bubbles and their size keys (symbols.c, size_key.c) ---------------------------- */
+/* A size key shows at most this many sizes (a key, not a chart; common practice). */
+#define PP_SYMBOL_KEY_MAX 16
+
+/* A filled circle or icon outline, or an outlined circle (keys only). */
+typedef struct {
+  guint mark;
+  gboolean circle;
+  gboolean outline; /* a stroked circle: a key's symbol, never a bubble */
+  pp_point centre;
+  double r; /* circles: radius; icons: half the bbox diagonal */
+  pp_rect box;
+  double ink; /* outlines: the area they enclose */
+  pp_paint paint;
+  int family;
+  const pp_label *label;
+} pp_symbol;
+
+/* What every family's build shares on one page, built once, so that the work grows with
+ * the symbols, labels and words rather than with their products (dense scatters hold
+ * 10^5 symbols in 10^3 colours). */
+typedef struct {
+  pp_recognize_ctx *ctx;
+  GArray *syms;            /* pp_symbol */
+  GPtrArray *members;      /* per family: GArray of guint indices into syms, ascending */
+  pp_box_grid *labels;     /* item k: ctx->labels[k], its box with its centre */
+  double label_size;       /* the largest label's font size */
+  pp_box_grid *centres;    /* item i: syms[i]'s centre */
+  pp_box_grid *words;      /* item k: scene->words[k] at (centre x, top); on first use */
+  double word_size;        /* the largest word's font size */
+  GArray *frames;          /* pp_rect: rectangle marks that may frame a plot; on first use */
+  GHashTable *tick_labels; /* labels of evenly stepped fitted axes: never a symbol's */
+  GArray *key_families;    /* int: families that may still be a size key, ascending */
+} pp_symbol_page;
+
+/* A size key for the bubbles of family: the first other family whose every symbol has its
+ * own free number (beside, above or below it, or at the top of nested circles), with
+ * area growing with value. Sets each key symbol's label, fills key_members (indices into
+ * pg->syms) and fits area against value; FALSE when there is none. */
+gboolean pp_size_key_find(pp_symbol_page *pg, int family, pp_power_fit *fit, GArray *key_members);

@@ -47,18 +47,9 @@
 #define PP_SYMBOL_COLOUR_TOL 0.02
 /* A label under an icon starts within this many icon heights below it (common practice). */
 #define PP_SYMBOL_BELOW_REACH 0.8
-
-typedef struct {
-  guint mark;
-  gboolean circle;
-  pp_point centre;
-  double r; /* circles: radius; icons: half the bbox diagonal */
-  pp_rect box;
-  double ink;
-  pp_paint paint;
-  int family;
-  const pp_label *label;
-} symbol;
+/* Colours are bucketed in cells a little wider than PP_SYMBOL_COLOUR_TOL, so two colours
+ * within the tolerance always fall in the same or neighbouring cells despite rounding. */
+#define PP_SYMBOL_COLOUR_CELL (PP_SYMBOL_COLOUR_TOL * 1.005)
 
 static gboolean same_colour(const pp_paint *a, const pp_paint *b) {
   return fabs(a->r - b->r) < PP_SYMBOL_COLOUR_TOL && fabs(a->g - b->g) < PP_SYMBOL_COLOUR_TOL &&
@@ -109,22 +100,36 @@ static gboolean similar(const pp_mark *a, const pp_mark *b) {
   return TRUE;
 }
 
+/* Filled circles and icons, and outlined circles (a size key's nested circles are drawn
+ * as outlines so that the smaller ones show). */
 static GArray *collect(const pp_recognize_ctx *ctx) {
-  GArray *out = g_array_new(FALSE, FALSE, sizeof(symbol));
+  GArray *out = g_array_new(FALSE, FALSE, sizeof(pp_symbol));
   const pp_scene *scene = ctx->scene;
   for (guint i = 0; i < scene->marks->len; i++) {
     const pp_mark *m = g_ptr_array_index(scene->marks, i);
-    if (m->kind != PP_MARK_FILL || m->paint.kind != PP_PAINT_SOLID ||
-        !(m->ink >= PP_SYMBOL_MIN_INK) || !pp_claims_mark_free(ctx->claims, i) ||
+    gboolean outline = m->kind == PP_MARK_STROKE && !m->dashed;
+    if ((m->kind != PP_MARK_FILL && !outline) || m->paint.kind != PP_PAINT_SOLID ||
+        !(outline || m->ink >= PP_SYMBOL_MIN_INK) || !pp_claims_mark_free(ctx->claims, i) ||
         g_hash_table_contains(ctx->glyph_marks, GUINT_TO_POINTER(i)) ||
         pp_page_sized(scene, m->bbox))
       continue;
-    /* a symbol cut by its clip is not measurable as drawn */
-    if (fabs(pp_rect_area(m->visible_bbox) - pp_rect_area(m->bbox)) > 0.01 * pp_rect_area(m->bbox))
+    /* a symbol cut by its clip is not measurable as drawn (an outline's visible box holds
+     * half its line width) */
+    double pen = outline ? m->line_width / 2 : 0;
+    pp_rect drawn = {m->bbox.x0 - pen, m->bbox.y0 - pen, m->bbox.x1 + pen, m->bbox.y1 + pen};
+    if (fabs(pp_rect_area(m->visible_bbox) - pp_rect_area(drawn)) > 0.01 * pp_rect_area(drawn))
       continue;
-    symbol s = {.mark = i, .box = m->bbox, .ink = m->ink, .paint = m->paint, .family = -1};
+    pp_symbol s = {.mark = i, .box = m->bbox, .ink = m->ink, .paint = m->paint, .family = -1};
     s.centre = (pp_point){(m->bbox.x0 + m->bbox.x1) / 2, (m->bbox.y0 + m->bbox.y1) / 2};
     s.circle = is_circle(m);
+    if (outline) {
+      if (!s.circle)
+        continue;
+      s.outline = TRUE;
+      s.ink = pp_path_fill_area(m->path, m->rule);
+      if (!(s.ink >= PP_SYMBOL_MIN_INK))
+        continue;
+    }
     s.r = s.circle ? pp_rect_width(m->bbox) / 2
                    : hypot(pp_rect_width(m->bbox), pp_rect_height(m->bbox)) / 2;
     g_array_append_val(out, s);
@@ -132,35 +137,86 @@ static GArray *collect(const pp_recognize_ctx *ctx) {
   return out;
 }
 
-/* Families: circles of one colour, or copies of one icon outline in one colour. */
+static int colour_cell(double v) {
+  double c = floor(v / PP_SYMBOL_COLOUR_CELL) + 1024;
+  return !(c >= 1) ? 1 : c > 2046 ? 2046 : (int)c;
+}
+
+static gint64 family_key(const pp_symbol *s, const pp_mark *m, int dr, int dg, int db) {
+  gint64 shape = s->outline ? 1 : s->circle ? 0 : (gint64)MIN(m->path->n_segs, 1u << 20) + 2;
+  guint64 h = (guint64)(((shape * 2048 + colour_cell(s->paint.r) + dr) * 2048 +
+                         colour_cell(s->paint.g) + dg) *
+                            2048 +
+                        colour_cell(s->paint.b) + db);
+  /* splitmix64's finaliser: GLib's int64 hash keeps only the low bits */
+  h = (h ^ (h >> 30)) * 0xbf58476d1ce4e5b9ull;
+  h = (h ^ (h >> 27)) * 0x94d049bb133111ebull;
+  return (gint64)(h ^ (h >> 31));
+}
+
+/* Families: circles of one colour, or copies of one icon outline in one colour. Each
+ * symbol joins the family of the earliest first member it matches, else starts one;
+ * first members are bucketed by shape and colour cell, and a match lies in the same or a
+ * neighbouring cell. */
 static int assign_families(const pp_scene *scene, GArray *syms) {
+  g_autoptr(GHashTable) leaders =
+      g_hash_table_new_full(g_int64_hash, g_int64_equal, g_free, (GDestroyNotify)g_array_unref);
   int n = 0;
   for (guint i = 0; i < syms->len; i++) {
-    symbol *a = &g_array_index(syms, symbol, i);
-    if (a->family >= 0)
-      continue;
-    a->family = n++;
-    const pp_mark *ma = g_ptr_array_index(scene->marks, a->mark);
-    for (guint k = i + 1; k < syms->len; k++) {
-      symbol *b = &g_array_index(syms, symbol, k);
-      const pp_mark *mb = g_ptr_array_index(scene->marks, b->mark);
-      if (b->family < 0 && b->circle == a->circle && same_colour(&a->paint, &b->paint) &&
-          (a->circle || similar(ma, mb)))
-        b->family = a->family;
+    pp_symbol *b = &g_array_index(syms, pp_symbol, i);
+    const pp_mark *mb = g_ptr_array_index(scene->marks, b->mark);
+    const pp_symbol *found = NULL;
+    guint found_i = G_MAXUINT;
+    for (int d = 0; d < 27; d++) {
+      gint64 key = family_key(b, mb, d % 3 - 1, d / 3 % 3 - 1, d / 9 - 1);
+      GArray *bucket = g_hash_table_lookup(leaders, &key);
+      for (guint k = 0; bucket && k < bucket->len; k++) {
+        guint li = g_array_index(bucket, guint, k);
+        if (li >= found_i)
+          break;
+        const pp_symbol *a = &g_array_index(syms, pp_symbol, li);
+        if (a->circle == b->circle && a->outline == b->outline &&
+            same_colour(&a->paint, &b->paint) &&
+            (a->circle || similar(g_ptr_array_index(scene->marks, a->mark), mb))) {
+          found = a, found_i = li;
+          break;
+        }
+      }
     }
+    if (found) {
+      b->family = found->family;
+      continue;
+    }
+    b->family = n++;
+    gint64 key = family_key(b, mb, 0, 0, 0);
+    GArray *bucket = g_hash_table_lookup(leaders, &key);
+    if (!bucket) {
+      bucket = g_array_new(FALSE, FALSE, sizeof(guint));
+      g_hash_table_insert(leaders, g_memdup2(&key, sizeof key), bucket);
+    }
+    g_array_append_val(bucket, i);
   }
   return n;
 }
 
-/* The free numeric label on the symbol (its centre within the symbol, or the symbol's
- * centre within the label), else just below it (pictograms). */
-static const pp_label *label_of(const pp_recognize_ctx *ctx, GArray *syms, const symbol *s,
-                                GHashTable *used) {
+/* The free numeric label on the symbol (its centre within the pp_symbol, or the symbol's
+ * centre within the label), else just below it (pictograms). Only labels the grid finds
+ * near the symbol are tested. */
+static const pp_label *label_of(pp_symbol_page *pg, const pp_symbol *s, GHashTable *used) {
+  const pp_recognize_ctx *ctx = pg->ctx;
+  double h = pp_rect_height(s->box);
+  pp_rect q = {s->box.x0 - 0.5, s->box.y0 - 0.5, s->box.x1 + 0.5, s->box.y1 + 0.5};
+  if (!s->circle)
+    q.y1 = fmax(q.y1, s->box.y1 + fmax(PP_SYMBOL_BELOW_REACH * h, 2 * pg->label_size));
+  g_autoptr(GArray) hits = g_array_new(FALSE, FALSE, sizeof(guint));
+  g_autoptr(GArray) near = g_array_new(FALSE, FALSE, sizeof(guint));
+  pp_box_grid_query(pg->labels, q, hits);
   const pp_label *best = NULL;
   double best_d = INFINITY;
-  for (guint k = 0; k < ctx->labels->len; k++) {
-    const pp_label *l = g_ptr_array_index(ctx->labels, k);
-    if (!pp_claims_label_free(ctx->claims, l->index) || g_hash_table_contains(used, l))
+  for (guint j = 0; j < hits->len; j++) {
+    const pp_label *l = g_ptr_array_index(ctx->labels, g_array_index(hits, guint, j));
+    if (!pp_claims_label_free(ctx->claims, l->index) || g_hash_table_contains(used, l) ||
+        g_hash_table_contains(pg->tick_labels, l))
       continue;
     double d = hypot(l->centre.x - s->centre.x, l->centre.y - s->centre.y);
     gboolean on =
@@ -169,7 +225,6 @@ static const pp_label *label_of(const pp_recognize_ctx *ctx, GArray *syms, const
                   pp_rect_contains(l->box,
                                    (pp_rect){s->centre.x, s->centre.y, s->centre.x, s->centre.y}, 0)
             : pp_rect_contains(s->box, l->box, 0.5);
-    double h = pp_rect_height(s->box);
     gboolean below = !on && !s->circle && l->centre.x >= s->box.x0 && l->centre.x <= s->box.x1 &&
                      l->box.y0 >= s->box.y1 - 0.5 &&
                      l->box.y0 - s->box.y1 <= fmax(PP_SYMBOL_BELOW_REACH * h, 2 * l->size);
@@ -177,8 +232,12 @@ static const pp_label *label_of(const pp_recognize_ctx *ctx, GArray *syms, const
       continue;
     /* a label over two overlapping bubbles belongs to the one it is centred on */
     gboolean nearer = FALSE;
-    for (guint i = 0; i < syms->len && on && !nearer; i++) {
-      const symbol *o = &g_array_index(syms, symbol, i);
+    if (on)
+      pp_box_grid_query(
+          pg->centres,
+          (pp_rect){l->centre.x - d, l->centre.y - d, l->centre.x + d, l->centre.y + d}, near);
+    for (guint i = 0; on && i < near->len && !nearer; i++) {
+      const pp_symbol *o = &g_array_index(pg->syms, pp_symbol, g_array_index(near, guint, i));
       nearer = o != s && o->family == s->family &&
                hypot(l->centre.x - o->centre.x, l->centre.y - o->centre.y) < d;
     }
@@ -194,69 +253,33 @@ static const pp_label *label_of(const pp_recognize_ctx *ctx, GArray *syms, const
   return best;
 }
 
-/* A size key: two or more symbols of another family, each with a number just to its
- * right on its own line, stacked in one column or lined up in one row. Fits area against
- * value over the key; FALSE when there is none. */
-static gboolean find_key(const pp_recognize_ctx *ctx, GArray *syms, int family, int n_families,
-                         pp_power_fit *fit, GArray *key_members) {
-  for (int f = 0; f < n_families; f++) {
-    if (f == family)
-      continue;
-    g_array_set_size(key_members, 0);
-    double v[16], a[16];
-    guint n = 0;
-    gboolean ok = TRUE;
-    for (guint i = 0; i < syms->len && ok; i++) {
-      symbol *s = &g_array_index(syms, symbol, i);
-      if (s->family != f)
-        continue;
-      const pp_label *best = NULL;
-      for (guint k = 0; k < ctx->labels->len; k++) {
-        const pp_label *l = g_ptr_array_index(ctx->labels, k);
-        if (pp_claims_label_free(ctx->claims, l->index) && l->box.x0 >= s->centre.x &&
-            l->box.x0 - s->box.x1 <= 4 * l->size &&
-            fabs(l->centre.y - s->centre.y) <= fmax(0.5 * s->r, l->size) &&
-            (!best || l->box.x0 < best->box.x0))
-          best = l;
-      }
-      if (!best || n >= G_N_ELEMENTS(v)) {
-        ok = FALSE;
-        break;
-      }
-      s->label = best;
-      v[n] = best->number.value, a[n] = s->ink, n++;
-      g_array_append_val(key_members, i);
-    }
-    if (ok && n >= 2 && pp_power_fit_compute(v, a, n, fit) && fit->exponent > 0)
-      return TRUE;
-  }
-  g_array_set_size(key_members, 0);
-  return FALSE;
-}
-
 /* The plot: the smallest non-page rectangle mark around every symbol centre. */
-static pp_rect plot_box(const pp_scene *scene, GArray *syms, int family) {
-  pp_rect all = pp_rect_empty();
-  for (guint i = 0; i < syms->len; i++) {
-    const symbol *s = &g_array_index(syms, symbol, i);
-    if (s->family == family)
-      all = pp_rect_union(all, s->box);
+static pp_rect plot_box(pp_symbol_page *pg, int family) {
+  const pp_scene *scene = pg->ctx->scene;
+  const GArray *mem = g_ptr_array_index(pg->members, family);
+  pp_rect all = pp_rect_empty(), centres = pp_rect_empty();
+  for (guint i = 0; i < mem->len; i++) {
+    const pp_symbol *s = &g_array_index(pg->syms, pp_symbol, g_array_index(mem, guint, i));
+    all = pp_rect_union(all, s->box);
+    centres = pp_rect_add_point(centres, s->centre);
+  }
+  if (!pg->frames) {
+    pg->frames = g_array_new(FALSE, FALSE, sizeof(pp_rect));
+    for (guint i = 0; i < scene->marks->len; i++) {
+      const pp_mark *m = g_ptr_array_index(scene->marks, i);
+      pp_rect r;
+      if (m->kind != PP_MARK_GLYPHS && pp_path_is_rectangle(m->path, 0.05, &r) &&
+          pp_rect_area(r) <= PP_FRAME_MAX_PAGE * scene->width * scene->height)
+        g_array_append_val(pg->frames, r);
+    }
   }
   pp_rect best = all;
   double best_a = INFINITY;
-  for (guint i = 0; i < scene->marks->len; i++) {
-    const pp_mark *m = g_ptr_array_index(scene->marks, i);
-    pp_rect r;
-    if (m->kind == PP_MARK_GLYPHS || !pp_path_is_rectangle(m->path, 0.05, &r) ||
-        pp_rect_area(r) > PP_FRAME_MAX_PAGE * scene->width * scene->height)
-      continue;
-    gboolean holds = TRUE;
-    for (guint k = 0; k < syms->len && holds; k++) {
-      const symbol *s = &g_array_index(syms, symbol, k);
-      if (s->family == family)
-        holds =
-            s->centre.x > r.x0 && s->centre.x < r.x1 && s->centre.y > r.y0 && s->centre.y < r.y1;
-    }
+  for (guint i = 0; i < pg->frames->len; i++) {
+    pp_rect r = g_array_index(pg->frames, pp_rect, i);
+    /* every centre strictly inside: the centres' box is */
+    gboolean holds =
+        centres.x0 > r.x0 && centres.x1 < r.x1 && centres.y0 > r.y0 && centres.y1 < r.y1;
     if (holds && pp_rect_area(r) < best_a) {
       best_a = pp_rect_area(r);
       best = r;
@@ -267,10 +290,25 @@ static pp_rect plot_box(const pp_scene *scene, GArray *syms, int family) {
 
 /* The symbol's name: the nearest word under it (below its number, for icons) that is not
  * a number, centred on it. */
-static char *name_of(const pp_scene *scene, const symbol *s) {
+static char *name_of(pp_symbol_page *pg, const pp_symbol *s) {
+  const pp_scene *scene = pg->ctx->scene;
+  if (!pg->words) {
+    g_autofree pp_rect *at = g_new(pp_rect, MAX(scene->words->len, 1));
+    for (guint i = 0; i < scene->words->len; i++) {
+      const pp_text_run *w = g_ptr_array_index(scene->words, i);
+      double cx = (w->box.x0 + w->box.x1) / 2;
+      at[i] = (pp_rect){cx, w->box.y0, cx, w->box.y0};
+      pg->word_size = fmax(pg->word_size, w->font_size);
+    }
+    pg->words = pp_box_grid_new(at, scene->words->len);
+  }
+  g_autoptr(GArray) hits = g_array_new(FALSE, FALSE, sizeof(guint));
+  pp_box_grid_query(pg->words,
+                    (pp_rect){s->box.x0, s->box.y1 - 0.5, s->box.x1, s->box.y1 + 4 * pg->word_size},
+                    hits);
   const pp_text_run *best = NULL;
-  for (guint i = 0; i < scene->words->len; i++) {
-    const pp_text_run *w = g_ptr_array_index(scene->words, i);
+  for (guint j = 0; j < hits->len; j++) {
+    const pp_text_run *w = g_ptr_array_index(scene->words, g_array_index(hits, guint, j));
     double cx = (w->box.x0 + w->box.x1) / 2;
     pp_number num;
     if (cx < s->box.x0 || cx > s->box.x1 || w->box.y0 < s->box.y1 - 0.5 ||
@@ -330,30 +368,25 @@ static void weigh_size_law(pp_figure *fig) {
       g_strdup("symbol sizes do not grow with their numbers: the numbers are not sizes");
 }
 
-static void build(pp_recognize_ctx *ctx, GArray *syms, int family, int n_families) {
-  guint n = 0;
+static void build(pp_symbol_page *pg, int family) {
+  pp_recognize_ctx *ctx = pg->ctx;
+  const GArray *mem = g_ptr_array_index(pg->members, family);
+  guint n = mem->len;
   double lo = INFINITY, hi = 0;
-  for (guint i = 0; i < syms->len; i++) {
-    const symbol *s = &g_array_index(syms, symbol, i);
-    if (s->family == family)
-      n++, lo = fmin(lo, s->ink), hi = fmax(hi, s->ink);
+  for (guint i = 0; i < n; i++) {
+    const pp_symbol *s = &g_array_index(pg->syms, pp_symbol, g_array_index(mem, guint, i));
+    lo = fmin(lo, s->ink), hi = fmax(hi, s->ink);
   }
-  if (n < PP_SYMBOL_MIN_COUNT || hi < PP_SYMBOL_MIN_SPREAD * lo)
-    return;
-  /* values: a number on every symbol, else a size key; tick labels of a fitted axis are
-   * never a symbol's number */
+  if (n < PP_SYMBOL_MIN_COUNT || hi < PP_SYMBOL_MIN_SPREAD * lo ||
+      g_array_index(pg->syms, pp_symbol, g_array_index(mem, guint, 0)).outline)
+    return; /* outlined circles are read only as a size key */
+  /* values: a number on every pp_symbol, else a size key; tick labels of a fitted axis are
+   * never a symbol's number (pg->tick_labels) */
   g_autoptr(GHashTable) used = g_hash_table_new(NULL, NULL);
-  for (guint i = 0; i < ctx->axes->len; i++) {
-    const pp_axis_candidate *a = g_ptr_array_index(ctx->axes, i);
-    for (guint k = 0; evenly_stepped(a) && k < a->labels->len; k++)
-      g_hash_table_add(used, g_ptr_array_index(a->labels, k));
-  }
   guint labelled = 0;
-  for (guint i = 0; i < syms->len; i++) {
-    symbol *s = &g_array_index(syms, symbol, i);
-    if (s->family != family)
-      continue;
-    s->label = label_of(ctx, syms, s, used);
+  for (guint i = 0; i < n; i++) {
+    pp_symbol *s = &g_array_index(pg->syms, pp_symbol, g_array_index(mem, guint, i));
+    s->label = label_of(pg, s, used);
     if (s->label) {
       g_hash_table_add(used, (gpointer)s->label);
       labelled++;
@@ -363,17 +396,15 @@ static void build(pp_recognize_ctx *ctx, GArray *syms, int family, int n_familie
   g_autoptr(GArray) key_members = g_array_new(FALSE, FALSE, sizeof(guint));
   gboolean by_key = FALSE;
   if (labelled < n && labelled < PP_SYMBOL_MIN_LABELLED * n) {
-    if (labelled > 0 || !find_key(ctx, syms, family, n_families, &key, key_members))
+    if (labelled > 0 || !pp_size_key_find(pg, family, &key, key_members))
       return;
     by_key = TRUE;
   }
   pp_claims_begin(ctx->claims);
   pp_figure *fig = pp_figure_new(PP_FIGURE_BUBBLE);
   fig->recognizer = OWNER;
-  for (guint i = 0; i < syms->len; i++) {
-    symbol *s = &g_array_index(syms, symbol, i);
-    if (s->family != family)
-      continue;
+  for (guint i = 0; i < n; i++) {
+    pp_symbol *s = &g_array_index(pg->syms, pp_symbol, g_array_index(mem, guint, i));
     pp_claims_take_mark(ctx->claims, s->mark, OWNER);
     if (!by_key && !s->label)
       continue; /* part of the chart, but its number is hidden: no element */
@@ -382,7 +413,7 @@ static void build(pp_recognize_ctx *ctx, GArray *syms, int family, int n_familie
     e.ink = s->ink;
     e.box = s->box;
     e.extent = sqrt(s->ink / G_PI);
-    e.category = name_of(ctx->scene, s);
+    e.category = name_of(pg, s);
     if (s->circle) {
       e.shape.kind = PP_SHAPE_CIRCLE;
       e.shape.circle.centre = s->centre;
@@ -403,12 +434,12 @@ static void build(pp_recognize_ctx *ctx, GArray *syms, int family, int n_familie
     g_array_append_val(fig->elements, e);
   }
   for (guint k = 0; k < key_members->len; k++) {
-    symbol *s = &g_array_index(syms, symbol, g_array_index(key_members, guint, k));
+    pp_symbol *s = &g_array_index(pg->syms, pp_symbol, g_array_index(key_members, guint, k));
     pp_claims_take_mark(ctx->claims, s->mark, OWNER);
     pp_claims_take_label(ctx->claims, s->label->index, OWNER);
   }
   g_array_sort(fig->elements, cmp_x);
-  fig->bbox = plot_box(ctx->scene, syms, family);
+  fig->bbox = plot_box(pg, family);
   fig->n_series = 1;
   pp_figure_add_evidence(fig, "symbol-family", 1);
   pp_figure_add_evidence(fig, by_key ? "size-key" : "data-labels", 1);
@@ -420,6 +451,43 @@ static void build(pp_recognize_ctx *ctx, GArray *syms, int family, int n_familie
 void pp_recognize_symbols(pp_recognize_ctx *ctx) {
   g_autoptr(GArray) syms = collect(ctx);
   int n = assign_families(ctx->scene, syms);
+  pp_symbol_page pg = {.ctx = ctx, .syms = syms};
+  pg.members = g_ptr_array_new_with_free_func((GDestroyNotify)g_array_unref);
   for (int f = 0; f < n; f++)
-    build(ctx, syms, f, n);
+    g_ptr_array_add(pg.members, g_array_new(FALSE, FALSE, sizeof(guint)));
+  g_autofree pp_rect *at = g_new(pp_rect, MAX(MAX(syms->len, ctx->labels->len), 1));
+  for (guint i = 0; i < syms->len; i++) {
+    const pp_symbol *s = &g_array_index(syms, pp_symbol, i);
+    g_array_append_val(g_ptr_array_index(pg.members, s->family), i);
+    at[i] = (pp_rect){s->centre.x, s->centre.y, s->centre.x, s->centre.y};
+  }
+  pg.centres = pp_box_grid_new(at, syms->len);
+  for (guint k = 0; k < ctx->labels->len; k++) {
+    const pp_label *l = g_ptr_array_index(ctx->labels, k);
+    at[k] = pp_rect_add_point(l->box, l->centre);
+    pg.label_size = fmax(pg.label_size, l->size);
+  }
+  pg.labels = pp_box_grid_new(at, ctx->labels->len);
+  pg.tick_labels = g_hash_table_new(NULL, NULL);
+  for (guint i = 0; i < ctx->axes->len; i++) {
+    const pp_axis_candidate *a = g_ptr_array_index(ctx->axes, i);
+    for (guint k = 0; evenly_stepped(a) && k < a->labels->len; k++)
+      g_hash_table_add(pg.tick_labels, g_ptr_array_index(a->labels, k));
+  }
+  pg.key_families = g_array_new(FALSE, FALSE, sizeof(int));
+  for (int f = 0; f < n; f++) {
+    guint len = ((GArray *)g_ptr_array_index(pg.members, f))->len;
+    if (len >= 2 && len <= PP_SYMBOL_KEY_MAX)
+      g_array_append_val(pg.key_families, f);
+  }
+  for (int f = 0; f < n; f++)
+    build(&pg, f);
+  g_ptr_array_unref(pg.members);
+  pp_box_grid_free(pg.centres);
+  pp_box_grid_free(pg.labels);
+  pp_box_grid_free(pg.words);
+  if (pg.frames)
+    g_array_unref(pg.frames);
+  g_hash_table_unref(pg.tick_labels);
+  g_array_unref(pg.key_families);
 }

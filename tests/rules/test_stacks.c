@@ -98,6 +98,29 @@ static void test_segment_drawn_off_its_label(void **state) {
   }
 }
 
+/* The same stacks as horizontal bars growing right from x = 20, without a scale: the
+ * finding's box of B's top segment is the right 60 of its bar's 85 (x 45 to 105). */
+static void test_horizontal_segment_boxes(void **state) {
+  (void)state;
+  const double drawn[][2] = {{20, 30}, {25, 60}}, labels[][2] = {{20, 30}, {25, 40}};
+  pp_figure *fig = stacks(2, drawn, labels, FALSE, 0, 100);
+  fig->kind = PP_FIGURE_BAR;
+  for (guint i = 0; i < 2; i++) {
+    pp_element *e = &g_array_index(fig->elements, pp_element, i);
+    e->box = e->shape.rect = (pp_rect){20, 20 + 40 * i, 20 + e->extent, 20 + 40 * i + WIDTH};
+  }
+  GPtrArray *out = check(fig);
+  assert_int_equal(out->len, 1);
+  const pp_finding *f = g_ptr_array_index(out, 0);
+  assert_float_equal(f->measures.growth_ratio, 1.5, 1e-9);
+  const pp_finding_element *b2 = &g_array_index(f->elements, pp_finding_element, 3);
+  assert_float_equal(b2->box.x0, 45, 1e-9);
+  assert_float_equal(b2->box.x1, 105, 1e-9);
+  assert_float_equal(b2->box.y0, 60, 1e-9);
+  g_ptr_array_unref(out);
+  pp_figure_free(fig);
+}
+
 /* Honest stacks whose labels are rounded to whole numbers: drawn 3.4, 12.2 and 7.6, 9.5
  * printed 3, 12, 8, 10. On the labels alone the worst pair departs (3.4/3)/(12.2/12) =
  * 1.115, beyond the band; every label is within half a unit (0.5) of its drawing, so
@@ -159,6 +182,7 @@ static void test_cut_axis_is_not_a_label_finding(void **state) {
 int main(void) {
   const struct CMUnitTest tests[] = {
       cmocka_unit_test(test_segment_drawn_off_its_label),
+      cmocka_unit_test(test_horizontal_segment_boxes),
       cmocka_unit_test(test_rounded_labels_are_quiet),
       cmocka_unit_test(test_full_stacks),
       cmocka_unit_test(test_cut_axis_is_not_a_label_finding),

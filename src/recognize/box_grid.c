@@ -1,0 +1,133 @@
+/* box_grid.c — a uniform bucket grid over a fixed set of boxes, so that recognizers ask
+ * "which boxes may touch this region" in time proportional to the answer instead of
+ * scanning every mark or label on the page (dense scatters hold 10^5–10^6 of them). */
+#include <math.h>
+#include <string.h>
+
+#include "internal.h"
+
+/* An item spanning more cells than this is kept in one list every query returns, so one
+ * page-wide box does not fill every cell (common practice, no source). */
+#define PP_GRID_MAX_SPAN 64
+
+struct pp_box_grid {
+  pp_rect extent;
+  guint cols, rows;
+  double cw, ch;
+  guint *start; /* cols*rows+1 offsets into ids (compressed rows) */
+  guint *ids;
+  GArray *wide; /* guint: items over PP_GRID_MAX_SPAN cells */
+  guint *stamp; /* per item: the query that last returned it */
+  guint n, query;
+};
+
+static guint clamp_cell(double v, double lo, double size, guint count) {
+  double c = floor((v - lo) / size);
+  if (!(c >= 0))
+    return 0;
+  return c >= count ? count - 1 : (guint)c;
+}
+
+static void cells_of(const pp_box_grid *g, pp_rect r, guint *c0, guint *c1, guint *r0, guint *r1) {
+  *c0 = clamp_cell(r.x0, g->extent.x0, g->cw, g->cols);
+  *c1 = clamp_cell(r.x1, g->extent.x0, g->cw, g->cols);
+  *r0 = clamp_cell(r.y0, g->extent.y0, g->ch, g->rows);
+  *r1 = clamp_cell(r.y1, g->extent.y0, g->ch, g->rows);
+}
+
+static gboolean is_wide(guint c0, guint c1, guint r0, guint r1) {
+  return (guint64)(c1 - c0 + 1) * (r1 - r0 + 1) > PP_GRID_MAX_SPAN;
+}
+
+pp_box_grid *pp_box_grid_new(const pp_rect *boxes, guint n) {
+  pp_box_grid *g = g_new0(pp_box_grid, 1);
+  g->n = n;
+  g->extent = pp_rect_empty();
+  for (guint i = 0; i < n; i++)
+    if (!pp_rect_is_empty(boxes[i]))
+      g->extent = pp_rect_union(g->extent, boxes[i]);
+  if (pp_rect_is_empty(g->extent))
+    g->extent = (pp_rect){0, 0, 1, 1};
+  /* about one cell per item, square cells */
+  double w = fmax(pp_rect_width(g->extent), 1e-6), h = fmax(pp_rect_height(g->extent), 1e-6);
+  double side = sqrt(w * h / MAX(n, 1));
+  g->cols = (guint)CLAMP(ceil(w / side), 1, 4096);
+  g->rows = (guint)CLAMP(ceil(h / side), 1, 4096);
+  g->cw = w / g->cols, g->ch = h / g->rows;
+  g->wide = g_array_new(FALSE, FALSE, sizeof(guint));
+  g->stamp = g_new0(guint, MAX(n, 1));
+  guint n_cells = g->cols * g->rows;
+  g->start = g_new0(guint, n_cells + 1);
+  guint c0, c1, r0, r1;
+  for (guint i = 0; i < n; i++) {
+    if (pp_rect_is_empty(boxes[i]))
+      continue;
+    cells_of(g, boxes[i], &c0, &c1, &r0, &r1);
+    if (is_wide(c0, c1, r0, r1))
+      continue;
+    for (guint r = r0; r <= r1; r++)
+      for (guint c = c0; c <= c1; c++)
+        g->start[r * g->cols + c + 1]++;
+  }
+  for (guint k = 0; k < n_cells; k++)
+    g->start[k + 1] += g->start[k];
+  g->ids = g_new(guint, MAX(g->start[n_cells], 1));
+  g_autofree guint *fill = g_memdup2(g->start, n_cells * sizeof(guint));
+  for (guint i = 0; i < n; i++) {
+    if (pp_rect_is_empty(boxes[i]))
+      continue;
+    cells_of(g, boxes[i], &c0, &c1, &r0, &r1);
+    if (is_wide(c0, c1, r0, r1)) {
+      g_array_append_val(g->wide, i);
+      continue;
+    }
+    for (guint r = r0; r <= r1; r++)
+      for (guint c = c0; c <= c1; c++)
+        g->ids[fill[r * g->cols + c]++] = i;
+  }
+  return g;
+}
+
+void pp_box_grid_free(pp_box_grid *g) {
+  if (!g)
+    return;
+  g_free(g->start);
+  g_free(g->ids);
+  g_free(g->stamp);
+  g_array_unref(g->wide);
+  g_free(g);
+}
+
+static int cmp_guint(gconstpointer a, gconstpointer b) {
+  guint x = *(const guint *)a, y = *(const guint *)b;
+  return (x > y) - (x < y);
+}
+
+static void take(pp_box_grid *g, guint id, GArray *out) {
+  if (g->stamp[id] == g->query)
+    return;
+  g->stamp[id] = g->query;
+  g_array_append_val(out, id);
+}
+
+void pp_box_grid_query(pp_box_grid *g, pp_rect q, GArray *out) {
+  g_array_set_size(out, 0);
+  if (g->n == 0 || !(q.x0 <= q.x1 && q.y0 <= q.y1))
+    return;
+  if (++g->query == 0) { /* the stamp counter wrapped: forget every stamp */
+    memset(g->stamp, 0, g->n * sizeof(guint));
+    g->query = 1;
+  }
+  for (guint k = 0; k < g->wide->len; k++)
+    take(g, g_array_index(g->wide, guint, k), out);
+  if (q.x1 >= g->extent.x0 && q.x0 <= g->extent.x1 && q.y1 >= g->extent.y0 &&
+      q.y0 <= g->extent.y1) {
+    guint c0, c1, r0, r1;
+    cells_of(g, q, &c0, &c1, &r0, &r1);
+    for (guint r = r0; r <= r1; r++)
+      for (guint c = c0; c <= c1; c++)
+        for (guint k = g->start[r * g->cols + c]; k < g->start[r * g->cols + c + 1]; k++)
+          take(g, g->ids[k], out);
+  }
+  g_array_sort(out, cmp_guint);
+}

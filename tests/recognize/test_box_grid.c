@@ -1,0 +1,73 @@
+/* test_box_grid.c — the recognizers' bucket grid: every box that touches a query is
+ * returned, ascending and once, whatever the boxes' sizes (points, page-wide boxes, empty
+ * boxes). The reference is the exhaustive test of every box against the query (closed
+ * rectangles intersect when they overlap on both axes: textbook). */
+#include <setjmp.h>
+#include <stdarg.h>
+#include <stddef.h>
+
+#include <cmocka.h>
+
+#include "recognize/internal.h"
+
+static gboolean touches(pp_rect a, pp_rect b) {
+  return !pp_rect_is_empty(a) && a.x0 <= b.x1 && b.x0 <= a.x1 && a.y0 <= b.y1 && b.y0 <= a.y1;
+}
+
+static void check(pp_box_grid *g, const pp_rect *boxes, guint n, pp_rect q) {
+  g_autoptr(GArray) hits = g_array_new(FALSE, FALSE, sizeof(guint));
+  pp_box_grid_query(g, q, hits);
+  for (guint k = 1; k < hits->len; k++) /* ascending, once each */
+    assert_true(g_array_index(hits, guint, k - 1) < g_array_index(hits, guint, k));
+  guint j = 0;
+  for (guint i = 0; i < n; i++) {
+    while (j < hits->len && g_array_index(hits, guint, j) < i)
+      j++;
+    gboolean found = j < hits->len && g_array_index(hits, guint, j) == i;
+    if (touches(boxes[i], q))
+      assert_true(found);
+    if (pp_rect_is_empty(boxes[i]))
+      assert_false(found);
+  }
+}
+
+static void test_random_boxes(void **state) {
+  (void)state;
+  GRand *rand = g_rand_new_with_seed(12);
+  for (int round = 0; round < 20; round++) {
+    guint n = 1 + g_rand_int_range(rand, 0, 3000);
+    g_autofree pp_rect *boxes = g_new(pp_rect, n);
+    for (guint i = 0; i < n; i++) {
+      double x = g_rand_double_range(rand, 0, 600), y = g_rand_double_range(rand, 0, 800);
+      /* points, small marks, and now and then a page-wide frame or an empty box */
+      double w = i % 97 == 0 ? 500 : i % 3 == 0 ? 0 : g_rand_double_range(rand, 0, 8);
+      double h = i % 97 == 0 ? 700 : i % 3 == 0 ? 0 : g_rand_double_range(rand, 0, 8);
+      boxes[i] = i % 101 == 50 ? pp_rect_empty() : (pp_rect){x, y, x + w, y + h};
+    }
+    g_autoptr(pp_box_grid) g = pp_box_grid_new(boxes, n);
+    for (int k = 0; k < 200; k++) {
+      double x = g_rand_double_range(rand, -50, 650), y = g_rand_double_range(rand, -50, 850);
+      double w = k % 10 == 0 ? 0 : g_rand_double_range(rand, 0, 60);
+      check(g, boxes, n, (pp_rect){x, y, x + w, y + g_rand_double_range(rand, 0, 60)});
+    }
+    /* a query on a box's own corner finds it */
+    check(g, boxes, n, (pp_rect){boxes[0].x1, boxes[0].y1, boxes[0].x1, boxes[0].y1});
+  }
+  g_rand_free(rand);
+}
+
+static void test_empty_grid(void **state) {
+  (void)state;
+  g_autoptr(pp_box_grid) g = pp_box_grid_new(NULL, 0);
+  g_autoptr(GArray) hits = g_array_new(FALSE, FALSE, sizeof(guint));
+  pp_box_grid_query(g, (pp_rect){0, 0, 10, 10}, hits);
+  assert_int_equal(hits->len, 0);
+}
+
+int main(void) {
+  const struct CMUnitTest tests[] = {
+      cmocka_unit_test(test_random_boxes),
+      cmocka_unit_test(test_empty_grid),
+  };
+  return cmocka_run_group_tests(tests, NULL, NULL);
+}
