@@ -503,6 +503,7 @@ static void vertex(sweep *s, double y, edge **order, size_t n, size_t *next) {
     e->hpos = s->n_heap++;
     heap_up(s, e->hpos);
   }
+  size_t keys_from = s->n_act, keys_to = s->n_act;
   if (lo != SIZE_MAX) {
     /* tail: the first index of the unchanged run at the end (old edges, one shift). */
     const guint nr = s->n_reg;
@@ -526,6 +527,11 @@ static void vertex(sweep *s, double y, edge **order, size_t n, size_t *next) {
       if (i >= tail && memcmp(s->gw + i * nr, old_w + was * nr, nr * sizeof(int)) == 0)
         break;
     }
+    /* Right neighbours changed only from the edge left of the first change up to here:
+     * past it, every edge keeps its neighbour (the last keeps none, its key already
+     * infinite), so renewing their keys would change nothing. */
+    keys_from = lo > 0 ? lo - 1 : 0;
+    keys_to = MIN(i + 2, s->n_act);
     if (i < s->n_act) { /* the rest as before, shifted */
       size_t from = i + 1 + old_n - s->n_act, k = s->n_act - i - 1;
       memcpy(s->gw + (i + 1) * nr, old_w + from * nr, k * nr * sizeof(int));
@@ -534,7 +540,7 @@ static void vertex(sweep *s, double y, edge **order, size_t n, size_t *next) {
         s->act[j]->pos = j;
     }
   }
-  for (size_t i = 0; i < s->n_act; i++) {
+  for (size_t i = keys_from; i < keys_to; i++) {
     edge *r = i + 1 < s->n_act ? s->act[i + 1] : NULL;
     if (s->act[i]->right != r || r == NULL)
       set_key(s, s->act[i], r, y, FALSE, FALSE);
