@@ -4,13 +4,31 @@
 #include "internal.h"
 
 #include <math.h>
+#include <string.h>
 
 /* Curved clip boundaries are flattened to this fraction of the scene size; the
  * resulting error in the clipped length is bounded in docs/geometry.md. */
 #define CLIP_FLATTEN_REL 1e-7
 
+/* A curved clip member flattened, with its edges listed by horizontal band so that a
+ * probe or a segment meets only the edges at its height. */
 typedef struct {
-  GPtrArray *polys; /* flattened subpaths, of GArray<pp_point> */
+  pp_path *path; /* a copy of the member's path: what the entry was made from */
+  double tol;
+  GPtrArray *polys;  /* flattened subpaths, of GArray<pp_point> */
+  pp_point *ea, *eb; /* every edge (closing ones included), from ea[i] to eb[i] */
+  guint n_edges;     /* ...in the order the subpaths list them */
+  double band_y0, band_h;
+  guint n_bands;
+  guint *band_first; /* band j's edges: band_edges[band_first[j] .. band_first[j+1]) */
+  guint *band_edges;
+  guint *seen; /* per edge: the last lookup that met it */
+  guint lookup;
+} flat_clip;
+
+typedef struct {
+  const flat_clip *flat;
+  flat_clip *own; /* set when not cached: this call frees it */
   pp_fill_rule rule;
   pp_rect box;
 } clip_poly;
@@ -21,20 +39,116 @@ typedef struct {
   double eps;
 } clip_set;
 
+/* Edges per band: about this many on average (common practice for bucket grids, no
+ * source). */
+#define CLIP_EDGES_PER_BAND 4
+/* Flattened clips kept between calls: the strokes of a scene share a few clip paths, and
+ * one curved clip flattened to CLIP_FLATTEN_REL holds thousands of points. An entry is
+ * taken only for a path of the same segments and the same tolerance, so its polygons are
+ * the ones flattening again would give (a freed path's address reused never matches). */
+#define CLIP_CACHE_SIZE 8
+
+static guint band_of(const flat_clip *f, double y) {
+  double b = floor((y - f->band_y0) / f->band_h);
+  if (!(b > 0))
+    return 0;
+  return b >= f->n_bands ? f->n_bands - 1 : (guint)b;
+}
+
+static void flat_clip_free(flat_clip *f) {
+  if (!f)
+    return;
+  pp_path_free(f->path);
+  g_ptr_array_unref(f->polys);
+  g_free(f->ea);
+  g_free(f->eb);
+  g_free(f->band_first);
+  g_free(f->band_edges);
+  g_free(f->seen);
+  g_free(f);
+}
+
+static flat_clip *flat_clip_new(const pp_path *path, double tol) {
+  flat_clip *f = g_new0(flat_clip, 1);
+  f->path = pp_path_copy(path);
+  f->tol = tol;
+  f->polys = pp_path_flatten(path, tol);
+  for (guint k = 0; k < f->polys->len; k++)
+    f->n_edges += ((GArray *)f->polys->pdata[k])->len;
+  f->ea = g_new(pp_point, MAX(f->n_edges, 1));
+  f->eb = g_new(pp_point, MAX(f->n_edges, 1));
+  f->seen = g_new0(guint, MAX(f->n_edges, 1));
+  double y0 = INFINITY, y1 = -INFINITY;
+  guint e = 0;
+  for (guint k = 0; k < f->polys->len; k++) {
+    GArray *poly = f->polys->pdata[k];
+    const pp_point *v = (const pp_point *)poly->data;
+    for (guint i = 0; i < poly->len; i++, e++) {
+      f->ea[e] = v[i], f->eb[e] = v[(i + 1) % poly->len];
+      y0 = fmin(y0, v[i].y), y1 = fmax(y1, v[i].y);
+    }
+  }
+  f->n_bands = MAX(f->n_edges / CLIP_EDGES_PER_BAND, 1);
+  f->band_y0 = isfinite(y0) ? y0 : 0;
+  f->band_h = isfinite(y1 - y0) && y1 > y0 ? (y1 - y0) / f->n_bands : 1;
+  f->band_first = g_new0(guint, f->n_bands + 1);
+  for (guint i = 0; i < f->n_edges; i++) /* count, then place */
+    for (guint b = band_of(f, fmin(f->ea[i].y, f->eb[i].y));
+         b <= band_of(f, fmax(f->ea[i].y, f->eb[i].y)); b++)
+      f->band_first[b + 1]++;
+  for (guint b = 0; b < f->n_bands; b++)
+    f->band_first[b + 1] += f->band_first[b];
+  f->band_edges = g_new(guint, MAX(f->band_first[f->n_bands], 1));
+  guint *fill = g_memdup2(f->band_first, f->n_bands * sizeof(guint));
+  for (guint i = 0; i < f->n_edges; i++)
+    for (guint b = band_of(f, fmin(f->ea[i].y, f->eb[i].y));
+         b <= band_of(f, fmax(f->ea[i].y, f->eb[i].y)); b++)
+      f->band_edges[fill[b]++] = i;
+  g_free(fill);
+  return f;
+}
+
+static gboolean same_path(const pp_path *a, const pp_path *b) {
+  if (a->n_segs != b->n_segs)
+    return FALSE;
+  for (size_t i = 0; i < a->n_segs; i++)
+    if (a->segs[i].kind != b->segs[i].kind ||
+        memcmp(a->segs[i].pt, b->segs[i].pt, sizeof a->segs[i].pt) != 0)
+      return FALSE;
+  return TRUE;
+}
+
+static flat_clip *flat_cache[CLIP_CACHE_SIZE];
+static guint flat_cache_next;
+
+/* The member flattened at tol, from the cache or made now (and cached). */
+static const flat_clip *flat_clip_get(const pp_path *path, double tol) {
+  for (guint i = 0; i < CLIP_CACHE_SIZE; i++) {
+    flat_clip *f = flat_cache[i];
+    if (f && f->tol == tol && same_path(f->path, path))
+      return f;
+  }
+  flat_clip *f = flat_clip_new(path, tol);
+  flat_clip_free(flat_cache[flat_cache_next]);
+  flat_cache[flat_cache_next] = f;
+  flat_cache_next = (flat_cache_next + 1) % CLIP_CACHE_SIZE;
+  return f;
+}
+
 static gboolean in_poly(const clip_poly *c, pp_point p) {
   if (!(p.x >= c->box.x0 && p.x <= c->box.x1 && p.y >= c->box.y0 && p.y <= c->box.y1))
     return FALSE;
+  /* Only edges spanning p.y can cross the ray, and those are all in p.y's band; the
+   * winding is a sum, so the order they are met in does not matter. */
+  const flat_clip *f = c->flat;
   int w = 0;
-  for (guint k = 0; k < c->polys->len; k++) {
-    GArray *poly = c->polys->pdata[k];
-    const pp_point *v = (const pp_point *)poly->data;
-    for (guint i = 0; i < poly->len; i++) {
-      pp_point a = v[i], b = v[(i + 1) % poly->len];
-      if ((a.y <= p.y) != (b.y <= p.y)) { /* half-open rule: shared vertices count once */
-        double x = a.x + (p.y - a.y) * (b.x - a.x) / (b.y - a.y);
-        if (x > p.x)
-          w += a.y < b.y ? 1 : -1;
-      }
+  guint b = band_of(f, p.y);
+  for (guint k = f->band_first[b]; k < f->band_first[b + 1]; k++) {
+    pp_point a = f->ea[f->band_edges[k]], d = f->eb[f->band_edges[k]];
+    if ((a.y <= p.y) != (d.y <= p.y)) { /* half-open rule: shared vertices count once */
+      double x = a.x + (p.y - a.y) * (d.x - a.x) / (d.y - a.y);
+      if (x > p.x)
+        w += a.y < d.y ? 1 : -1;
     }
   }
   return c->rule == PP_FILL_EVEN_ODD ? (w & 1) != 0 : w != 0;
@@ -166,16 +280,24 @@ static double segment_inside(const clip_set *cs, const pp_point *p, int n, GArra
     const clip_poly *c = &g_array_index(cs->general, clip_poly, g);
     if (!boxes_overlap(sb, c->box))
       return 0;
-    for (guint k = 0; k < c->polys->len; k++) {
-      GArray *poly = c->polys->pdata[k];
-      const pp_point *v = (const pp_point *)poly->data;
-      for (guint i = 0; i < poly->len; i++) {
-        pp_point a = v[i], d = v[(i + 1) % poly->len];
+    /* The edges of the bands the segment spans, each once; the cuts are sorted below, so
+     * the order they are found in does not matter. */
+    flat_clip *f = (flat_clip *)c->flat;
+    if (++f->lookup == 0) { /* wrapped: forget every mark */
+      memset(f->seen, 0, MAX(f->n_edges, 1) * sizeof(guint));
+      f->lookup = 1;
+    }
+    for (guint b = band_of(f, sb.y0), last = band_of(f, sb.y1); b <= last; b++)
+      for (guint k = f->band_first[b]; k < f->band_first[b + 1]; k++) {
+        guint i = f->band_edges[k];
+        if (f->seen[i] == f->lookup)
+          continue;
+        f->seen[i] = f->lookup;
+        pp_point a = f->ea[i], d = f->eb[i];
         pp_rect eb = pp_rect_add_point(pp_rect_add_point(pp_rect_empty(), a), d);
         if (boxes_overlap(sb, eb))
           cut_line(p, n, a, d, FALSE, ts);
       }
-    }
   }
   qsort(ts->data, ts->len, sizeof(double), pp_compare_doubles);
   double sum = 0;
@@ -234,7 +356,7 @@ double pp_path_clipped_length(const pp_path *path, const pp_clip *clip) {
     if (pp_path_is_rectangle(c->path, 0, &r))
       cs.box = pp_rect_intersect(cs.box, r);
     else {
-      clip_poly cp = {NULL, c->rule, cb};
+      clip_poly cp = {NULL, NULL, c->rule, cb};
       g_array_append_val(cs.general, cp);
     }
   }
@@ -248,8 +370,12 @@ double pp_path_clipped_length(const pp_path *path, const pp_clip *clip) {
     pp_rect r;
     if (!c->path || pp_path_is_rectangle(c->path, 0, &r))
       continue;
-    g_array_index(cs.general, clip_poly, gi++).polys =
-        pp_path_flatten(c->path, CLIP_FLATTEN_REL * size);
+    clip_poly *cp = &g_array_index(cs.general, clip_poly, gi++);
+    /* A chain of more curved members than the cache holds would evict its own. */
+    if (cs.general->len <= CLIP_CACHE_SIZE)
+      cp->flat = flat_clip_get(c->path, CLIP_FLATTEN_REL * size);
+    else
+      cp->flat = cp->own = flat_clip_new(c->path, CLIP_FLATTEN_REL * size);
   }
   GArray *ts = g_array_new(FALSE, FALSE, sizeof(double));
   pp_point start = {0, 0}, cur = {0, 0};
@@ -273,11 +399,8 @@ double pp_path_clipped_length(const pp_path *path, const pp_clip *clip) {
   }
   g_array_free(ts, TRUE);
 out:
-  for (guint i = 0; i < cs.general->len; i++) {
-    GPtrArray *polys = g_array_index(cs.general, clip_poly, i).polys;
-    if (polys)
-      g_ptr_array_unref(polys);
-  }
+  for (guint i = 0; i < cs.general->len; i++)
+    flat_clip_free(g_array_index(cs.general, clip_poly, i).own);
   g_array_free(cs.general, TRUE);
   return result;
 }
