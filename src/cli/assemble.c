@@ -196,9 +196,16 @@ JsonNode *pp_assembly_finish(pp_assembly *as, const char *interrupted_reason, co
     JsonArray *pf = array_member(po, "_findings");
     for (guint k = 0; pf && k < json_array_get_length(pf); k++) {
       JsonNode *f = json_array_get_element(pf, k);
+      /* a worker's line is untrusted input: a finding that is not an object is dropped, and
+       * a severity that is not a string (null, a number) counts in no severity */
+      if (!JSON_NODE_HOLDS_OBJECT(f))
+        continue;
       json_array_add_element(findings, json_node_copy(f));
+      JsonNode *sn = json_object_get_member(json_node_get_object(f), "severity");
       const char *s =
-          json_object_get_string_member_with_default(json_node_get_object(f), "severity", "");
+          sn && JSON_NODE_HOLDS_VALUE(sn) && json_node_get_value_type(sn) == G_TYPE_STRING
+              ? json_node_get_string(sn)
+              : "";
       for (int k2 = 0; k2 < 3; k2++)
         sev[k2] += strcmp(s, sev_names[k2]) == 0;
     }

@@ -118,7 +118,9 @@ static void assembly_totals(void **state) {
   feed(as, "{\"open\":{\"document\":{\"pages\":3},\"pages\":[],\"findings\":[],\"totals\":{}}}");
   feed(as, "{\"start\":0}");
   feed(as, "{\"page\":0,\"rss_kib\":900,\"report\":{\"pages\":[{\"page\":1,\"error\":null,"
-           "\"figures\":[{},{}]}],\"findings\":[{\"severity\":\"severe\"}]}}");
+           "\"figures\":[{},{}]}],\"findings\":[{\"severity\":\"severe\"},"
+           /* found by fuzz_events: a severity that is no string, a finding that is no object */
+           "{\"severity\":1},{\"severity\":null},7]}}");
   feed(as, "{\"start\":1}");
   feed(as, "{\"page\":1,\"error\":\"too complex: over the page budget of 1 s\"}");
   feed(as, "{\"start\":2}");
@@ -133,7 +135,7 @@ static void assembly_totals(void **state) {
   assert_int_equal(json_object_get_int_member(t, "pages_analysed"), 1);
   assert_int_equal(json_object_get_int_member(t, "pages_failed"), 2);
   assert_int_equal(json_object_get_int_member(t, "figures"), 2);
-  assert_int_equal(json_object_get_int_member(t, "findings"), 1);
+  assert_int_equal(json_object_get_int_member(t, "findings"), 3);
   assert_int_equal(
       json_object_get_int_member(json_object_get_object_member(t, "by_severity"), "severe"), 1);
   JsonArray *pages = json_object_get_array_member(json_node_get_object(root), "pages");
