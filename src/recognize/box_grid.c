@@ -19,6 +19,7 @@ struct pp_box_grid {
   GArray *wide; /* guint: items over PP_GRID_MAX_SPAN cells */
   guint *stamp; /* per item: the query that last returned it */
   guint n, query;
+  GArray *empty; /* guint: items whose box is empty, for pp_box_grid_query_inside */
 };
 
 static guint clamp_cell(double v, double lo, double size, guint count) {
@@ -55,6 +56,10 @@ pp_box_grid *pp_box_grid_new(const pp_rect *boxes, guint n) {
   g->rows = (guint)CLAMP(ceil(h / side), 1, 4096);
   g->cw = w / g->cols, g->ch = h / g->rows;
   g->wide = g_array_new(FALSE, FALSE, sizeof(guint));
+  g->empty = g_array_new(FALSE, FALSE, sizeof(guint));
+  for (guint i = 0; i < n; i++)
+    if (pp_rect_is_empty(boxes[i]))
+      g_array_append_val(g->empty, i);
   g->stamp = g_new0(guint, MAX(n, 1));
   guint n_cells = g->cols * g->rows;
   g->start = g_new0(guint, n_cells + 1);
@@ -95,6 +100,7 @@ void pp_box_grid_free(pp_box_grid *g) {
   g_free(g->ids);
   g_free(g->stamp);
   g_array_unref(g->wide);
+  g_array_unref(g->empty);
   g_free(g);
 }
 
@@ -130,4 +136,78 @@ void pp_box_grid_query(pp_box_grid *g, pp_rect q, GArray *out) {
           take(g, g->ids[k], out);
   }
   g_array_sort(out, cmp_guint);
+}
+
+void pp_box_grid_query_inside(pp_box_grid *g, pp_rect outer, double tol, GArray *out) {
+  /* A non-empty box within outer grown by tol touches that grown box; an empty one (say
+   * inverted) may pass a corner test without touching anything, so those all come too. */
+  pp_box_grid_query(g, (pp_rect){outer.x0 - tol, outer.y0 - tol, outer.x1 + tol, outer.y1 + tol},
+                    out);
+  if (g->empty->len == 0)
+    return;
+  g_array_append_vals(out, g->empty->data, g->empty->len);
+  g_array_sort(out, cmp_guint);
+}
+
+void pp_group_lists_init(pp_group_lists *gl, const guint *group, guint n, guint n_groups) {
+  gl->start = g_new0(guint, n_groups + 1);
+  gl->members = g_new(guint, MAX(n, 1));
+  for (guint i = 0; i < n; i++)
+    if (group[i] < n_groups)
+      gl->start[group[i] + 1]++;
+  for (guint g = 0; g < n_groups; g++)
+    gl->start[g + 1] += gl->start[g];
+  g_autofree guint *fill = g_memdup2(gl->start, (n_groups + 1) * sizeof(guint));
+  for (guint i = 0; i < n; i++)
+    if (group[i] < n_groups)
+      gl->members[fill[group[i]]++] = i;
+}
+
+void pp_group_lists_clear(pp_group_lists *gl) {
+  g_free(gl->start);
+  g_free(gl->members);
+}
+
+struct pp_coord_index {
+  guint *ids; /* by value, ties by id */
+  double *values;
+  guint n;
+};
+
+static int cmp_by_value(gconstpointer pa, gconstpointer pb, gpointer data) {
+  const double *v = data;
+  guint a = *(const guint *)pa, b = *(const guint *)pb;
+  return v[a] < v[b] ? -1 : v[a] > v[b] ? 1 : (a > b) - (a < b);
+}
+
+pp_coord_index *pp_coord_index_new(const double *values, guint n) {
+  pp_coord_index *x = g_new0(pp_coord_index, 1);
+  x->ids = g_new(guint, MAX(n, 1));
+  x->values = g_memdup2(values, MAX(n, 1) * sizeof(double));
+  for (guint i = 0; i < n; i++)
+    if (isfinite(values[i]))
+      x->ids[x->n++] = i;
+  g_qsort_with_data(x->ids, (gint)x->n, sizeof(guint), cmp_by_value, x->values);
+  return x;
+}
+
+void pp_coord_index_free(pp_coord_index *x) {
+  if (!x)
+    return;
+  g_free(x->ids);
+  g_free(x->values);
+  g_free(x);
+}
+
+void pp_coord_index_range(const pp_coord_index *x, double lo, double hi, GArray *out) {
+  guint a = 0, b = x->n;
+  while (a < b) { /* the first value at least lo */
+    guint mid = a + (b - a) / 2;
+    if (x->values[x->ids[mid]] < lo)
+      a = mid + 1;
+    else
+      b = mid;
+  }
+  for (; a < x->n && x->values[x->ids[a]] <= hi; a++)
+    g_array_append_val(out, x->ids[a]);
 }

@@ -57,17 +57,30 @@ static GArray *collect_faces(const pp_recognize_ctx *ctx, GArray *panes) {
       continue;
     g_array_append_val(faces, f);
   }
-  for (guint i = 0; i < faces->len;) {
-    const face *f = &g_array_index(faces, face, i);
+  /* Panes leave in page order, each judged against the faces still kept; the grid only
+   * narrows which faces are tested. */
+  guint n = faces->len;
+  g_autofree pp_rect *boxes = g_new(pp_rect, MAX(n, 1));
+  for (guint i = 0; i < n; i++)
+    boxes[i] = g_array_index(faces, face, i).bbox;
+  g_autoptr(pp_box_grid) grid = pp_box_grid_new(boxes, n);
+  g_autofree gboolean *pane = g_new0(gboolean, MAX(n, 1));
+  g_autoptr(GArray) near = g_array_new(FALSE, FALSE, sizeof(guint));
+  for (guint i = 0; i < n; i++) {
     guint inside = 0;
-    for (guint k = 0; k < faces->len && inside < 2; k++)
-      inside += k != i && pp_rect_contains(f->bbox, g_array_index(faces, face, k).bbox, 0.5);
-    if (inside >= 2) {
-      g_array_append_val(panes, *f);
-      g_array_remove_index(faces, i);
-    } else
-      i++;
+    pp_box_grid_query_inside(grid, boxes[i], 0.5, near);
+    for (guint j = 0; j < near->len && inside < 2; j++) {
+      guint k = g_array_index(near, guint, j);
+      inside += k != i && !pane[k] && pp_rect_contains(boxes[i], boxes[k], 0.5);
+    }
+    pane[i] = inside >= 2;
   }
+  for (guint i = 0; i < n; i++)
+    if (pane[i])
+      g_array_append_val(panes, g_array_index(faces, face, i));
+  for (guint i = n; i-- > 0;)
+    if (pane[i])
+      g_array_remove_index(faces, i);
   return faces;
 }
 
@@ -90,14 +103,13 @@ static guint vertical_edges(const pp_quad *q, double *len) {
 
 /* One group of faces as a box: six faces (all drawn, hidden ones first) or three (only
  * the visible ones), eight or seven distinct corners, equal vertical edges. */
-static gboolean make_box(GArray *faces, const guint *group, guint g, box *b) {
+static gboolean make_box(GArray *faces, const guint *members, guint n_members, box *b) {
   memset(b, 0, sizeof *b);
   b->box = pp_rect_empty();
   pp_point pts[24];
   guint np = 0;
-  for (guint i = 0; i < faces->len; i++) {
-    if (group[i] != g)
-      continue;
+  for (guint m = 0; m < n_members; m++) {
+    guint i = members[m];
     if (b->n_faces == 6)
       return FALSE;
     const face *f = &g_array_index(faces, face, i);
@@ -320,12 +332,15 @@ void pp_recognize_boxes(pp_recognize_ctx *ctx) {
   g_autofree guint *group = g_new(guint, faces->len);
   guint n = pp_quads_group_by_edges((pp_quad *)quads->data, faces->len, PP_BOX_TOL, group);
   g_autoptr(GArray) boxes = g_array_new(FALSE, FALSE, sizeof(box));
+  pp_group_lists gl;
+  pp_group_lists_init(&gl, group, faces->len, n);
   for (guint g = 0; g < n; g++) {
     box b;
-    gboolean ok = make_box(faces, group, g, &b);
+    gboolean ok = make_box(faces, gl.members + gl.start[g], gl.start[g + 1] - gl.start[g], &b);
     if (ok)
       g_array_append_val(boxes, b);
   }
+  pp_group_lists_clear(&gl);
   /* A box holding other boxes is the floor and walls around them, not a bar. */
   for (guint i = 0; i < boxes->len;) {
     const box *b = &g_array_index(boxes, box, i);

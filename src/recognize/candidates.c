@@ -90,12 +90,25 @@ static void collect_hatched(const pp_scene *scene, GArray *out) {
 /* A rectangle holding two or more others is a plot background, a chart wall or a frame.
  * Producers round geometry (LibreOffice to 1/100 mm, 0.028 pt), so bars may stick out
  * of their wall by that much. */
+static GArray *rects_of(GArray *cands, guint n) {
+  GArray *rects = g_array_sized_new(FALSE, FALSE, sizeof(pp_rect), n);
+  for (guint i = 0; i < n; i++)
+    g_array_append_val(rects, g_array_index(cands, pp_bar_candidate, i).rect);
+  return rects;
+}
+
 static void drop_backgrounds(GArray *cands) {
   gboolean *background = g_new0(gboolean, MAX(cands->len, 1));
+  /* the grid only narrows which candidates are tested */
+  g_autoptr(GArray) rects = rects_of(cands, cands->len);
+  g_autoptr(pp_box_grid) grid = pp_box_grid_new((const pp_rect *)rects->data, rects->len);
+  g_autoptr(GArray) near = g_array_new(FALSE, FALSE, sizeof(guint));
   for (guint i = 0; i < cands->len; i++) {
     pp_bar_candidate *a = &g_array_index(cands, pp_bar_candidate, i);
     guint inside = 0;
-    for (guint j = 0; j < cands->len && inside < 2; j++) {
+    pp_box_grid_query_inside(grid, a->rect, PP_SAME_EDGE_TOL, near);
+    for (guint n = 0; n < near->len && inside < 2; n++) {
+      guint j = g_array_index(near, guint, n);
       pp_bar_candidate *b = &g_array_index(cands, pp_bar_candidate, j);
       inside += i != j && pp_rect_contains(a->rect, b->rect, PP_SAME_EDGE_TOL) &&
                 pp_rect_area(b->rect) < pp_rect_area(a->rect);
@@ -156,8 +169,15 @@ static GPtrArray *split_subpaths(const pp_path *path) {
  * repaints no filled one. The reader sees the outlined region, so the region is its ink
  * (docs/rules.md). Frames holding other marks leave with the backgrounds; cells, tags and
  * boxes are told apart later, by the evidence a chart must show (evidence.c). */
+/* A margin added to the repaint tolerance for the grid query, pt, so that rounding in the
+ * tests (which decide) never falls outside it: far above a double's spacing at page
+ * coordinates. */
+#define PP_REPAINT_SEARCH_SLACK 1e-6
+
 static void collect_outlined(const pp_scene *scene, GArray *out) {
   guint n_filled = out->len;
+  g_autoptr(pp_box_grid) grid = NULL; /* over the filled candidates, on first use */
+  g_autoptr(GArray) near = g_array_new(FALSE, FALSE, sizeof(guint));
   for (guint i = 0; i < scene->marks->len; i++) {
     const pp_mark *m = g_ptr_array_index(scene->marks, i);
     pp_rect r;
@@ -169,8 +189,14 @@ static void collect_outlined(const pp_scene *scene, GArray *out) {
       continue;
     double tol = fmax(0.3, m->line_width);
     gboolean repaint = FALSE;
-    for (guint k = 0; k < n_filled && !repaint; k++) {
-      pp_rect c = g_array_index(out, pp_bar_candidate, k).rect;
+    if (!grid) {
+      g_autoptr(GArray) rects = rects_of(out, n_filled);
+      grid = pp_box_grid_new((const pp_rect *)rects->data, n_filled);
+    }
+    /* a repainted fill lies within r grown by tol */
+    pp_box_grid_query_inside(grid, r, tol + PP_REPAINT_SEARCH_SLACK, near);
+    for (guint j = 0; j < near->len && !repaint; j++) {
+      pp_rect c = g_array_index(out, pp_bar_candidate, g_array_index(near, guint, j)).rect;
       repaint = fabs(c.x0 - r.x0) < tol && fabs(c.x1 - r.x1) < tol && fabs(c.y0 - r.y0) < tol &&
                 fabs(c.y1 - r.y1) < tol;
     }

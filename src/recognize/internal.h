@@ -320,7 +320,26 @@ void pp_box_grid_free(pp_box_grid *grid);
 /* Sets out (guint) to the indices, ascending and once each, of every box that touches q,
  * plus possibly some that do not: callers apply their exact test to each. */
 void pp_box_grid_query(pp_box_grid *grid, pp_rect q, GArray *out);
+/* Sets out likewise to a superset of the boxes b with pp_rect_contains(outer, b, tol),
+ * empty ones included. */
+void pp_box_grid_query_inside(pp_box_grid *grid, pp_rect outer, double tol, GArray *out);
 G_DEFINE_AUTOPTR_CLEANUP_FUNC(pp_box_grid, pp_box_grid_free)
+/* The items of each of n_groups groups (group[i] < n_groups; others in none), in index
+ * order: members[start[g] .. start[g + 1]), so a recognizer visits a group's items
+ * without a pass over all of them. */
+typedef struct {
+  guint *start, *members;
+} pp_group_lists;
+void pp_group_lists_init(pp_group_lists *gl, const guint *group, guint n, guint n_groups);
+void pp_group_lists_clear(pp_group_lists *gl);
+/* Item ids sorted by one finite coordinate each (non-finite ones are left out, as they
+ * pass no tolerance test): pp_coord_index_range appends to out the ids whose value lies
+ * in [lo, hi], in value order; callers apply their exact test to each. */
+typedef struct pp_coord_index pp_coord_index;
+pp_coord_index *pp_coord_index_new(const double *values, guint n);
+void pp_coord_index_free(pp_coord_index *index);
+void pp_coord_index_range(const pp_coord_index *index, double lo, double hi, GArray *out);
+G_DEFINE_AUTOPTR_CLEANUP_FUNC(pp_coord_index, pp_coord_index_free)
 
 /* ---- Bubbles and their size keys (symbols.c, size_key.c) ---------------------------- */
 /* A size key shows at most this many sizes (a key, not a chart; common practice). */

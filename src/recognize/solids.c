@@ -73,17 +73,30 @@ static GArray *collect_faces(const pp_recognize_ctx *ctx) {
     f.front = pp_path_is_rectangle(m->path, PP_SOLID_TOL, &r);
     g_array_append_val(faces, f);
   }
-  /* A rectangle holding two or more other faces is a background or a wall, not a face. */
-  for (guint i = 0; i < faces->len;) {
-    face *f = &g_array_index(faces, face, i);
+  /* A rectangle holding two or more other faces is a background or a wall, not a face.
+   * Faces are dropped in page order, each judged against the faces still kept; the grid
+   * only narrows which faces are tested. */
+  guint n = faces->len;
+  g_autofree pp_rect *boxes = g_new(pp_rect, MAX(n, 1));
+  for (guint i = 0; i < n; i++)
+    boxes[i] = g_array_index(faces, face, i).box;
+  g_autoptr(pp_box_grid) grid = pp_box_grid_new(boxes, n);
+  g_autofree gboolean *dropped = g_new0(gboolean, MAX(n, 1));
+  g_autoptr(GArray) near = g_array_new(FALSE, FALSE, sizeof(guint));
+  for (guint i = 0; i < n; i++) {
+    if (!g_array_index(faces, face, i).front)
+      continue;
     guint inside = 0;
-    for (guint k = 0; k < faces->len && f->front; k++)
-      inside += k != i && pp_rect_contains(f->box, g_array_index(faces, face, k).box, 0.5);
-    if (inside >= 2)
-      g_array_remove_index(faces, i);
-    else
-      i++;
+    pp_box_grid_query_inside(grid, boxes[i], 0.5, near);
+    for (guint j = 0; j < near->len; j++) {
+      guint k = g_array_index(near, guint, j);
+      inside += k != i && !dropped[k] && pp_rect_contains(boxes[i], boxes[k], 0.5);
+    }
+    dropped[i] = inside >= 2;
   }
+  for (guint i = n; i-- > 0;)
+    if (dropped[i])
+      g_array_remove_index(faces, i);
   return faces;
 }
 
@@ -95,15 +108,14 @@ static int cmp_front_y(gconstpointer a, gconstpointer b, gpointer faces) {
 
 /* One group of faces as a solid: fronts in one column, a cap on the top front, sides on
  * the fronts. FALSE when the group is not shaped like a bar. */
-static gboolean make_solid(GArray *faces, const guint *group, guint g, solid *s) {
+static gboolean make_solid(GArray *faces, const guint *members, guint n_members, solid *s) {
   s->fronts = g_array_new(FALSE, FALSE, sizeof(guint));
   s->sides = g_array_new(FALSE, FALSE, sizeof(guint));
   s->cap = -1;
   s->box = pp_rect_empty();
   guint others = 0;
-  for (guint i = 0; i < faces->len; i++) {
-    if (group[i] != g)
-      continue;
+  for (guint m = 0; m < n_members; m++) {
+    guint i = members[m];
     face *f = &g_array_index(faces, face, i);
     s->box = pp_rect_union(s->box, f->box);
     if (f->front)
@@ -125,9 +137,10 @@ static gboolean make_solid(GArray *faces, const guint *group, guint g, solid *s)
         fabs(a->box.y1 - b->box.y0) > PP_SOLID_EDGE_TOL)
       return FALSE;
   }
-  for (guint i = 0; i < faces->len; i++) {
+  for (guint m = 0; m < n_members; m++) {
+    guint i = members[m];
     face *f = &g_array_index(faces, face, i);
-    if (group[i] != g || f->front)
+    if (f->front)
       continue;
     if (s->cap < 0 && f->box.y1 <= s->top + PP_SOLID_EDGE_TOL &&
         pp_quads_share_edge(&f->q, &top->q, PP_SOLID_EDGE_TOL))
@@ -530,33 +543,29 @@ static void build(pp_recognize_ctx *ctx, GArray *faces, GArray *solids) {
  * overlapping bars put one bar's side edge within PP_SOLID_EDGE_TOL of the next bar's front
  * edge. The faces of one solid share edges to the producer's rounding, so the group is
  * joined again at that closeness (PP_SOLID_TOL) and each part tried as a bar. */
-static void split_group(GArray *faces, const guint *group, guint g, guint n_groups,
-                        GArray *solids) {
-  g_autoptr(GArray) idx = g_array_new(FALSE, FALSE, sizeof(guint));
-  g_autoptr(GArray) quads = g_array_new(FALSE, FALSE, sizeof(pp_quad));
-  for (guint i = 0; i < faces->len; i++)
-    if (group[i] == g) {
-      g_array_append_val(idx, i);
-      g_array_append_val(quads, g_array_index(faces, face, i).q);
-    }
-  if (idx->len < 4)
+static void split_group(GArray *faces, const guint *members, guint n_members, GArray *solids) {
+  if (n_members < 4)
     return; /* two bars have at least a front and one more face each */
-  g_autofree guint *part = g_new(guint, idx->len);
-  guint n = pp_quads_group_by_edges((pp_quad *)quads->data, idx->len, PP_SOLID_TOL, part);
+  g_autoptr(GArray) quads = g_array_new(FALSE, FALSE, sizeof(pp_quad));
+  for (guint k = 0; k < n_members; k++)
+    g_array_append_val(quads, g_array_index(faces, face, members[k]).q);
+  g_autofree guint *part = g_new(guint, n_members);
+  guint n = pp_quads_group_by_edges((pp_quad *)quads->data, n_members, PP_SOLID_TOL, part);
   if (n < 2)
     return;
-  g_autofree guint *sub = g_new(guint, faces->len);
-  for (guint i = 0; i < faces->len; i++)
-    sub[i] = G_MAXUINT;
-  for (guint k = 0; k < idx->len; k++)
-    sub[g_array_index(idx, guint, k)] = n_groups + part[k];
+  pp_group_lists gl;
+  pp_group_lists_init(&gl, part, n_members, n);
+  g_autofree guint *sub = g_new(guint, n_members);
+  for (guint k = 0; k < n_members; k++)
+    sub[k] = members[gl.members[k]]; /* each part's faces in page order */
   for (guint k = 0; k < n; k++) {
     solid s = {0};
-    if (make_solid(faces, sub, n_groups + k, &s))
+    if (make_solid(faces, sub + gl.start[k], gl.start[k + 1] - gl.start[k], &s))
       g_array_append_val(solids, s);
     else
       solid_clear(&s);
   }
+  pp_group_lists_clear(&gl);
 }
 
 void pp_recognize_solid_bars(pp_recognize_ctx *ctx) {
@@ -568,16 +577,21 @@ void pp_recognize_solid_bars(pp_recognize_ctx *ctx) {
     g_array_append_val(quads, g_array_index(faces, face, i).q);
   g_autofree guint *group = g_new(guint, faces->len);
   guint n = pp_quads_group_by_edges((pp_quad *)quads->data, faces->len, PP_SOLID_EDGE_TOL, group);
+  pp_group_lists gl;
+  pp_group_lists_init(&gl, group, faces->len, n);
   g_autoptr(GArray) solids = g_array_new(FALSE, FALSE, sizeof(solid));
   g_array_set_clear_func(solids, solid_clear);
   for (guint g = 0; g < n; g++) {
     solid s = {0};
-    if (make_solid(faces, group, g, &s))
+    const guint *members = gl.members + gl.start[g];
+    guint n_members = gl.start[g + 1] - gl.start[g];
+    if (make_solid(faces, members, n_members, &s))
       g_array_append_val(solids, s);
     else {
       solid_clear(&s);
-      split_group(faces, group, g, n, solids);
+      split_group(faces, members, n_members, solids);
     }
   }
+  pp_group_lists_clear(&gl);
   build(ctx, faces, solids);
 }

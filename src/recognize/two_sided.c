@@ -127,8 +127,94 @@ static gboolean same_row(pp_rect a, pp_rect b) {
   return fabs(a.y0 - b.y0) <= PP_TWO_ROW_TOL && fabs(a.y1 - b.y1) <= PP_TWO_ROW_TOL;
 }
 
+/* Bar indices in the order of one coordinate, so that the bars with an edge near a line
+ * are found by binary search instead of a pass over every bar (dense pages hold 10^4). */
+typedef struct {
+  GArray *bars;
+  int edge; /* 0: rect.x0, 1: rect.x1, 2: rect.y0 */
+} by_edge;
+
+static double edge_of(const pp_bar_candidate *b, int edge) {
+  return edge == 0 ? b->rect.x0 : edge == 1 ? b->rect.x1 : b->rect.y0;
+}
+
+static int cmp_by_edge(gconstpointer pa, gconstpointer pb, gpointer data) {
+  const by_edge *o = data;
+  guint a = *(const guint *)pa, b = *(const guint *)pb;
+  double x = edge_of(&g_array_index(o->bars, pp_bar_candidate, a), o->edge);
+  double y = edge_of(&g_array_index(o->bars, pp_bar_candidate, b), o->edge);
+  return x < y ? -1 : x > y ? 1 : (a > b) - (a < b);
+}
+
+/* The indices in sel (a subset of bars), or of every bar when sel is NULL, whose edge is a
+ * finite number (a NaN or infinite edge passes no tolerance test), sorted by that edge. */
+static GArray *sorted_by_edge(GArray *bars, const GArray *sel, int edge) {
+  GArray *idx = g_array_new(FALSE, FALSE, sizeof(guint));
+  guint n = sel ? sel->len : bars->len;
+  for (guint k = 0; k < n; k++) {
+    guint i = sel ? g_array_index(sel, guint, k) : k;
+    if (isfinite(edge_of(&g_array_index(bars, pp_bar_candidate, i), edge)))
+      g_array_append_val(idx, i);
+  }
+  by_edge o = {bars, edge};
+  g_array_sort_with_data(idx, cmp_by_edge, &o);
+  return idx;
+}
+
+/* The first position in idx (sorted by edge) whose edge is at least v. */
+static guint lower_bound(GArray *bars, const GArray *idx, int edge, double v) {
+  guint lo = 0, hi = idx->len;
+  while (lo < hi) {
+    guint mid = lo + (hi - lo) / 2;
+    if (edge_of(&g_array_index(bars, pp_bar_candidate, g_array_index(idx, guint, mid)), edge) < v)
+      lo = mid + 1;
+    else
+      hi = mid;
+  }
+  return lo;
+}
+
+/* A margin around each search window, pt, so that rounding in the tolerance tests (which
+ * decide) never falls outside it: far above a double's spacing at page coordinates. */
+#define PP_TWO_SEARCH_SLACK 1e-6
+
+/* Appends to out the indices in idx whose edge lies within tol (+ slack) of v. */
+static void edge_window(GArray *bars, const GArray *idx, int edge, double v, double tol,
+                        GArray *out) {
+  double hi = v + tol + PP_TWO_SEARCH_SLACK;
+  for (guint p = lower_bound(bars, idx, edge, v - tol - PP_TWO_SEARCH_SLACK); p < idx->len; p++) {
+    guint k = g_array_index(idx, guint, p);
+    if (edge_of(&g_array_index(bars, pp_bar_candidate, k), edge) > hi)
+      break;
+    g_array_append_val(out, k);
+  }
+}
+
+static int cmp_guint(gconstpointer a, gconstpointer b) {
+  guint x = *(const guint *)a, y = *(const guint *)b;
+  return (x > y) - (x < y);
+}
+
+/* Left-right pairs on one row, counted up to PP_TWO_MIN_ROWS (all the caller asks). */
+static guint count_rows(GArray *bars, const GArray *left, const GArray *right, GArray *near) {
+  g_autoptr(GArray) by_y0 = sorted_by_edge(bars, right, 2);
+  guint rows = 0;
+  for (guint a = 0; a < left->len && rows < PP_TWO_MIN_ROWS; a++) {
+    pp_rect l = g_array_index(bars, pp_bar_candidate, g_array_index(left, guint, a)).rect;
+    g_array_set_size(near, 0);
+    edge_window(bars, by_y0, 2, l.y0, PP_TWO_ROW_TOL, near);
+    for (guint b = 0; b < near->len; b++)
+      rows +=
+          same_row(l, g_array_index(bars, pp_bar_candidate, g_array_index(near, guint, b)).rect);
+  }
+  return rows;
+}
+
 void pp_recognize_two_sided(pp_recognize_ctx *ctx) {
   GArray *bars = ctx->bars;
+  g_autoptr(GArray) by_x0 = sorted_by_edge(bars, NULL, 0);
+  g_autoptr(GArray) by_x1 = sorted_by_edge(bars, NULL, 1);
+  g_autoptr(GArray) near = g_array_new(FALSE, FALSE, sizeof(guint));
   for (guint i = 0; i < bars->len; i++) {
     const pp_bar_candidate *seed = &g_array_index(bars, pp_bar_candidate, i);
     if (!pp_claims_mark_free(ctx->claims, seed->mark))
@@ -137,7 +223,17 @@ void pp_recognize_two_sided(pp_recognize_ctx *ctx) {
     g_autoptr(GArray) left = g_array_new(FALSE, FALSE, sizeof(guint));
     g_autoptr(GArray) right = g_array_new(FALSE, FALSE, sizeof(guint));
     pp_rect all = pp_rect_empty();
-    for (guint k = 0; k < bars->len; k++) {
+    /* the bars with an edge near c, then taken in their page order as before */
+    g_array_set_size(near, 0);
+    if (isfinite(c)) {
+      edge_window(bars, by_x1, 1, c, PP_TWO_EDGE_TOL, near);
+      edge_window(bars, by_x0, 0, c, PP_TWO_EDGE_TOL, near);
+    }
+    g_array_sort(near, cmp_guint);
+    for (guint j = 0; j < near->len; j++) {
+      guint k = g_array_index(near, guint, j);
+      if (j > 0 && g_array_index(near, guint, j - 1) == k)
+        continue;
       const pp_bar_candidate *b = &g_array_index(bars, pp_bar_candidate, k);
       if (!pp_claims_mark_free(ctx->claims, b->mark) || pp_rect_width(b->rect) <= 0)
         continue;
@@ -149,12 +245,7 @@ void pp_recognize_two_sided(pp_recognize_ctx *ctx) {
         continue;
       all = pp_rect_union(all, b->rect);
     }
-    guint rows = 0;
-    for (guint a = 0; a < left->len; a++)
-      for (guint b = 0; b < right->len; b++)
-        rows +=
-            same_row(g_array_index(bars, pp_bar_candidate, g_array_index(left, guint, a)).rect,
-                     g_array_index(bars, pp_bar_candidate, g_array_index(right, guint, b)).rect);
+    guint rows = count_rows(bars, left, right, near);
     if (rows < PP_TWO_MIN_ROWS || mirrored_labels(ctx, c, all) < 1)
       continue;
     mirrored m;
