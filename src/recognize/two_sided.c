@@ -215,11 +215,16 @@ void pp_recognize_two_sided(pp_recognize_ctx *ctx) {
   g_autoptr(GArray) by_x0 = sorted_by_edge(bars, NULL, 0);
   g_autoptr(GArray) by_x1 = sorted_by_edge(bars, NULL, 1);
   g_autoptr(GArray) near = g_array_new(FALSE, FALSE, sizeof(guint));
+  /* Lines that made no figure since the last one committed: the outcome depends only on
+   * the line and the claims, so the other bars of a column need not try it again. */
+  g_autoptr(GHashTable) failed = g_hash_table_new_full(g_double_hash, g_double_equal, g_free, NULL);
   for (guint i = 0; i < bars->len; i++) {
     const pp_bar_candidate *seed = &g_array_index(bars, pp_bar_candidate, i);
     if (!pp_claims_mark_free(ctx->claims, seed->mark))
       continue;
     double c = seed->rect.x1; /* a left bar's inner end: the zero line */
+    if (g_hash_table_contains(failed, &c))
+      continue;
     g_autoptr(GArray) left = g_array_new(FALSE, FALSE, sizeof(guint));
     g_autoptr(GArray) right = g_array_new(FALSE, FALSE, sizeof(guint));
     pp_rect all = pp_rect_empty();
@@ -246,8 +251,10 @@ void pp_recognize_two_sided(pp_recognize_ctx *ctx) {
       all = pp_rect_union(all, b->rect);
     }
     guint rows = count_rows(bars, left, right, near);
-    if (rows < PP_TWO_MIN_ROWS || mirrored_labels(ctx, c, all) < 1)
+    if (rows < PP_TWO_MIN_ROWS || mirrored_labels(ctx, c, all) < 1) {
+      g_hash_table_add(failed, g_memdup2(&c, sizeof c));
       continue;
+    }
     mirrored m;
     g_autoptr(GArray) used = g_array_new(FALSE, FALSE, sizeof(guint));
     gboolean scaled = mirrored_scale(ctx, c, all, &m, used);
@@ -308,5 +315,6 @@ void pp_recognize_two_sided(pp_recognize_ctx *ctx) {
     }
     pp_claims_commit(ctx->claims);
     pp_figure_finish(ctx, f, NULL);
+    g_hash_table_remove_all(failed);
   }
 }
