@@ -16,6 +16,8 @@
 #include "geometry/geometry.h"
 #include "recognize/recognize.h"
 
+#include "test_page.h"
+
 /* Invented head counts per orchard plot. Lower row: 16, 19, 22 step by 3 at x spaced
  * 70 pt apart, a row that reads like tick labels; upper row: 42 and 58 overlap. */
 static const double bubble_x[] = {100, 170, 240, 310, 100, 160, 220};
@@ -70,39 +72,17 @@ static void draw(cairo_t *cr, gboolean numbers) {
   }
 }
 
-static pp_page_charts *recognise(gboolean numbers) {
-  char *path = g_build_filename(g_get_tmp_dir(), "pp-test-bubbles-XXXXXX.pdf", NULL);
-  int fd = g_mkstemp(path);
-  assert_true(fd >= 0);
-  close(fd);
-  cairo_surface_t *s = cairo_pdf_surface_create(path, 595, 842);
-  cairo_t *cr = cairo_create(s);
-  cairo_select_font_face(cr, "DejaVu Sans", CAIRO_FONT_SLANT_NORMAL, CAIRO_FONT_WEIGHT_NORMAL);
-  draw(cr, numbers);
-  cairo_destroy(cr);
-  cairo_surface_destroy(s);
-  GError *error = NULL;
-  pp_document *doc = pp_document_open(path, NULL, &error);
-  assert_non_null(doc);
-  pp_scene *scene = pp_document_capture_page(doc, 0, &error);
-  assert_non_null(scene);
-  pp_scene_measure(scene);
-  if (g_getenv("PP_TEST_KEEP_PDF"))
-    g_message("kept %s", path);
-  else
-    g_unlink(path);
-  g_free(path);
-  pp_page_charts *charts = pp_page_charts_find(scene);
-  pp_scene_free(scene);
-  pp_document_free(doc);
-  return charts;
+static void draw_page(cairo_t *cr, const void *data) {
+  draw(cr, *(const gboolean *)data);
 }
 
 /* One bubble figure of every circle, each valued by the number drawn on it, its ink the
  * drawn disc's π r² within 2% (the issue's tolerance); nothing read as a filled area. */
 static void test_numbers_in_a_stepped_row(void **state) {
   (void)state;
-  pp_page_charts *charts = recognise(TRUE);
+  gboolean numbers = TRUE;
+  pp_test_page page = pp_test_page_draw(draw_page, &numbers);
+  const pp_page_charts *charts = page.charts;
   const pp_figure *fig = NULL;
   for (guint i = 0; i < charts->figures->len; i++) {
     const pp_figure *f = g_ptr_array_index(charts->figures, i);
@@ -128,19 +108,21 @@ static void test_numbers_in_a_stepped_row(void **state) {
     double r = RADIUS_PER_UNIT * bubble_v[k];
     assert_true(fabs(e->ink - G_PI * r * r) <= 0.02 * G_PI * r * r);
   }
-  pp_page_charts_free(charts);
+  pp_test_page_clear(&page);
 }
 
 /* Without numbers the circles stand for nothing readable, but they are still circles:
  * no filled-area figure over the left axis. */
 static void test_bare_circles_are_not_areas(void **state) {
   (void)state;
-  pp_page_charts *charts = recognise(FALSE);
+  gboolean numbers = FALSE;
+  pp_test_page page = pp_test_page_draw(draw_page, &numbers);
+  const pp_page_charts *charts = page.charts;
   for (guint i = 0; i < charts->figures->len; i++) {
     const pp_figure *f = g_ptr_array_index(charts->figures, i);
     assert_int_not_equal(f->kind, PP_FIGURE_AREA);
   }
-  pp_page_charts_free(charts);
+  pp_test_page_clear(&page);
 }
 
 int main(void) {
