@@ -348,6 +348,36 @@ static gboolean evenly_stepped(const pp_axis_candidate *a) {
   return TRUE;
 }
 
+/* Each of the axis' labels is centred on a filled circle of its own: numbers printed in
+ * bubbles that happen to step evenly across a row, not tick labels (a scale's labels
+ * sit beside its plot, one per tick, never each inside a bubble). */
+static gboolean labels_on_bubbles(pp_symbol_page *pg, const pp_axis_candidate *a) {
+  g_autoptr(GArray) near = g_array_new(FALSE, FALSE, sizeof(guint));
+  g_autoptr(GHashTable) seen = g_hash_table_new(NULL, NULL);
+  double reach = 0; /* the largest radius: no centre farther from a label holds it */
+  for (guint i = 0; i < pg->syms->len; i++)
+    reach = fmax(reach, g_array_index(pg->syms, pp_symbol, i).r);
+  for (guint k = 0; k < a->labels->len; k++) {
+    const pp_label *l = g_ptr_array_index(a->labels, k);
+    g_array_set_size(near, 0);
+    pp_box_grid_query(pg->centres,
+                      (pp_rect){l->centre.x - reach, l->centre.y - reach, l->centre.x + reach,
+                                l->centre.y + reach},
+                      near);
+    const pp_symbol *on = NULL;
+    for (guint i = 0; i < near->len && !on; i++) {
+      const pp_symbol *s = &g_array_index(pg->syms, pp_symbol, g_array_index(near, guint, i));
+      if (s->circle && !s->outline && !g_hash_table_contains(seen, s) &&
+          hypot(l->centre.x - s->centre.x, l->centre.y - s->centre.y) <= s->r)
+        on = s;
+    }
+    if (!on)
+      return FALSE;
+    g_hash_table_add(seen, (gpointer)on);
+  }
+  return a->labels->len > 0;
+}
+
 /* Sizes must grow with the printed numbers before their ink is judged against them. */
 static void weigh_size_law(pp_figure *fig) {
   guint n = fig->elements->len;
@@ -471,7 +501,9 @@ void pp_recognize_symbols(pp_recognize_ctx *ctx) {
   pg.tick_labels = g_hash_table_new(NULL, NULL);
   for (guint i = 0; i < ctx->axes->len; i++) {
     const pp_axis_candidate *a = g_ptr_array_index(ctx->axes, i);
-    for (guint k = 0; evenly_stepped(a) && k < a->labels->len; k++)
+    if (!evenly_stepped(a) || labels_on_bubbles(&pg, a))
+      continue;
+    for (guint k = 0; k < a->labels->len; k++)
       g_hash_table_add(pg.tick_labels, g_ptr_array_index(a->labels, k));
   }
   pg.key_families = g_array_new(FALSE, FALSE, sizeof(int));

@@ -15,6 +15,8 @@
 #include "geometry/geometry.h"
 #include "recognize/recognize.h"
 
+#include "test_page.h"
+
 /* World: x 0..4, y 0..2 on the floor, z up; value v stands at z = v · Z_PER_VALUE. */
 #define Z_PER_VALUE 0.03
 static const double eye[3] = {7, -6, 5}, target[3] = {2, 1, 1.2};
@@ -137,30 +139,15 @@ static void draw(cairo_t *cr) {
   }
 }
 
+static void draw_page(cairo_t *cr, const void *unused) {
+  (void)unused;
+  draw(cr);
+}
+
 static void test_perspective_bars(void **state) {
   (void)state;
-  char *path = g_build_filename(g_get_tmp_dir(), "pp-test-box-persp-XXXXXX.pdf", NULL);
-  int fd = g_mkstemp(path);
-  assert_true(fd >= 0);
-  close(fd);
-  cairo_surface_t *s = cairo_pdf_surface_create(path, 595, 842);
-  cairo_t *cr = cairo_create(s);
-  cairo_select_font_face(cr, "DejaVu Sans", CAIRO_FONT_SLANT_NORMAL, CAIRO_FONT_WEIGHT_NORMAL);
-  draw(cr);
-  cairo_destroy(cr);
-  cairo_surface_destroy(s);
-  GError *error = NULL;
-  pp_document *doc = pp_document_open(path, NULL, &error);
-  assert_non_null(doc);
-  pp_scene *scene = pp_document_capture_page(doc, 0, &error);
-  assert_non_null(scene);
-  pp_scene_measure(scene);
-  if (g_getenv("PP_TEST_KEEP_PDF"))
-    g_message("kept %s", path);
-  else
-    g_unlink(path);
-  g_free(path);
-  pp_page_charts *charts = pp_page_charts_find(scene);
+  pp_test_page page = pp_test_page_draw(draw_page, NULL);
+  const pp_page_charts *charts = page.charts;
   const pp_figure *fig = NULL;
   for (guint i = 0; i < charts->figures->len; i++) {
     const pp_figure *f = g_ptr_array_index(charts->figures, i);
@@ -198,9 +185,7 @@ static void test_perspective_bars(void **state) {
     assert_float_equal(e->ink, want, 1e-3 * want);
     assert_float_equal(pp_element_ink_of(e, PP_PART_CAP), cap, 1e-3 * cap);
   }
-  pp_page_charts_free(charts);
-  pp_scene_free(scene);
-  pp_document_free(doc);
+  pp_test_page_clear(&page);
 }
 
 int main(void) {

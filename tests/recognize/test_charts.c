@@ -14,6 +14,8 @@
 #include "recognize/internal.h"
 #include "recognize/recognize.h"
 
+#include "test_page.h"
+
 /* The chart: a plot box, a linear value axis [lo, hi] mapped onto it, bars of known
  * values, tick labels as real text. */
 typedef struct {
@@ -108,27 +110,15 @@ static void draw_chart(cairo_t *cr, const chart *c) {
   cairo_restore(cr);
 }
 
-static pp_page_charts *recognise(const chart *c, pp_scene **scene_out, pp_document **doc_out) {
-  char *path = g_build_filename(g_get_tmp_dir(), "pp-test-charts-XXXXXX.pdf", NULL);
-  int fd = g_mkstemp(path);
-  assert_true(fd >= 0);
-  close(fd);
-  cairo_surface_t *s = cairo_pdf_surface_create(path, 595, 842);
-  cairo_t *cr = cairo_create(s);
+static void draw_page(cairo_t *cr, const void *c) {
   draw_chart(cr, c);
-  cairo_destroy(cr);
-  cairo_surface_destroy(s);
-  GError *error = NULL;
-  pp_document *doc = pp_document_open(path, NULL, &error);
-  assert_non_null(doc);
-  pp_scene *scene = pp_document_capture_page(doc, 0, &error);
-  assert_non_null(scene);
-  pp_scene_measure(scene);
-  g_unlink(path);
-  g_free(path);
-  *scene_out = scene;
-  *doc_out = doc;
-  return pp_page_charts_find(scene);
+}
+
+static pp_page_charts *recognise(const chart *c, pp_scene **scene_out, pp_document **doc_out) {
+  pp_test_page p = pp_test_page_draw(draw_page, c);
+  *scene_out = p.scene;
+  *doc_out = p.doc;
+  return p.charts;
 }
 
 static const pp_figure *only_figure(const pp_page_charts *charts, pp_figure_kind kind) {

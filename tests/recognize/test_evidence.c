@@ -15,31 +15,19 @@
 #include "geometry/geometry.h"
 #include "recognize/recognize.h"
 
+#include "test_page.h"
+
 typedef void (*drawing)(cairo_t *cr);
 
-static pp_page_charts *recognise(drawing draw) {
-  char *path = g_build_filename(g_get_tmp_dir(), "pp-test-evidence-XXXXXX.pdf", NULL);
-  int fd = g_mkstemp(path);
-  assert_true(fd >= 0);
-  close(fd);
-  cairo_surface_t *s = cairo_pdf_surface_create(path, 595, 842);
-  cairo_t *cr = cairo_create(s);
-  cairo_select_font_face(cr, "DejaVu Sans", CAIRO_FONT_SLANT_NORMAL, CAIRO_FONT_WEIGHT_NORMAL);
+static void call_drawing(cairo_t *cr, const void *draw) {
   cairo_set_font_size(cr, 9);
-  draw(cr);
-  cairo_destroy(cr);
-  cairo_surface_destroy(s);
-  GError *error = NULL;
-  pp_document *doc = pp_document_open(path, NULL, &error);
-  assert_non_null(doc);
-  pp_scene *scene = pp_document_capture_page(doc, 0, &error);
-  assert_non_null(scene);
-  pp_scene_measure(scene);
-  pp_page_charts *charts = pp_page_charts_find(scene);
-  pp_scene_free(scene);
-  pp_document_free(doc);
-  g_unlink(path);
-  g_free(path);
+  (*(const drawing *)draw)(cr);
+}
+
+static pp_page_charts *recognise(drawing draw) {
+  pp_test_page p = pp_test_page_draw(call_drawing, &draw);
+  pp_page_charts *charts = g_steal_pointer(&p.charts);
+  pp_test_page_clear(&p);
   return charts;
 }
 

@@ -14,6 +14,8 @@
 #include "geometry/geometry.h"
 #include "recognize/recognize.h"
 
+#include "test_page.h"
+
 /* A vertical value axis: labels right of x (side > 0: labels left of the line at x,
  * plot to the right) with a tick mark under each, value v at y = y0 − (t(v)−t(lo))·k. */
 typedef struct {
@@ -64,43 +66,18 @@ static void text(cairo_t *cr, double x, double y, const char *s) {
 
 typedef void (*drawer)(cairo_t *cr);
 
-typedef struct {
-  pp_document *doc;
-  pp_scene *scene;
-  pp_page_charts *charts;
-} page;
+typedef pp_test_page page;
+
+static void call_drawer(cairo_t *cr, const void *draw) {
+  (*(const drawer *)draw)(cr);
+}
 
 static page recognise(drawer draw) {
-  char *path = g_build_filename(g_get_tmp_dir(), "pp-test-families-XXXXXX.pdf", NULL);
-  int fd = g_mkstemp(path);
-  assert_true(fd >= 0);
-  close(fd);
-  cairo_surface_t *s = cairo_pdf_surface_create(path, 595, 842);
-  cairo_t *cr = cairo_create(s);
-  cairo_select_font_face(cr, "DejaVu Sans", CAIRO_FONT_SLANT_NORMAL, CAIRO_FONT_WEIGHT_NORMAL);
-  draw(cr);
-  cairo_destroy(cr);
-  cairo_surface_destroy(s);
-  page p;
-  GError *error = NULL;
-  p.doc = pp_document_open(path, NULL, &error);
-  assert_non_null(p.doc);
-  p.scene = pp_document_capture_page(p.doc, 0, &error);
-  assert_non_null(p.scene);
-  pp_scene_measure(p.scene);
-  if (g_getenv("PP_TEST_KEEP_PDF"))
-    g_message("kept %s", path);
-  else
-    g_unlink(path);
-  g_free(path);
-  p.charts = pp_page_charts_find(p.scene);
-  return p;
+  return pp_test_page_draw(call_drawer, &draw);
 }
 
 static void page_free(page *p) {
-  pp_page_charts_free(p->charts);
-  pp_scene_free(p->scene);
-  pp_document_free(p->doc);
+  pp_test_page_clear(p);
 }
 
 /* The only figure of a kind; fails when there are none or two. */

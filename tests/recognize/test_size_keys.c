@@ -16,6 +16,8 @@
 #include "geometry/geometry.h"
 #include "recognize/recognize.h"
 
+#include "test_page.h"
+
 typedef enum { COLUMN, ROW_BELOW, ROW_ABOVE, NESTED_LEADER } layout;
 
 typedef struct {
@@ -115,31 +117,14 @@ static void draw(cairo_t *cr, const chart *c) {
   draw_key(cr, c, kx, ky);
 }
 
-static pp_page_charts *recognise(const chart *c) {
-  char *path = g_build_filename(g_get_tmp_dir(), "pp-test-size-keys-XXXXXX.pdf", NULL);
-  int fd = g_mkstemp(path);
-  assert_true(fd >= 0);
-  close(fd);
-  cairo_surface_t *s = cairo_pdf_surface_create(path, 595, 842);
-  cairo_t *cr = cairo_create(s);
-  cairo_select_font_face(cr, "DejaVu Sans", CAIRO_FONT_SLANT_NORMAL, CAIRO_FONT_WEIGHT_NORMAL);
+static void draw_chart(cairo_t *cr, const void *c) {
   draw(cr, c);
-  cairo_destroy(cr);
-  cairo_surface_destroy(s);
-  GError *error = NULL;
-  pp_document *doc = pp_document_open(path, NULL, &error);
-  assert_non_null(doc);
-  pp_scene *scene = pp_document_capture_page(doc, 0, &error);
-  assert_non_null(scene);
-  pp_scene_measure(scene);
-  if (g_getenv("PP_TEST_KEEP_PDF"))
-    g_message("kept %s", path);
-  else
-    g_unlink(path);
-  g_free(path);
-  pp_page_charts *charts = pp_page_charts_find(scene);
-  pp_scene_free(scene);
-  pp_document_free(doc);
+}
+
+static pp_page_charts *recognise(const chart *c) {
+  pp_test_page p = pp_test_page_draw(draw_chart, c);
+  pp_page_charts *charts = g_steal_pointer(&p.charts);
+  pp_test_page_clear(&p);
   return charts;
 }
 

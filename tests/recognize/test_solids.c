@@ -16,6 +16,8 @@
 #include "geometry/geometry.h"
 #include "recognize/recognize.h"
 
+#include "test_page.h"
+
 #define N_BARS 5
 static const double values[N_BARS] = {30, 80, 55, 90, 20};
 /* Page geometry: the axis line at AXIS_X, value v at Y0 − v·K; bar i's front from
@@ -134,34 +136,21 @@ static double visible_by_pixels(const layout *l, int i, int k) {
   return sum / 16;
 }
 
+typedef pp_test_page page;
+
 typedef struct {
-  pp_document *doc;
-  pp_scene *scene;
-  pp_page_charts *charts;
-} page;
+  void (*draw)(cairo_t *, const layout *);
+  const layout *l;
+} drawing;
+
+static void call_drawing(cairo_t *cr, const void *d) {
+  const drawing *dr = d;
+  dr->draw(cr, dr->l);
+}
 
 static page recognise_with(void (*drawer)(cairo_t *, const layout *), const layout *l) {
-  char *path = g_build_filename(g_get_tmp_dir(), "pp-test-solids-XXXXXX.pdf", NULL);
-  int fd = g_mkstemp(path);
-  assert_true(fd >= 0);
-  close(fd);
-  cairo_surface_t *s = cairo_pdf_surface_create(path, 595, 842);
-  cairo_t *cr = cairo_create(s);
-  cairo_select_font_face(cr, "DejaVu Sans", CAIRO_FONT_SLANT_NORMAL, CAIRO_FONT_WEIGHT_NORMAL);
-  drawer(cr, l);
-  cairo_destroy(cr);
-  cairo_surface_destroy(s);
-  page p;
-  GError *error = NULL;
-  p.doc = pp_document_open(path, NULL, &error);
-  assert_non_null(p.doc);
-  p.scene = pp_document_capture_page(p.doc, 0, &error);
-  assert_non_null(p.scene);
-  pp_scene_measure(p.scene);
-  g_unlink(path);
-  g_free(path);
-  p.charts = pp_page_charts_find(p.scene);
-  return p;
+  drawing d = {drawer, l};
+  return pp_test_page_draw(call_drawing, &d);
 }
 
 static page recognise(const layout *l) {
@@ -169,9 +158,7 @@ static page recognise(const layout *l) {
 }
 
 static void page_free(page *p) {
-  pp_page_charts_free(p->charts);
-  pp_scene_free(p->scene);
-  pp_document_free(p->doc);
+  pp_test_page_clear(p);
 }
 
 static const pp_figure *only_bar_3d(const page *p) {

@@ -14,6 +14,8 @@
 #include "geometry/geometry.h"
 #include "recognize/recognize.h"
 
+#include "test_page.h"
+
 /* Shared line at x = 300, 0.5 pt per unit, rows 20 pt apart from y = 200. */
 #define CX 300.0
 #define K 0.5
@@ -51,26 +53,16 @@ static void draw(cairo_t *cr) {
   }
 }
 
-static pp_page_charts *recognise(pp_scene **scene, pp_document **doc) {
-  char *path = g_build_filename(g_get_tmp_dir(), "pp-test-two-sided-XXXXXX.pdf", NULL);
-  int fd = g_mkstemp(path);
-  assert_true(fd >= 0);
-  close(fd);
-  cairo_surface_t *s = cairo_pdf_surface_create(path, 595, 842);
-  cairo_t *cr = cairo_create(s);
-  cairo_select_font_face(cr, "DejaVu Sans", CAIRO_FONT_SLANT_NORMAL, CAIRO_FONT_WEIGHT_NORMAL);
+static void draw_page(cairo_t *cr, const void *unused) {
+  (void)unused;
   draw(cr);
-  cairo_destroy(cr);
-  cairo_surface_destroy(s);
-  GError *error = NULL;
-  *doc = pp_document_open(path, NULL, &error);
-  assert_non_null(*doc);
-  *scene = pp_document_capture_page(*doc, 0, &error);
-  assert_non_null(*scene);
-  pp_scene_measure(*scene);
-  g_unlink(path);
-  g_free(path);
-  return pp_page_charts_find(*scene);
+}
+
+static pp_page_charts *recognise(pp_scene **scene, pp_document **doc) {
+  pp_test_page p = pp_test_page_draw(draw_page, NULL);
+  *scene = p.scene;
+  *doc = p.doc;
+  return p.charts;
 }
 
 /* Every bar's value is the one drawn, whichever side it reaches to. */
