@@ -3,6 +3,7 @@
  * recognised. PP_TEST_KEEP_PDF=1 keeps the PDF for a look. */
 #pragma once
 
+#include <math.h>
 #include <stdlib.h>
 #include <unistd.h>
 
@@ -58,4 +59,32 @@ static inline void pp_test_page_clear(pp_test_page *p) {
   g_clear_pointer(&p->charts, pp_page_charts_free);
   g_clear_pointer(&p->scene, pp_scene_free);
   g_clear_pointer(&p->doc, pp_document_free);
+}
+
+/* The page's only figure of a kind; fails the test when there are none or two. */
+static inline const pp_figure *pp_test_page_only_figure(const pp_page_charts *charts,
+                                                        pp_figure_kind kind) {
+  const pp_figure *found = NULL;
+  for (guint i = 0; i < charts->figures->len; i++) {
+    const pp_figure *f = g_ptr_array_index(charts->figures, i);
+    if (f->kind == kind) {
+      if (found)
+        abort();
+      found = f;
+    }
+  }
+  if (!found)
+    abort();
+  return found;
+}
+
+/* Index of the drawn point (xs[k], ys[k]) nearest an element's box centre. */
+static inline guint pp_test_nearest_drawn(const double *xs, const double *ys, guint n,
+                                          pp_rect box) {
+  double cx = (box.x0 + box.x1) / 2, cy = (box.y0 + box.y1) / 2;
+  guint k = 0;
+  for (guint j = 1; j < n; j++)
+    if (hypot(xs[j] - cx, ys[j] - cy) < hypot(xs[k] - cx, ys[k] - cy))
+      k = j;
+  return k;
 }

@@ -132,25 +132,14 @@ static pp_page_charts *recognise(const chart *c) {
 static void check(const chart *c) {
   print_message("layout %d, radius %d, inside %d\n", c->layout, c->by_radius, c->inside);
   pp_page_charts *charts = recognise(c);
-  const pp_figure *fig = NULL;
-  for (guint i = 0; i < charts->figures->len; i++) {
-    const pp_figure *f = g_ptr_array_index(charts->figures, i);
-    if (f->kind == PP_FIGURE_BUBBLE) {
-      assert_null(fig);
-      fig = f;
-    }
-  }
-  assert_non_null(fig);
+  const pp_figure *fig = pp_test_page_only_figure(charts, PP_FIGURE_BUBBLE);
   assert_true(fig->judged);
   assert_int_equal(fig->elements->len, G_N_ELEMENTS(bubble_v));
   for (guint i = 0; i < fig->elements->len; i++) {
     const pp_element *e = &g_array_index(fig->elements, pp_element, i);
     assert_int_equal(e->source, PP_VALUE_SIZE_KEY);
-    guint k = 0; /* the bubble drawn nearest this element's centre */
+    guint k = pp_test_nearest_drawn(bubble_x, bubble_y, G_N_ELEMENTS(bubble_v), e->box);
     double cx = (e->box.x0 + e->box.x1) / 2, cy = (e->box.y0 + e->box.y1) / 2;
-    for (guint j = 1; j < G_N_ELEMENTS(bubble_v); j++)
-      if (hypot(bubble_x[j] - cx, bubble_y[j] - cy) < hypot(bubble_x[k] - cx, bubble_y[k] - cy))
-        k = j;
     assert_true(hypot(bubble_x[k] - cx, bubble_y[k] - cy) < 1);
     assert_true(fabs(e->value - bubble_v[k]) <= 0.02 * bubble_v[k]);
   }
