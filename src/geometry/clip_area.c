@@ -312,12 +312,32 @@ static double first_flip(sweep *s, search *q, edge *l, edge *r, gboolean just) {
   return flip;
 }
 
+/* Lines: d is linear in y from d0 at y0 to d1 at y1. */
+static double linear_flip(const sweep *s, double d0, double d1, double y0, double y1,
+                          gboolean just) {
+  if (d1 >= -s->tol_x)
+    return INFINITY;
+  if (d0 > s->tol_x)
+    return y0 + (y1 - y0) * (d0 / (d0 - d1));
+  return just ? INFINITY : y0;
+}
+
 /* First y ≥ y0 where r passes to the left of l (x_r − x_l < −tol), +∞ if none before
  * either ends. After a swap (just), samples left of the pair's first positive one are
  * rounding at the crossing just handled, not a new one. */
 static double next_flip(sweep *s, edge *l, edge *r, double y0, double y1, gboolean just) {
   if (y1 <= y0 || same_piece(l, r, s->tol_x))
     return INFINITY;
+  if (!l->curve && !r->curve) {
+    /* Two lines with finite ends: the answer of the linear branch below, without the
+     * search set-up. Its hull test adds nothing: when it clears the pair with d0 ≥ −tol,
+     * d1 ≥ −tol too (rounded differences of the hulls' ends are monotone), and the linear
+     * branch answers +∞ as well. */
+    double d0 = edge_x(r, y0, NULL) - edge_x(l, y0, NULL);
+    double d1 = edge_x(r, y1, NULL) - edge_x(l, y1, NULL);
+    if (isfinite(d0) && isfinite(d1))
+      return linear_flip(s, d0, d1, y0, y1, just);
+  }
   search q = {.s = s,
               .e = l,
               .f = r,
@@ -326,17 +346,12 @@ static double next_flip(sweep *s, edge *l, edge *r, double y0, double y1, gboole
               .touch_min = (y1 - y0) * MIN_TOUCH_SHARE,
               .just = just};
   node_end a = end_at(&q, y0, 0.5, 0.5), b = end_at(&q, y1, 0.5, 0.5);
-  double d0 = a.d, d1 = b.d, flip = INFINITY;
+  double flip = INFINITY;
   sub se = sub_between(l, a, b, FALSE), sf = sub_between(r, a, b, TRUE);
-  if (!may_flip(&q, a, b, &se, &sf) && d0 >= -s->tol_x) {
+  if (!may_flip(&q, a, b, &se, &sf) && a.d >= -s->tol_x) {
     /* r stays right of l (within tol) all along */
-  } else if (!l->curve && !r->curve) { /* d is linear in y */
-    if (d1 >= -s->tol_x)
-      flip = INFINITY;
-    else if (d0 > s->tol_x)
-      flip = y0 + (y1 - y0) * (d0 / (d0 - d1));
-    else
-      flip = just ? INFINITY : y0;
+  } else if (!l->curve && !r->curve) {
+    flip = linear_flip(s, a.d, b.d, y0, y1, just);
   } else {
     add_sample(&q, a);
     cross_search(&q, a, b, &se, &sf, 0, MAX_CROSS_DEPTH);
