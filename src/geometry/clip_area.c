@@ -159,6 +159,7 @@ typedef struct {
   gboolean just;     /* the pair has just swapped: negatives before a positive are rounding */
   gboolean seen_pos; /* a positive sample has been added */
   gboolean found;    /* the first change from + to − (or a first negative) is sampled */
+  gboolean one_root; /* ... between two samples where d falls strictly (one_crossing) */
 } search;
 
 /* One end of a search interval: y, both pieces' x and parameters there, d = x_f − x_e. */
@@ -237,6 +238,34 @@ static gboolean may_flip(search *q, node_end a, node_end b, const sub *se, const
   return ehi - flo > tol && elo - fhi <= tol && fmin(a.d, b.d) - (edev + fdev) < -tol;
 }
 
+/* Range of dx/dy along a piece between two search ends. A cubic's tangent is a positive
+ * combination of its hodograph's three control vectors (de Casteljau differences), so with
+ * each rising (dy > 0) the slope lies between their slopes. FALSE when one is level. */
+static gboolean slope_range(const edge *e, const sub *p, double *lo, double *hi) {
+  if (!e->curve) {
+    *lo = *hi = e->slope;
+    return TRUE;
+  }
+  *lo = INFINITY, *hi = -INFINITY;
+  for (int i = 0; i < 3; i++) {
+    double dy = p->q[i + 1].y - p->q[i].y, k = (p->q[i + 1].x - p->q[i].x) / dy;
+    if (!(dy > 0) || !isfinite(k))
+      return FALSE;
+    *lo = fmin(*lo, k), *hi = fmax(*hi, k);
+  }
+  return TRUE;
+}
+
+/* Does d = x_f − x_e fall strictly all along [a,b]? Then it crosses zero at most once, and
+ * with d(a) > 0 > d(b) the first flip is that crossing: first_flip() finds it from a and b
+ * alone, and bisecting the interval further here would only repeat that work. */
+static gboolean one_crossing(search *q, node_end a, node_end b, const sub *se, const sub *sf) {
+  double elo, ehi, flo, fhi, tol = q->s->tol_x;
+  if (!(sign_tol(a.d, tol) > 0 && sign_tol(b.d, tol) < 0))
+    return FALSE;
+  return slope_range(q->e, se, &elo, &ehi) && slope_range(q->f, sf, &flo, &fhi) && fhi < elo;
+}
+
 /* Samples d(y) on (a,b) by bisection, in y order, pruning sub-intervals where d cannot
  * turn negative, until the first change from + to − is sampled. se and sf are the
  * pieces' sub-curves between a and b. */
@@ -248,6 +277,10 @@ static void cross_search(search *q, node_end a, node_end b, const sub *se, const
     return;
   if (b.y - a.y < q->touch_min && (sign_tol(a.d, s->tol_x) == 0 || sign_tol(b.d, s->tol_x) == 0))
     return;
+  if (one_crossing(q, a, b, se, sf)) {
+    q->one_root = TRUE; /* b, sampled next, is the first negative */
+    return;
+  }
   node_end c = end_at(q, 0.5 * (a.y + b.y), 0.5 * (a.te + b.te), 0.5 * (a.tf + b.tf));
   /* Coincident at three samples: look only a few levels deeper, else overlapping
    * curves would cost 2^depth evaluations for gaps of zero width. */
@@ -273,6 +306,34 @@ static gboolean same_piece(const edge *e, const edge *f, double tol) {
   return TRUE;
 }
 
+/* The one root of d = x_r − x_l on [lo, hi] where d falls strictly from dlo > tol to
+ * dhi < −tol, to eps_y or to |d| ≤ tol as bisection would give it: false position with the
+ * Illinois step (a stuck end's value is halved), which converges superlinearly on such a
+ * bracket where bisection needs one step per bit (Dowell & Jarratt 1971, BIT 11). */
+static double falling_root(sweep *s, edge *l, edge *r, double lo, double dlo, double hi,
+                           double dhi) {
+  int stuck = 0; /* +1: lo kept twice, −1: hi kept twice */
+  for (int it = 0; it < 80 && hi - lo > s->eps_y; it++) {
+    double m = lo + (hi - lo) * (dlo / (dlo - dhi));
+    if (!(m > lo && m < hi))
+      m = 0.5 * (lo + hi);
+    double dm = edge_x(r, m, NULL) - edge_x(l, m, NULL);
+    int sg = sign_tol(dm, s->tol_x);
+    if (sg == 0)
+      return m;
+    if (sg > 0) {
+      lo = m, dlo = dm;
+      dhi *= stuck < 0 ? 0.5 : 1;
+      stuck = stuck < 0 ? stuck - 1 : -1;
+    } else {
+      hi = m, dhi = dm;
+      dlo *= stuck > 0 ? 0.5 : 1;
+      stuck = stuck > 0 ? stuck + 1 : 1;
+    }
+  }
+  return 0.5 * (lo + hi);
+}
+
 /* First sign change from + to − among the samples, refined by bisection; the first
  * sample's y when the pair starts out of order (unless just swapped). */
 static double first_flip(sweep *s, search *q, edge *l, edge *r, gboolean just) {
@@ -289,6 +350,9 @@ static double first_flip(sweep *s, search *q, edge *l, edge *r, gboolean just) {
       if (just)
         continue;
       flip = g_array_index(sm, sample, 0).y;
+      break;
+    } else if (sg < 0 && q->one_root) {
+      flip = falling_root(s, l, r, last_pos, g_array_index(sm, sample, i - 1).d, p->y, p->d);
       break;
     } else if (sg < 0) { /* refine between the last positive and this negative sample */
       double lo = last_pos, hi = p->y;
