@@ -150,10 +150,15 @@ typedef struct {
   double y, d;
 } sample;
 
+/* Samples a search keeps on the stack; most searches take a few. */
+#define LOCAL_SAMPLES 64
+
 typedef struct {
   sweep *s;
   edge *e, *f;
-  GArray *samples; /* of sample, in y order */
+  sample *samples; /* in y order: first in local, on the heap past LOCAL_SAMPLES */
+  size_t n_samples, cap_samples;
+  sample local[LOCAL_SAMPLES];
   int budget;
   double touch_min;  /* MIN_TOUCH_SHARE of the window */
   gboolean just;     /* the pair has just swapped: negatives before a positive are rounding */
@@ -167,6 +172,22 @@ typedef struct {
   double y, d, xe, xf, te, tf;
 } node_end;
 
+/* x and parameter of a piece at the end of a search window, from Newton's plain start
+ * (the share of the piece's height): a function of (piece, y) alone, so the last one is
+ * kept; a swap asks for each of its two pieces at the same y in two neighbour pairs. */
+static double x_at_end(edge *e, double y, double *t) {
+  if (!e->curve)
+    return edge_x(e, y, NULL);
+  if (e->end_y == y) {
+    *t = e->end_t;
+    return e->end_x;
+  }
+  e->t_hint = -1;
+  double x = edge_x(e, y, t);
+  e->end_y = y, e->end_t = *t, e->end_x = x;
+  return x;
+}
+
 static node_end end_at(search *q, double y, double te_guess, double tf_guess) {
   node_end n = {y, 0, 0, 0, te_guess, tf_guess};
   n.xe = x_at(q->e, y, &n.te);
@@ -177,7 +198,13 @@ static node_end end_at(search *q, double y, double te_guess, double tf_guess) {
 
 static void add_sample(search *q, node_end n) {
   sample sm = {n.y, n.d};
-  g_array_append_val(q->samples, sm);
+  if (q->n_samples == q->cap_samples) {
+    q->cap_samples *= 2;
+    if (q->samples == q->local)
+      q->samples = g_memdup2(q->local, sizeof q->local);
+    q->samples = g_renew(sample, q->samples, q->cap_samples);
+  }
+  q->samples[q->n_samples++] = sm;
   int sg = sign_tol(n.d, q->s->tol_x);
   if (sg > 0)
     q->seen_pos = TRUE;
@@ -337,10 +364,10 @@ static double falling_root(sweep *s, edge *l, edge *r, double lo, double dlo, do
 /* First sign change from + to − among the samples, refined by bisection; the first
  * sample's y when the pair starts out of order (unless just swapped). */
 static double first_flip(sweep *s, search *q, edge *l, edge *r, gboolean just) {
-  GArray *sm = q->samples; /* in y order */
+  const sample *sm = q->samples; /* in y order */
   double flip = INFINITY, last_pos = NAN, first_neg = NAN;
-  for (size_t i = 0; i < sm->len; i++) {
-    sample *p = &g_array_index(sm, sample, i);
+  for (size_t i = 0; i < q->n_samples; i++) {
+    const sample *p = &sm[i];
     int sg = sign_tol(p->d, s->tol_x);
     if (sg > 0) {
       last_pos = p->y;
@@ -349,10 +376,10 @@ static double first_flip(sweep *s, search *q, edge *l, edge *r, gboolean just) {
         first_neg = p->y;
       if (just)
         continue;
-      flip = g_array_index(sm, sample, 0).y;
+      flip = sm[0].y;
       break;
     } else if (sg < 0 && q->one_root) {
-      flip = falling_root(s, l, r, last_pos, g_array_index(sm, sample, i - 1).d, p->y, p->d);
+      flip = falling_root(s, l, r, last_pos, sm[i - 1].d, p->y, p->d);
       break;
     } else if (sg < 0) { /* refine between the last positive and this negative sample */
       double lo = last_pos, hi = p->y;
@@ -402,14 +429,14 @@ static double next_flip(sweep *s, edge *l, edge *r, double y0, double y1, gboole
     if (isfinite(d0) && isfinite(d1))
       return linear_flip(s, d0, d1, y0, y1, just);
   }
-  search q = {.s = s,
-              .e = l,
-              .f = r,
-              .samples = g_array_new(FALSE, FALSE, sizeof(sample)),
-              .budget = CROSS_NODE_BUDGET,
-              .touch_min = (y1 - y0) * MIN_TOUCH_SHARE,
-              .just = just};
-  node_end a = end_at(&q, y0, 0.5, 0.5), b = end_at(&q, y1, 0.5, 0.5);
+  search q; /* not zeroed: local holds nothing until n_samples says so */
+  q.s = s, q.e = l, q.f = r, q.budget = CROSS_NODE_BUDGET;
+  q.touch_min = (y1 - y0) * MIN_TOUCH_SHARE;
+  q.just = just, q.seen_pos = q.found = q.one_root = FALSE;
+  q.samples = q.local, q.n_samples = 0, q.cap_samples = LOCAL_SAMPLES;
+  node_end a = {.y = y0}, b = {.y = y1};
+  a.xe = x_at_end(l, y0, &a.te), a.xf = x_at_end(r, y0, &a.tf), a.d = a.xf - a.xe;
+  b.xe = x_at_end(l, y1, &b.te), b.xf = x_at_end(r, y1, &b.tf), b.d = b.xf - b.xe;
   double flip = INFINITY;
   sub se = sub_between(l, a, b, FALSE), sf = sub_between(r, a, b, TRUE);
   if (!may_flip(&q, a, b, &se, &sf) && a.d >= -s->tol_x) {
@@ -422,7 +449,8 @@ static double next_flip(sweep *s, edge *l, edge *r, double y0, double y1, gboole
     add_sample(&q, b);
     flip = first_flip(s, &q, l, r, just);
   }
-  g_array_free(q.samples, TRUE);
+  if (q.samples != q.local)
+    g_free(q.samples);
   return flip;
 }
 

@@ -75,6 +75,7 @@ static void push_mono_cubic(GArray *edges, const pp_point *p, guint reg) {
     e.p[i] = e.dir > 0 ? p[i] : p[3 - i];
   e.ya = e.p[0].y, e.yb = e.p[3].y;
   e.t_hint = 0.5;
+  e.end_y = NAN;
   /* Power basis relative to the first point: Horner is a quarter of Bernstein's cost in
    * the root finding, and the relative form keeps far-away pieces' digits. */
   const pp_point *q = e.p;

@@ -15,14 +15,15 @@ struct pp_sweep_edge {
   double slope;        /* dx/dy of a line edge */
   double kx[3], ky[3]; /* cubic: x(t) − x0 = ((kx0·t + kx1)·t + kx2)·t, likewise y */
   /* sweep state */
-  size_t pos;           /* index in the active list */
-  size_t hpos;          /* index in the crossing heap */
-  pp_sweep_edge *right; /* the right neighbour cross_y was found with */
-  double cross_y;       /* next crossing with that neighbour, +∞ if none */
-  gboolean recheck;     /* cross_y only ends the window searched so far (see set_key) */
-  double window;        /* height of that window */
-  int c;                /* +1 right end of an inside run, −1 left end, 0 neither */
-  double y_from;        /* ∫ c·x dy is accounted up to here */
+  size_t pos;                 /* index in the active list */
+  size_t hpos;                /* index in the crossing heap */
+  pp_sweep_edge *right;       /* the right neighbour cross_y was found with */
+  double cross_y;             /* next crossing with that neighbour, +∞ if none */
+  gboolean recheck;           /* cross_y only ends the window searched so far (see set_key) */
+  double window;              /* height of that window */
+  int c;                      /* +1 right end of an inside run, −1 left end, 0 neither */
+  double y_from;              /* ∫ c·x dy is accounted up to here */
+  double end_y, end_t, end_x; /* the last search window end solved (NaN: none) */
 };
 
 /* de Casteljau split at t: left half into l, right half into r (either may be NULL). */
