@@ -37,6 +37,11 @@
 
 typedef pp_sweep_edge edge;
 
+/* Places in the active list one height changes (pieces ending or starting) that are
+ * tracked one by one; past this many, the windings are recounted from the first change to
+ * the right end (as many pieces change anyway). Common practice, no source. */
+#define MAX_SPOTS 64
+
 typedef struct {
   GArray *edges; /* of edge */
   edge **act;
@@ -45,10 +50,15 @@ typedef struct {
   size_t n_heap;
   guint n_reg;
   const pp_region *regs;
-  int *gw;       /* windings per region of the gap right of act[i]: n_reg per gap */
-  guint8 *gin;   /* that gap is inside every region */
-  int *gw_spare; /* the previous height's gw and gin, swapped with them at each height */
-  guint8 *gin_spare;
+  edge *es;     /* the pieces; an active piece e owns the gap right of it: */
+  int *gw;      /* its windings per region, n_reg from (e − es)·n_reg */
+  guint8 *gin;  /* it is inside every region */
+  int *scratch; /* n_reg windings being computed, then n_reg zeros (left of everything) */
+  edge **ends;  /* the pieces by their top y, next_end the first still active */
+  size_t next_end;
+  edge **gone;                 /* the pieces ending at the current height */
+  size_t spots[MAX_SPOTS + 1]; /* where windings may change at the current height */
+  size_t n_spots;
   double eps_y, tol_x;
   double xref; /* x origin of the integrals, so that far-away scenes keep their digits */
   double area;
@@ -500,6 +510,7 @@ static void heap_remove(sweep *s, edge *e) {
  * search covers a window only (again: the pair's next, twice as high); when it finds
  * nothing the key is the window's end, marked for a re-check. */
 static void set_key(sweep *s, edge *l, edge *r, double y, gboolean just, gboolean again) {
+  const double was = l->cross_y;
   l->right = r;
   l->recheck = FALSE;
   l->cross_y = INFINITY;
@@ -515,6 +526,8 @@ static void set_key(sweep *s, edge *l, edge *r, double y, gboolean just, gboolea
     if (l->cross_y == INFINITY && y1 < end)
       l->cross_y = y1, l->recheck = TRUE;
   }
+  if (l->cross_y == was)
+    return; /* the heap already holds it in place (mostly +∞ staying +∞) */
   heap_up(s, l->hpos);
   heap_down(s, l->hpos);
 }
@@ -525,23 +538,35 @@ static gboolean inside(pp_fill_rule rule, int w) {
   return rule == PP_FILL_EVEN_ODD ? (w & 1) != 0 : w != 0;
 }
 
-/* Gap i (right of act[i]) from gap i − 1 and the edge between them. */
-static void gap_update(sweep *s, size_t i) {
-  guint n = s->n_reg;
-  int *w = s->gw + i * n;
-  if (i > 0)
-    memcpy(w, w - n, n * sizeof(int));
-  else
-    memset(w, 0, n * sizeof(int));
-  w[s->act[i]->region] += s->act[i]->dir;
+static int *wind(const sweep *s, const edge *e) {
+  return s->gw + (size_t)(e - s->es) * s->n_reg;
+}
+
+static guint8 *gin(const sweep *s, const edge *e) {
+  return s->gin + (e - s->es);
+}
+
+/* The gap right of act[i] from the gap on its left and act[i]. TRUE when an old piece
+ * (old) keeps the windings it had: then every gap on its right keeps them too up to the
+ * next place that changed. */
+static gboolean gap_update(sweep *s, size_t i, gboolean old) {
+  const guint n = s->n_reg;
+  edge *e = s->act[i];
+  int *w = wind(s, e), *t = s->scratch;
+  memcpy(t, i > 0 ? wind(s, s->act[i - 1]) : s->scratch + n, n * sizeof(int));
+  t[e->region] += e->dir;
+  if (old && memcmp(t, w, n * sizeof(int)) == 0)
+    return TRUE;
+  memcpy(w, t, n * sizeof(int));
   guint in = 0;
   for (guint r = 0; r < n; r++)
     in += inside(s->regs[r].rule, w[r]);
-  s->gin[i] = in == n;
+  *gin(s, e) = in == n;
+  return FALSE;
 }
 
 static int coef(const sweep *s, size_t i) {
-  return (i > 0 ? s->gin[i - 1] : 0) - s->gin[i];
+  return (i > 0 ? *gin(s, s->act[i - 1]) : 0) - *gin(s, s->act[i]);
 }
 
 /* Accounts ∫ c·(x − xref) dy from y_from up to y. */
@@ -567,26 +592,45 @@ static gboolean before(sweep *s, edge *a, edge *e, double y) {
   return edge_x(a, h, NULL) < edge_x(e, h, NULL);
 }
 
-/* End points at y: ended edges leave, starting edges enter in x order, then windings,
- * coefficients and the crossing keys of changed neighbours are renewed. Gaps left of the
- * first change keep their windings; right of the last change, once a gap's windings equal
- * what they were before this height, every later gap's do too (same edges, same order):
- * those are copied, not recounted, which keeps a page of many crossing pieces from
- * recounting every active gap at every end point. */
-static void vertex(sweep *s, double y, edge **order, size_t n, size_t *next) {
-  const size_t old_n = s->n_act;
-  size_t m = 0, lo = SIZE_MAX;
-  for (size_t i = 0; i < s->n_act; i++) {
-    edge *e = s->act[i];
-    if (e->yb <= y) {
+static int cmp_edge_pos(const void *a, const void *b) {
+  const edge *x = *(edge *const *)a, *y = *(edge *const *)b;
+  return x->pos < y->pos ? -1 : x->pos > y->pos;
+}
+
+/* Index i of the active list changed (an edge starts there, or the edge left of it
+ * ended); an edge starting at `at` moves every spot at or right of it one place on. */
+static void spot_add(sweep *s, size_t i, size_t at) {
+  if (s->n_spots > MAX_SPOTS)
+    return;
+  for (size_t k = 0; k < s->n_spots && at != SIZE_MAX; k++)
+    if (s->spots[k] >= at)
+      s->spots[k]++;
+  s->spots[s->n_spots++] = i;
+}
+
+/* Edges ending at y leave (in list order), edges starting at y enter in x order. Returns
+ * the first index that changed (SIZE_MAX: none); s->spots lists every changed index
+ * unless there were more than MAX_SPOTS. */
+static size_t vertex_update(sweep *s, double y, edge **order, size_t n, size_t *next) {
+  size_t lo = SIZE_MAX, n_gone = 0;
+  s->n_spots = 0;
+  while (s->next_end < n && s->ends[s->next_end]->yb <= y)
+    s->gone[n_gone++] = s->ends[s->next_end++];
+  if (n_gone > 0) {
+    qsort(s->gone, n_gone, sizeof(edge *), cmp_edge_pos);
+    size_t m = lo = s->gone[0]->pos;
+    for (size_t j = 0; j < n_gone; j++) {
+      edge *e = s->gone[j];
       flush(s, e, e->yb);
       heap_remove(s, e);
-      lo = MIN(lo, m);
-    } else {
-      s->act[m++] = e;
+      size_t from = e->pos + 1, to = j + 1 < n_gone ? s->gone[j + 1]->pos : s->n_act;
+      if (s->n_spots == 0 || s->spots[s->n_spots - 1] != m)
+        spot_add(s, m, SIZE_MAX);
+      memmove(s->act + m, s->act + from, (to - from) * sizeof(edge *));
+      m += to - from;
     }
+    s->n_act = m;
   }
-  s->n_act = m;
   while (*next < n && order[*next]->ya <= y) {
     edge *e = order[(*next)++];
     size_t lo_b = 0, hi_b = s->n_act;
@@ -601,60 +645,84 @@ static void vertex(sweep *s, double y, edge **order, size_t n, size_t *next) {
     s->act[lo_b] = e;
     s->n_act++;
     lo = MIN(lo, lo_b);
+    spot_add(s, lo_b, lo_b);
     e->c = 0;
     e->y_from = y;
     e->cross_y = INFINITY;
     e->right = NULL;
-    e->pos = SIZE_MAX; /* new: no gap of its own before this height */
+    e->pos = SIZE_MAX; /* new: no windings of its own yet */
     s->heap[s->n_heap] = e;
     e->hpos = s->n_heap++;
     heap_up(s, e->hpos);
   }
-  size_t keys_from = s->n_act, keys_to = s->n_act;
-  if (lo != SIZE_MAX) {
-    /* tail: the first index of the unchanged run at the end (old edges, one shift). */
-    const guint nr = s->n_reg;
-    size_t tail = s->n_act;
-    while (tail > lo && s->act[tail - 1]->pos != SIZE_MAX &&
-           s->act[tail - 1]->pos + s->n_act == tail - 1 + old_n)
-      tail--;
-    int *old_w = s->gw;
-    guint8 *old_in = s->gin;
-    s->gw = s->gw_spare, s->gw_spare = old_w;
-    s->gin = s->gin_spare, s->gin_spare = old_in;
-    memcpy(s->gw, old_w, lo * nr * sizeof(int));
-    memcpy(s->gin, old_in, lo);
-    size_t i = lo;
-    for (; i < s->n_act; i++) {
-      edge *e = s->act[i];
-      size_t was = e->pos;
-      e->pos = i;
-      gap_update(s, i);
-      set_coef(s, e, coef(s, i), y);
-      if (i >= tail && memcmp(s->gw + i * nr, old_w + was * nr, nr * sizeof(int)) == 0)
-        break;
-    }
-    /* Right neighbours changed only from the edge left of the first change up to here:
-     * past it, every edge keeps its neighbour (the last keeps none, its key already
-     * infinite), so renewing their keys would change nothing. */
-    keys_from = lo > 0 ? lo - 1 : 0;
-    keys_to = MIN(i + 2, s->n_act);
-    if (i < s->n_act) { /* the rest as before, shifted */
-      size_t from = i + 1 + old_n - s->n_act, k = s->n_act - i - 1;
-      memcpy(s->gw + (i + 1) * nr, old_w + from * nr, k * nr * sizeof(int));
-      memcpy(s->gin + i + 1, old_in + from, k);
-      for (size_t j = i + 1; j < s->n_act; j++)
-        s->act[j]->pos = j;
-    }
-  }
-  for (size_t i = keys_from; i < keys_to; i++) {
+  return lo;
+}
+
+static int cmp_size(const void *a, const void *b) {
+  size_t x = *(const size_t *)a, y = *(const size_t *)b;
+  return x < y ? -1 : x > y;
+}
+
+/* Renews the keys of the edges in [from, to) whose right neighbour changed. */
+static void renew_keys(sweep *s, size_t from, size_t to, double y) {
+  for (size_t i = from; i < to; i++) {
     edge *r = i + 1 < s->n_act ? s->act[i + 1] : NULL;
     if (s->act[i]->right != r || r == NULL)
       set_key(s, s->act[i], r, y, FALSE, FALSE);
   }
 }
 
-/* The heap's first crossing: the edge a and its right neighbour b change places. */
+/* End points at y: the active list changes (vertex_update), then windings, coefficients
+ * and the crossing keys of changed neighbours are renewed. From each changed index the
+ * windings are recounted rightwards until an old edge keeps the windings it had: from
+ * there to the next change every gap keeps them (same edges, same order). So a height
+ * costs its changes and their neighbourhoods, not a pass over the whole list (besides
+ * moving the list's tail in memory). */
+static void vertex(sweep *s, double y, edge **order, size_t n, size_t *next) {
+  size_t lo = vertex_update(s, y, order, n, next);
+  if (lo == SIZE_MAX)
+    return;
+  size_t walk_to[MAX_SPOTS], n_walks = 0;
+  if (s->n_spots > MAX_SPOTS) {
+    s->spots[0] = lo, s->n_spots = 1;
+    for (size_t i = lo; i < s->n_act; i++) {
+      gap_update(s, i, FALSE);
+      set_coef(s, s->act[i], coef(s, i), y);
+    }
+    walk_to[n_walks++] = s->n_act;
+  } else {
+    qsort(s->spots, s->n_spots, sizeof(size_t), cmp_size);
+    size_t done = 0, k = 0;
+    for (size_t j = 0; j < s->n_spots; j++) {
+      size_t i = s->spots[j];
+      if (j > 0 && i < done)
+        continue;
+      for (; i < s->n_act; i++) {
+        edge *e = s->act[i];
+        gboolean same = gap_update(s, i, e->pos != SIZE_MAX);
+        set_coef(s, e, coef(s, i), y);
+        if (same)
+          break;
+      }
+      s->spots[k] = s->spots[j];
+      walk_to[k++] = done = MIN(i + 1, s->n_act);
+    }
+    s->n_spots = n_walks = k;
+  }
+  /* Right neighbours changed only next to the walks: from the edge left of each start to
+   * the edge right of its end (the same calls, in the same order, as one pass would make). */
+  size_t keyed = 0;
+  for (size_t k = 0; k < n_walks; k++) {
+    size_t from = s->spots[k] > 0 ? s->spots[k] - 1 : 0, to = MIN(walk_to[k] + 1, s->n_act);
+    renew_keys(s, MAX(from, keyed), to, y);
+    keyed = MAX(keyed, to);
+  }
+  for (size_t i = lo; i < s->n_act; i++)
+    s->act[i]->pos = i;
+}
+
+/* The heap's first crossing: the edge a and its right neighbour b change places. The gap
+ * right of both keeps its windings, now a's; b's gap is recounted. */
 static void swap(sweep *s) {
   edge *a = s->heap[0];
   double y = a->cross_y;
@@ -664,18 +732,15 @@ static void swap(sweep *s) {
   flush(s, b, y);
   s->act[i] = b, s->act[i + 1] = a;
   b->pos = i, a->pos = i + 1;
-  gap_update(s, i);
+  memcpy(wind(s, a), wind(s, b), s->n_reg * sizeof(int));
+  *gin(s, a) = *gin(s, b);
+  gap_update(s, i, FALSE);
   b->c = coef(s, i);
   a->c = coef(s, i + 1);
   if (i > 0)
     set_key(s, s->act[i - 1], b, y, FALSE, FALSE);
   set_key(s, b, a, y, TRUE, FALSE);
   set_key(s, a, i + 2 < s->n_act ? s->act[i + 2] : NULL, y, FALSE, FALSE);
-}
-
-static int cmp_edge_ya(const void *a, const void *b) {
-  const edge *x = *(edge *const *)a, *y = *(edge *const *)b;
-  return x->ya < y->ya ? -1 : x->ya > y->ya;
 }
 
 /* Area of the intersection of all regions, each (path, rule). */
@@ -705,20 +770,23 @@ double pp_sweep_area(const pp_region *regs, guint n_reg) {
       es[n++] = es[i];
   if (n > 0 && ylo < yhi) {
     edge **order = g_new(edge *, n);
-    double *ev = g_new(double, 2 * n);
-    for (size_t i = 0; i < n; i++) {
+    for (size_t i = 0; i < n; i++)
       order[i] = &es[i];
-      ev[2 * i] = es[i].ya;
-      ev[2 * i + 1] = es[i].yb;
-    }
-    qsort(order, n, sizeof(edge *), cmp_edge_ya);
-    qsort(ev, 2 * n, sizeof(double), pp_compare_doubles);
+    pp_sweep_edges_sort(order, n, FALSE);
+    s.ends = g_new(edge *, n);
+    memcpy(s.ends, order, n * sizeof(edge *));
+    pp_sweep_edges_sort(s.ends, n, TRUE);
+    /* Every end-point height in order: the bottoms and tops merged. */
+    double *ev = g_new(double, 2 * n);
+    for (size_t i = 0, j = 0, k = 0; k < 2 * n; k++)
+      ev[k] = j >= n || (i < n && order[i]->ya <= s.ends[j]->yb) ? order[i++]->ya : s.ends[j++]->yb;
     s.act = g_new(edge *, n);
     s.heap = g_new(edge *, n);
+    s.es = es;
     s.gw = g_new(int, n *n_reg);
     s.gin = g_new(guint8, n);
-    s.gw_spare = g_new(int, n *n_reg);
-    s.gin_spare = g_new(guint8, n);
+    s.scratch = g_new0(int, 2 * n_reg);
+    s.gone = g_new(edge *, n);
     size_t next = 0;
     for (size_t k = 0; k < 2 * n; k++) {
       if (k > 0 && ev[k] == ev[k - 1])
@@ -745,8 +813,9 @@ double pp_sweep_area(const pp_region *regs, guint n_reg) {
     g_free(s.heap);
     g_free(s.gw);
     g_free(s.gin);
-    g_free(s.gw_spare);
-    g_free(s.gin_spare);
+    g_free(s.scratch);
+    g_free(s.ends);
+    g_free(s.gone);
   }
   g_array_free(s.edges, TRUE);
   return s.area;
