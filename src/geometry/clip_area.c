@@ -42,11 +42,17 @@ typedef pp_sweep_edge edge;
  * the right end (as many pieces change anyway). Common practice, no source. */
 #define MAX_SPOTS 64
 
+/* The crossing heap holds each key beside its edge: comparisons stay in the heap's memory. */
+typedef struct {
+  double key; /* the edge's cross_y */
+  edge *e;
+} heap_node;
+
 typedef struct {
   GArray *edges; /* of edge */
   edge **act;
   size_t n_act;
-  edge **heap;
+  heap_node *heap;
   size_t n_heap;
   guint n_reg;
   const pp_region *regs;
@@ -55,6 +61,8 @@ typedef struct {
   guint8 *gin;  /* it is inside every region */
   int *scratch; /* n_reg windings being computed, then n_reg zeros (left of everything) */
   edge **ends;  /* the pieces by their top y, next_end the first still active */
+  double *ya;   /* the bottom y of each piece in the order they enter */
+  double *yb;   /* the top y of each of ends */
   size_t next_end;
   edge **gone;                 /* the pieces ending at the current height */
   size_t spots[MAX_SPOTS + 1]; /* where windings may change at the current height */
@@ -466,43 +474,43 @@ static double next_flip(sweep *s, edge *l, edge *r, double y0, double y1, gboole
 
 /* ---- the crossing heap: active edges keyed by cross_y ---- */
 
-static void heap_set(sweep *s, size_t i, edge *e) {
-  s->heap[i] = e;
-  e->hpos = i;
+static void heap_set(sweep *s, size_t i, heap_node n) {
+  s->heap[i] = n;
+  n.e->hpos = i;
 }
 
 static void heap_up(sweep *s, size_t i) {
-  edge *e = s->heap[i];
-  while (i > 0 && e->cross_y < s->heap[(i - 1) / 2]->cross_y) {
+  heap_node n = s->heap[i];
+  while (i > 0 && n.key < s->heap[(i - 1) / 2].key) {
     heap_set(s, i, s->heap[(i - 1) / 2]);
     i = (i - 1) / 2;
   }
-  heap_set(s, i, e);
+  heap_set(s, i, n);
 }
 
 static void heap_down(sweep *s, size_t i) {
-  edge *e = s->heap[i];
+  heap_node n = s->heap[i];
   for (;;) {
     size_t c = 2 * i + 1;
     if (c >= s->n_heap)
       break;
-    if (c + 1 < s->n_heap && s->heap[c + 1]->cross_y < s->heap[c]->cross_y)
+    if (c + 1 < s->n_heap && s->heap[c + 1].key < s->heap[c].key)
       c++;
-    if (!(s->heap[c]->cross_y < e->cross_y))
+    if (!(s->heap[c].key < n.key))
       break;
     heap_set(s, i, s->heap[c]);
     i = c;
   }
-  heap_set(s, i, e);
+  heap_set(s, i, n);
 }
 
 static void heap_remove(sweep *s, edge *e) {
   size_t i = e->hpos;
-  edge *last = s->heap[--s->n_heap];
-  if (last != e) {
+  heap_node last = s->heap[--s->n_heap];
+  if (last.e != e) {
     heap_set(s, i, last);
     heap_up(s, i);
-    heap_down(s, last->hpos);
+    heap_down(s, last.e->hpos);
   }
 }
 
@@ -528,6 +536,7 @@ static void set_key(sweep *s, edge *l, edge *r, double y, gboolean just, gboolea
   }
   if (l->cross_y == was)
     return; /* the heap already holds it in place (mostly +∞ staying +∞) */
+  s->heap[l->hpos].key = l->cross_y;
   heap_up(s, l->hpos);
   heap_down(s, l->hpos);
 }
@@ -614,7 +623,7 @@ static void spot_add(sweep *s, size_t i, size_t at) {
 static size_t vertex_update(sweep *s, double y, edge **order, size_t n, size_t *next) {
   size_t lo = SIZE_MAX, n_gone = 0;
   s->n_spots = 0;
-  while (s->next_end < n && s->ends[s->next_end]->yb <= y)
+  while (s->next_end < n && s->yb[s->next_end] <= y)
     s->gone[n_gone++] = s->ends[s->next_end++];
   if (n_gone > 0) {
     qsort(s->gone, n_gone, sizeof(edge *), cmp_edge_pos);
@@ -631,7 +640,7 @@ static size_t vertex_update(sweep *s, double y, edge **order, size_t n, size_t *
     }
     s->n_act = m;
   }
-  while (*next < n && order[*next]->ya <= y) {
+  while (*next < n && s->ya[*next] <= y) {
     edge *e = order[(*next)++];
     size_t lo_b = 0, hi_b = s->n_act;
     while (lo_b < hi_b) {
@@ -651,7 +660,7 @@ static size_t vertex_update(sweep *s, double y, edge **order, size_t n, size_t *
     e->cross_y = INFINITY;
     e->right = NULL;
     e->pos = SIZE_MAX; /* new: no windings of its own yet */
-    s->heap[s->n_heap] = e;
+    s->heap[s->n_heap] = (heap_node){e->cross_y, e};
     e->hpos = s->n_heap++;
     heap_up(s, e->hpos);
   }
@@ -724,7 +733,7 @@ static void vertex(sweep *s, double y, edge **order, size_t n, size_t *next) {
 /* The heap's first crossing: the edge a and its right neighbour b change places. The gap
  * right of both keeps its windings, now a's; b's gap is recounted. */
 static void swap(sweep *s) {
-  edge *a = s->heap[0];
+  edge *a = s->heap[0].e;
   double y = a->cross_y;
   size_t i = a->pos;
   edge *b = s->act[i + 1];
@@ -766,22 +775,27 @@ double pp_sweep_area(const pp_region *regs, guint n_reg) {
   size_t n = 0;
   edge *es = (edge *)s.edges->data;
   for (size_t i = 0; i < s.edges->len; i++)
-    if (es[i].yb > ylo && es[i].ya < yhi)
-      es[n++] = es[i];
+    if (es[i].yb > ylo && es[i].ya < yhi) {
+      if (n != i)
+        es[n] = es[i];
+      n++;
+    }
   if (n > 0 && ylo < yhi) {
     edge **order = g_new(edge *, n);
     for (size_t i = 0; i < n; i++)
       order[i] = &es[i];
-    pp_sweep_edges_sort(order, n, FALSE);
+    s.ya = g_new(double, n);
+    s.yb = g_new(double, n);
+    pp_sweep_edges_sort(order, s.ya, n, FALSE);
     s.ends = g_new(edge *, n);
     memcpy(s.ends, order, n * sizeof(edge *));
-    pp_sweep_edges_sort(s.ends, n, TRUE);
+    pp_sweep_edges_sort(s.ends, s.yb, n, TRUE);
     /* Every end-point height in order: the bottoms and tops merged. */
     double *ev = g_new(double, 2 * n);
     for (size_t i = 0, j = 0, k = 0; k < 2 * n; k++)
-      ev[k] = j >= n || (i < n && order[i]->ya <= s.ends[j]->yb) ? order[i++]->ya : s.ends[j++]->yb;
+      ev[k] = j >= n || (i < n && s.ya[i] <= s.yb[j]) ? s.ya[i++] : s.yb[j++];
     s.act = g_new(edge *, n);
-    s.heap = g_new(edge *, n);
+    s.heap = g_new(heap_node, n);
     s.es = es;
     s.gw = g_new(int, n *n_reg);
     s.gin = g_new(guint8, n);
@@ -791,8 +805,8 @@ double pp_sweep_area(const pp_region *regs, guint n_reg) {
     for (size_t k = 0; k < 2 * n; k++) {
       if (k > 0 && ev[k] == ev[k - 1])
         continue;
-      while (s.n_heap > 0 && s.heap[0]->cross_y < ev[k]) {
-        edge *top = s.heap[0];
+      while (s.n_heap > 0 && s.heap[0].key < ev[k]) {
+        edge *top = s.heap[0].e;
         if (top->recheck) {
           set_key(&s, top, top->right, top->cross_y, FALSE, TRUE);
           continue;
@@ -815,6 +829,8 @@ double pp_sweep_area(const pp_region *regs, guint n_reg) {
     g_free(s.gin);
     g_free(s.scratch);
     g_free(s.ends);
+    g_free(s.ya);
+    g_free(s.yb);
     g_free(s.gone);
   }
   g_array_free(s.edges, TRUE);

@@ -158,7 +158,7 @@ typedef struct {
 #define RADIX_BITS 11
 #define SMALL_SORT 32
 
-void pp_sweep_edges_sort(pp_sweep_edge **v, size_t n, gboolean by_top) {
+void pp_sweep_edges_sort(pp_sweep_edge **v, double *keys, size_t n, gboolean by_top) {
   keyed *a = g_new(keyed, n), *b = g_new(keyed, n);
   for (size_t i = 0; i < n; i++)
     a[i] = (keyed){order_key(by_top ? v[i]->yb : v[i]->ya), v[i]};
@@ -190,8 +190,10 @@ void pp_sweep_edges_sort(pp_sweep_edge **v, size_t n, gboolean by_top) {
     }
     g_free(count);
   }
-  for (size_t i = 0; i < n; i++)
+  for (size_t i = 0; i < n; i++) {
     v[i] = a[i].e;
+    keys[i] = by_top ? a[i].e->yb : a[i].e->ya;
+  }
   g_free(a);
   g_free(b);
 }

@@ -31,5 +31,6 @@ void pp_bez_split(const pp_point *p, double t, pp_point *l, pp_point *r);
 /* Appends the path's edges, each subpath closed as a fill closes it, cut into y-monotone
  * pieces (horizontal ones dropped: they bound no area), to edges (of pp_sweep_edge). */
 void pp_sweep_edges_add_path(GArray *edges, const pp_path *path, guint region);
-/* Sorts n pieces by their bottom y (ya), or top y (yb) when by_top; stable, in O(n). */
-void pp_sweep_edges_sort(pp_sweep_edge **v, size_t n, gboolean by_top);
+/* Sorts n pieces by their bottom y (ya), or top y (yb) when by_top, and lists those y in
+ * keys (n of them): stable, in O(n). */
+void pp_sweep_edges_sort(pp_sweep_edge **v, double *keys, size_t n, gboolean by_top);
