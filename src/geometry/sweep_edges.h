@@ -34,3 +34,18 @@ void pp_sweep_edges_add_path(GArray *edges, const pp_path *path, guint region);
 /* Sorts n pieces by their bottom y (ya), or top y (yb) when by_top, and lists those y in
  * keys (n of them): stable, in O(n). */
 void pp_sweep_edges_sort(pp_sweep_edge **v, double *keys, size_t n, gboolean by_top);
+
+/* Resolution of the sweep: heights closer than eps_y are one; x closer than tol_x ties. */
+typedef struct {
+  double eps_y, tol_x;
+} pp_sweep_tol;
+
+/* x of a piece at height y (clamped to its ends); Newton from the piece's last answer. */
+double pp_sweep_edge_x(pp_sweep_edge *e, double y);
+/* ∫ (x − xref) dy along the piece over [y0, y1] within its y-range, in closed form. */
+double pp_sweep_edge_integral(pp_sweep_edge *e, double y0, double y1, double xref);
+/* First y ≥ y0 (up to y1) where r passes to the left of its left neighbour l, +∞ if none;
+ * just: they have just changed places, so rounding at that crossing is no new one
+ * (sweep_cross.c). */
+double pp_sweep_next_flip(const pp_sweep_tol *tol, pp_sweep_edge *l, pp_sweep_edge *r, double y0,
+                          double y1, gboolean just);
