@@ -55,6 +55,13 @@ static double solve_t(edge *e, double y) {
   return t;
 }
 
+/* x of a cubic piece at parameter t. */
+static double x_of_t(const edge *e, double t) {
+  if (t <= 0 || t >= 1)
+    return t <= 0 ? e->p[0].x : e->p[3].x;
+  return e->p[0].x + ((e->kx[0] * t + e->kx[1]) * t + e->kx[2]) * t;
+}
+
 static double edge_x(edge *e, double y, double *t_out) {
   if (!e->curve) {
     if (y <= e->ya)
@@ -66,9 +73,7 @@ static double edge_x(edge *e, double y, double *t_out) {
   double t = solve_t(e, y);
   if (t_out)
     *t_out = t;
-  if (t <= 0 || t >= 1)
-    return t <= 0 ? e->p[0].x : e->p[3].x;
-  return e->p[0].x + ((e->kx[0] * t + e->kx[1]) * t + e->kx[2]) * t;
+  return x_of_t(e, t);
 }
 
 double pp_sweep_edge_x(edge *e, double y) {
@@ -151,11 +156,11 @@ static double x_at_end(edge *e, double y, double *t) {
     return edge_x(e, y, NULL);
   if (e->end_y == y) {
     *t = e->end_t;
-    return e->end_x;
+    return x_of_t(e, e->end_t);
   }
   e->t_hint = -1;
   double x = edge_x(e, y, t);
-  e->end_y = y, e->end_t = *t, e->end_x = x;
+  e->end_y = y, e->end_t = *t;
   return x;
 }
 

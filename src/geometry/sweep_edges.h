@@ -8,22 +8,24 @@ typedef struct pp_sweep_edge pp_sweep_edge;
 struct pp_sweep_edge {
   double ya, yb; /* ya < yb */
   pp_point p[4]; /* line: p[0] → p[1]; cubic: control points with y(t) non-decreasing */
-  gboolean curve;
-  int dir; /* +1 when the original edge ran towards larger y */
-  guint region;
-  double t_hint;
-  double slope;        /* dx/dy of a line edge */
+  union {
+    double t_hint; /* cubic: where Newton starts (the last parameter solved) */
+    double slope;  /* line: dx/dy */
+  };
   double kx[3], ky[3]; /* cubic: x(t) − x0 = ((kx0·t + kx1)·t + kx2)·t, likewise y */
   /* sweep state */
-  size_t pos;                 /* index in the active list */
-  size_t hpos;                /* index in the crossing heap */
-  pp_sweep_edge *right;       /* the right neighbour cross_y was found with */
-  double cross_y;             /* next crossing with that neighbour, +∞ if none */
-  gboolean recheck;           /* cross_y only ends the window searched so far (see set_key) */
-  double window;              /* height of that window */
-  int c;                      /* +1 right end of an inside run, −1 left end, 0 neither */
-  double y_from;              /* ∫ c·x dy is accounted up to here */
-  double end_y, end_t, end_x; /* the last search window end solved (NaN: none) */
+  size_t pos;           /* index in the active list */
+  size_t hpos;          /* index in the crossing heap */
+  pp_sweep_edge *right; /* the right neighbour cross_y was found with */
+  double cross_y;       /* next crossing with that neighbour, +∞ if none */
+  double window;        /* height of the window searched so far (see set_key) */
+  double y_from;        /* ∫ c·x dy is accounted up to here */
+  double end_y, end_t;  /* the last search window end solved, its parameter (NaN: none) */
+  guint region;
+  gint8 dir;      /* +1 when the original edge ran towards larger y */
+  gint8 c;        /* +1 right end of an inside run, −1 left end, 0 neither */
+  guint8 curve;   /* a cubic piece (else a line) */
+  guint8 recheck; /* cross_y only ends the window searched so far */
 };
 
 /* de Casteljau split at t: left half into l, right half into r (either may be NULL). */
