@@ -78,7 +78,8 @@ struct pp_bar_text {
   guint *labels_x;                                /* label indices by centre.x */
   guint *labels_y;                                /* label indices by centre.y */
   guint n_by_y0, n_by_x1, n_labels_x, n_labels_y; /* entries with a key (not NaN) */
-  gboolean lines_in_order; /* words' line numbers never decrease (capture's reading order) */
+  gboolean lines_in_order;     /* words' line numbers never decrease (capture's reading order) */
+  double tallest, upside_down; /* the largest y1 - y0 and y0 - y1 of a word, at least 0 */
 };
 
 static double key_of(const void *base, gsize stride, guint i) {
@@ -130,6 +131,11 @@ static const pp_bar_text *bar_text(pp_recognize_ctx *ctx) {
   t->by_x1 = sorted_indices(words, G_STRUCT_OFFSET(pp_text_run, box.x1), &t->n_by_x1);
   t->labels_x = sorted_indices(ctx->labels, G_STRUCT_OFFSET(pp_label, centre.x), &t->n_labels_x);
   t->labels_y = sorted_indices(ctx->labels, G_STRUCT_OFFSET(pp_label, centre.y), &t->n_labels_y);
+  for (guint k = 0; k < words->len; k++) { /* capture's boxes have y0 <= y1; not assumed */
+    const pp_text_run *w = g_ptr_array_index(words, k);
+    t->tallest = fmax(t->tallest, w->box.y1 - w->box.y0);
+    t->upside_down = fmax(t->upside_down, w->box.y0 - w->box.y1);
+  }
   t->lines_in_order = TRUE;
   for (guint i = 1; i < words->len && t->lines_in_order; i++)
     t->lines_in_order = ((const pp_text_run *)g_ptr_array_index(words, i - 1))->line <=
@@ -596,7 +602,7 @@ static gboolean swatch_named(const pp_text_run *word, pp_rect b) {
  * left out of it (common practice, no source). */
 #define PP_LEGEND_BAND_SLACK 1.0
 
-gboolean pp_bars_legend_like(const pp_scene *scene, const pp_figure *fig) {
+gboolean pp_bars_legend_like(pp_recognize_ctx *ctx, const pp_figure *fig) {
   GArray *els = fig->elements;
   pp_rect first = g_array_index(els, pp_element, 0).box;
   for (guint i = 0; i < els->len; i++) {
@@ -606,7 +612,7 @@ gboolean pp_bars_legend_like(const pp_scene *scene, const pp_figure *fig) {
         pp_rect_width(b) > PP_SWATCH_MAX || pp_rect_height(b) > PP_SWATCH_MAX)
       return FALSE;
   }
-  GPtrArray *words = scene->words;
+  GPtrArray *words = ctx->scene->words;
   if (els->len < PP_LEGEND_INDEX_MIN) {
     for (guint i = 0; i < els->len; i++) {
       pp_rect b = g_array_index(els, pp_element, i).box;
@@ -620,15 +626,12 @@ gboolean pp_bars_legend_like(const pp_scene *scene, const pp_figure *fig) {
   }
   /* A word names a swatch only if its top lies within reach below the swatch and its
    * bottom within reach above it: the words by top, in that band widened by the tallest
-   * word (and any box with y0 > y1); words without a top (NaN) are always tried. */
-  guint n_top;
-  guint *by_y0 = sorted_indices(words, G_STRUCT_OFFSET(pp_text_run, box.y0), &n_top);
-  double tallest = 0, upside_down = 0; /* capture's boxes have y0 <= y1; not assumed */
-  for (guint k = 0; k < words->len; k++) {
-    const pp_text_run *w = g_ptr_array_index(words, k);
-    tallest = fmax(tallest, w->box.y1 - w->box.y0);
-    upside_down = fmax(upside_down, w->box.y0 - w->box.y1);
-  }
+   * word (and any box with y0 > y1); words without a top (NaN) are always tried. The
+   * words' order is the page's (ctx->bar_text), sorted once, not once per figure. */
+  const pp_bar_text *t = bar_text(ctx);
+  const guint *by_y0 = t->by_y0;
+  guint n_top = t->n_by_y0;
+  double tallest = t->tallest, upside_down = t->upside_down;
   gboolean all = TRUE;
   for (guint i = 0; i < els->len && all; i++) {
     pp_rect b = g_array_index(els, pp_element, i).box;
@@ -647,7 +650,6 @@ gboolean pp_bars_legend_like(const pp_scene *scene, const pp_figure *fig) {
       named = swatch_named(g_ptr_array_index(words, by_y0[k]), b);
     all = named;
   }
-  g_free(by_y0);
   return all;
 }
 

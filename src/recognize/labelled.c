@@ -79,11 +79,11 @@ static GArray *select_on_edge(const pp_recognize_ctx *ctx, edge_index *x, int or
 }
 
 /* Every element carries a printed number, and the group is not a legend. */
-static gboolean all_labelled(const pp_recognize_ctx *ctx, pp_figure *fig) {
+static gboolean all_labelled(pp_recognize_ctx *ctx, pp_figure *fig) {
   guint labelled = 0;
   for (guint k = 0; k < fig->elements->len; k++)
     labelled += !isnan(g_array_index(fig->elements, pp_element, k).label_value);
-  return labelled == fig->elements->len && labelled >= 2 && !pp_bars_legend_like(ctx->scene, fig);
+  return labelled == fig->elements->len && labelled >= 2 && !pp_bars_legend_like(ctx, fig);
 }
 
 /* An edge already tried in this pass: the selection depends only on the orientation, the
