@@ -217,6 +217,44 @@ static void test_stacks_drawn_top_first(void **state) {
   page_free(&p);
 }
 
+/* ---- a stepped funnel: centred bars, each with its number inside ------------------------- */
+/* Five bars 20 pt tall narrowing downwards, centred on x = 300, apart by funnel_gap pt.
+ * pyramids.c joins slices whose gap is under 0.3 of the thinner plus 1.5 pt (7.5 pt here;
+ * its own rule, common practice), so 7 pt joins them and 8 pt does not. */
+static const double funnel_v[] = {90, 70, 50, 30, 20};
+static double funnel_gap;
+
+static void draw_funnel(cairo_t *cr) {
+  for (int i = 0; i < 5; i++) {
+    double w = 3 * funnel_v[i], y = 200 + i * (20 + funnel_gap);
+    fill_rect(cr, 0.2, 0.4, 0.7, 300 - w / 2, y, 300 + w / 2, y + 20);
+    char buf[16];
+    g_snprintf(buf, sizeof buf, "%g", funnel_v[i]);
+    text(cr, 295, y + 13, buf);
+  }
+}
+
+static void test_funnel_gap_near_limit(void **state) {
+  (void)state;
+  funnel_gap = 7;
+  page p = recognise(draw_funnel);
+  const pp_figure *f = only(&p, PP_FIGURE_PYRAMID);
+  assert_int_equal(f->elements->len, 5);
+  for (guint i = 0; i < 5; i++)
+    assert_float_equal(el(f, i)->value, funnel_v[i], 1e-9);
+  page_free(&p);
+}
+
+static void test_funnel_gap_beyond_limit(void **state) {
+  (void)state;
+  funnel_gap = 8;
+  page p = recognise(draw_funnel);
+  for (guint i = 0; i < p.charts->figures->len; i++)
+    assert_int_not_equal(((const pp_figure *)g_ptr_array_index(p.charts->figures, i))->kind,
+                         PP_FIGURE_PYRAMID);
+  page_free(&p);
+}
+
 /* ---- bars with data labels and no axis ------------------------------------------------ */
 static const double label_v[] = {12, 30, 21};
 
@@ -344,6 +382,8 @@ int main(void) {
       cmocka_unit_test(test_area),
       cmocka_unit_test(test_stacks),
       cmocka_unit_test(test_stacks_drawn_top_first),
+      cmocka_unit_test(test_funnel_gap_near_limit),
+      cmocka_unit_test(test_funnel_gap_beyond_limit),
       cmocka_unit_test(test_labels_only),
       cmocka_unit_test(test_legend),
       cmocka_unit_test(test_log_axis),
