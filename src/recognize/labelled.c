@@ -171,6 +171,8 @@ static gboolean find_one(pp_recognize_ctx *ctx, edge_index *x) {
 }
 
 void pp_recognize_labelled_bars(pp_recognize_ctx *ctx) {
+  if (!two_free_labels(ctx)) /* no figure to find: the index is not built */
+    return;
   edge_index x;
   edge_index_init(&x, ctx->bars);
   while (find_one(ctx, &x))
