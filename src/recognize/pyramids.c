@@ -100,15 +100,16 @@ static gboolean continues(const slice *a, const slice *b) {
  * the window never leaves out a slice continues() would take. */
 #define PP_SLICE_SEARCH_SLACK 1e-6
 
-/* Narrows [*from, *end) of slices (in order of top, all finite) to those whose top lies
- * where one continuing a can start: continues() needs a gap of at least -1 pt and at most
- * PP_SLICE_GAP_SHARE of the thinner slice (so of a) plus 1.5 pt. A page of 10^5 tiles
- * otherwise tries every slice of the next row for each. */
-static void continuation_window(GArray *slices, const slice *a, guint *from, guint *end) {
+/* The first of slices (in order of top, all finite) from `from` on whose top lies where
+ * one continuing a can start, and in *hi the lowest such top: continues() needs a gap of
+ * at least -1 pt and at most PP_SLICE_GAP_SHARE of the thinner slice (so of a) plus
+ * 1.5 pt. A page of 10^5 tiles otherwise tries every later slice of its row for each. */
+static guint continuation_start(GArray *slices, const slice *a, guint from, double *hi) {
   double h = fabs(a->y1 - a->y0);
   double slack = PP_SLICE_SEARCH_SLACK * (1 + fabs(a->y1) + h);
-  double lo = a->y1 - 1.0 - slack, hi = a->y1 + PP_SLICE_GAP_SHARE * h + 1.5 + slack;
-  guint l = *from, r = *end;
+  double lo = a->y1 - 1.0 - slack;
+  *hi = a->y1 + PP_SLICE_GAP_SHARE * h + 1.5 + slack;
+  guint l = from, r = slices->len;
   while (l < r) { /* the first top at least lo */
     guint mid = l + (r - l) / 2;
     if (g_array_index(slices, slice, mid).y0 < lo)
@@ -116,10 +117,7 @@ static void continuation_window(GArray *slices, const slice *a, guint *from, gui
     else
       r = mid;
   }
-  *from = l;
-  while (r < *end && g_array_index(slices, slice, r).y0 <= hi)
-    r++;
-  *end = r;
+  return l;
 }
 
 /* The free number on the slice: inside its box, else on its row beside it, nearest. */
@@ -247,10 +245,9 @@ void pp_recognize_pyramids(pp_recognize_ctx *ctx) {
   for (guint i = 0; i < slices->len; i++) {
     const slice *a = &g_array_index(slices, slice, i);
     next[i] = -1;
-    guint k = i + 1, end = slices->len;
-    if (finite)
-      continuation_window(slices, a, &k, &end);
-    for (; k < end && next[i] < 0; k++)
+    double hi = INFINITY; /* no slice beyond this top continues a */
+    guint k = finite ? continuation_start(slices, a, i + 1, &hi) : i + 1;
+    for (; k < slices->len && !(g_array_index(slices, slice, k).y0 > hi) && next[i] < 0; k++)
       if (!has_prev[k] && continues(a, &g_array_index(slices, slice, k))) {
         next[i] = (int)k;
         has_prev[k] = TRUE;
