@@ -231,6 +231,9 @@ static const unit_token *match_unit(const char *p, const char *end, size_t *len)
   const unit_token *best = NULL;
   size_t best_len = 0;
   for (size_t i = 0; i < G_N_ELEMENTS(unit_tokens); i++) {
+    /* The first byte rules out nearly every token before its length is taken. */
+    if (p >= end || unit_tokens[i].text[0] != *p)
+      continue;
     size_t n = strlen(unit_tokens[i].text);
     if (n <= best_len || (size_t)(end - p) < n || memcmp(p, unit_tokens[i].text, n) != 0)
       continue;
