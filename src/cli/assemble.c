@@ -43,6 +43,29 @@ void pp_assembly_free(pp_assembly *as) {
   g_free(as);
 }
 
+/* A worker's line is untrusted input: json-glib's typed getters print a "critical" warning
+ * when a member is an object or array where they expect a value, so members are read through
+ * these, which check the node type first and fall back otherwise. */
+static JsonNode *value_member(JsonObject *o, const char *name) {
+  JsonNode *n = o ? json_object_get_member(o, name) : NULL;
+  return n && JSON_NODE_HOLDS_VALUE(n) ? n : NULL;
+}
+
+static const char *string_member(JsonObject *o, const char *name, const char *fallback) {
+  JsonNode *n = value_member(o, name);
+  return n && json_node_get_value_type(n) == G_TYPE_STRING ? json_node_get_string(n) : fallback;
+}
+
+static gint64 int_member(JsonObject *o, const char *name, gint64 fallback) {
+  JsonNode *n = value_member(o, name);
+  return n ? json_node_get_int(n) : fallback;
+}
+
+static gboolean bool_member(JsonObject *o, const char *name, gboolean fallback) {
+  JsonNode *n = value_member(o, name);
+  return n ? json_node_get_boolean(n) : fallback;
+}
+
 /* The array member name of o, or NULL (json-glib warns on a missing member). */
 static JsonArray *array_member(JsonObject *o, const char *name) {
   JsonNode *n = o ? json_object_get_member(o, name) : NULL;
@@ -51,10 +74,7 @@ static JsonArray *array_member(JsonObject *o, const char *name) {
 
 /* The page entry's error text, NULL when the page was analysed. */
 static const char *page_error(JsonObject *page) {
-  JsonNode *n = json_object_get_member(page, "error");
-  return n && JSON_NODE_HOLDS_VALUE(n) && json_node_get_value_type(n) == G_TYPE_STRING
-             ? json_node_get_string(n)
-             : NULL;
+  return string_member(page, "error", NULL);
 }
 
 static JsonNode *failed_page(guint index, const char *reason) {
@@ -91,7 +111,8 @@ static void set_page(pp_assembly *as, guint index, JsonNode *node, const char *e
 /* The one page entry of a one-page findings object, with its findings beside it. */
 static void take_report(pp_assembly *as, guint index, JsonObject *report) {
   JsonArray *pages = array_member(report, "pages");
-  if (!pages || json_array_get_length(pages) != 1) {
+  if (!pages || json_array_get_length(pages) != 1 ||
+      !JSON_NODE_HOLDS_OBJECT(json_array_get_element(pages, 0))) {
     set_page(as, index, failed_page(index, "damaged: the page's result was unreadable"),
              "damaged: the page's result was unreadable");
     return;
@@ -123,8 +144,8 @@ void pp_assembly_feed(pp_assembly *as, const char *line, gsize len) {
     JsonObject *e = json_node_get_object(n);
     g_free(as->error_word);
     g_free(as->error_reason);
-    as->error_word = g_strdup(json_object_get_string_member_with_default(e, "word", "damaged"));
-    as->error_reason = g_strdup(json_object_get_string_member_with_default(e, "message", ""));
+    as->error_word = g_strdup(string_member(e, "word", "damaged"));
+    as->error_reason = g_strdup(string_member(e, "message", ""));
   } else if ((n = json_object_get_member(o, "start")) && JSON_NODE_HOLDS_VALUE(n)) {
     gint64 i = json_node_get_int(n);
     if (i >= 0 && i < G_MAXINT)
@@ -138,19 +159,18 @@ void pp_assembly_feed(pp_assembly *as, const char *line, gsize len) {
       as->bad_lines++;
       return;
     }
-    as->max_rss_kib =
-        MAX(as->max_rss_kib, json_object_get_int_member_with_default(o, "rss_kib", 0));
+    as->max_rss_kib = MAX(as->max_rss_kib, int_member(o, "rss_kib", 0));
     JsonNode *r = json_object_get_member(o, "report");
     if (r && JSON_NODE_HOLDS_OBJECT(r)) {
       take_report(as, (guint)i, json_node_get_object(r));
     } else {
-      const char *why = json_object_get_string_member_with_default(o, "error", "not analysed");
+      const char *why = string_member(o, "error", "not analysed");
       set_page(as, (guint)i, failed_page((guint)i, why), why);
     }
   } else if ((n = json_object_get_member(o, "stop")) && JSON_NODE_HOLDS_VALUE(n)) {
     g_free(as->stop_reason);
-    as->stop_reason = g_strdup(json_node_get_string(n));
-  } else if (json_object_get_boolean_member_with_default(o, "end", FALSE)) {
+    as->stop_reason = g_strdup(string_member(o, "stop", "stopped"));
+  } else if (bool_member(o, "end", FALSE)) {
     as->ended = TRUE;
   } else {
     as->bad_lines++;
@@ -162,7 +182,7 @@ static guint header_pages(const pp_assembly *as) {
     return 0;
   JsonNode *d = json_object_get_member(json_node_get_object(as->header), "document");
   JsonObject *doc = d && JSON_NODE_HOLDS_OBJECT(d) ? json_node_get_object(d) : NULL;
-  gint64 n = doc ? json_object_get_int_member_with_default(doc, "pages", 0) : 0;
+  gint64 n = int_member(doc, "pages", 0);
   return n > 0 && n < MAX_DOCUMENT_PAGES ? (guint)n : 0;
 }
 
@@ -201,11 +221,7 @@ JsonNode *pp_assembly_finish(pp_assembly *as, const char *interrupted_reason, co
       if (!JSON_NODE_HOLDS_OBJECT(f))
         continue;
       json_array_add_element(findings, json_node_copy(f));
-      JsonNode *sn = json_object_get_member(json_node_get_object(f), "severity");
-      const char *s =
-          sn && JSON_NODE_HOLDS_VALUE(sn) && json_node_get_value_type(sn) == G_TYPE_STRING
-              ? json_node_get_string(sn)
-              : "";
+      const char *s = string_member(json_node_get_object(f), "severity", "");
       for (int k2 = 0; k2 < 3; k2++)
         sev[k2] += strcmp(s, sev_names[k2]) == 0;
     }

@@ -1,6 +1,7 @@
 /* test_cli.c — units of the batch: terminal escaping (ECMA-48 control functions), the
  * password file, shard stability, the batch record reader, output names within NAME_MAX
- * (POSIX), and the joining of page results into document totals. */
+ * (POSIX), and the joining of page results into document totals, reading malformed worker
+ * lines without json-glib warnings. */
 #include <setjmp.h>
 #include <stdarg.h>
 #include <stddef.h>
@@ -153,11 +154,75 @@ static void assembly_totals(void **state) {
   pp_assembly_free(as);
 }
 
+/* Warnings and criticals printed while reading worker lines: json-glib's typed getters print
+ * a critical (g_return_val_if_fail) for a member that is an object or array. */
+static void count_warnings(const char *domain, GLogLevelFlags level, const char *message,
+                           gpointer data) {
+  (void)domain, (void)level, (void)message;
+  (*(guint *)data)++;
+}
+
+static void assembly_member_types(void **state) {
+  (void)state;
+  guint warnings = 0;
+  GLogFunc old = g_log_set_default_handler(count_warnings, &warnings);
+  guint json = g_log_set_handler("Json", G_LOG_LEVEL_WARNING | G_LOG_LEVEL_CRITICAL, count_warnings,
+                                 &warnings);
+  pp_assembly *as = pp_assembly_new();
+  feed(as, "{\"open\":{\"document\":{\"pages\":4},\"pages\":[],\"findings\":[],\"totals\":{}}}");
+  /* members that are objects or arrays where a string, an integer or a boolean belongs */
+  feed(as, "{\"page\":0,\"rss_kib\":{},\"error\":[]}");
+  feed(as, "{\"page\":1,\"rss_kib\":7,\"report\":{\"pages\":[[]],\"findings\":[]}}");
+  feed(as, "{\"page\":2,\"report\":{\"pages\":[{\"page\":3,\"error\":{}}],"
+           "\"findings\":[{\"severity\":{}},{\"severity\":[\"severe\"]}]}}");
+  feed(as, "{\"end\":[]}");
+  feed(as, "{\"end\":{}}");
+  const char *word, *reason;
+  JsonNode *root = pp_assembly_finish(as, "the worker stopped", &word, &reason);
+  assert_int_equal(warnings, 0);
+  assert_non_null(root);
+  JsonObject *t = json_object_get_object_member(json_node_get_object(root), "totals");
+  assert_int_equal(json_object_get_int_member(t, "pages"), 4);
+  /* page 1: "error" is no text, so the fallback reason; page 2: its entry is no object;
+   * page 3: analysed (its error is no text); page 4: never reported */
+  assert_int_equal(json_object_get_int_member(t, "pages_failed"), 3);
+  assert_int_equal(json_object_get_int_member(t, "findings"), 2);
+  assert_int_equal(
+      json_object_get_int_member(json_object_get_object_member(t, "by_severity"), "severe"), 0);
+  JsonArray *pages = json_object_get_array_member(json_node_get_object(root), "pages");
+  assert_string_equal(
+      json_object_get_string_member(json_array_get_object_element(pages, 0), "error"),
+      "not analysed");
+  assert_false(pp_assembly_ended(as));
+  assert_int_equal(pp_assembly_max_rss_kib(as), 7);
+  json_node_unref(root);
+  pp_assembly_free(as);
+  /* a header whose page count is an array, and a document error with object members */
+  as = pp_assembly_new();
+  feed(as, "{\"open\":{\"document\":{\"pages\":[3]}}}");
+  feed(as, "{\"page\":0,\"error\":\"x\"}");
+  assert_int_equal(pp_assembly_pages(as), 0);
+  pp_assembly_free(as);
+  as = pp_assembly_new();
+  feed(as, "{\"error\":{\"code\":4,\"word\":{},\"message\":[1]}}");
+  assert_null(pp_assembly_finish(as, NULL, &word, &reason));
+  assert_string_equal(word, "damaged");
+  assert_string_equal(reason, "");
+  pp_assembly_free(as);
+  g_log_remove_handler("Json", json);
+  g_log_set_default_handler(old, NULL);
+  assert_int_equal(warnings, 0);
+}
+
 int main(void) {
   const struct CMUnitTest tests[] = {
-      cmocka_unit_test(escape_controls), cmocka_unit_test(passwords),
-      cmocka_unit_test(shards),          cmocka_unit_test(record_reader),
-      cmocka_unit_test(output_names),    cmocka_unit_test(assembly_totals),
+      cmocka_unit_test(escape_controls),
+      cmocka_unit_test(passwords),
+      cmocka_unit_test(shards),
+      cmocka_unit_test(record_reader),
+      cmocka_unit_test(output_names),
+      cmocka_unit_test(assembly_totals),
+      cmocka_unit_test(assembly_member_types),
   };
   return cmocka_run_group_tests(tests, NULL, NULL);
 }
