@@ -1,10 +1,13 @@
 /* assemble.c — joins per-page findings objects. The totals of the findings file are sums
  * over pages (docs/findings-format.md), so they are recomputed from the parts here and
- * can never disagree with the pages and findings actually kept. */
+ * can never disagree with the pages and findings actually kept. A page line in the document
+ * worker's own form keeps its page entry as text (json_text.c), read for its counts only. */
 #include <string.h>
 
 #include "assemble.h"
+#include "json_text.h"
 #include "record.h"
+#include "report/report.h"
 #include "rules/rules.h"
 
 /* A header claiming more pages than this is a corrupt line: at the 30 s page budget such a
@@ -13,9 +16,37 @@
  * exhausting a 2 GB limit). No outside source. */
 #define MAX_DOCUMENT_PAGES (1u << 17)
 
+/* One page's result: a page entry as nodes (built here, or read by json-glib with its
+ * findings in "_findings"), or as the compact text its page process wrote. */
+typedef struct {
+  JsonNode *node;
+  char *text; /* without node: the entry's text, and what the totals need of it */
+  gsize len;
+  GPtrArray *findings; /* the texts of its findings that are objects */
+  char *error;
+  guint figures, raster, scale;
+  guint by_severity[3];
+} page_slot;
+
+static void page_slot_free(page_slot *ps) {
+  if (ps->node)
+    json_node_unref(ps->node);
+  if (ps->findings)
+    g_ptr_array_unref(ps->findings);
+  g_free(ps->text);
+  g_free(ps->error);
+  g_free(ps);
+}
+
+static page_slot *node_slot(JsonNode *node) {
+  page_slot *ps = g_new0(page_slot, 1);
+  ps->node = node;
+  return ps;
+}
+
 struct pp_assembly {
   JsonNode *header; /* from {"open": ...} */
-  GPtrArray *pages; /* JsonNode* per page index, NULL until reported */
+  GPtrArray *pages; /* page_slot* per page index, NULL until reported */
   char *error_word, *error_reason, *stop_reason, *first_page_error;
   gboolean ended;
   int last_started; /* 0-based, -1 before any */
@@ -25,7 +56,7 @@ struct pp_assembly {
 
 pp_assembly *pp_assembly_new(void) {
   pp_assembly *as = g_new0(pp_assembly, 1);
-  as->pages = g_ptr_array_new_with_free_func((GDestroyNotify)json_node_unref);
+  as->pages = g_ptr_array_new_with_free_func((GDestroyNotify)page_slot_free);
   as->last_started = -1;
   return as;
 }
@@ -87,20 +118,25 @@ static JsonNode *failed_page(guint index, const char *reason) {
 }
 
 static guint header_pages(const pp_assembly *as);
+static void set_page_slot(pp_assembly *as, guint index, page_slot *ps, const char *error);
 
 static void set_page(pp_assembly *as, guint index, JsonNode *node, const char *error) {
+  set_page_slot(as, index, node_slot(node), error);
+}
+
+static void set_page_slot(pp_assembly *as, guint index, page_slot *ps, const char *error) {
   if (index >= MAX_DOCUMENT_PAGES) { /* a corrupt line */
-    json_node_unref(node);
+    page_slot_free(ps);
     return;
   }
   if (index >= as->pages->len)
     g_ptr_array_set_size(as->pages, index + 1);
   if (g_ptr_array_index(as->pages, index)) { /* reported twice: the first report stands */
-    json_node_unref(node);
+    page_slot_free(ps);
     return;
   }
   as->done++;
-  g_ptr_array_index(as->pages, index) = node;
+  g_ptr_array_index(as->pages, index) = ps;
   if (error) {
     as->failed++;
     if (!as->first_page_error)
@@ -127,7 +163,134 @@ static void take_report(pp_assembly *as, guint index, JsonObject *report) {
   set_page(as, index, page, error);
 }
 
+/* A non-negative integer as the document worker prints it (no sign, no leading zero), at
+ * most 18 digits; advances *p. */
+static gboolean read_count(const char **p, const char *end, gint64 *v) {
+  const char *q = *p;
+  *v = 0;
+  while (q < end && g_ascii_isdigit(*q) && q - *p < 18)
+    *v = *v * 10 + (*q++ - '0');
+  if (q == *p || (q - *p > 1 && **p == '0') || (q < end && g_ascii_isdigit(*q)))
+    return FALSE;
+  *p = q;
+  return TRUE;
+}
+
+static gboolean read_literal(const char **p, const char *end, const char *text) {
+  size_t n = strlen(text);
+  if ((size_t)(end - *p) < n || memcmp(*p, text, n) != 0)
+    return FALSE;
+  *p += n;
+  return TRUE;
+}
+
+/* No member name of the object [o, o_end) has an escape (one could spell "severity"). */
+static gboolean escape_free_names(const char *o, const char *o_end) {
+  const char *n, *n_end, *v, *v_end;
+  while (pp_json_text_next(&o, o_end, &n, &n_end, &v, &v_end))
+    if (memchr(n, '\\', (size_t)(n_end - n)))
+      return FALSE;
+  return TRUE;
+}
+
+static guint count_elements(const char *v, const char *v_end) {
+  const char *el, *el_end;
+  guint n = 0;
+  if (*v != '[')
+    return 0;
+  while (pp_json_text_next(&v, v_end, NULL, NULL, &el, &el_end))
+    n++;
+  return n;
+}
+
+/* {"page":N,"rss_kib":R,"report":{...}} exactly as the document worker writes it
+ * (docworker.c): the page entry is kept as text, only its error, its counts and the findings
+ * are read. FALSE for anything else, before any change: json-glib then reads the line. */
+static gboolean feed_page_text(pp_assembly *as, const char *line, gsize len) {
+  const char *p = line, *end = line + len, *n, *n_end, *v, *v_end;
+  gint64 index, rss;
+  if (!read_literal(&p, end, "{\"page\":") || !read_count(&p, end, &index) ||
+      !read_literal(&p, end, ",\"rss_kib\":") || !read_count(&p, end, &rss) ||
+      !read_literal(&p, end, ",\"report\":") || p >= end || *p != '{' || end[-1] != '}' ||
+      pp_json_text_skip(p, end - 1) != end - 1)
+    return FALSE;
+  /* Member names with escapes could spell "pages" another way: json-glib reads those. */
+  const char *pages = NULL, *pages_end = NULL, *found = NULL, *found_end = NULL;
+  for (const char *r = p; pp_json_text_next(&r, end - 1, &n, &n_end, &v, &v_end);) {
+    if (memchr(n, '\\', (size_t)(n_end - n)))
+      return FALSE;
+    if (pp_json_text_name_is(n, n_end, "pages"))
+      pages = v, pages_end = v_end;
+    else if (pp_json_text_name_is(n, n_end, "findings"))
+      found = v, found_end = v_end;
+  }
+  const char *entry, *entry_end, *rest;
+  if (!pages || *pages != '[' ||
+      !pp_json_text_next(&pages, pages_end, NULL, NULL, &entry, &entry_end) || *entry != '{' ||
+      pp_json_text_next(&pages, pages_end, NULL, NULL, &rest, &rest))
+    return FALSE; /* not one page entry: the slow way reports it */
+  page_slot *ps = g_new0(page_slot, 1);
+  const char *error = NULL, *error_end = NULL;
+  for (const char *e = entry; pp_json_text_next(&e, entry_end, &n, &n_end, &v, &v_end);) {
+    if (memchr(n, '\\', (size_t)(n_end - n)) || pp_json_text_name_is(n, n_end, "_findings")) {
+      page_slot_free(ps);
+      return FALSE;
+    }
+    if (pp_json_text_name_is(n, n_end, "error"))
+      error = v, error_end = v_end;
+    else if (pp_json_text_name_is(n, n_end, "figures"))
+      ps->figures = count_elements(v, v_end);
+    else if (pp_json_text_name_is(n, n_end, "raster_images_not_analysed"))
+      ps->raster = count_elements(v, v_end);
+    else if (pp_json_text_name_is(n, n_end, "scale_failures"))
+      ps->scale = count_elements(v, v_end);
+  }
+  if (error && *error == '"') {
+    if (memchr(error, '\\', (size_t)(error_end - error))) {
+      page_slot_free(ps);
+      return FALSE; /* an escaped error text: json-glib unescapes it */
+    }
+    ps->error = g_strndup(error + 1, (gsize)(error_end - error - 2));
+  }
+  /* As pp_assembly_finish counts them: findings that are not objects are dropped, and a
+   * severity counts only as a string (an escaped one is left to json-glib). */
+  ps->findings = g_ptr_array_new_with_free_func(g_free);
+  const char *f, *f_end;
+  for (const char *a = found && *found == '[' ? found : NULL;
+       a && pp_json_text_next(&a, found_end, NULL, NULL, &f, &f_end);) {
+    if (*f != '{')
+      continue;
+    const char *sev = NULL, *sev_end = NULL;
+    for (const char *m = f; pp_json_text_next(&m, f_end, &n, &n_end, &v, &v_end);)
+      if (pp_json_text_name_is(n, n_end, "severity"))
+        sev = v, sev_end = v_end;
+    if ((sev && *sev == '"' && memchr(sev, '\\', (size_t)(sev_end - sev))) ||
+        !escape_free_names(f, f_end)) {
+      page_slot_free(ps);
+      return FALSE;
+    }
+    for (int k = 0; sev && *sev == '"' && k < 3; k++)
+      ps->by_severity[k] += pp_json_text_name_is(sev, sev_end, pp_severity_name(k));
+    g_ptr_array_add(ps->findings, g_strndup(f, (gsize)(f_end - f)));
+  }
+  /* As the slow way: an index outside the document the header opened is a corrupt line. */
+  if (index >= (gint64)header_pages(as)) {
+    as->bad_lines++;
+    page_slot_free(ps);
+    return TRUE;
+  }
+  as->max_rss_kib = MAX(as->max_rss_kib, rss);
+  ps->text = g_strndup(entry, (gsize)(entry_end - entry));
+  ps->len = (gsize)(entry_end - entry);
+  char *why = g_strdup(ps->error);
+  set_page_slot(as, (guint)index, ps, why);
+  g_free(why);
+  return TRUE;
+}
+
 void pp_assembly_feed(pp_assembly *as, const char *line, gsize len) {
+  if (feed_page_text(as, line, len))
+    return;
   g_autoptr(JsonParser) parser = json_parser_new();
   if (!pp_json_is_one_object(line, len) ||
       !json_parser_load_from_data(parser, line, (gssize)len, NULL) ||
@@ -186,9 +349,30 @@ static guint header_pages(const pp_assembly *as) {
   return n > 0 && n < MAX_DOCUMENT_PAGES ? (guint)n : 0;
 }
 
-JsonNode *pp_assembly_finish(pp_assembly *as, const char *interrupted_reason, const char **word,
-                             const char **reason) {
+/* json-glib's text of the findings object with the elements of its (empty) level-1 array
+ * "name" in place, each indented as json-glib writes an element at level 2. */
+static void splice_array(GString *text, const char *name, GPtrArray *elements) {
+  char *slot = g_strdup_printf("\n  \"%s\" : []", name);
+  const char *at = strstr(text->str, slot);
+  if (at && elements->len > 0) {
+    gsize pos = (gsize)(at - text->str) + strlen(slot) - 1; /* at the ']' */
+    GString *els = g_string_new(NULL);
+    for (guint i = 0; i < elements->len; i++) {
+      const char *e = g_ptr_array_index(elements, i);
+      g_string_append_len(els, i ? ",\n    " : "\n    ", i ? 6 : 5);
+      pp_json_text_indent(els, e, e + strlen(e), 2);
+    }
+    g_string_append(els, "\n  ");
+    g_string_insert_len(text, (gssize)pos, els->str, (gssize)els->len);
+    g_string_free(els, TRUE);
+  }
+  g_free(slot);
+}
+
+JsonNode *pp_assembly_finish_text(pp_assembly *as, const char *interrupted_reason,
+                                  const char **word, const char **reason, char **text) {
   *word = *reason = NULL;
+  *text = NULL;
   if (!as->header) {
     *word = as->error_word ? as->error_word : "damaged";
     *reason = as->error_reason ? as->error_reason : interrupted_reason;
@@ -207,52 +391,85 @@ JsonNode *pp_assembly_finish(pp_assembly *as, const char *interrupted_reason, co
   }
   JsonNode *root = json_node_copy(as->header);
   JsonObject *ro = json_node_get_object(root);
-  JsonArray *pages = json_array_new(), *findings = json_array_new();
+  GPtrArray *pages = g_ptr_array_new(), *findings = g_ptr_array_new_with_free_func(g_free);
   gint64 figures = 0, raster = 0, scale = 0, failed = 0, sev[3] = {0};
-  const char *sev_names[3] = {pp_severity_name(0), pp_severity_name(1), pp_severity_name(2)};
   for (guint i = 0; i < as->pages->len; i++) {
-    JsonNode *page = json_node_copy(g_ptr_array_index(as->pages, i));
-    JsonObject *po = json_node_get_object(page);
-    JsonArray *pf = array_member(po, "_findings");
-    for (guint k = 0; pf && k < json_array_get_length(pf); k++) {
-      JsonNode *f = json_array_get_element(pf, k);
-      /* a worker's line is untrusted input: a finding that is not an object is dropped, and
-       * a severity that is not a string (null, a number) counts in no severity */
-      if (!JSON_NODE_HOLDS_OBJECT(f))
-        continue;
-      json_array_add_element(findings, json_node_copy(f));
-      const char *s = string_member(json_node_get_object(f), "severity", "");
-      for (int k2 = 0; k2 < 3; k2++)
-        sev[k2] += strcmp(s, sev_names[k2]) == 0;
+    page_slot *ps = g_ptr_array_index(as->pages, i);
+    if (ps->node) { /* counted as the text slots were in feed_page_text */
+      JsonObject *po = json_node_get_object(ps->node);
+      JsonArray *pf = array_member(po, "_findings");
+      for (guint k = 0; pf && k < json_array_get_length(pf); k++) {
+        JsonNode *f = json_array_get_element(pf, k);
+        /* a worker's line is untrusted input: a finding that is not an object is dropped, and
+         * a severity that is not a string (null, a number) counts in no severity */
+        if (!JSON_NODE_HOLDS_OBJECT(f))
+          continue;
+        g_ptr_array_add(findings, json_to_string(f, FALSE));
+        const char *s = string_member(json_node_get_object(f), "severity", "");
+        for (int k2 = 0; k2 < 3; k2++)
+          sev[k2] += strcmp(s, pp_severity_name(k2)) == 0;
+      }
+      if (json_object_has_member(po, "_findings"))
+        json_object_remove_member(po, "_findings");
+      JsonArray *figs = array_member(po, "figures");
+      JsonArray *ras = array_member(po, "raster_images_not_analysed");
+      JsonArray *sca = array_member(po, "scale_failures");
+      figures += figs ? json_array_get_length(figs) : 0;
+      raster += ras ? json_array_get_length(ras) : 0;
+      scale += sca ? json_array_get_length(sca) : 0;
+      failed += page_error(po) != NULL;
+      g_free(ps->text); /* the entry as text, for the findings file */
+      ps->text = json_to_string(ps->node, FALSE);
+      ps->len = strlen(ps->text);
+    } else {
+      figures += ps->figures;
+      raster += ps->raster;
+      scale += ps->scale;
+      failed += ps->error != NULL;
+      for (int k = 0; k < 3; k++)
+        sev[k] += ps->by_severity[k];
+      for (guint k = 0; k < ps->findings->len; k++)
+        g_ptr_array_add(findings, g_strdup(g_ptr_array_index(ps->findings, k)));
     }
-    if (json_object_has_member(po, "_findings"))
-      json_object_remove_member(po, "_findings");
-    if (page_error(po))
-      failed++;
-    JsonArray *figs = array_member(po, "figures");
-    JsonArray *ras = array_member(po, "raster_images_not_analysed");
-    JsonArray *sca = array_member(po, "scale_failures");
-    figures += figs ? json_array_get_length(figs) : 0;
-    raster += ras ? json_array_get_length(ras) : 0;
-    scale += sca ? json_array_get_length(sca) : 0;
-    json_array_add_element(pages, page);
+    g_ptr_array_add(pages, ps->text);
   }
-  json_object_set_array_member(ro, "pages", pages);
-  json_object_set_array_member(ro, "findings", findings);
+  json_object_set_array_member(ro, "pages", json_array_new());
+  json_object_set_array_member(ro, "findings", json_array_new());
   JsonObject *t = json_object_new();
-  gint64 total = json_array_get_length(pages);
+  gint64 total = as->pages->len;
   json_object_set_int_member(t, "pages", total);
   json_object_set_int_member(t, "pages_analysed", total - failed);
   json_object_set_int_member(t, "pages_failed", failed);
   json_object_set_int_member(t, "figures", figures);
   json_object_set_int_member(t, "raster_images_not_analysed", raster);
   json_object_set_int_member(t, "scale_failures", scale);
-  json_object_set_int_member(t, "findings", json_array_get_length(findings));
+  json_object_set_int_member(t, "findings", findings->len);
   JsonObject *by = json_object_new();
   for (int k = 0; k < 3; k++)
-    json_object_set_int_member(by, sev_names[k], sev[k]);
+    json_object_set_int_member(by, pp_severity_name(k), sev[k]);
   json_object_set_object_member(t, "by_severity", by);
   json_object_set_object_member(ro, "totals", t);
+  gsize len = 0;
+  char *bare = pp_report_node_to_string(root, TRUE, &len);
+  GString *out = g_string_new_len(bare, (gssize)len);
+  g_free(bare);
+  splice_array(out, "pages", pages);
+  splice_array(out, "findings", findings);
+  *text = g_string_free(out, FALSE);
+  g_ptr_array_unref(pages);
+  g_ptr_array_unref(findings);
+  return root;
+}
+
+JsonNode *pp_assembly_finish(pp_assembly *as, const char *interrupted_reason, const char **word,
+                             const char **reason) {
+  char *text;
+  JsonNode *bare = pp_assembly_finish_text(as, interrupted_reason, word, reason, &text);
+  if (!bare)
+    return NULL;
+  json_node_unref(bare);
+  JsonNode *root = json_from_string(text, NULL);
+  g_free(text);
   return root;
 }
 

@@ -12,6 +12,7 @@
 #include "cli/assemble.h"
 #include "cli/cli.h"
 #include "cli/inputs.h"
+#include "cli/json_text.h"
 #include "cli/passwords.h"
 #include "cli/record.h"
 
@@ -214,6 +215,100 @@ static void assembly_member_types(void **state) {
   assert_int_equal(warnings, 0);
 }
 
+/* json-glib's own pretty generator (json_generator_set_pretty, indent 2) is the reference the
+ * findings file was always written with; the indenter must give the same bytes. */
+static char *pretty(JsonNode *n) {
+  g_autoptr(JsonGenerator) g = json_generator_new();
+  json_generator_set_pretty(g, TRUE);
+  json_generator_set_indent(g, 2);
+  json_generator_set_root(g, n);
+  return json_generator_to_data(g, NULL);
+}
+
+static void json_text_like_json_glib(void **state) {
+  (void)state;
+  const char *cases[] = {
+      "{}",
+      "[]",
+      "\"x\"",
+      "{\"a\":{},\"b\":[],\"c\":[[],{},[1,[2.5,-3e-07]],{\"x\":null,\"y\":true}]}",
+      "[{\"a\":\"q\\\"\\\\/\\u0001\xc3\xa9\\t]}{,:\"},{\"b\":[{}]}]",
+      "{\"pages\":[{\"page\":1,\"figures\":[{\"bbox\":[0,1.5,2,3],\"e\":{}}],\"w\":[]}]}",
+  };
+  for (size_t i = 0; i < G_N_ELEMENTS(cases); i++) {
+    JsonNode *n = json_from_string(cases[i], NULL);
+    assert_non_null(n);
+    char *compact = json_to_string(n, FALSE);
+    const char *end = compact + strlen(compact);
+    assert_ptr_equal(pp_json_text_skip(compact, end), end);
+    GString *out = g_string_new(NULL);
+    pp_json_text_indent(out, compact, end, 0);
+    char *want = pretty(n);
+    assert_string_equal(out->str, want);
+    g_free(want);
+    g_string_free(out, TRUE);
+    g_free(compact);
+    json_node_unref(n);
+  }
+  /* RFC 8259 §6-§8: none of these is one JSON value in the compact form (or it nests deeper
+   * than the indenter goes); json-glib then reads the line. */
+  const char *bad[] = {"01",      "1.",         "-",        "1e",      "[1,]",      "{\"a\" :1}",
+                       "{\"a\"}", "[1 ]",       "\"\x01\"", "\"\\x\"", "\"\\u12\"", "\"\xff\"",
+                       "tru",     "{\"a\":1,}", "[",        "\"abc",   "nul"};
+  for (size_t i = 0; i < G_N_ELEMENTS(bad); i++)
+    assert_ptr_not_equal(pp_json_text_skip(bad[i], bad[i] + strlen(bad[i])),
+                         bad[i] + strlen(bad[i]));
+  GString *deep = g_string_new(NULL);
+  for (int i = 0; i < 300; i++)
+    g_string_append_c(deep, '[');
+  for (int i = 0; i < 300; i++)
+    g_string_append_c(deep, ']');
+  assert_null(pp_json_text_skip(deep->str, deep->str + deep->len));
+  g_string_free(deep, TRUE);
+  const char *ok = "[-0.5e+3,0,true,false,null,\"\\ud83d\"]";
+  assert_ptr_equal(pp_json_text_skip(ok, ok + strlen(ok)), ok + strlen(ok));
+}
+
+/* The findings file's text (page entries and findings kept as text and indented) is exactly
+ * what json-glib writes for the same object read back: pages read the fast way and the slow
+ * way (a failed page, a finding with an escaped name) side by side. */
+static void assembly_text_like_json_glib(void **state) {
+  (void)state;
+  pp_assembly *as = pp_assembly_new();
+  feed(as, "{\"open\":{\"format\":\"f\",\"document\":{\"pages\":4,\"title\":\"\\\"pages\\\" : "
+           "[]\"},\"pages\":[],\"findings\":[],\"totals\":{}}}");
+  feed(as, "{\"page\":0,\"rss_kib\":1,\"report\":{\"pages\":[{\"page\":1,\"error\":null,"
+           "\"figures\":[{\"b\":[1,2.5]},{}],\"warnings\":[]}],\"findings\":[{\"severity\":"
+           "\"major\",\"e\":{}},5]}}");
+  feed(as, "{\"page\":1,\"error\":\"too complex\"}");
+  feed(as, "{\"page\":2,\"rss_kib\":1,\"report\":{\"pages\":[{\"page\":3,\"scale_failures\":[1]}],"
+           "\"findings\":[{\"sev\\u0065rity\":\"severe\"}]}}");
+  const char *word, *reason;
+  char *text;
+  JsonNode *bare = pp_assembly_finish_text(as, "stopped", &word, &reason, &text);
+  assert_non_null(bare);
+  JsonNode *root = json_from_string(text, NULL);
+  assert_non_null(root);
+  char *want = pretty(root);
+  assert_string_equal(text, want);
+  JsonObject *t = json_object_get_object_member(json_node_get_object(root), "totals");
+  assert_int_equal(json_object_get_int_member(t, "pages_failed"), 2);
+  assert_int_equal(json_object_get_int_member(t, "figures"), 2);
+  assert_int_equal(json_object_get_int_member(t, "scale_failures"), 1);
+  assert_int_equal(json_object_get_int_member(t, "findings"), 2);
+  JsonObject *by = json_object_get_object_member(t, "by_severity");
+  assert_int_equal(json_object_get_int_member(by, "major"), 1);
+  assert_int_equal(json_object_get_int_member(by, "severe"), 1);
+  /* the object without page entries carries the same totals */
+  JsonObject *bt = json_object_get_object_member(json_node_get_object(bare), "totals");
+  assert_int_equal(json_object_get_int_member(bt, "findings"), 2);
+  g_free(want);
+  g_free(text);
+  json_node_unref(root);
+  json_node_unref(bare);
+  pp_assembly_free(as);
+}
+
 int main(void) {
   const struct CMUnitTest tests[] = {
       cmocka_unit_test(escape_controls),
@@ -223,6 +318,8 @@ int main(void) {
       cmocka_unit_test(output_names),
       cmocka_unit_test(assembly_totals),
       cmocka_unit_test(assembly_member_types),
+      cmocka_unit_test(json_text_like_json_glib),
+      cmocka_unit_test(assembly_text_like_json_glib),
   };
   return cmocka_run_group_tests(tests, NULL, NULL);
 }

@@ -10,6 +10,7 @@
 #include <cmocka.h>
 #include <glib/gstdio.h>
 
+#include "report/json_util.h"
 #include "sample.h"
 
 static const char *schema_path;
@@ -78,6 +79,35 @@ static void test_values_round_trip(void **state) {
   g_free(text);
   pp_report_free(r);
   pp_sample_free(s);
+}
+
+/* The shortcut of pp_json_writable_double(): between 1e-4 and 1e16 "%.17g" has no exponent
+ * (C17 §7.21.6.1: style e only for an exponent below -4 or at least the precision, 17), so the
+ * value is returned as it is; outside, a one-digit mantissa with an exponent is moved one ulp
+ * so that the text has a '.' (RFC 8259 §6: no fraction after the exponent). */
+static void test_writable_double_ranges(void **state) {
+  (void)state;
+  char buf[G_ASCII_DTOSTR_BUF_SIZE];
+  GRand *r = g_rand_new_with_seed(12);
+  double edges[] = {1e-4, nextafter(1e-4, 1), 1.0, 9.999999999999999e15, nextafter(1e16, 0)};
+  for (int i = 0; i < 20000 + (int)G_N_ELEMENTS(edges); i++) {
+    double v = i < (int)G_N_ELEMENTS(edges) ? edges[i] : pow(10, g_rand_double_range(r, -4, 16));
+    if (v < 1e-4 || v >= 1e16)
+      continue;
+    for (int sign = -1; sign <= 1; sign += 2) {
+      g_ascii_dtostr(buf, sizeof buf, sign * v);
+      assert_null(strpbrk(buf, "eE"));
+      assert_true(pp_json_writable_double(sign * v) == sign * v);
+    }
+  }
+  g_rand_free(r);
+  double outside[] = {1e16, 1e20, -1e20, 5e-7, 9.99e-5, 1e300, 2e-300};
+  for (size_t i = 0; i < G_N_ELEMENTS(outside); i++) {
+    double w = pp_json_writable_double(outside[i]);
+    g_ascii_dtostr(buf, sizeof buf, w);
+    assert_true(strchr(buf, '.') || !strpbrk(buf, "eE"));
+    assert_true(fabs(w - outside[i]) <= fabs(outside[i]) * 1e-15);
+  }
 }
 
 static void assert_rect(JsonArray *a, double x0, double y0, double x1, double y1) {
@@ -289,6 +319,7 @@ int main(int argc, char **argv) {
   const struct CMUnitTest tests[] = {
       cmocka_unit_test(test_nan_and_inf_are_null),
       cmocka_unit_test(test_values_round_trip),
+      cmocka_unit_test(test_writable_double_ranges),
       cmocka_unit_test(test_figure_boxes_and_coverage),
       cmocka_unit_test(test_schema_required_fields),
       cmocka_unit_test(test_write_file),
