@@ -349,24 +349,45 @@ static guint header_pages(const pp_assembly *as) {
   return n > 0 && n < MAX_DOCUMENT_PAGES ? (guint)n : 0;
 }
 
-/* json-glib's text of the findings object with the elements of its (empty) level-1 array
- * "name" in place, each indented as json-glib writes an element at level 2. */
-static void splice_array(GString *text, const char *name, GPtrArray *elements) {
+/* Where the (empty) level-1 array "name" of json-glib's text of the findings object opens. */
+static const char *array_slot(const char *text, const char *name) {
   char *slot = g_strdup_printf("\n  \"%s\" : []", name);
-  const char *at = strstr(text->str, slot);
-  if (at && elements->len > 0) {
-    gsize pos = (gsize)(at - text->str) + strlen(slot) - 1; /* at the ']' */
-    GString *els = g_string_new(NULL);
-    for (guint i = 0; i < elements->len; i++) {
-      const char *e = g_ptr_array_index(elements, i);
-      g_string_append_len(els, i ? ",\n    " : "\n    ", i ? 6 : 5);
-      pp_json_text_indent(els, e, e + strlen(e), 2);
-    }
-    g_string_append(els, "\n  ");
-    g_string_insert_len(text, (gssize)pos, els->str, (gssize)els->len);
-    g_string_free(els, TRUE);
-  }
+  const char *at = strstr(text, slot);
+  if (at)
+    at += strlen(slot) - 2;
   g_free(slot);
+  return at;
+}
+
+/* The elements, each indented as json-glib writes an element at level 2. */
+static void append_elements(GString *out, GPtrArray *elements) {
+  for (guint i = 0; i < elements->len; i++) {
+    const char *e = g_ptr_array_index(elements, i);
+    g_string_append_len(out, i ? ",\n    " : "\n    ", i ? 6 : 5);
+    pp_json_text_indent(out, e, e + strlen(e), 2);
+  }
+  if (elements->len)
+    g_string_append(out, "\n  ");
+}
+
+/* json-glib's text of the findings object with "pages" and "findings" (empty there) filled. */
+static char *splice_arrays(const char *bare, gsize len, GPtrArray *pages, GPtrArray *findings,
+                           gsize size) {
+  const char *slot[2] = {array_slot(bare, "pages"), array_slot(bare, "findings")};
+  GPtrArray *els[2] = {pages, findings};
+  int first = slot[0] && slot[1] && slot[1] < slot[0];
+  GString *out = g_string_sized_new(len + size);
+  const char *from = bare;
+  for (int k = 0; k < 2; k++) {
+    int j = k ^ first;
+    if (!slot[j])
+      continue;
+    g_string_append_len(out, from, slot[j] + 1 - from);
+    append_elements(out, els[j]);
+    from = slot[j] + 1;
+  }
+  g_string_append(out, from);
+  return g_string_free(out, FALSE);
 }
 
 JsonNode *pp_assembly_finish_text(pp_assembly *as, const char *interrupted_reason,
@@ -449,13 +470,12 @@ JsonNode *pp_assembly_finish_text(pp_assembly *as, const char *interrupted_reaso
     json_object_set_int_member(by, pp_severity_name(k), sev[k]);
   json_object_set_object_member(t, "by_severity", by);
   json_object_set_object_member(ro, "totals", t);
-  gsize len = 0;
+  gsize len = 0, size = findings->len * 512;
   char *bare = pp_report_node_to_string(root, TRUE, &len);
-  GString *out = g_string_new_len(bare, (gssize)len);
+  for (guint i = 0; i < as->pages->len; i++)
+    size += ((page_slot *)g_ptr_array_index(as->pages, i))->len * 3 / 2;
+  *text = splice_arrays(bare, len, pages, findings, size);
   g_free(bare);
-  splice_array(out, "pages", pages);
-  splice_array(out, "findings", findings);
-  *text = g_string_free(out, FALSE);
   g_ptr_array_unref(pages);
   g_ptr_array_unref(findings);
   return root;

@@ -20,6 +20,10 @@ static const char *skip_string(const char *p, const char *end) {
   gboolean ascii = TRUE;
   while (p < end) {
     guchar c = (guchar)*p;
+    if (c >= 0x20 && c < 0x80 && c != '"' && c != '\\') { /* most of the text */
+      p++;
+      continue;
+    }
     if (c == '"')
       return ascii || g_utf8_validate(start, p - start, NULL) ? p + 1 : NULL;
     if (c < 0x20)
@@ -116,6 +120,35 @@ const char *pp_json_text_skip(const char *p, const char *end) {
   return skip_value(p, end, 0);
 }
 
+/* The end of the value at p in text already checked: strings and nesting only. */
+static const char *skip_checked(const char *p, const char *end) {
+  int depth = 0;
+  while (p < end) {
+    char c = *p;
+    if (c == '"') {
+      for (p++; *p != '"'; p++)
+        if (*p == '\\')
+          p++;
+      p++;
+    } else if (c == '{' || c == '[') {
+      depth++;
+      p++;
+    } else if (c == '}' || c == ']') {
+      if (depth == 0)
+        return p;
+      depth--;
+      p++;
+    } else if (c == ',' && depth == 0) {
+      return p;
+    } else {
+      p++;
+    }
+    if (depth == 0 && (c == '"' || c == '}' || c == ']'))
+      return p;
+  }
+  return p;
+}
+
 gboolean pp_json_text_next(const char **p, const char *end, const char **name,
                            const char **name_end, const char **value, const char **value_end) {
   const char *q = *p;
@@ -128,11 +161,11 @@ gboolean pp_json_text_next(const char **p, const char *end, const char **name,
   }
   if (name) {
     *name = q;
-    q = *name_end = skip_string(q, end);
+    q = *name_end = skip_checked(q, end);
     q++; /* ':' */
   }
   *value = q;
-  *p = *value_end = skip_value(q, end, 0);
+  *p = *value_end = skip_checked(q, end);
   return TRUE;
 }
 

@@ -307,6 +307,24 @@ static void assembly_text_like_json_glib(void **state) {
   json_node_unref(root);
   json_node_unref(bare);
   pp_assembly_free(as);
+  /* a header with "findings" before "pages" (the scheduler's own always has them the other way) */
+  as = pp_assembly_new();
+  feed(as, "{\"open\":{\"findings\":[],\"document\":{\"pages\":1},\"pages\":[]}}");
+  feed(as, "{\"page\":0,\"rss_kib\":1,\"report\":{\"pages\":[{\"page\":1}],"
+           "\"findings\":[{\"severity\":\"minor\"}]}}");
+  bare = pp_assembly_finish_text(as, "stopped", &word, &reason, &text);
+  root = json_from_string(text, NULL);
+  assert_non_null(root);
+  want = pretty(root);
+  assert_string_equal(text, want);
+  assert_int_equal(
+      json_array_get_length(json_object_get_array_member(json_node_get_object(root), "findings")),
+      1);
+  g_free(want);
+  g_free(text);
+  json_node_unref(root);
+  json_node_unref(bare);
+  pp_assembly_free(as);
 }
 
 int main(void) {
