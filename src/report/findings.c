@@ -337,6 +337,8 @@ JsonNode *pp_report_to_json(const pp_report *r) {
 }
 
 char *pp_report_node_to_string(JsonNode *node, gboolean pretty, gsize *length) {
+  if (!pretty)
+    return pp_json_write_compact(node, length);
   g_autoptr(JsonGenerator) gen = json_generator_new();
   json_generator_set_pretty(gen, pretty);
   json_generator_set_indent(gen, 2);

@@ -110,6 +110,77 @@ static void test_writable_double_ranges(void **state) {
   }
 }
 
+/* pp_json_write_compact() against json-glib's own generator (the reference; json-generator.c)
+ * on random trees: every byte from 0x01 to 0xff in strings and names, integers to both ends of
+ * the 64-bit range, doubles of every magnitude (and one that prints without a '.'), empty and
+ * nested containers. */
+static JsonNode *random_node(GRand *r, int depth) {
+  JsonNode *n;
+  int kind = depth > 3 ? g_rand_int_range(r, 0, 5) : g_rand_int_range(r, 0, 7);
+  if (kind == 0) {
+    n = json_node_new(JSON_NODE_NULL);
+  } else if (kind == 1) {
+    n = json_node_new(JSON_NODE_VALUE);
+    gint64 pick[] = {0, -1, 7, G_MAXINT64, G_MININT64, (gint64)g_rand_int(r) - G_MAXINT32};
+    json_node_set_int(n, pick[g_rand_int_range(r, 0, 6)]);
+  } else if (kind == 2) {
+    n = json_node_new(JSON_NODE_VALUE);
+    double pick[] = {0.1,
+                     -0.0,
+                     1e-7,
+                     1e16,
+                     1e20,
+                     5e-324,
+                     -1.7976931348623157e308,
+                     g_rand_double_range(r, -1e6, 1e6) * pow(10, g_rand_int_range(r, -30, 30))};
+    json_node_set_double(n, pick[g_rand_int_range(r, 0, 8)]);
+  } else if (kind == 3) {
+    n = json_node_new(JSON_NODE_VALUE);
+    json_node_set_boolean(n, g_rand_boolean(r));
+  } else if (kind == 4) {
+    char s[12];
+    int len = g_rand_int_range(r, 0, 11);
+    for (int i = 0; i < len; i++)
+      s[i] = (char)g_rand_int_range(r, 1, 256);
+    s[len] = '\0';
+    n = json_node_new(JSON_NODE_VALUE);
+    json_node_set_string(n, s);
+  } else if (kind == 5) {
+    JsonArray *a = json_array_new();
+    for (int i = g_rand_int_range(r, 0, 4); i > 0; i--)
+      json_array_add_element(a, random_node(r, depth + 1));
+    n = json_node_new(JSON_NODE_ARRAY);
+    json_node_take_array(n, a);
+  } else {
+    JsonObject *o = json_object_new();
+    for (int i = g_rand_int_range(r, 0, 4); i > 0; i--) {
+      char name[4] = {(char)g_rand_int_range(r, 1, 256), (char)g_rand_int_range(r, 'a', 'z'),
+                      (char)g_rand_int_range(r, 1, 128), '\0'};
+      json_object_set_member(o, name, random_node(r, depth + 1));
+    }
+    n = json_node_new(JSON_NODE_OBJECT);
+    json_node_take_object(n, o);
+  }
+  return n;
+}
+
+static void test_compact_like_json_glib(void **state) {
+  (void)state;
+  GRand *r = g_rand_new_with_seed(7);
+  for (int i = 0; i < 3000; i++) {
+    JsonNode *n = random_node(r, 0);
+    gsize len = 0;
+    char *mine = pp_json_write_compact(n, &len);
+    char *want = json_to_string(n, FALSE);
+    assert_string_equal(mine, want);
+    assert_int_equal(len, strlen(want));
+    g_free(mine);
+    g_free(want);
+    json_node_unref(n);
+  }
+  g_rand_free(r);
+}
+
 static void assert_rect(JsonArray *a, double x0, double y0, double x1, double y1) {
   assert_non_null(a);
   assert_int_equal(json_array_get_length(a), 4);
@@ -320,6 +391,7 @@ int main(int argc, char **argv) {
       cmocka_unit_test(test_nan_and_inf_are_null),
       cmocka_unit_test(test_values_round_trip),
       cmocka_unit_test(test_writable_double_ranges),
+      cmocka_unit_test(test_compact_like_json_glib),
       cmocka_unit_test(test_figure_boxes_and_coverage),
       cmocka_unit_test(test_schema_required_fields),
       cmocka_unit_test(test_write_file),
