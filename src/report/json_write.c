@@ -1,6 +1,7 @@
 /* json_write.c — compact JSON text of a json-glib tree, byte for byte what json-glib 1.6's
  * generator writes (tests/report compares them), without its per-value allocations and printf:
  * every page process writes its whole report this way. */
+#include <math.h>
 #include <string.h>
 
 #include "json_util.h"
@@ -46,6 +47,61 @@ static void add_int(GString *out, gint64 v) {
   g_string_append_len(out, q, buf + sizeof buf - q);
 }
 
+/* Decimal places and significant digits a double can have for the shortcut below: 2^-20
+ * reaches the tap's 1/1024 pt and its quarters, and %.17g prints 17 significant digits
+ * (C17 §7.21.6.1). */
+#define PP_JSON_DYADIC_BITS 20
+#define PP_JSON_G_DIGITS 17
+
+/* The text g_ascii_dtostr() ("%.17g") gives v, when v = m / 2^k with k <= 20 and the exact
+ * decimal value m * 5^k / 10^k has at most 17 significant digits: then "%.17g" prints that
+ * value exactly, in fixed notation for 1e-4 <= |v| < 1e15, trailing zeros dropped. Most
+ * coordinates are such (multiples of 1/1024 pt); FALSE otherwise. */
+static gboolean dyadic_text(double v, char *buf) {
+  double a = fabs(v), s = a;
+  if (!(a >= 1e-4 && a < 1e15))
+    return FALSE;
+  int k = 0;
+  while (s != floor(s)) {
+    if (++k > PP_JSON_DYADIC_BITS)
+      return FALSE;
+    s *= 2; /* exact */
+  }
+  guint64 m = (guint64)s, pow5 = 1, pow10 = 1;
+  for (int i = 0; i < k; i++)
+    pow5 *= 5, pow10 *= 10;
+  if (m > G_MAXUINT64 / pow5)
+    return FALSE;
+  guint64 d = m * pow5, ip = d / pow10, fp = d % pow10;
+  char digits[24];
+  int n = 0;
+  for (guint64 t = d; t; t /= 10)
+    n++;
+  int frac_digits = k;
+  while (frac_digits > 0 && fp % 10 == 0)
+    fp /= 10, frac_digits--;
+  int significant = n - (k - frac_digits); /* trailing zeros of d are not significant */
+  if (significant > PP_JSON_G_DIGITS)
+    return FALSE;
+  char *q = buf;
+  if (v < 0)
+    *q++ = '-';
+  int len = 0;
+  do
+    digits[len++] = (char)('0' + ip % 10);
+  while ((ip /= 10) != 0);
+  while (len > 0)
+    *q++ = digits[--len];
+  if (frac_digits > 0) {
+    *q++ = '.';
+    for (int i = frac_digits - 1; i >= 0; i--, fp /= 10)
+      q[i] = (char)('0' + fp % 10);
+    q += frac_digits;
+  }
+  *q = '\0';
+  return TRUE;
+}
+
 static void add_node(GString *out, JsonNode *node) {
   switch (json_node_get_node_type(node)) {
   case JSON_NODE_OBJECT: {
@@ -85,7 +141,9 @@ static void add_node(GString *out, JsonNode *node) {
     } else if (t == G_TYPE_DOUBLE) {
       /* json-glib: g_ascii_dtostr(), then ".0" when the text has no '.' */
       char buf[G_ASCII_DTOSTR_BUF_SIZE];
-      g_ascii_dtostr(buf, sizeof buf, json_node_get_double(node));
+      double v = json_node_get_double(node);
+      if (!dyadic_text(v, buf))
+        g_ascii_dtostr(buf, sizeof buf, v);
       g_string_append(out, buf);
       if (!strchr(buf, '.'))
         g_string_append_len(out, ".0", 2);

@@ -132,8 +132,9 @@ static JsonNode *random_node(GRand *r, int depth) {
                      1e20,
                      5e-324,
                      -1.7976931348623157e308,
-                     g_rand_double_range(r, -1e6, 1e6) * pow(10, g_rand_int_range(r, -30, 30))};
-    json_node_set_double(n, pick[g_rand_int_range(r, 0, 8)]);
+                     g_rand_double_range(r, -1e6, 1e6) * pow(10, g_rand_int_range(r, -30, 30)),
+                     (double)g_rand_int(r) / (1 << g_rand_int_range(r, 0, 24))};
+    json_node_set_double(n, pick[g_rand_int_range(r, 0, 9)]);
   } else if (kind == 3) {
     n = json_node_new(JSON_NODE_VALUE);
     json_node_set_boolean(n, g_rand_boolean(r));
@@ -174,6 +175,23 @@ static void test_compact_like_json_glib(void **state) {
     char *want = json_to_string(n, FALSE);
     assert_string_equal(mine, want);
     assert_int_equal(len, strlen(want));
+    g_free(mine);
+    g_free(want);
+    json_node_unref(n);
+  }
+  /* doubles alone, many of them multiples of a power of two (the shortcut of json_write.c), and
+   * its edges: 18 significant digits, just under 1e15, 1e-4 and the first power of two below */
+  double edges[] = {999999999999999.875, 99999999999999.9921875, 1e15 - 1, 1e-4, 0x1p-14,
+                    0.0001220703125,     123456.0009765625,      1.0 / 3};
+  for (int i = 0; i < 200000; i++) {
+    JsonNode *n = json_node_new(JSON_NODE_VALUE);
+    double v = i < (int)G_N_ELEMENTS(edges)
+                   ? edges[i]
+                   : (double)(gint64)(g_rand_double(r) * pow(10, g_rand_int_range(r, 0, 19))) /
+                         pow(2, g_rand_int_range(r, 0, 30));
+    json_node_set_double(n, g_rand_boolean(r) ? -v : v);
+    char *mine = pp_json_write_compact(n, NULL), *want = json_to_string(n, FALSE);
+    assert_string_equal(mine, want);
     g_free(mine);
     g_free(want);
     json_node_unref(n);
