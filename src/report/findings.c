@@ -353,6 +353,17 @@ char *pp_report_to_string(const pp_report *r, gboolean pretty, gsize *length) {
   return s;
 }
 
+char *pp_report_parts_to_string(const pp_report *r, gsize *length) {
+  JsonObject *o = json_object_new();
+  json_object_set_array_member(o, "pages", json_array_ref(r->pages));
+  json_object_set_array_member(o, "findings", json_array_ref(r->findings));
+  JsonNode *n = json_node_new(JSON_NODE_OBJECT);
+  json_node_take_object(n, o);
+  char *s = pp_json_write_compact(n, length);
+  json_node_unref(n);
+  return s;
+}
+
 gboolean pp_report_write_file(const pp_report *r, const char *path, GError **error) {
   gsize len = 0;
   char *text = pp_report_to_string(r, TRUE, &len);
