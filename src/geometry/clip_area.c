@@ -3,8 +3,9 @@
  * order changes only at end points and at crossings, found between neighbours only and
  * taken from a heap. Each edge carries a coefficient (+1 right end of an inside run,
  * −1 left end, 0 otherwise) and ∫ c·x dy is accumulated in closed form per edge, only
- * when its coefficient changes: O((n + k) log n) for n pieces and k crossings, plus a
- * pass over the active pieces at each distinct end-point height. */
+ * when its coefficient changes: O((n + k) log n) for n pieces and k crossings, plus the
+ * moves of the active list's tail in memory at each end-point height. The crossing search
+ * itself is in sweep_cross.c. */
 #include "internal.h"
 #include "sweep_edges.h"
 
@@ -14,10 +15,6 @@
 #include <stdlib.h>
 #include <string.h>
 
-/* Crossing-search limits: they only bound work on pathological input (coincident
- * curves, tangencies); see docs/geometry.md. */
-#define MAX_CROSS_DEPTH 52
-#define CROSS_NODE_BUDGET 4000
 /* Order changes (crossings) one sweep may process before it gives up with NaN: a few
  * seconds of work at the measured ~0.2 µs a crossing of two lines; a fill crossing itself
  * more often draws nothing a reader could measure (issue 12 allows 10 s a page).
@@ -28,364 +25,85 @@
  * the hull tests clear at once, and most neighbours part (another crossing comes between
  * them) long before their common span ends. Tuned on random curves, no outside source. */
 #define FIRST_WINDOW_SHARE (1.0 / 64)
-/* Smallest search interval, as a share of the window, next to a point where the pair
- * touches (a shared end point, the apex of a curve's turn): there the pieces part like
- * √y and hull tests never clear the interval. A second crossing closer than this to a
- * touching point is missed; the sliver's area is below 2⁻¹⁶ of the window times the
- * pieces' separation. Common practice for subdivision floors, no source. */
-#define MIN_TOUCH_SHARE (1.0 / 65536)
 
 typedef pp_sweep_edge edge;
+
+/* Places in the active list one height changes (pieces ending or starting) that are
+ * tracked one by one; past this many, the windings are recounted from the first change to
+ * the right end (as many pieces change anyway). Common practice, no source. */
+#define MAX_SPOTS 64
+
+/* The crossing heap holds each key beside its edge: comparisons stay in the heap's memory. */
+typedef struct {
+  double key; /* the edge's cross_y */
+  edge *e;
+} heap_node;
 
 typedef struct {
   GArray *edges; /* of edge */
   edge **act;
   size_t n_act;
-  edge **heap;
+  size_t pos_ok; /* act[i]->pos == i for every i below it */
+  heap_node *heap;
   size_t n_heap;
   guint n_reg;
   const pp_region *regs;
-  int *gw;       /* windings per region of the gap right of act[i]: n_reg per gap */
-  guint8 *gin;   /* that gap is inside every region */
-  int *gw_spare; /* the previous height's gw and gin, swapped with them at each height */
-  guint8 *gin_spare;
-  double eps_y, tol_x;
-  double xref; /* x origin of the integrals, so that far-away scenes keep their digits */
+  edge *es;     /* the pieces; an active piece e owns the gap right of it: */
+  int *gw;      /* its windings per region, n_reg from (e − es)·n_reg */
+  guint8 *gin;  /* it is inside every region */
+  int *scratch; /* n_reg windings being computed, then n_reg zeros (left of everything) */
+  edge **ends;  /* the pieces by their top y, next_end the first still active */
+  double *ya;   /* the bottom y of each piece in the order they enter */
+  double *yb;   /* the top y of each of ends */
+  size_t next_end;
+  edge **gone;                 /* the pieces ending at the current height */
+  size_t spots[MAX_SPOTS + 1]; /* where windings may change at the current height */
+  size_t n_spots;
+  pp_sweep_tol tol; /* eps_y and tol_x (sweep_edges.h) */
+  double xref;      /* x origin of the integrals, so that far-away scenes keep their digits */
   double area;
   long swaps;
 } sweep;
 
-/* t in [0,1] with y(t) = y on a monotone piece: safeguarded Newton (bisection fallback). */
-static double solve_t(edge *e, double y) {
-  if (y <= e->ya)
-    return 0;
-  if (y >= e->yb)
-    return 1;
-  double lo = 0, hi = 1, t = e->t_hint;
-  if (!(t > 0 && t < 1))
-    t = (y - e->ya) / (e->yb - e->ya);
-  const double *k = e->ky;
-  double target = y - e->ya;
-  for (int it = 0; it < 100; it++) {
-    double f = ((k[0] * t + k[1]) * t + k[2]) * t - target;
-    if (f == 0)
-      break;
-    if (f < 0)
-      lo = t;
-    else
-      hi = t;
-    double d = (3 * k[0] * t + 2 * k[1]) * t + k[2];
-    double nt = d > 0 ? t - f / d : -1;
-    if (!(nt > lo && nt < hi))
-      nt = 0.5 * (lo + hi);
-    if (fabs(nt - t) <= 4 * DBL_EPSILON || hi - lo <= 4 * DBL_EPSILON) {
-      t = nt;
-      break;
-    }
-    t = nt;
-  }
-  e->t_hint = t;
-  return t;
-}
-
-static double edge_x(edge *e, double y, double *t_out) {
-  if (!e->curve) {
-    if (y <= e->ya)
-      return e->p[0].x;
-    if (y >= e->yb)
-      return e->p[1].x;
-    return e->p[0].x + (e->p[1].x - e->p[0].x) * ((y - e->ya) / (e->yb - e->ya));
-  }
-  double t = solve_t(e, y);
-  if (t_out)
-    *t_out = t;
-  if (t <= 0 || t >= 1)
-    return t <= 0 ? e->p[0].x : e->p[3].x;
-  return e->p[0].x + ((e->kx[0] * t + e->kx[1]) * t + e->kx[2]) * t;
-}
-
-/* ∫ (x − xref) dy over [y0, y1] within the edge's y-range.
- * Cubic: ∫ x(t) y'(t) dt is a degree-5 polynomial, integrated exactly. */
-static double edge_integral(edge *e, double y0, double y1, double xref) {
-  if (!e->curve) {
-    double x0 = y0 == e->ya ? e->p[0].x : e->p[0].x + (y0 - e->ya) * e->slope;
-    double x1 = y1 == e->yb ? e->p[1].x : e->p[0].x + (y1 - e->ya) * e->slope;
-    return (0.5 * (x0 + x1) - xref) * (y1 - y0);
-  }
-  double t0 = solve_t(e, y0), t1 = solve_t(e, y1);
-  const pp_point *p = e->p;
-  double x0 = p[0].x;
-  /* Power-basis coefficients of x(t) − x0; all are translation invariant. */
-  double X[4] = {0, 3 * (p[1].x - x0), 3 * (x0 - 2 * p[1].x + p[2].x),
-                 -x0 + 3 * p[1].x - 3 * p[2].x + p[3].x};
-  double ay = -p[0].y + 3 * p[1].y - 3 * p[2].y + p[3].y;
-  double by = 3 * (p[0].y - 2 * p[1].y + p[2].y);
-  double cy = 3 * (p[1].y - p[0].y);
-  double Y[3] = {cy, 2 * by, 3 * ay};
-  double P[6] = {0};
-  for (int i = 0; i < 4; i++)
-    for (int j = 0; j < 3; j++)
-      P[i + j] += X[i] * Y[j];
-  double F1 = 0, F0 = 0;
-  for (int k = 5; k >= 0; k--) {
-    F1 = (F1 + P[k] / (k + 1)) * t1;
-    F0 = (F0 + P[k] / (k + 1)) * t0;
-  }
-  return (F1 - F0) + (x0 - xref) * (y1 - y0);
-}
-
-/* x at y with the parameter stored in *t, starting Newton from *t's current value. */
-static double x_at(edge *e, double y, double *t) {
-  if (!e->curve)
-    return edge_x(e, y, NULL);
-  e->t_hint = *t;
-  return edge_x(e, y, t);
-}
-
-static int sign_tol(double d, double tol) {
-  return d > tol ? 1 : d < -tol ? -1 : 0;
-}
-
-typedef struct {
-  double y, d;
-} sample;
-
-typedef struct {
-  sweep *s;
-  edge *e, *f;
-  GArray *samples; /* of sample, in y order */
-  int budget;
-  double touch_min;  /* MIN_TOUCH_SHARE of the window */
-  gboolean just;     /* the pair has just swapped: negatives before a positive are rounding */
-  gboolean seen_pos; /* a positive sample has been added */
-  gboolean found;    /* the first change from + to − (or a first negative) is sampled */
-} search;
-
-/* One end of a search interval: y, both pieces' x and parameters there, d = x_f − x_e. */
-typedef struct {
-  double y, d, xe, xf, te, tf;
-} node_end;
-
-static node_end end_at(search *q, double y, double te_guess, double tf_guess) {
-  node_end n = {y, 0, 0, 0, te_guess, tf_guess};
-  n.xe = x_at(q->e, y, &n.te);
-  n.xf = x_at(q->f, y, &n.tf);
-  n.d = n.xf - n.xe;
-  return n;
-}
-
-static void add_sample(search *q, node_end n) {
-  sample sm = {n.y, n.d};
-  g_array_append_val(q->samples, sm);
-  int sg = sign_tol(n.d, q->s->tol_x);
-  if (sg > 0)
-    q->seen_pos = TRUE;
-  else if (sg < 0 && (q->seen_pos || !q->just))
-    q->found = TRUE;
-}
-
-/* The control points of a piece between two ends: the sub-curve for cubics (children
- * of a search node split it once), the end points for lines. */
-typedef struct {
-  pp_point q[4];
-} sub;
-
-static sub sub_between(edge *e, node_end a, node_end b, gboolean is_f) {
-  sub r = {{{0, 0}}};
-  if (!e->curve)
-    return r;
-  double t0 = is_f ? a.tf : a.te, t1 = is_f ? b.tf : b.te;
-  pp_point l[4];
-  pp_bez_split(e->p, t1, l, NULL);
-  pp_bez_split(l, t1 > 0 ? t0 / t1 : 0, NULL, r.q);
-  return r;
-}
-
-/* Splits a sub-curve between a and b at c into its two halves. */
-static void sub_split(edge *e, const sub *p, double ta, double tb, double tc, sub *l, sub *r) {
-  if (!e->curve) { /* a line's hull is its chord: nothing to carry */
-    *l = *p, *r = *p;
-    return;
-  }
-  double u = tb > ta ? (tc - ta) / (tb - ta) : 0.5;
-  pp_bez_split(p->q, u, l->q, r->q);
-}
-
-/* x-range of a sub-curve's hull and how far (in x, at equal y) it strays from the chord
- * between the ends: x − chord(y) is affine, so over the hull it peaks at a control point. */
-static void hull(const edge *e, const sub *p, double y0, double y1, double x0, double x1,
-                 double *lo, double *hi, double *dev) {
-  double k = y1 > y0 ? (x1 - x0) / (y1 - y0) : 0, d = 0, mn = x0 < x1 ? x0 : x1,
-         mx = x0 < x1 ? x1 : x0;
-  for (int i = 0; e->curve && i < 4; i++) {
-    double x = p->q[i].x, off = fabs(x - (x0 + k * (p->q[i].y - y0)));
-    d = off > d ? off : d;
-    mn = x < mn ? x : mn;
-    mx = x > mx ? x : mx;
-  }
-  *lo = mn, *hi = mx, *dev = d;
-}
-
-/* Can d change sign on [a,b] from + to −? Not when e's hull lies left of f's (d ≥ 0) or
- * right of it (d < 0 throughout), nor when d stays above the line through d(a) and d(b)
- * less both pieces' strays from their chords. */
-static gboolean may_flip(search *q, node_end a, node_end b, const sub *se, const sub *sf) {
-  double elo, ehi, edev, flo, fhi, fdev;
-  hull(q->e, se, a.y, b.y, a.xe, b.xe, &elo, &ehi, &edev);
-  hull(q->f, sf, a.y, b.y, a.xf, b.xf, &flo, &fhi, &fdev);
-  double tol = q->s->tol_x;
-  return ehi - flo > tol && elo - fhi <= tol && fmin(a.d, b.d) - (edev + fdev) < -tol;
-}
-
-/* Samples d(y) on (a,b) by bisection, in y order, pruning sub-intervals where d cannot
- * turn negative, until the first change from + to − is sampled. se and sf are the
- * pieces' sub-curves between a and b. */
-static void cross_search(search *q, node_end a, node_end b, const sub *se, const sub *sf, int depth,
-                         int cap) {
-  sweep *s = q->s;
-  if (q->found || --q->budget < 0 || b.y - a.y <= s->eps_y || depth >= cap ||
-      !may_flip(q, a, b, se, sf))
-    return;
-  if (b.y - a.y < q->touch_min && (sign_tol(a.d, s->tol_x) == 0 || sign_tol(b.d, s->tol_x) == 0))
-    return;
-  node_end c = end_at(q, 0.5 * (a.y + b.y), 0.5 * (a.te + b.te), 0.5 * (a.tf + b.tf));
-  /* Coincident at three samples: look only a few levels deeper, else overlapping
-   * curves would cost 2^depth evaluations for gaps of zero width. */
-  if (sign_tol(a.d, s->tol_x) == 0 && sign_tol(b.d, s->tol_x) == 0 && sign_tol(c.d, s->tol_x) == 0)
-    cap = MIN(cap, depth + 6);
-  sub el, er, fl, fr;
-  sub_split(q->e, se, a.te, b.te, c.te, &el, &er);
-  sub_split(q->f, sf, a.tf, b.tf, c.tf, &fl, &fr);
-  cross_search(q, a, c, &el, &fl, depth + 1, cap);
-  if (q->found)
-    return;
-  add_sample(q, c);
-  cross_search(q, c, b, &er, &fr, depth + 1, cap);
-}
-
-static gboolean same_piece(const edge *e, const edge *f, double tol) {
-  if (e->curve != f->curve)
-    return FALSE;
-  int n = e->curve ? 4 : 2;
-  for (int i = 0; i < n; i++)
-    if (fabs(e->p[i].x - f->p[i].x) > tol || fabs(e->p[i].y - f->p[i].y) > tol)
-      return FALSE;
-  return TRUE;
-}
-
-/* First sign change from + to − among the samples, refined by bisection; the first
- * sample's y when the pair starts out of order (unless just swapped). */
-static double first_flip(sweep *s, search *q, edge *l, edge *r, gboolean just) {
-  GArray *sm = q->samples; /* in y order */
-  double flip = INFINITY, last_pos = NAN, first_neg = NAN;
-  for (size_t i = 0; i < sm->len; i++) {
-    sample *p = &g_array_index(sm, sample, i);
-    int sg = sign_tol(p->d, s->tol_x);
-    if (sg > 0) {
-      last_pos = p->y;
-    } else if (sg < 0 && isnan(last_pos)) {
-      if (isnan(first_neg) && i > 0)
-        first_neg = p->y;
-      if (just)
-        continue;
-      flip = g_array_index(sm, sample, 0).y;
-      break;
-    } else if (sg < 0) { /* refine between the last positive and this negative sample */
-      double lo = last_pos, hi = p->y;
-      for (int it = 0; it < 80 && hi - lo > s->eps_y; it++) {
-        double m = 0.5 * (lo + hi);
-        int sm_ = sign_tol(edge_x(r, m, NULL) - edge_x(l, m, NULL), s->tol_x);
-        if (sm_ > 0)
-          lo = m;
-        else if (sm_ == 0)
-          lo = hi = m;
-        else
-          hi = m;
-      }
-      flip = 0.5 * (lo + hi);
-      break;
-    }
-  }
-  /* Just swapped yet never right of l again: they crossed back, at the latest there. */
-  if (just && flip == INFINITY && isnan(last_pos) && !isnan(first_neg))
-    flip = first_neg;
-  return flip;
-}
-
-/* First y ≥ y0 where r passes to the left of l (x_r − x_l < −tol), +∞ if none before
- * either ends. After a swap (just), samples left of the pair's first positive one are
- * rounding at the crossing just handled, not a new one. */
-static double next_flip(sweep *s, edge *l, edge *r, double y0, double y1, gboolean just) {
-  if (y1 <= y0 || same_piece(l, r, s->tol_x))
-    return INFINITY;
-  search q = {.s = s,
-              .e = l,
-              .f = r,
-              .samples = g_array_new(FALSE, FALSE, sizeof(sample)),
-              .budget = CROSS_NODE_BUDGET,
-              .touch_min = (y1 - y0) * MIN_TOUCH_SHARE,
-              .just = just};
-  node_end a = end_at(&q, y0, 0.5, 0.5), b = end_at(&q, y1, 0.5, 0.5);
-  double d0 = a.d, d1 = b.d, flip = INFINITY;
-  sub se = sub_between(l, a, b, FALSE), sf = sub_between(r, a, b, TRUE);
-  if (!may_flip(&q, a, b, &se, &sf) && d0 >= -s->tol_x) {
-    /* r stays right of l (within tol) all along */
-  } else if (!l->curve && !r->curve) { /* d is linear in y */
-    if (d1 >= -s->tol_x)
-      flip = INFINITY;
-    else if (d0 > s->tol_x)
-      flip = y0 + (y1 - y0) * (d0 / (d0 - d1));
-    else
-      flip = just ? INFINITY : y0;
-  } else {
-    add_sample(&q, a);
-    cross_search(&q, a, b, &se, &sf, 0, MAX_CROSS_DEPTH);
-    add_sample(&q, b);
-    flip = first_flip(s, &q, l, r, just);
-  }
-  g_array_free(q.samples, TRUE);
-  return flip;
-}
-
 /* ---- the crossing heap: active edges keyed by cross_y ---- */
 
-static void heap_set(sweep *s, size_t i, edge *e) {
-  s->heap[i] = e;
-  e->hpos = i;
+static void heap_set(sweep *s, size_t i, heap_node n) {
+  s->heap[i] = n;
+  n.e->hpos = i;
 }
 
 static void heap_up(sweep *s, size_t i) {
-  edge *e = s->heap[i];
-  while (i > 0 && e->cross_y < s->heap[(i - 1) / 2]->cross_y) {
+  heap_node n = s->heap[i];
+  while (i > 0 && n.key < s->heap[(i - 1) / 2].key) {
     heap_set(s, i, s->heap[(i - 1) / 2]);
     i = (i - 1) / 2;
   }
-  heap_set(s, i, e);
+  heap_set(s, i, n);
 }
 
 static void heap_down(sweep *s, size_t i) {
-  edge *e = s->heap[i];
+  heap_node n = s->heap[i];
   for (;;) {
     size_t c = 2 * i + 1;
     if (c >= s->n_heap)
       break;
-    if (c + 1 < s->n_heap && s->heap[c + 1]->cross_y < s->heap[c]->cross_y)
+    if (c + 1 < s->n_heap && s->heap[c + 1].key < s->heap[c].key)
       c++;
-    if (!(s->heap[c]->cross_y < e->cross_y))
+    if (!(s->heap[c].key < n.key))
       break;
     heap_set(s, i, s->heap[c]);
     i = c;
   }
-  heap_set(s, i, e);
+  heap_set(s, i, n);
 }
 
 static void heap_remove(sweep *s, edge *e) {
   size_t i = e->hpos;
-  edge *last = s->heap[--s->n_heap];
-  if (last != e) {
+  heap_node last = s->heap[--s->n_heap];
+  if (last.e != e) {
     heap_set(s, i, last);
     heap_up(s, i);
-    heap_down(s, last->hpos);
+    heap_down(s, last.e->hpos);
   }
 }
 
@@ -393,6 +111,7 @@ static void heap_remove(sweep *s, edge *e) {
  * search covers a window only (again: the pair's next, twice as high); when it finds
  * nothing the key is the window's end, marked for a re-check. */
 static void set_key(sweep *s, edge *l, edge *r, double y, gboolean just, gboolean again) {
+  const double was = l->cross_y;
   l->right = r;
   l->recheck = FALSE;
   l->cross_y = INFINITY;
@@ -401,13 +120,16 @@ static void set_key(sweep *s, edge *l, edge *r, double y, gboolean just, gboolea
     if (l->curve || r->curve) {
       l->window = again ? 2 * l->window : (end - y) * FIRST_WINDOW_SHARE;
       y1 = fmin(end, y + l->window);
-      if (!(y1 > y + s->eps_y))
+      if (!(y1 > y + s->tol.eps_y))
         y1 = end;
     }
-    l->cross_y = next_flip(s, l, r, y, y1, just);
+    l->cross_y = pp_sweep_next_flip(&s->tol, l, r, y, y1, just);
     if (l->cross_y == INFINITY && y1 < end)
       l->cross_y = y1, l->recheck = TRUE;
   }
+  if (l->cross_y == was)
+    return; /* the heap already holds it in place (mostly +∞ staying +∞) */
+  s->heap[l->hpos].key = l->cross_y;
   heap_up(s, l->hpos);
   heap_down(s, l->hpos);
 }
@@ -418,29 +140,41 @@ static gboolean inside(pp_fill_rule rule, int w) {
   return rule == PP_FILL_EVEN_ODD ? (w & 1) != 0 : w != 0;
 }
 
-/* Gap i (right of act[i]) from gap i − 1 and the edge between them. */
-static void gap_update(sweep *s, size_t i) {
-  guint n = s->n_reg;
-  int *w = s->gw + i * n;
-  if (i > 0)
-    memcpy(w, w - n, n * sizeof(int));
-  else
-    memset(w, 0, n * sizeof(int));
-  w[s->act[i]->region] += s->act[i]->dir;
+static int *wind(const sweep *s, const edge *e) {
+  return s->gw + (size_t)(e - s->es) * s->n_reg;
+}
+
+static guint8 *gin(const sweep *s, const edge *e) {
+  return s->gin + (e - s->es);
+}
+
+/* The gap right of act[i] from the gap on its left and act[i]. TRUE when an old piece
+ * (old) keeps the windings it had: then every gap on its right keeps them too up to the
+ * next place that changed. */
+static gboolean gap_update(sweep *s, size_t i, gboolean old) {
+  const guint n = s->n_reg;
+  edge *e = s->act[i];
+  int *w = wind(s, e), *t = s->scratch;
+  memcpy(t, i > 0 ? wind(s, s->act[i - 1]) : s->scratch + n, n * sizeof(int));
+  t[e->region] += e->dir;
+  if (old && memcmp(t, w, n * sizeof(int)) == 0)
+    return TRUE;
+  memcpy(w, t, n * sizeof(int));
   guint in = 0;
   for (guint r = 0; r < n; r++)
     in += inside(s->regs[r].rule, w[r]);
-  s->gin[i] = in == n;
+  *gin(s, e) = in == n;
+  return FALSE;
 }
 
 static int coef(const sweep *s, size_t i) {
-  return (i > 0 ? s->gin[i - 1] : 0) - s->gin[i];
+  return (i > 0 ? *gin(s, s->act[i - 1]) : 0) - *gin(s, s->act[i]);
 }
 
 /* Accounts ∫ c·(x − xref) dy from y_from up to y. */
 static void flush(sweep *s, edge *e, double y) {
   if (e->c != 0 && y > e->y_from)
-    s->area += e->c * edge_integral(e, e->y_from, y, s->xref);
+    s->area += e->c * pp_sweep_edge_integral(e, e->y_from, y, s->xref);
   e->y_from = y;
 }
 
@@ -453,34 +187,67 @@ static void set_coef(sweep *s, edge *e, int c, double y) {
 
 /* Is a before e in x order just after y (ties at y broken halfway down their common span)? */
 static gboolean before(sweep *s, edge *a, edge *e, double y) {
-  double xa = edge_x(a, y, NULL), xe = edge_x(e, y, NULL);
-  if (fabs(xa - xe) > s->tol_x)
+  double xa = pp_sweep_edge_x(a, y), xe = pp_sweep_edge_x(e, y);
+  if (fabs(xa - xe) > s->tol.tol_x)
     return xa < xe;
   double h = y + 0.5 * (fmin(a->yb, e->yb) - y);
-  return edge_x(a, h, NULL) < edge_x(e, h, NULL);
+  return pp_sweep_edge_x(a, h) < pp_sweep_edge_x(e, h);
 }
 
-/* End points at y: ended edges leave, starting edges enter in x order, then windings,
- * coefficients and the crossing keys of changed neighbours are renewed. Gaps left of the
- * first change keep their windings; right of the last change, once a gap's windings equal
- * what they were before this height, every later gap's do too (same edges, same order):
- * those are copied, not recounted, which keeps a page of many crossing pieces from
- * recounting every active gap at every end point. */
-static void vertex(sweep *s, double y, edge **order, size_t n, size_t *next) {
-  const size_t old_n = s->n_act;
-  size_t m = 0, lo = SIZE_MAX;
-  for (size_t i = 0; i < s->n_act; i++) {
-    edge *e = s->act[i];
-    if (e->yb <= y) {
+/* Index of e in the active list. Indices below pos_ok hold their edge's pos; a height
+ * moves the list's tail, and the tail is renumbered only as far as an index is asked for. */
+static size_t pos_of(sweep *s, edge *e) {
+  if (e->pos < s->n_act && s->act[e->pos] == e)
+    return e->pos;
+  size_t i = s->pos_ok;
+  for (; s->act[i] != e; i++)
+    s->act[i]->pos = i;
+  s->pos_ok = i + 1;
+  return e->pos = i;
+}
+
+static int cmp_edge_pos(const void *a, const void *b) {
+  const edge *x = *(edge *const *)a, *y = *(edge *const *)b;
+  return x->pos < y->pos ? -1 : x->pos > y->pos;
+}
+
+/* Index i of the active list changed (an edge starts there, or the edge left of it
+ * ended); an edge starting at `at` moves every spot at or right of it one place on. */
+static void spot_add(sweep *s, size_t i, size_t at) {
+  if (s->n_spots > MAX_SPOTS)
+    return;
+  for (size_t k = 0; k < s->n_spots && at != SIZE_MAX; k++)
+    if (s->spots[k] >= at)
+      s->spots[k]++;
+  s->spots[s->n_spots++] = i;
+}
+
+/* Edges ending at y leave (in list order), edges starting at y enter in x order. Returns
+ * the first index that changed (SIZE_MAX: none); s->spots lists every changed index
+ * unless there were more than MAX_SPOTS. */
+static size_t vertex_update(sweep *s, double y, edge **order, size_t n, size_t *next) {
+  size_t lo = SIZE_MAX, n_gone = 0;
+  s->n_spots = 0;
+  while (s->next_end < n && s->yb[s->next_end] <= y)
+    s->gone[n_gone++] = s->ends[s->next_end++];
+  if (n_gone > 0) {
+    for (size_t j = 0; j < n_gone; j++)
+      pos_of(s, s->gone[j]);
+    qsort(s->gone, n_gone, sizeof(edge *), cmp_edge_pos);
+    size_t m = lo = s->gone[0]->pos;
+    for (size_t j = 0; j < n_gone; j++) {
+      edge *e = s->gone[j];
       flush(s, e, e->yb);
       heap_remove(s, e);
-      lo = MIN(lo, m);
-    } else {
-      s->act[m++] = e;
+      size_t from = e->pos + 1, to = j + 1 < n_gone ? s->gone[j + 1]->pos : s->n_act;
+      if (s->n_spots == 0 || s->spots[s->n_spots - 1] != m)
+        spot_add(s, m, SIZE_MAX);
+      memmove(s->act + m, s->act + from, (to - from) * sizeof(edge *));
+      m += to - from;
     }
+    s->n_act = m;
   }
-  s->n_act = m;
-  while (*next < n && order[*next]->ya <= y) {
+  while (*next < n && s->ya[*next] <= y) {
     edge *e = order[(*next)++];
     size_t lo_b = 0, hi_b = s->n_act;
     while (lo_b < hi_b) {
@@ -494,81 +261,105 @@ static void vertex(sweep *s, double y, edge **order, size_t n, size_t *next) {
     s->act[lo_b] = e;
     s->n_act++;
     lo = MIN(lo, lo_b);
+    spot_add(s, lo_b, lo_b);
     e->c = 0;
     e->y_from = y;
     e->cross_y = INFINITY;
     e->right = NULL;
-    e->pos = SIZE_MAX; /* new: no gap of its own before this height */
-    s->heap[s->n_heap] = e;
+    e->pos = SIZE_MAX; /* new: no windings of its own yet */
+    s->heap[s->n_heap] = (heap_node){e->cross_y, e};
     e->hpos = s->n_heap++;
     heap_up(s, e->hpos);
   }
-  size_t keys_from = s->n_act, keys_to = s->n_act;
-  if (lo != SIZE_MAX) {
-    /* tail: the first index of the unchanged run at the end (old edges, one shift). */
-    const guint nr = s->n_reg;
-    size_t tail = s->n_act;
-    while (tail > lo && s->act[tail - 1]->pos != SIZE_MAX &&
-           s->act[tail - 1]->pos + s->n_act == tail - 1 + old_n)
-      tail--;
-    int *old_w = s->gw;
-    guint8 *old_in = s->gin;
-    s->gw = s->gw_spare, s->gw_spare = old_w;
-    s->gin = s->gin_spare, s->gin_spare = old_in;
-    memcpy(s->gw, old_w, lo * nr * sizeof(int));
-    memcpy(s->gin, old_in, lo);
-    size_t i = lo;
-    for (; i < s->n_act; i++) {
-      edge *e = s->act[i];
-      size_t was = e->pos;
-      e->pos = i;
-      gap_update(s, i);
-      set_coef(s, e, coef(s, i), y);
-      if (i >= tail && memcmp(s->gw + i * nr, old_w + was * nr, nr * sizeof(int)) == 0)
-        break;
-    }
-    /* Right neighbours changed only from the edge left of the first change up to here:
-     * past it, every edge keeps its neighbour (the last keeps none, its key already
-     * infinite), so renewing their keys would change nothing. */
-    keys_from = lo > 0 ? lo - 1 : 0;
-    keys_to = MIN(i + 2, s->n_act);
-    if (i < s->n_act) { /* the rest as before, shifted */
-      size_t from = i + 1 + old_n - s->n_act, k = s->n_act - i - 1;
-      memcpy(s->gw + (i + 1) * nr, old_w + from * nr, k * nr * sizeof(int));
-      memcpy(s->gin + i + 1, old_in + from, k);
-      for (size_t j = i + 1; j < s->n_act; j++)
-        s->act[j]->pos = j;
-    }
-  }
-  for (size_t i = keys_from; i < keys_to; i++) {
+  return lo;
+}
+
+static int cmp_size(const void *a, const void *b) {
+  size_t x = *(const size_t *)a, y = *(const size_t *)b;
+  return x < y ? -1 : x > y;
+}
+
+/* Renews the keys of the edges in [from, to) whose right neighbour changed. */
+static void renew_keys(sweep *s, size_t from, size_t to, double y) {
+  for (size_t i = from; i < to; i++) {
     edge *r = i + 1 < s->n_act ? s->act[i + 1] : NULL;
     if (s->act[i]->right != r || r == NULL)
       set_key(s, s->act[i], r, y, FALSE, FALSE);
   }
 }
 
-/* The heap's first crossing: the edge a and its right neighbour b change places. */
+/* End points at y: the active list changes (vertex_update), then windings, coefficients
+ * and the crossing keys of changed neighbours are renewed. From each changed index the
+ * windings are recounted rightwards until an old edge keeps the windings it had: from
+ * there to the next change every gap keeps them (same edges, same order). So a height
+ * costs its changes and their neighbourhoods, not a pass over the whole list (besides
+ * moving the list's tail in memory). */
+static void vertex(sweep *s, double y, edge **order, size_t n, size_t *next) {
+  size_t lo = vertex_update(s, y, order, n, next);
+  if (lo == SIZE_MAX)
+    return;
+  size_t walk_to[MAX_SPOTS], n_walks = 0;
+  if (s->n_spots > MAX_SPOTS) {
+    s->spots[0] = lo, s->n_spots = 1;
+    for (size_t i = lo; i < s->n_act; i++) {
+      gap_update(s, i, FALSE);
+      set_coef(s, s->act[i], coef(s, i), y);
+      s->act[i]->pos = i;
+    }
+    walk_to[n_walks++] = s->n_act;
+    if (s->pos_ok >= lo)
+      s->pos_ok = s->n_act;
+  } else {
+    qsort(s->spots, s->n_spots, sizeof(size_t), cmp_size);
+    size_t done = 0, k = 0;
+    for (size_t j = 0; j < s->n_spots; j++) {
+      size_t i = s->spots[j];
+      if (j > 0 && i < done)
+        continue;
+      for (; i < s->n_act; i++) {
+        edge *e = s->act[i];
+        gboolean same = gap_update(s, i, e->pos != SIZE_MAX);
+        set_coef(s, e, coef(s, i), y);
+        e->pos = i; /* right, and no longer new */
+        if (same)
+          break;
+      }
+      s->spots[k] = s->spots[j];
+      walk_to[k++] = done = MIN(i + 1, s->n_act);
+    }
+    s->n_spots = n_walks = k;
+  }
+  /* Right neighbours changed only next to the walks: from the edge left of each start to
+   * the edge right of its end (the same calls, in the same order, as one pass would make). */
+  size_t keyed = 0;
+  for (size_t k = 0; k < n_walks; k++) {
+    size_t from = s->spots[k] > 0 ? s->spots[k] - 1 : 0, to = MIN(walk_to[k] + 1, s->n_act);
+    renew_keys(s, MAX(from, keyed), to, y);
+    keyed = MAX(keyed, to);
+  }
+  s->pos_ok = MIN(s->pos_ok, lo);
+}
+
+/* The heap's first crossing: the edge a and its right neighbour b change places. The gap
+ * right of both keeps its windings, now a's; b's gap is recounted. */
 static void swap(sweep *s) {
-  edge *a = s->heap[0];
+  edge *a = s->heap[0].e;
   double y = a->cross_y;
-  size_t i = a->pos;
+  size_t i = pos_of(s, a);
   edge *b = s->act[i + 1];
   flush(s, a, y);
   flush(s, b, y);
   s->act[i] = b, s->act[i + 1] = a;
   b->pos = i, a->pos = i + 1;
-  gap_update(s, i);
+  memcpy(wind(s, a), wind(s, b), s->n_reg * sizeof(int));
+  *gin(s, a) = *gin(s, b);
+  gap_update(s, i, FALSE);
   b->c = coef(s, i);
   a->c = coef(s, i + 1);
   if (i > 0)
     set_key(s, s->act[i - 1], b, y, FALSE, FALSE);
   set_key(s, b, a, y, TRUE, FALSE);
   set_key(s, a, i + 2 < s->n_act ? s->act[i + 2] : NULL, y, FALSE, FALSE);
-}
-
-static int cmp_edge_ya(const void *a, const void *b) {
-  const edge *x = *(edge *const *)a, *y = *(edge *const *)b;
-  return x->ya < y->ya ? -1 : x->ya > y->ya;
 }
 
 /* Area of the intersection of all regions, each (path, rule). */
@@ -587,37 +378,45 @@ double pp_sweep_area(const pp_region *regs, guint n_reg) {
   }
   double maxabs = fmax(fmax(fabs(all.x0), fabs(all.x1)), fmax(fabs(all.y0), fabs(all.y1)));
   double ext = fmax(pp_rect_width(all), pp_rect_height(all));
-  s.eps_y = fmax(1e-12 * ext, 8 * DBL_EPSILON * maxabs);
-  s.tol_x = s.eps_y;
+  s.tol.eps_y = fmax(1e-12 * ext, 8 * DBL_EPSILON * maxabs);
+  s.tol.tol_x = s.tol.eps_y;
   s.xref = 0.5 * (all.x0 + all.x1);
   /* Only pieces that reach the band every region shares can bound an inside run. */
   size_t n = 0;
   edge *es = (edge *)s.edges->data;
   for (size_t i = 0; i < s.edges->len; i++)
-    if (es[i].yb > ylo && es[i].ya < yhi)
-      es[n++] = es[i];
+    if (es[i].yb > ylo && es[i].ya < yhi) {
+      if (n != i)
+        es[n] = es[i];
+      n++;
+    }
   if (n > 0 && ylo < yhi) {
     edge **order = g_new(edge *, n);
-    double *ev = g_new(double, 2 * n);
-    for (size_t i = 0; i < n; i++) {
+    for (size_t i = 0; i < n; i++)
       order[i] = &es[i];
-      ev[2 * i] = es[i].ya;
-      ev[2 * i + 1] = es[i].yb;
-    }
-    qsort(order, n, sizeof(edge *), cmp_edge_ya);
-    qsort(ev, 2 * n, sizeof(double), pp_compare_doubles);
+    s.ya = g_new(double, n);
+    s.yb = g_new(double, n);
+    pp_sweep_edges_sort(order, s.ya, n, FALSE);
+    s.ends = g_new(edge *, n);
+    memcpy(s.ends, order, n * sizeof(edge *));
+    pp_sweep_edges_sort(s.ends, s.yb, n, TRUE);
+    /* Every end-point height in order: the bottoms and tops merged. */
+    double *ev = g_new(double, 2 * n);
+    for (size_t i = 0, j = 0, k = 0; k < 2 * n; k++)
+      ev[k] = j >= n || (i < n && s.ya[i] <= s.yb[j]) ? s.ya[i++] : s.yb[j++];
     s.act = g_new(edge *, n);
-    s.heap = g_new(edge *, n);
+    s.heap = g_new(heap_node, n);
+    s.es = es;
     s.gw = g_new(int, n *n_reg);
     s.gin = g_new(guint8, n);
-    s.gw_spare = g_new(int, n *n_reg);
-    s.gin_spare = g_new(guint8, n);
+    s.scratch = g_new0(int, 2 * n_reg);
+    s.gone = g_new(edge *, n);
     size_t next = 0;
     for (size_t k = 0; k < 2 * n; k++) {
       if (k > 0 && ev[k] == ev[k - 1])
         continue;
-      while (s.n_heap > 0 && s.heap[0]->cross_y < ev[k]) {
-        edge *top = s.heap[0];
+      while (s.n_heap > 0 && s.heap[0].key < ev[k]) {
+        edge *top = s.heap[0].e;
         if (top->recheck) {
           set_key(&s, top, top->right, top->cross_y, FALSE, TRUE);
           continue;
@@ -638,8 +437,11 @@ double pp_sweep_area(const pp_region *regs, guint n_reg) {
     g_free(s.heap);
     g_free(s.gw);
     g_free(s.gin);
-    g_free(s.gw_spare);
-    g_free(s.gin_spare);
+    g_free(s.scratch);
+    g_free(s.ends);
+    g_free(s.ya);
+    g_free(s.yb);
+    g_free(s.gone);
   }
   g_array_free(s.edges, TRUE);
   return s.area;

@@ -75,6 +75,7 @@ static void push_mono_cubic(GArray *edges, const pp_point *p, guint reg) {
     e.p[i] = e.dir > 0 ? p[i] : p[3 - i];
   e.ya = e.p[0].y, e.yb = e.p[3].y;
   e.t_hint = 0.5;
+  e.end_y = NAN;
   /* Power basis relative to the first point: Horner is a quarter of Bernstein's cost in
    * the root finding, and the relative form keeps far-away pieces' digits. */
   const pp_point *q = e.p;
@@ -136,4 +137,63 @@ void pp_sweep_edges_add_path(GArray *edges, const pp_path *path, guint reg) {
   }
   if (open)
     push_line(edges, cur, start, reg);
+}
+
+/* Sort key of a double in unsigned order: the sign bit flipped, negatives reversed;
+ * −0 counts as +0, as a comparison of doubles does. */
+static guint64 order_key(double v) {
+  v += 0.0;
+  guint64 b;
+  memcpy(&b, &v, sizeof b);
+  return b >> 63 ? ~b : b | (guint64)1 << 63;
+}
+
+typedef struct {
+  guint64 k;
+  pp_sweep_edge *e;
+} keyed;
+
+/* Radix digits of 11 bits: six passes over 64-bit keys, each skipped when every key has
+ * the same digit. Common practice (LSD radix sort), no source. */
+#define RADIX_BITS 11
+#define SMALL_SORT 32
+
+void pp_sweep_edges_sort(pp_sweep_edge **v, double *keys, size_t n, gboolean by_top) {
+  keyed *a = g_new(keyed, n), *b = g_new(keyed, n);
+  for (size_t i = 0; i < n; i++)
+    a[i] = (keyed){order_key(by_top ? v[i]->yb : v[i]->ya), v[i]};
+  if (n <= SMALL_SORT) { /* insertion sort: stable, as the radix passes are */
+    for (size_t i = 1; i < n; i++) {
+      keyed t = a[i];
+      size_t j = i;
+      for (; j > 0 && a[j - 1].k > t.k; j--)
+        a[j] = a[j - 1];
+      a[j] = t;
+    }
+  } else {
+    const size_t nb = (size_t)1 << RADIX_BITS;
+    size_t *count = g_new(size_t, nb);
+    for (int shift = 0; shift < 64; shift += RADIX_BITS) {
+      memset(count, 0, nb * sizeof(size_t));
+      for (size_t i = 0; i < n; i++)
+        count[(a[i].k >> shift) & (nb - 1)]++;
+      if (count[(a[0].k >> shift) & (nb - 1)] == n)
+        continue;
+      for (size_t d = 0, sum = 0; d < nb; d++) {
+        size_t c = count[d];
+        count[d] = sum, sum += c;
+      }
+      for (size_t i = 0; i < n; i++)
+        b[count[(a[i].k >> shift) & (nb - 1)]++] = a[i];
+      keyed *t = a;
+      a = b, b = t;
+    }
+    g_free(count);
+  }
+  for (size_t i = 0; i < n; i++) {
+    v[i] = a[i].e;
+    keys[i] = by_top ? a[i].e->yb : a[i].e->ya;
+  }
+  g_free(a);
+  g_free(b);
 }

@@ -78,7 +78,8 @@ struct pp_bar_text {
   guint *labels_x;                                /* label indices by centre.x */
   guint *labels_y;                                /* label indices by centre.y */
   guint n_by_y0, n_by_x1, n_labels_x, n_labels_y; /* entries with a key (not NaN) */
-  gboolean lines_in_order; /* words' line numbers never decrease (capture's reading order) */
+  gboolean lines_in_order;     /* words' line numbers never decrease (capture's reading order) */
+  double tallest, upside_down; /* the largest y1 - y0 and y0 - y1 of a word, at least 0 */
 };
 
 static double key_of(const void *base, gsize stride, guint i) {
@@ -130,6 +131,11 @@ static const pp_bar_text *bar_text(pp_recognize_ctx *ctx) {
   t->by_x1 = sorted_indices(words, G_STRUCT_OFFSET(pp_text_run, box.x1), &t->n_by_x1);
   t->labels_x = sorted_indices(ctx->labels, G_STRUCT_OFFSET(pp_label, centre.x), &t->n_labels_x);
   t->labels_y = sorted_indices(ctx->labels, G_STRUCT_OFFSET(pp_label, centre.y), &t->n_labels_y);
+  for (guint k = 0; k < words->len; k++) { /* capture's boxes have y0 <= y1; not assumed */
+    const pp_text_run *w = g_ptr_array_index(words, k);
+    t->tallest = fmax(t->tallest, w->box.y1 - w->box.y0);
+    t->upside_down = fmax(t->upside_down, w->box.y0 - w->box.y1);
+  }
   t->lines_in_order = TRUE;
   for (guint i = 1; i < words->len && t->lines_in_order; i++)
     t->lines_in_order = ((const pp_text_run *)g_ptr_array_index(words, i - 1))->line <=
@@ -437,6 +443,63 @@ static void common_width(pp_figure *fig, gboolean vertical) {
   g_free(w);
 }
 
+/* A margin around the stacking search, pt, so that rounding in the exact test (which
+ * decides) never falls outside it: far above a double's spacing at page coordinates. */
+#define PP_STACK_SEARCH_SLACK 1e-6
+
+/* The selection's positions by the end a segment rests on (u0 when its column grows
+ * towards larger u, u1 otherwise), so that the segments on a tip are found by binary
+ * search instead of a pass over the selection per bar: a row of a page of tiles is a
+ * selection of a hundred bars, each its own column. */
+typedef struct {
+  GArray *bars, *sel;
+  gboolean vertical;
+  const gboolean *in;
+  pp_coord_index *near[2]; /* [0: u0, 1: u1] */
+  GArray *hits;            /* guint: scratch */
+} stack_index;
+
+static void stack_index_init(stack_index *st, GArray *bars, GArray *sel, gboolean vertical,
+                             const gboolean *in) {
+  *st = (stack_index){bars, sel, vertical, in, {NULL, NULL}, NULL};
+  g_autofree double *v = g_new(double, MAX(sel->len, 1));
+  for (int side = 0; side < 2; side++) {
+    for (guint j = 0; j < sel->len; j++) {
+      pp_rect r = g_array_index(bars, pp_bar_candidate, g_array_index(sel, guint, j)).rect;
+      pp_frame_rect g = pp_frame_of(r, vertical);
+      v[j] = side ? g.u1 : g.u0;
+    }
+    st->near[side] = pp_coord_index_new(v, sel->len);
+  }
+  st->hits = g_array_new(FALSE, FALSE, sizeof(guint));
+}
+
+static void stack_index_clear(stack_index *st) {
+  pp_coord_index_free(st->near[0]);
+  pp_coord_index_free(st->near[1]);
+  g_array_unref(st->hits);
+}
+
+/* The first position from `from` on of a free bar in column f whose near end lies within
+ * PP_STACK_GAP of tip (sel->len when none): what a pass over the selection in order
+ * would take next. */
+static guint next_segment(stack_index *st, pp_frame_rect f, gboolean down, double tip, guint from) {
+  guint best = st->sel->len;
+  g_array_set_size(st->hits, 0);
+  double reach = PP_STACK_GAP + PP_STACK_SEARCH_SLACK;
+  pp_coord_index_range(st->near[down ? 0 : 1], tip - reach, tip + reach, st->hits);
+  for (guint k = 0; k < st->hits->len; k++) {
+    guint j = g_array_index(st->hits, guint, k);
+    if (j < from || j >= best || st->in[j])
+      continue;
+    pp_rect r = g_array_index(st->bars, pp_bar_candidate, g_array_index(st->sel, guint, j)).rect;
+    pp_frame_rect g = pp_frame_of(r, st->vertical);
+    if (pp_same_column(f, g) && fabs((down ? g.u0 : g.u1) - tip) < PP_STACK_GAP)
+      best = j;
+  }
+  return best;
+}
+
 /* Bars touching the baseline, then whatever stacks on them in their column: one
  * element per column, its segments kept as parts. scale may be NULL (labels-only
  * charts). Claims every bar and data label it uses, for owner. */
@@ -448,6 +511,8 @@ pp_figure *pp_bars_build(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *sca
   pp_figure *fig = pp_figure_new(vertical ? PP_FIGURE_COLUMN : PP_FIGURE_BAR);
   fig->recognizer = owner;
   gboolean *in = g_new0(gboolean, MAX(sel->len, 1));
+  stack_index st;
+  stack_index_init(&st, bars, sel, vertical, in);
   pp_rect plot = pp_rect_empty();
   for (guint i = 0; i < sel->len; i++) {
     pp_bar_candidate *b = &g_array_index(bars, pp_bar_candidate, g_array_index(sel, guint, i));
@@ -463,24 +528,22 @@ pp_figure *pp_bars_build(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *sca
     set_reading(&e, scale, base, tip);
     double ink = b->ink;
     pp_rect box = b->rect;
+    /* Passes over sel in order, each taking every segment resting on the tip so far,
+     * until a pass takes none. */
     for (gboolean grew = TRUE; grew;) {
       grew = FALSE;
-      for (guint j = 0; j < sel->len; j++) {
+      for (guint j = 0; (j = next_segment(&st, f, down, tip, j)) < sel->len; j++) {
         pp_bar_candidate *s = &g_array_index(bars, pp_bar_candidate, g_array_index(sel, guint, j));
         pp_frame_rect g = pp_frame_of(s->rect, vertical);
-        if (in[j] || !pp_same_column(f, g))
-          continue;
         double near = down ? g.u0 : g.u1, far = down ? g.u1 : g.u0;
-        if (fabs(near - tip) < PP_STACK_GAP) {
-          in[j] = TRUE;
-          pp_claims_take_mark_if_free(ctx->claims, s->mark, owner);
-          pp_element_add_part(&e, s->mark, PP_PART_SEGMENT, s->ink);
-          set_reading(&e, scale, near, far);
-          tip = far;
-          ink += s->ink;
-          box = pp_rect_union(box, s->rect);
-          e.stacked = grew = TRUE;
-        }
+        in[j] = TRUE;
+        pp_claims_take_mark_if_free(ctx->claims, s->mark, owner);
+        pp_element_add_part(&e, s->mark, PP_PART_SEGMENT, s->ink);
+        set_reading(&e, scale, near, far);
+        tip = far;
+        ink += s->ink;
+        box = pp_rect_union(box, s->rect);
+        e.stacked = grew = TRUE;
       }
     }
     if (e.stacked) /* every piece of a stack is a segment, the first included */
@@ -503,6 +566,7 @@ pp_figure *pp_bars_build(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *sca
         !pp_page_sized(scene, b->clip))
       plot = pp_rect_union(plot, b->clip);
   }
+  stack_index_clear(&st);
   g_free(in);
   common_width(fig, vertical);
   fig->n_series = colours->len;
@@ -538,7 +602,7 @@ static gboolean swatch_named(const pp_text_run *word, pp_rect b) {
  * left out of it (common practice, no source). */
 #define PP_LEGEND_BAND_SLACK 1.0
 
-gboolean pp_bars_legend_like(const pp_scene *scene, const pp_figure *fig) {
+gboolean pp_bars_legend_like(pp_recognize_ctx *ctx, const pp_figure *fig) {
   GArray *els = fig->elements;
   pp_rect first = g_array_index(els, pp_element, 0).box;
   for (guint i = 0; i < els->len; i++) {
@@ -548,7 +612,7 @@ gboolean pp_bars_legend_like(const pp_scene *scene, const pp_figure *fig) {
         pp_rect_width(b) > PP_SWATCH_MAX || pp_rect_height(b) > PP_SWATCH_MAX)
       return FALSE;
   }
-  GPtrArray *words = scene->words;
+  GPtrArray *words = ctx->scene->words;
   if (els->len < PP_LEGEND_INDEX_MIN) {
     for (guint i = 0; i < els->len; i++) {
       pp_rect b = g_array_index(els, pp_element, i).box;
@@ -562,15 +626,12 @@ gboolean pp_bars_legend_like(const pp_scene *scene, const pp_figure *fig) {
   }
   /* A word names a swatch only if its top lies within reach below the swatch and its
    * bottom within reach above it: the words by top, in that band widened by the tallest
-   * word (and any box with y0 > y1); words without a top (NaN) are always tried. */
-  guint n_top;
-  guint *by_y0 = sorted_indices(words, G_STRUCT_OFFSET(pp_text_run, box.y0), &n_top);
-  double tallest = 0, upside_down = 0; /* capture's boxes have y0 <= y1; not assumed */
-  for (guint k = 0; k < words->len; k++) {
-    const pp_text_run *w = g_ptr_array_index(words, k);
-    tallest = fmax(tallest, w->box.y1 - w->box.y0);
-    upside_down = fmax(upside_down, w->box.y0 - w->box.y1);
-  }
+   * word (and any box with y0 > y1); words without a top (NaN) are always tried. The
+   * words' order is the page's (ctx->bar_text), sorted once, not once per figure. */
+  const pp_bar_text *t = bar_text(ctx);
+  const guint *by_y0 = t->by_y0;
+  guint n_top = t->n_by_y0;
+  double tallest = t->tallest, upside_down = t->upside_down;
   gboolean all = TRUE;
   for (guint i = 0; i < els->len && all; i++) {
     pp_rect b = g_array_index(els, pp_element, i).box;
@@ -589,7 +650,6 @@ gboolean pp_bars_legend_like(const pp_scene *scene, const pp_figure *fig) {
       named = swatch_named(g_ptr_array_index(words, by_y0[k]), b);
     all = named;
   }
-  g_free(by_y0);
   return all;
 }
 

@@ -172,7 +172,7 @@ static pp_figure *build_on_axis(pp_recognize_ctx *ctx, const pp_axis_candidate *
   pp_figure *fig = NULL;
   if (sel->len >= 2 && find_baseline(ctx->bars, sel, axis->scale, &base)) {
     fig = pp_bars_build(ctx, sel, axis->scale, axis->scale->vertical, base, OWNER);
-    gboolean legend = pp_bars_legend_like(ctx->scene, fig), overlap = overlapping(fig);
+    gboolean legend = pp_bars_legend_like(ctx, fig), overlap = overlapping(fig);
     g_debug("  baseline %.2f: %u elements, legend %d, overlapping %d", base, fig->elements->len,
             legend, overlap);
     if (fig->elements->len < 2 || legend || overlap || too_short(fig, axis))

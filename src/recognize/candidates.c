@@ -38,18 +38,66 @@ static gboolean is_blank(const pp_paint *p) {
          p->b > PP_BLANK_WHITE;
 }
 
+/* The page's words by position, so that a candidate looks only at the words touching it
+ * (a page of a thousand labelled tiles has as many words as boxes). Words whose box is
+ * empty (a NaN corner passes the overlap test) or reaches beyond PP_WORD_GRID_REACH are
+ * not in the grid and are always tried. */
+/* Far beyond any page, pt (ISO 32000-1 Annex C: at most 14,400 units a side), and small
+ * enough that the grid's extent stays finite. */
+#define PP_WORD_GRID_REACH 1e6
+typedef struct {
+  const pp_scene *scene;
+  pp_box_grid *grid; /* over the words' boxes, on first use */
+  GArray *unplaced;  /* guint: words with an empty box */
+  GArray *near;      /* guint: scratch */
+} word_lookup;
+
+static void word_lookup_init(word_lookup *wl, const pp_scene *scene) {
+  *wl = (word_lookup){scene, NULL, NULL, g_array_new(FALSE, FALSE, sizeof(guint))};
+}
+
+static void word_lookup_clear(word_lookup *wl) {
+  pp_box_grid_free(wl->grid);
+  if (wl->unplaced)
+    g_array_unref(wl->unplaced);
+  g_array_unref(wl->near);
+}
+
 /* A box behind a word that nearly fills it is a text background (a tag, a highlighted
- * cell), not a bar; data labels inside bars are numbers and leave most of it free. */
-static gboolean behind_text(const pp_scene *scene, pp_rect r) {
-  for (guint i = 0; i < scene->words->len; i++) {
-    const pp_text_run *w = g_ptr_array_index(scene->words, i);
-    pp_rect in = pp_rect_intersect(w->box, r);
-    pp_number num;
-    if (pp_rect_width(in) >= PP_BEHIND_TEXT_SHARE * pp_rect_width(r) &&
-        pp_rect_height(in) >= PP_BEHIND_TEXT_SHARE * pp_rect_height(r) &&
-        !pp_number_parse(w->text, PP_DECIMAL_UNKNOWN, &num))
-      return TRUE;
+ * cell), not a bar; data labels inside bars are numbers and leave most of it free. The
+ * overlap must be half of r on both sides, so only words touching r can qualify (r is at
+ * least PP_BAR_MIN_SIDE on both sides when this is asked). */
+static gboolean covers(const pp_text_run *w, pp_rect r) {
+  pp_rect in = pp_rect_intersect(w->box, r);
+  pp_number num;
+  return pp_rect_width(in) >= PP_BEHIND_TEXT_SHARE * pp_rect_width(r) &&
+         pp_rect_height(in) >= PP_BEHIND_TEXT_SHARE * pp_rect_height(r) &&
+         !pp_number_parse(w->text, PP_DECIMAL_UNKNOWN, &num);
+}
+
+static gboolean behind_text(word_lookup *wl, pp_rect r) {
+  GPtrArray *words = wl->scene->words;
+  if (!wl->grid) {
+    g_autofree pp_rect *boxes = g_new(pp_rect, MAX(words->len, 1));
+    wl->unplaced = g_array_new(FALSE, FALSE, sizeof(guint));
+    for (guint i = 0; i < words->len; i++) {
+      pp_rect b = ((const pp_text_run *)g_ptr_array_index(words, i))->box;
+      gboolean placed = !pp_rect_is_empty(b) && fabs(b.x0) <= PP_WORD_GRID_REACH &&
+                        fabs(b.y0) <= PP_WORD_GRID_REACH && fabs(b.x1) <= PP_WORD_GRID_REACH &&
+                        fabs(b.y1) <= PP_WORD_GRID_REACH;
+      boxes[i] = placed ? b : pp_rect_empty();
+      if (!placed)
+        g_array_append_val(wl->unplaced, i);
+    }
+    wl->grid = pp_box_grid_new(boxes, words->len);
   }
+  for (guint k = 0; k < wl->unplaced->len; k++)
+    if (covers(g_ptr_array_index(words, g_array_index(wl->unplaced, guint, k)), r))
+      return TRUE;
+  pp_box_grid_query(wl->grid, r, wl->near);
+  for (guint k = 0; k < wl->near->len; k++)
+    if (covers(g_ptr_array_index(words, g_array_index(wl->near, guint, k)), r))
+      return TRUE;
   return FALSE;
 }
 
@@ -123,12 +171,13 @@ static void drop_backgrounds(GArray *cands) {
 
 /* Adds one rectangle of a fill as a candidate, unless it is too thin, page-sized, behind
  * text, or a repaint (hatching, outlines) of the rectangle just added. */
-static void add_rect(const pp_scene *scene, GArray *out, guint mark, pp_rect r, double ink) {
+static void add_rect(word_lookup *wl, GArray *out, guint mark, pp_rect r, double ink) {
+  const pp_scene *scene = wl->scene;
   const pp_mark *m = g_ptr_array_index(scene->marks, mark);
   pp_rect clip = pp_clip_bbox(m->clip);
   pp_rect vis = pp_rect_intersect(r, clip);
   if (pp_rect_is_empty(vis) || pp_rect_width(vis) < PP_BAR_MIN_SIDE ||
-      pp_rect_height(vis) < PP_BAR_MIN_SIDE || pp_page_sized(scene, vis) || behind_text(scene, vis))
+      pp_rect_height(vis) < PP_BAR_MIN_SIDE || pp_page_sized(scene, vis) || behind_text(wl, vis))
     return;
   for (guint k = out->len; k-- > 0 && k + 8 >= out->len;) {
     pp_bar_candidate *c = &g_array_index(out, pp_bar_candidate, k);
@@ -174,7 +223,8 @@ static GPtrArray *split_subpaths(const pp_path *path) {
  * coordinates. */
 #define PP_REPAINT_SEARCH_SLACK 1e-6
 
-static void collect_outlined(const pp_scene *scene, GArray *out) {
+static void collect_outlined(word_lookup *wl, GArray *out) {
+  const pp_scene *scene = wl->scene;
   guint n_filled = out->len;
   g_autoptr(pp_box_grid) grid = NULL; /* over the filled candidates, on first use */
   g_autoptr(GArray) near = g_array_new(FALSE, FALSE, sizeof(guint));
@@ -201,12 +251,14 @@ static void collect_outlined(const pp_scene *scene, GArray *out) {
                 fabs(c.y1 - r.y1) < tol;
     }
     if (!repaint)
-      add_rect(scene, out, i, r, NAN);
+      add_rect(wl, out, i, r, NAN);
   }
 }
 
 GArray *pp_bar_candidates_collect(const pp_scene *scene, GHashTable *glyph_marks) {
   GArray *out = g_array_new(FALSE, FALSE, sizeof(pp_bar_candidate));
+  word_lookup wl;
+  word_lookup_init(&wl, scene);
   collect_hatched(scene, out);
   for (guint i = 0; i < scene->marks->len; i++) {
     const pp_mark *m = g_ptr_array_index(scene->marks, i);
@@ -215,7 +267,7 @@ GArray *pp_bar_candidates_collect(const pp_scene *scene, GHashTable *glyph_marks
       continue;
     pp_rect r;
     if (pp_path_is_rectangle(m->path, PP_RECT_TOL, &r)) {
-      add_rect(scene, out, i, r, m->ink);
+      add_rect(&wl, out, i, r, m->ink);
       continue;
     }
     /* One fill holding every bar of a series as its subpaths (pgfplots' ybar): each
@@ -228,11 +280,12 @@ GArray *pp_bar_candidates_collect(const pp_scene *scene, GHashTable *glyph_marks
       all_rects = pp_path_is_rectangle(parts->pdata[k], PP_RECT_TOL, &r);
     for (guint k = 0; k < parts->len && all_rects; k++) {
       pp_path_is_rectangle(parts->pdata[k], PP_RECT_TOL, &r);
-      add_rect(scene, out, i, r, pp_path_clipped_area(parts->pdata[k], m->rule, m->clip));
+      add_rect(&wl, out, i, r, pp_path_clipped_area(parts->pdata[k], m->rule, m->clip));
     }
     g_ptr_array_unref(parts);
   }
-  collect_outlined(scene, out);
+  collect_outlined(&wl, out);
+  word_lookup_clear(&wl);
   drop_backgrounds(out);
   return out;
 }

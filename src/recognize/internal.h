@@ -192,7 +192,7 @@ pp_figure *pp_bars_build(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *sca
 typedef struct pp_bar_text pp_bar_text;
 void pp_bar_text_free(pp_bar_text *t);
 /* Legend keys: swatches of one size, each named beside it. */
-gboolean pp_bars_legend_like(const pp_scene *scene, const pp_figure *fig);
+gboolean pp_bars_legend_like(pp_recognize_ctx *ctx, const pp_figure *fig);
 /* Evidence of a bar layout: the shared baseline and how regularly the bars of each series
  * are spaced (pp_bars_spacing_regularity: share of regular gaps, NAN with too few bars). */
 double pp_bars_spacing_regularity(const pp_figure *fig);

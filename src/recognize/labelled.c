@@ -79,11 +79,11 @@ static GArray *select_on_edge(const pp_recognize_ctx *ctx, edge_index *x, int or
 }
 
 /* Every element carries a printed number, and the group is not a legend. */
-static gboolean all_labelled(const pp_recognize_ctx *ctx, pp_figure *fig) {
+static gboolean all_labelled(pp_recognize_ctx *ctx, pp_figure *fig) {
   guint labelled = 0;
   for (guint k = 0; k < fig->elements->len; k++)
     labelled += !isnan(g_array_index(fig->elements, pp_element, k).label_value);
-  return labelled == fig->elements->len && labelled >= 2 && !pp_bars_legend_like(ctx->scene, fig);
+  return labelled == fig->elements->len && labelled >= 2 && !pp_bars_legend_like(ctx, fig);
 }
 
 /* An edge already tried in this pass: the selection depends only on the orientation, the
@@ -112,8 +112,23 @@ static gboolean first_try(GHashTable *tried, int orient, double edge, double wid
   return TRUE;
 }
 
+/* A labels-only figure needs two labelled bars, and each bar takes a free label of its
+ * own (a data label is looked for among the free ones and claimed when found), so with
+ * fewer than two free labels on the page no edge can give one: a page of unlabelled
+ * rectangles tries none. Claims change only when a figure is committed, so this holds for
+ * a whole pass. */
+static gboolean two_free_labels(const pp_recognize_ctx *ctx) {
+  guint free = 0;
+  for (guint i = 0; i < ctx->labels->len && free < 2; i++)
+    free += pp_claims_label_free(ctx->claims,
+                                 ((const pp_label *)g_ptr_array_index(ctx->labels, i))->index);
+  return free >= 2;
+}
+
 /* One labels-only figure, committed and finished; FALSE when there is none left. */
 static gboolean find_one(pp_recognize_ctx *ctx, edge_index *x) {
+  if (!two_free_labels(ctx))
+    return FALSE;
   g_autoptr(GHashTable) tried = g_hash_table_new_full(tried_hash, tried_equal, g_free, NULL);
   for (int orient = 0; orient < 2; orient++) {
     gboolean vertical = orient == 0;
@@ -156,6 +171,8 @@ static gboolean find_one(pp_recognize_ctx *ctx, edge_index *x) {
 }
 
 void pp_recognize_labelled_bars(pp_recognize_ctx *ctx) {
+  if (!two_free_labels(ctx)) /* no figure to find: the index is not built */
+    return;
   edge_index x;
   edge_index_init(&x, ctx->bars);
   while (find_one(ctx, &x))

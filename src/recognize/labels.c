@@ -87,29 +87,57 @@ static GArray *rect_fills(const pp_scene *scene) {
   return out;
 }
 
-static gint find_path_minus(GArray *fills, const pp_label *l) {
+/* The page's rectangle fills by right edge, so that a label looks only at the fills
+ * ending where its minus could (a page of a thousand labelled tiles has thousands of
+ * labels and fills). */
+typedef struct {
+  GArray *fills;      /* rect_fill */
+  pp_coord_index *x1; /* fills by r.x1 */
+  GArray *near;       /* guint: scratch */
+} minus_lookup;
+
+/* A margin around the right-edge search, pt: far above a double's spacing at page
+ * coordinates, so rounding never leaves out a fill the exact test would take. */
+#define PP_MINUS_SEARCH_SLACK 1e-6
+
+/* The first fill in page order drawn as this label's minus sign, or -1. */
+static gint find_path_minus(minus_lookup *ml, const pp_label *l) {
   double h = pp_rect_height(l->box);
-  for (guint i = 0; i < fills->len; i++) {
-    pp_rect r = g_array_index(fills, rect_fill, i).r;
+  /* the gap test bounds the right edge: l.x0 - PP_MINUS_MAX_GAP h < x1 < l.x0 + overlap */
+  g_array_set_size(ml->near, 0);
+  pp_coord_index_range(ml->x1, l->box.x0 - PP_MINUS_MAX_GAP * h - PP_MINUS_SEARCH_SLACK,
+                       l->box.x0 + PP_MINUS_OVERLAP + PP_MINUS_SEARCH_SLACK, ml->near);
+  guint best = G_MAXUINT;
+  for (guint k = 0; k < ml->near->len; k++) {
+    guint i = g_array_index(ml->near, guint, k);
+    if (i >= best)
+      continue;
+    pp_rect r = g_array_index(ml->fills, rect_fill, i).r;
     double w = pp_rect_width(r), t = pp_rect_height(r), cy = (r.y0 + r.y1) / 2;
     double gap = l->box.x0 - r.x1;
     if (t > PP_MINUS_MIN_THICK && t < PP_MINUS_MAX_THICK * h && w > PP_MINUS_MIN_WIDTH * h &&
         w < PP_MINUS_MAX_WIDTH * h && gap > -PP_MINUS_OVERLAP && gap < PP_MINUS_MAX_GAP * h &&
         cy > l->box.y0 + PP_MINUS_LOW * h && cy < l->box.y0 + PP_MINUS_HIGH * h)
-      return (gint)g_array_index(fills, rect_fill, i).mark;
+      best = i;
   }
-  return -1;
+  return best == G_MAXUINT ? -1 : (gint)g_array_index(ml->fills, rect_fill, best).mark;
 }
 
 static void recover_minus_signs(const pp_scene *scene, GPtrArray *labels, GHashTable *glyph_marks) {
-  GArray *fills = NULL;
+  minus_lookup ml = {NULL, NULL, NULL};
   for (guint k = 0; k < labels->len; k++) {
     pp_label *l = g_ptr_array_index(labels, k);
     if (!g_ascii_isdigit(l->text[0]) || l->number.value <= 0 || l->angle != 0)
       continue;
-    if (!fills)
-      fills = rect_fills(scene);
-    gint mark = find_path_minus(fills, l);
+    if (!ml.fills) {
+      ml.fills = rect_fills(scene);
+      g_autofree double *x1 = g_new(double, MAX(ml.fills->len, 1));
+      for (guint i = 0; i < ml.fills->len; i++)
+        x1[i] = g_array_index(ml.fills, rect_fill, i).r.x1;
+      ml.x1 = pp_coord_index_new(x1, ml.fills->len);
+      ml.near = g_array_new(FALSE, FALSE, sizeof(guint));
+    }
+    gint mark = find_path_minus(&ml, l);
     if (mark < 0)
       continue;
     const pp_mark *m = g_ptr_array_index(scene->marks, (guint)mark);
@@ -121,8 +149,11 @@ static void recover_minus_signs(const pp_scene *scene, GPtrArray *labels, GHashT
     l->centre = (pp_point){(l->box.x0 + l->box.x1) / 2, (l->box.y0 + l->box.y1) / 2};
     g_hash_table_add(glyph_marks, GUINT_TO_POINTER((guint)mark));
   }
-  if (fills)
-    g_array_unref(fills);
+  if (ml.fills) {
+    g_array_unref(ml.fills);
+    pp_coord_index_free(ml.x1);
+    g_array_unref(ml.near);
+  }
 }
 
 GPtrArray *pp_labels_collect(const pp_scene *scene, GHashTable *glyph_marks) {

@@ -45,6 +45,15 @@ void pp_page_charts_free(pp_page_charts *charts) {
   g_free(charts);
 }
 
+/* A margin around the edge search, pt: far above a double's spacing at page coordinates,
+ * so rounding never leaves out a bar pp_on_edge would count. */
+#define PP_FAILED_SCALE_SEARCH_SLACK 1e-6
+
+static int cmp_guint(gconstpointer a, gconstpointer b) {
+  guint x = *(const guint *)a, y = *(const guint *)b;
+  return (x > y) - (x < y);
+}
+
 /* Is there an unread bar chart beside this axis? Then its failed scale matters: a few
  * unclaimed bars within reach that share an edge along the axis and differ in length.
  * Tables (rules, equal row shading) have labels too, but no such bars. */
@@ -60,6 +69,18 @@ static gboolean has_bars_beside(const pp_recognize_ctx *ctx, const pp_axis_candi
       g_array_append_val(near, b->rect);
   }
   gboolean found = FALSE;
+  /* The near bars' ends along the axis in order, so that the bars on an edge are found by
+   * binary search: a page of tiles has as many edges as rows, each tried once. */
+  g_autofree double *ends = g_new(double, MAX(near->len, 1));
+  pp_coord_index *by_end[2];
+  for (int side = 0; side < 2; side++) {
+    for (guint j = 0; j < near->len; j++) {
+      pp_frame_rect r = pp_frame_of(g_array_index(near, pp_rect, j), vertical);
+      ends[j] = side ? r.u1 : r.u0;
+    }
+    by_end[side] = pp_coord_index_new(ends, near->len);
+  }
+  g_autoptr(GArray) on = g_array_new(FALSE, FALSE, sizeof(guint));
   /* Each edge is counted once: bars of a grid share their edges by the row. */
   GHashTable *tried = g_hash_table_new_full(g_double_hash, g_double_equal, g_free, NULL);
   for (guint i = 0; i < near->len && !found; i++) {
@@ -71,7 +92,17 @@ static gboolean has_bars_beside(const pp_recognize_ctx *ctx, const pp_axis_candi
       g_hash_table_add(tried, g_memdup2(&edges[e], sizeof(double)));
       guint sharing = 0;
       double shortest = INFINITY, longest = 0;
-      for (guint j = 0; j < near->len; j++) {
+      /* pp_on_edge needs an end within PP_SAME_EDGE_TOL of the edge; the margin keeps
+       * rounding inside the search (the exact test decides). */
+      double reach = PP_SAME_EDGE_TOL + PP_FAILED_SCALE_SEARCH_SLACK;
+      g_array_set_size(on, 0);
+      for (int side = 0; side < 2; side++)
+        pp_coord_index_range(by_end[side], edges[e] - reach, edges[e] + reach, on);
+      g_array_sort(on, cmp_guint);
+      for (guint k = 0; k < on->len; k++) {
+        guint j = g_array_index(on, guint, k);
+        if (k > 0 && g_array_index(on, guint, k - 1) == j)
+          continue;
         pp_frame_rect r = pp_frame_of(g_array_index(near, pp_rect, j), vertical);
         if (pp_on_edge(r.u0, r.u1, edges[e])) {
           sharing++;
@@ -85,6 +116,8 @@ static gboolean has_bars_beside(const pp_recognize_ctx *ctx, const pp_axis_candi
     }
   }
   g_hash_table_unref(tried);
+  pp_coord_index_free(by_end[0]);
+  pp_coord_index_free(by_end[1]);
   g_array_unref(near);
   return found;
 }

@@ -568,9 +568,19 @@ static void split_group(GArray *faces, const guint *members, guint n_members, GA
   pp_group_lists_clear(&gl);
 }
 
+/* Every solid has a face that is not an upright rectangle (make_solid needs one beside
+ * its fronts), so a page of rectangles alone has none and is not grouped: a page of
+ * 10^5 tiles spent a quarter of its time here. */
+static gboolean has_side(GArray *faces) {
+  for (guint i = 0; i < faces->len; i++)
+    if (!g_array_index(faces, face, i).front)
+      return TRUE;
+  return FALSE;
+}
+
 void pp_recognize_solid_bars(pp_recognize_ctx *ctx) {
   g_autoptr(GArray) faces = collect_faces(ctx);
-  if (faces->len < 4)
+  if (faces->len < 4 || !has_side(faces))
     return;
   g_autoptr(GArray) quads = g_array_sized_new(FALSE, FALSE, sizeof(pp_quad), faces->len);
   for (guint i = 0; i < faces->len; i++)

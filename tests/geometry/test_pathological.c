@@ -1,6 +1,7 @@
 /* test_pathological.c — fills that once took minutes (issue 12): a many-turn arc found by
- * the fuzzer, a self-intersecting polygon of random points, a path of random curves and a
- * path of thousands of separate circles. Each must give cairo's pixel count (or πr²);
+ * the fuzzer, a self-intersecting polygon of random points, a path of random curves, chains
+ * of swinging curves like the fuzzer's slow crossings inputs and a path of thousands of
+ * separate circles. Each must give cairo's pixel count (or πr²);
  * meson's timeout for this file (tests/geometry/meson.build) is the speed check. */
 #include <setjmp.h>
 #include <stdarg.h>
@@ -70,6 +71,32 @@ static void test_random_curves(void **state) {
   g_rand_free(rng);
 }
 
+/* The shape of the fuzzer's slow crossings inputs (tests/fuzz/known/scene-slow-crossings*.bin:
+ * about 20 overlapping chains of 900 cubics, each cubic swinging across the whole width
+ * while it climbs a sliver of the height): 20 chains of 600 such cubics, ~2.7·10⁵
+ * crossings between nearly level pieces. Each chain is one subpath, closed by the fill.
+ * Against cairo's pixels within 1%, as test_random_curves. */
+static void test_swinging_chains(void **state) {
+  (void)state;
+  GRand *rng = g_rand_new_with_seed(3);
+  pp_path *p = pp_path_new();
+  const int chains = 20, links = 600;
+  for (int c = 0; c < chains; c++) {
+    double y = g_rand_double_range(rng, 50, 100), dy = (500 - y) / links;
+    pp_path_move_to(p, g_rand_double_range(rng, 50, 550), y);
+    for (int i = 0; i < links; i++, y += dy)
+      pp_path_curve_to(p, g_rand_double_range(rng, 50, 550), y + dy / 3,
+                       g_rand_double_range(rng, 50, 550), y + 2 * dy / 3,
+                       g_rand_double_range(rng, 50, 550), y + dy);
+  }
+  for (int rule = 0; rule < 2; rule++) {
+    double want = cairo_ink(p, rule);
+    tu_assert_near(pp_path_fill_area(p, rule), want, 0.01 * want);
+  }
+  pp_path_free(p);
+  g_rand_free(rng);
+}
+
 /* 40,000 separate circles of radius 1 in one path: 40,000 πr² within cairo's tolerance,
  * which applies in device space, here 100 units a point (so the arcs get fine pieces). */
 static void test_many_circles(void **state) {
@@ -91,9 +118,8 @@ static void test_many_circles(void **state) {
 
 int main(void) {
   const struct CMUnitTest tests[] = {
-      cmocka_unit_test(test_many_turn_arc),
-      cmocka_unit_test(test_random_polygon),
-      cmocka_unit_test(test_random_curves),
+      cmocka_unit_test(test_many_turn_arc), cmocka_unit_test(test_random_polygon),
+      cmocka_unit_test(test_random_curves), cmocka_unit_test(test_swinging_chains),
       cmocka_unit_test(test_many_circles),
   };
   return cmocka_run_group_tests(tests, NULL, NULL);
