@@ -43,6 +43,7 @@ typedef struct {
   GArray *edges; /* of edge */
   edge **act;
   size_t n_act;
+  size_t pos_ok; /* act[i]->pos == i for every i below it */
   heap_node *heap;
   size_t n_heap;
   guint n_reg;
@@ -193,6 +194,18 @@ static gboolean before(sweep *s, edge *a, edge *e, double y) {
   return pp_sweep_edge_x(a, h) < pp_sweep_edge_x(e, h);
 }
 
+/* Index of e in the active list. Indices below pos_ok hold their edge's pos; a height
+ * moves the list's tail, and the tail is renumbered only as far as an index is asked for. */
+static size_t pos_of(sweep *s, edge *e) {
+  if (e->pos < s->n_act && s->act[e->pos] == e)
+    return e->pos;
+  size_t i = s->pos_ok;
+  for (; s->act[i] != e; i++)
+    s->act[i]->pos = i;
+  s->pos_ok = i + 1;
+  return e->pos = i;
+}
+
 static int cmp_edge_pos(const void *a, const void *b) {
   const edge *x = *(edge *const *)a, *y = *(edge *const *)b;
   return x->pos < y->pos ? -1 : x->pos > y->pos;
@@ -218,6 +231,8 @@ static size_t vertex_update(sweep *s, double y, edge **order, size_t n, size_t *
   while (s->next_end < n && s->yb[s->next_end] <= y)
     s->gone[n_gone++] = s->ends[s->next_end++];
   if (n_gone > 0) {
+    for (size_t j = 0; j < n_gone; j++)
+      pos_of(s, s->gone[j]);
     qsort(s->gone, n_gone, sizeof(edge *), cmp_edge_pos);
     size_t m = lo = s->gone[0]->pos;
     for (size_t j = 0; j < n_gone; j++) {
@@ -289,8 +304,11 @@ static void vertex(sweep *s, double y, edge **order, size_t n, size_t *next) {
     for (size_t i = lo; i < s->n_act; i++) {
       gap_update(s, i, FALSE);
       set_coef(s, s->act[i], coef(s, i), y);
+      s->act[i]->pos = i;
     }
     walk_to[n_walks++] = s->n_act;
+    if (s->pos_ok >= lo)
+      s->pos_ok = s->n_act;
   } else {
     qsort(s->spots, s->n_spots, sizeof(size_t), cmp_size);
     size_t done = 0, k = 0;
@@ -302,6 +320,7 @@ static void vertex(sweep *s, double y, edge **order, size_t n, size_t *next) {
         edge *e = s->act[i];
         gboolean same = gap_update(s, i, e->pos != SIZE_MAX);
         set_coef(s, e, coef(s, i), y);
+        e->pos = i; /* right, and no longer new */
         if (same)
           break;
       }
@@ -318,8 +337,7 @@ static void vertex(sweep *s, double y, edge **order, size_t n, size_t *next) {
     renew_keys(s, MAX(from, keyed), to, y);
     keyed = MAX(keyed, to);
   }
-  for (size_t i = lo; i < s->n_act; i++)
-    s->act[i]->pos = i;
+  s->pos_ok = MIN(s->pos_ok, lo);
 }
 
 /* The heap's first crossing: the edge a and its right neighbour b change places. The gap
@@ -327,7 +345,7 @@ static void vertex(sweep *s, double y, edge **order, size_t n, size_t *next) {
 static void swap(sweep *s) {
   edge *a = s->heap[0].e;
   double y = a->cross_y;
-  size_t i = a->pos;
+  size_t i = pos_of(s, a);
   edge *b = s->act[i + 1];
   flush(s, a, y);
   flush(s, b, y);

@@ -24,6 +24,7 @@ typedef struct {
   guint *band_edges;
   guint *seen; /* per edge: the last lookup that met it */
   guint lookup;
+  guint call; /* the last pp_path_clipped_length() call that took it from the cache */
 } flat_clip;
 
 typedef struct {
@@ -120,18 +121,29 @@ static gboolean same_path(const pp_path *a, const pp_path *b) {
 
 static flat_clip *flat_cache[CLIP_CACHE_SIZE];
 static guint flat_cache_next;
+static guint flat_cache_call;
 
-/* The member flattened at tol, from the cache or made now (and cached). */
+/* The member flattened at tol, from the cache or made now (and cached). An entry that this
+ * call already holds is never the one evicted: a chain whose outer member is new would
+ * otherwise free the flattening of an inner member it found cached a moment before. */
 static const flat_clip *flat_clip_get(const pp_path *path, double tol) {
   for (guint i = 0; i < CLIP_CACHE_SIZE; i++) {
     flat_clip *f = flat_cache[i];
-    if (f && f->tol == tol && same_path(f->path, path))
+    if (f && f->tol == tol && same_path(f->path, path)) {
+      f->call = flat_cache_call;
       return f;
+    }
   }
   flat_clip *f = flat_clip_new(path, tol);
-  flat_clip_free(flat_cache[flat_cache_next]);
-  flat_cache[flat_cache_next] = f;
-  flat_cache_next = (flat_cache_next + 1) % CLIP_CACHE_SIZE;
+  f->call = flat_cache_call;
+  /* A chain holds at most CLIP_CACHE_SIZE members, so some slot is not held by this call. */
+  guint slot = flat_cache_next;
+  for (guint k = 0; k < CLIP_CACHE_SIZE; k++, slot = (slot + 1) % CLIP_CACHE_SIZE)
+    if (!flat_cache[slot] || flat_cache[slot]->call != flat_cache_call)
+      break;
+  flat_clip_free(flat_cache[slot]);
+  flat_cache[slot] = f;
+  flat_cache_next = (slot + 1) % CLIP_CACHE_SIZE;
   return f;
 }
 
@@ -365,6 +377,12 @@ double pp_path_clipped_length(const pp_path *path, const pp_clip *clip) {
   double size = fmax(fmax(pp_rect_width(scene), pp_rect_height(scene)), 1e-300);
   double maxabs = fmax(fmax(fabs(scene.x0), fabs(scene.x1)), fmax(fabs(scene.y0), fabs(scene.y1)));
   cs.eps = fmax(1e-9 * size, 64 * G_MINDOUBLE + 1e-15 * maxabs);
+  if (++flat_cache_call == 0) { /* wrapped: no entry is held by the new call */
+    for (guint i = 0; i < CLIP_CACHE_SIZE; i++)
+      if (flat_cache[i])
+        flat_cache[i]->call = 0;
+    flat_cache_call = 1;
+  }
   guint gi = 0;
   for (const pp_clip *c = clip; c; c = c->parent) {
     pp_rect r;

@@ -183,12 +183,42 @@ static void test_clipped_discs(void **state) {
   }
 }
 
+/* The clipped-length cache of flattened clips (src/geometry/clip_length.c) must not evict a
+ * member a chain has just found cached when the chain's next member is new: fuzz_scene
+ * found the read of freed memory that followed. Eight discs about the origin fill the
+ * cache; then a chain of the oldest of them inside a new smaller disc. A line through the
+ * centre of a disc of radius r lies inside it for 2r (a diameter, elementary geometry);
+ * the slack is the clip flattening's (CLIP_FLATTEN_REL of the scene, about 1e-4 of it). */
+static void test_clip_cache_chain(void **state) {
+  (void)state;
+  g_autoptr(pp_path) line = pp_path_new();
+  pp_path_move_to(line, -200, 0);
+  pp_path_line_to(line, 200, 0);
+  pp_clip *discs[8];
+  for (int k = 0; k < 8; k++) {
+    cairo_t *cr = arc_context(FALSE);
+    arc(cr, FALSE, 0, 0, 60 + k, 0, 2 * G_PI);
+    cairo_close_path(cr);
+    discs[k] = pp_clip_new(NULL, tu_path_from_cairo(cr), PP_FILL_NONZERO);
+    cairo_destroy(cr);
+    tu_assert_near(pp_path_clipped_length(line, discs[k]), 2 * (60 + k), 0.05);
+  }
+  cairo_t *cr = arc_context(FALSE);
+  arc(cr, FALSE, 0, 0, 50, 0, 2 * G_PI);
+  cairo_close_path(cr);
+  g_autoptr(pp_clip) small = pp_clip_new(NULL, tu_path_from_cairo(cr), PP_FILL_NONZERO);
+  cairo_destroy(cr);
+  g_autoptr(pp_clip) chain = pp_clip_new(small, pp_path_copy(discs[0]->path), PP_FILL_NONZERO);
+  tu_assert_near(pp_path_clipped_length(line, chain), 2 * 50, 0.05);
+  for (int k = 0; k < 8; k++)
+    pp_clip_unref(discs[k]);
+}
+
 int main(void) {
   const struct CMUnitTest tests[] = {
-      cmocka_unit_test(test_rectangle),
-      cmocka_unit_test(test_circle),
-      cmocka_unit_test(test_sector_and_annulus),
-      cmocka_unit_test(test_clipped_discs),
+      cmocka_unit_test(test_rectangle),          cmocka_unit_test(test_circle),
+      cmocka_unit_test(test_sector_and_annulus), cmocka_unit_test(test_clipped_discs),
+      cmocka_unit_test(test_clip_cache_chain),
   };
   return cmocka_run_group_tests(tests, NULL, NULL);
 }
