@@ -16,6 +16,40 @@ typedef struct {
   gboolean raised;
 } word_builder;
 
+/* fmin and fmax as libm defines them (a NaN loses), without the call: this loop runs for every
+ * character of every page. */
+static inline double min_num(double a, double b) {
+  return isnan(a) ? b : isnan(b) ? a : b < a ? b : a;
+}
+
+static inline double max_num(double a, double b) {
+  return isnan(a) ? b : isnan(b) ? a : b > a ? b : a;
+}
+
+/* pp_rect_union and pp_rect_is_empty (core/rect.c) with the above. */
+static inline pp_rect union_rect(pp_rect a, pp_rect b) {
+  if (!(a.x0 <= a.x1 && a.y0 <= a.y1))
+    return b;
+  if (!(b.x0 <= b.x1 && b.y0 <= b.y1))
+    return a;
+  return (pp_rect){min_num(a.x0, b.x0), min_num(a.y0, b.y0), max_num(a.x1, b.x1),
+                   max_num(a.y1, b.y1)};
+}
+
+/* g_unichar_isspace, answered for ASCII without its table: tab, line feed, form feed, carriage
+ * return and space (GLib's guniprop.c; vertical tab is not a space there). */
+static inline gboolean is_space(gunichar c) {
+  return c < 0x80 ? c == ' ' || c == '\t' || c == '\n' || c == '\f' || c == '\r'
+                  : g_unichar_isspace(c);
+}
+
+static inline void append_char(GString *s, gunichar c) {
+  if (c < 0x80)
+    g_string_append_c(s, (char)c);
+  else
+    g_string_append_unichar(s, c);
+}
+
 static pp_rect to_rect(const PopplerRectangle *r) {
   return (pp_rect){MIN(r->x1, r->x2), MIN(r->y1, r->y2), MAX(r->x1, r->x2), MAX(r->y1, r->y2)};
 }
@@ -26,9 +60,9 @@ static pp_point centre(pp_rect r) {
 
 /* Gap between two boxes along whichever axis separates them most. */
 static double box_gap(pp_rect a, pp_rect b) {
-  double gx = fmax(b.x0 - a.x1, a.x0 - b.x1);
-  double gy = fmax(b.y0 - a.y1, a.y0 - b.y1);
-  return fmax(gx, gy);
+  double gx = max_num(b.x0 - a.x1, a.x0 - b.x1);
+  double gy = max_num(b.y0 - a.y1, a.y0 - b.y1);
+  return max_num(gx, gy);
 }
 
 static void flush_word(word_builder *wb, pp_scene *scene, guint line) {
@@ -91,16 +125,16 @@ void pp_text_capture(PopplerPage *page, pp_scene *scene) {
     }
     pp_rect r = to_rect(&rects[i]);
     double size = a ? a->font_size : pp_rect_height(r);
-    if (g_unichar_isspace(c) && c != 0x202F && c != 0x00A0) {
+    if (is_space(c) && c != 0x202F && c != 0x00A0) {
       flush_word(&wb, scene, scene->lines->len);
-      g_string_append_unichar(line_text, c);
+      append_char(line_text, c);
       continue;
     }
     /* Same-line characters far apart are separate words even without a space
      * (tick labels laid out on one baseline often come back as one line). */
-    if (wb.n_chars > 0 && box_gap(wb.box, r) > 0.6 * fmax(size, 1.0) &&
+    if (wb.n_chars > 0 && box_gap(wb.box, r) > 0.6 * max_num(size, 1.0) &&
         box_gap((pp_rect){wb.last_centre.x, wb.last_centre.y, wb.last_centre.x, wb.last_centre.y},
-                r) > 0.6 * fmax(size, 1.0)) {
+                r) > 0.6 * max_num(size, 1.0)) {
       flush_word(&wb, scene, scene->lines->len);
       g_string_append_c(line_text, ' ');
     }
@@ -120,13 +154,13 @@ void pp_text_capture(PopplerPage *page, pp_scene *scene) {
       wb.font_name = a ? a->font_name : NULL;
       wb.first_centre = centre(r);
     } else {
-      wb.box = pp_rect_union(wb.box, r);
+      wb.box = union_rect(wb.box, r);
     }
     wb.last_centre = centre(r);
-    g_string_append_unichar(wb.text, c);
+    append_char(wb.text, c);
     wb.n_chars++;
-    g_string_append_unichar(line_text, c);
-    line_box = pp_rect_union(line_box, r);
+    append_char(line_text, c);
+    line_box = union_rect(line_box, r);
   }
   flush_word(&wb, scene, scene->lines->len);
   flush_line(&line_text, &line_box, scene);

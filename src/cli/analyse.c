@@ -111,7 +111,7 @@ char *pp_analyse_report_page(gpointer data) {
   }
   if (scene)
     pp_scene_free(scene);
-  char *payload = pp_report_to_string(report, FALSE, NULL);
+  char *payload = pp_report_parts_to_string(report, NULL);
   pp_report_free(report);
   return payload;
 }

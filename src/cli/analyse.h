@@ -16,8 +16,8 @@ typedef struct {
   int messages_fd; /* where library messages on stderr are caught, or -1 */
 } pp_analyse_job;
 
-/* Payload: the compact findings object of page job->page_index alone, its library
- * messages among the page's warnings. Never NULL. */
+/* Payload: page job->page_index alone as {"pages":[its entry],"findings":[...]} (compact;
+ * pp_report_parts_to_string), its library messages among the page's warnings. Never NULL. */
 char *pp_analyse_report_page(gpointer job);
 /* Payload: the compact findings object of the whole document, pages in this process
  * (for `compare`, which scans one PDF at a time), or the error object. */

@@ -1,10 +1,13 @@
 /* assemble.c — joins per-page findings objects. The totals of the findings file are sums
  * over pages (docs/findings-format.md), so they are recomputed from the parts here and
- * can never disagree with the pages and findings actually kept. */
+ * can never disagree with the pages and findings actually kept. A page line in the document
+ * worker's own form keeps its page entry as text (json_text.c), read for its counts only. */
 #include <string.h>
 
 #include "assemble.h"
+#include "json_text.h"
 #include "record.h"
+#include "report/report.h"
 #include "rules/rules.h"
 
 /* A header claiming more pages than this is a corrupt line: at the 30 s page budget such a
@@ -13,9 +16,37 @@
  * exhausting a 2 GB limit). No outside source. */
 #define MAX_DOCUMENT_PAGES (1u << 17)
 
+/* One page's result: a page entry as nodes (built here, or read by json-glib with its
+ * findings in "_findings"), or as the compact text its page process wrote. */
+typedef struct {
+  JsonNode *node;
+  char *text; /* without node: the entry's text, and what the totals need of it */
+  gsize len;
+  GPtrArray *findings; /* the texts of its findings that are objects */
+  char *error;
+  guint figures, raster, scale;
+  guint by_severity[3];
+} page_slot;
+
+static void page_slot_free(page_slot *ps) {
+  if (ps->node)
+    json_node_unref(ps->node);
+  if (ps->findings)
+    g_ptr_array_unref(ps->findings);
+  g_free(ps->text);
+  g_free(ps->error);
+  g_free(ps);
+}
+
+static page_slot *node_slot(JsonNode *node) {
+  page_slot *ps = g_new0(page_slot, 1);
+  ps->node = node;
+  return ps;
+}
+
 struct pp_assembly {
   JsonNode *header; /* from {"open": ...} */
-  GPtrArray *pages; /* JsonNode* per page index, NULL until reported */
+  GPtrArray *pages; /* page_slot* per page index, NULL until reported */
   char *error_word, *error_reason, *stop_reason, *first_page_error;
   gboolean ended;
   int last_started; /* 0-based, -1 before any */
@@ -25,7 +56,7 @@ struct pp_assembly {
 
 pp_assembly *pp_assembly_new(void) {
   pp_assembly *as = g_new0(pp_assembly, 1);
-  as->pages = g_ptr_array_new_with_free_func((GDestroyNotify)json_node_unref);
+  as->pages = g_ptr_array_new_with_free_func((GDestroyNotify)page_slot_free);
   as->last_started = -1;
   return as;
 }
@@ -43,6 +74,29 @@ void pp_assembly_free(pp_assembly *as) {
   g_free(as);
 }
 
+/* A worker's line is untrusted input: json-glib's typed getters print a "critical" warning
+ * when a member is an object or array where they expect a value, so members are read through
+ * these, which check the node type first and fall back otherwise. */
+static JsonNode *value_member(JsonObject *o, const char *name) {
+  JsonNode *n = o ? json_object_get_member(o, name) : NULL;
+  return n && JSON_NODE_HOLDS_VALUE(n) ? n : NULL;
+}
+
+static const char *string_member(JsonObject *o, const char *name, const char *fallback) {
+  JsonNode *n = value_member(o, name);
+  return n && json_node_get_value_type(n) == G_TYPE_STRING ? json_node_get_string(n) : fallback;
+}
+
+static gint64 int_member(JsonObject *o, const char *name, gint64 fallback) {
+  JsonNode *n = value_member(o, name);
+  return n ? json_node_get_int(n) : fallback;
+}
+
+static gboolean bool_member(JsonObject *o, const char *name, gboolean fallback) {
+  JsonNode *n = value_member(o, name);
+  return n ? json_node_get_boolean(n) : fallback;
+}
+
 /* The array member name of o, or NULL (json-glib warns on a missing member). */
 static JsonArray *array_member(JsonObject *o, const char *name) {
   JsonNode *n = o ? json_object_get_member(o, name) : NULL;
@@ -51,10 +105,7 @@ static JsonArray *array_member(JsonObject *o, const char *name) {
 
 /* The page entry's error text, NULL when the page was analysed. */
 static const char *page_error(JsonObject *page) {
-  JsonNode *n = json_object_get_member(page, "error");
-  return n && JSON_NODE_HOLDS_VALUE(n) && json_node_get_value_type(n) == G_TYPE_STRING
-             ? json_node_get_string(n)
-             : NULL;
+  return string_member(page, "error", NULL);
 }
 
 static JsonNode *failed_page(guint index, const char *reason) {
@@ -67,20 +118,25 @@ static JsonNode *failed_page(guint index, const char *reason) {
 }
 
 static guint header_pages(const pp_assembly *as);
+static void set_page_slot(pp_assembly *as, guint index, page_slot *ps, const char *error);
 
 static void set_page(pp_assembly *as, guint index, JsonNode *node, const char *error) {
+  set_page_slot(as, index, node_slot(node), error);
+}
+
+static void set_page_slot(pp_assembly *as, guint index, page_slot *ps, const char *error) {
   if (index >= MAX_DOCUMENT_PAGES) { /* a corrupt line */
-    json_node_unref(node);
+    page_slot_free(ps);
     return;
   }
   if (index >= as->pages->len)
     g_ptr_array_set_size(as->pages, index + 1);
   if (g_ptr_array_index(as->pages, index)) { /* reported twice: the first report stands */
-    json_node_unref(node);
+    page_slot_free(ps);
     return;
   }
   as->done++;
-  g_ptr_array_index(as->pages, index) = node;
+  g_ptr_array_index(as->pages, index) = ps;
   if (error) {
     as->failed++;
     if (!as->first_page_error)
@@ -91,7 +147,8 @@ static void set_page(pp_assembly *as, guint index, JsonNode *node, const char *e
 /* The one page entry of a one-page findings object, with its findings beside it. */
 static void take_report(pp_assembly *as, guint index, JsonObject *report) {
   JsonArray *pages = array_member(report, "pages");
-  if (!pages || json_array_get_length(pages) != 1) {
+  if (!pages || json_array_get_length(pages) != 1 ||
+      !JSON_NODE_HOLDS_OBJECT(json_array_get_element(pages, 0))) {
     set_page(as, index, failed_page(index, "damaged: the page's result was unreadable"),
              "damaged: the page's result was unreadable");
     return;
@@ -106,7 +163,134 @@ static void take_report(pp_assembly *as, guint index, JsonObject *report) {
   set_page(as, index, page, error);
 }
 
+/* A non-negative integer as the document worker prints it (no sign, no leading zero), at
+ * most 18 digits; advances *p. */
+static gboolean read_count(const char **p, const char *end, gint64 *v) {
+  const char *q = *p;
+  *v = 0;
+  while (q < end && g_ascii_isdigit(*q) && q - *p < 18)
+    *v = *v * 10 + (*q++ - '0');
+  if (q == *p || (q - *p > 1 && **p == '0') || (q < end && g_ascii_isdigit(*q)))
+    return FALSE;
+  *p = q;
+  return TRUE;
+}
+
+static gboolean read_literal(const char **p, const char *end, const char *text) {
+  size_t n = strlen(text);
+  if ((size_t)(end - *p) < n || memcmp(*p, text, n) != 0)
+    return FALSE;
+  *p += n;
+  return TRUE;
+}
+
+/* No member name of the object [o, o_end) has an escape (one could spell "severity"). */
+static gboolean escape_free_names(const char *o, const char *o_end) {
+  const char *n, *n_end, *v, *v_end;
+  while (pp_json_text_next(&o, o_end, &n, &n_end, &v, &v_end))
+    if (memchr(n, '\\', (size_t)(n_end - n)))
+      return FALSE;
+  return TRUE;
+}
+
+static guint count_elements(const char *v, const char *v_end) {
+  const char *el, *el_end;
+  guint n = 0;
+  if (*v != '[')
+    return 0;
+  while (pp_json_text_next(&v, v_end, NULL, NULL, &el, &el_end))
+    n++;
+  return n;
+}
+
+/* {"page":N,"rss_kib":R,"report":{...}} exactly as the document worker writes it
+ * (docworker.c): the page entry is kept as text, only its error, its counts and the findings
+ * are read. FALSE for anything else, before any change: json-glib then reads the line. */
+static gboolean feed_page_text(pp_assembly *as, const char *line, gsize len) {
+  const char *p = line, *end = line + len, *n, *n_end, *v, *v_end;
+  gint64 index, rss;
+  if (!read_literal(&p, end, "{\"page\":") || !read_count(&p, end, &index) ||
+      !read_literal(&p, end, ",\"rss_kib\":") || !read_count(&p, end, &rss) ||
+      !read_literal(&p, end, ",\"report\":") || p >= end || *p != '{' || end[-1] != '}' ||
+      pp_json_text_skip(p, end - 1) != end - 1)
+    return FALSE;
+  /* Member names with escapes could spell "pages" another way: json-glib reads those. */
+  const char *pages = NULL, *pages_end = NULL, *found = NULL, *found_end = NULL;
+  for (const char *r = p; pp_json_text_next(&r, end - 1, &n, &n_end, &v, &v_end);) {
+    if (memchr(n, '\\', (size_t)(n_end - n)))
+      return FALSE;
+    if (pp_json_text_name_is(n, n_end, "pages"))
+      pages = v, pages_end = v_end;
+    else if (pp_json_text_name_is(n, n_end, "findings"))
+      found = v, found_end = v_end;
+  }
+  const char *entry, *entry_end, *rest;
+  if (!pages || *pages != '[' ||
+      !pp_json_text_next(&pages, pages_end, NULL, NULL, &entry, &entry_end) || *entry != '{' ||
+      pp_json_text_next(&pages, pages_end, NULL, NULL, &rest, &rest))
+    return FALSE; /* not one page entry: the slow way reports it */
+  page_slot *ps = g_new0(page_slot, 1);
+  const char *error = NULL, *error_end = NULL;
+  for (const char *e = entry; pp_json_text_next(&e, entry_end, &n, &n_end, &v, &v_end);) {
+    if (memchr(n, '\\', (size_t)(n_end - n)) || pp_json_text_name_is(n, n_end, "_findings")) {
+      page_slot_free(ps);
+      return FALSE;
+    }
+    if (pp_json_text_name_is(n, n_end, "error"))
+      error = v, error_end = v_end;
+    else if (pp_json_text_name_is(n, n_end, "figures"))
+      ps->figures = count_elements(v, v_end);
+    else if (pp_json_text_name_is(n, n_end, "raster_images_not_analysed"))
+      ps->raster = count_elements(v, v_end);
+    else if (pp_json_text_name_is(n, n_end, "scale_failures"))
+      ps->scale = count_elements(v, v_end);
+  }
+  if (error && *error == '"') {
+    if (memchr(error, '\\', (size_t)(error_end - error))) {
+      page_slot_free(ps);
+      return FALSE; /* an escaped error text: json-glib unescapes it */
+    }
+    ps->error = g_strndup(error + 1, (gsize)(error_end - error - 2));
+  }
+  /* As pp_assembly_finish counts them: findings that are not objects are dropped, and a
+   * severity counts only as a string (an escaped one is left to json-glib). */
+  ps->findings = g_ptr_array_new_with_free_func(g_free);
+  const char *f, *f_end;
+  for (const char *a = found && *found == '[' ? found : NULL;
+       a && pp_json_text_next(&a, found_end, NULL, NULL, &f, &f_end);) {
+    if (*f != '{')
+      continue;
+    const char *sev = NULL, *sev_end = NULL;
+    for (const char *m = f; pp_json_text_next(&m, f_end, &n, &n_end, &v, &v_end);)
+      if (pp_json_text_name_is(n, n_end, "severity"))
+        sev = v, sev_end = v_end;
+    if ((sev && *sev == '"' && memchr(sev, '\\', (size_t)(sev_end - sev))) ||
+        !escape_free_names(f, f_end)) {
+      page_slot_free(ps);
+      return FALSE;
+    }
+    for (int k = 0; sev && *sev == '"' && k < 3; k++)
+      ps->by_severity[k] += pp_json_text_name_is(sev, sev_end, pp_severity_name(k));
+    g_ptr_array_add(ps->findings, g_strndup(f, (gsize)(f_end - f)));
+  }
+  /* As the slow way: an index outside the document the header opened is a corrupt line. */
+  if (index >= (gint64)header_pages(as)) {
+    as->bad_lines++;
+    page_slot_free(ps);
+    return TRUE;
+  }
+  as->max_rss_kib = MAX(as->max_rss_kib, rss);
+  ps->text = g_strndup(entry, (gsize)(entry_end - entry));
+  ps->len = (gsize)(entry_end - entry);
+  char *why = g_strdup(ps->error);
+  set_page_slot(as, (guint)index, ps, why);
+  g_free(why);
+  return TRUE;
+}
+
 void pp_assembly_feed(pp_assembly *as, const char *line, gsize len) {
+  if (feed_page_text(as, line, len))
+    return;
   g_autoptr(JsonParser) parser = json_parser_new();
   if (!pp_json_is_one_object(line, len) ||
       !json_parser_load_from_data(parser, line, (gssize)len, NULL) ||
@@ -123,8 +307,8 @@ void pp_assembly_feed(pp_assembly *as, const char *line, gsize len) {
     JsonObject *e = json_node_get_object(n);
     g_free(as->error_word);
     g_free(as->error_reason);
-    as->error_word = g_strdup(json_object_get_string_member_with_default(e, "word", "damaged"));
-    as->error_reason = g_strdup(json_object_get_string_member_with_default(e, "message", ""));
+    as->error_word = g_strdup(string_member(e, "word", "damaged"));
+    as->error_reason = g_strdup(string_member(e, "message", ""));
   } else if ((n = json_object_get_member(o, "start")) && JSON_NODE_HOLDS_VALUE(n)) {
     gint64 i = json_node_get_int(n);
     if (i >= 0 && i < G_MAXINT)
@@ -138,19 +322,18 @@ void pp_assembly_feed(pp_assembly *as, const char *line, gsize len) {
       as->bad_lines++;
       return;
     }
-    as->max_rss_kib =
-        MAX(as->max_rss_kib, json_object_get_int_member_with_default(o, "rss_kib", 0));
+    as->max_rss_kib = MAX(as->max_rss_kib, int_member(o, "rss_kib", 0));
     JsonNode *r = json_object_get_member(o, "report");
     if (r && JSON_NODE_HOLDS_OBJECT(r)) {
       take_report(as, (guint)i, json_node_get_object(r));
     } else {
-      const char *why = json_object_get_string_member_with_default(o, "error", "not analysed");
+      const char *why = string_member(o, "error", "not analysed");
       set_page(as, (guint)i, failed_page((guint)i, why), why);
     }
   } else if ((n = json_object_get_member(o, "stop")) && JSON_NODE_HOLDS_VALUE(n)) {
     g_free(as->stop_reason);
-    as->stop_reason = g_strdup(json_node_get_string(n));
-  } else if (json_object_get_boolean_member_with_default(o, "end", FALSE)) {
+    as->stop_reason = g_strdup(string_member(o, "stop", "stopped"));
+  } else if (bool_member(o, "end", FALSE)) {
     as->ended = TRUE;
   } else {
     as->bad_lines++;
@@ -162,13 +345,55 @@ static guint header_pages(const pp_assembly *as) {
     return 0;
   JsonNode *d = json_object_get_member(json_node_get_object(as->header), "document");
   JsonObject *doc = d && JSON_NODE_HOLDS_OBJECT(d) ? json_node_get_object(d) : NULL;
-  gint64 n = doc ? json_object_get_int_member_with_default(doc, "pages", 0) : 0;
+  gint64 n = int_member(doc, "pages", 0);
   return n > 0 && n < MAX_DOCUMENT_PAGES ? (guint)n : 0;
 }
 
-JsonNode *pp_assembly_finish(pp_assembly *as, const char *interrupted_reason, const char **word,
-                             const char **reason) {
+/* Where the (empty) level-1 array "name" of json-glib's text of the findings object opens. */
+static const char *array_slot(const char *text, const char *name) {
+  char *slot = g_strdup_printf("\n  \"%s\" : []", name);
+  const char *at = strstr(text, slot);
+  if (at)
+    at += strlen(slot) - 2;
+  g_free(slot);
+  return at;
+}
+
+/* The elements, each indented as json-glib writes an element at level 2. */
+static void append_elements(GString *out, GPtrArray *elements) {
+  for (guint i = 0; i < elements->len; i++) {
+    const char *e = g_ptr_array_index(elements, i);
+    g_string_append_len(out, i ? ",\n    " : "\n    ", i ? 6 : 5);
+    pp_json_text_indent(out, e, e + strlen(e), 2);
+  }
+  if (elements->len)
+    g_string_append(out, "\n  ");
+}
+
+/* json-glib's text of the findings object with "pages" and "findings" (empty there) filled. */
+static char *splice_arrays(const char *bare, gsize len, GPtrArray *pages, GPtrArray *findings,
+                           gsize size) {
+  const char *slot[2] = {array_slot(bare, "pages"), array_slot(bare, "findings")};
+  GPtrArray *els[2] = {pages, findings};
+  int first = slot[0] && slot[1] && slot[1] < slot[0];
+  GString *out = g_string_sized_new(len + size);
+  const char *from = bare;
+  for (int k = 0; k < 2; k++) {
+    int j = k ^ first;
+    if (!slot[j])
+      continue;
+    g_string_append_len(out, from, slot[j] + 1 - from);
+    append_elements(out, els[j]);
+    from = slot[j] + 1;
+  }
+  g_string_append(out, from);
+  return g_string_free(out, FALSE);
+}
+
+JsonNode *pp_assembly_finish_text(pp_assembly *as, const char *interrupted_reason,
+                                  const char **word, const char **reason, char **text) {
   *word = *reason = NULL;
+  *text = NULL;
   if (!as->header) {
     *word = as->error_word ? as->error_word : "damaged";
     *reason = as->error_reason ? as->error_reason : interrupted_reason;
@@ -187,56 +412,84 @@ JsonNode *pp_assembly_finish(pp_assembly *as, const char *interrupted_reason, co
   }
   JsonNode *root = json_node_copy(as->header);
   JsonObject *ro = json_node_get_object(root);
-  JsonArray *pages = json_array_new(), *findings = json_array_new();
+  GPtrArray *pages = g_ptr_array_new(), *findings = g_ptr_array_new_with_free_func(g_free);
   gint64 figures = 0, raster = 0, scale = 0, failed = 0, sev[3] = {0};
-  const char *sev_names[3] = {pp_severity_name(0), pp_severity_name(1), pp_severity_name(2)};
   for (guint i = 0; i < as->pages->len; i++) {
-    JsonNode *page = json_node_copy(g_ptr_array_index(as->pages, i));
-    JsonObject *po = json_node_get_object(page);
-    JsonArray *pf = array_member(po, "_findings");
-    for (guint k = 0; pf && k < json_array_get_length(pf); k++) {
-      JsonNode *f = json_array_get_element(pf, k);
-      /* a worker's line is untrusted input: a finding that is not an object is dropped, and
-       * a severity that is not a string (null, a number) counts in no severity */
-      if (!JSON_NODE_HOLDS_OBJECT(f))
-        continue;
-      json_array_add_element(findings, json_node_copy(f));
-      JsonNode *sn = json_object_get_member(json_node_get_object(f), "severity");
-      const char *s =
-          sn && JSON_NODE_HOLDS_VALUE(sn) && json_node_get_value_type(sn) == G_TYPE_STRING
-              ? json_node_get_string(sn)
-              : "";
-      for (int k2 = 0; k2 < 3; k2++)
-        sev[k2] += strcmp(s, sev_names[k2]) == 0;
+    page_slot *ps = g_ptr_array_index(as->pages, i);
+    if (ps->node) { /* counted as the text slots were in feed_page_text */
+      JsonObject *po = json_node_get_object(ps->node);
+      JsonArray *pf = array_member(po, "_findings");
+      for (guint k = 0; pf && k < json_array_get_length(pf); k++) {
+        JsonNode *f = json_array_get_element(pf, k);
+        /* a worker's line is untrusted input: a finding that is not an object is dropped, and
+         * a severity that is not a string (null, a number) counts in no severity */
+        if (!JSON_NODE_HOLDS_OBJECT(f))
+          continue;
+        g_ptr_array_add(findings, json_to_string(f, FALSE));
+        const char *s = string_member(json_node_get_object(f), "severity", "");
+        for (int k2 = 0; k2 < 3; k2++)
+          sev[k2] += strcmp(s, pp_severity_name(k2)) == 0;
+      }
+      if (json_object_has_member(po, "_findings"))
+        json_object_remove_member(po, "_findings");
+      JsonArray *figs = array_member(po, "figures");
+      JsonArray *ras = array_member(po, "raster_images_not_analysed");
+      JsonArray *sca = array_member(po, "scale_failures");
+      figures += figs ? json_array_get_length(figs) : 0;
+      raster += ras ? json_array_get_length(ras) : 0;
+      scale += sca ? json_array_get_length(sca) : 0;
+      failed += page_error(po) != NULL;
+      g_free(ps->text); /* the entry as text, for the findings file */
+      ps->text = json_to_string(ps->node, FALSE);
+      ps->len = strlen(ps->text);
+    } else {
+      figures += ps->figures;
+      raster += ps->raster;
+      scale += ps->scale;
+      failed += ps->error != NULL;
+      for (int k = 0; k < 3; k++)
+        sev[k] += ps->by_severity[k];
+      for (guint k = 0; k < ps->findings->len; k++)
+        g_ptr_array_add(findings, g_strdup(g_ptr_array_index(ps->findings, k)));
     }
-    if (json_object_has_member(po, "_findings"))
-      json_object_remove_member(po, "_findings");
-    if (page_error(po))
-      failed++;
-    JsonArray *figs = array_member(po, "figures");
-    JsonArray *ras = array_member(po, "raster_images_not_analysed");
-    JsonArray *sca = array_member(po, "scale_failures");
-    figures += figs ? json_array_get_length(figs) : 0;
-    raster += ras ? json_array_get_length(ras) : 0;
-    scale += sca ? json_array_get_length(sca) : 0;
-    json_array_add_element(pages, page);
+    g_ptr_array_add(pages, ps->text);
   }
-  json_object_set_array_member(ro, "pages", pages);
-  json_object_set_array_member(ro, "findings", findings);
+  json_object_set_array_member(ro, "pages", json_array_new());
+  json_object_set_array_member(ro, "findings", json_array_new());
   JsonObject *t = json_object_new();
-  gint64 total = json_array_get_length(pages);
+  gint64 total = as->pages->len;
   json_object_set_int_member(t, "pages", total);
   json_object_set_int_member(t, "pages_analysed", total - failed);
   json_object_set_int_member(t, "pages_failed", failed);
   json_object_set_int_member(t, "figures", figures);
   json_object_set_int_member(t, "raster_images_not_analysed", raster);
   json_object_set_int_member(t, "scale_failures", scale);
-  json_object_set_int_member(t, "findings", json_array_get_length(findings));
+  json_object_set_int_member(t, "findings", findings->len);
   JsonObject *by = json_object_new();
   for (int k = 0; k < 3; k++)
-    json_object_set_int_member(by, sev_names[k], sev[k]);
+    json_object_set_int_member(by, pp_severity_name(k), sev[k]);
   json_object_set_object_member(t, "by_severity", by);
   json_object_set_object_member(ro, "totals", t);
+  gsize len = 0, size = findings->len * 512;
+  char *bare = pp_report_node_to_string(root, TRUE, &len);
+  for (guint i = 0; i < as->pages->len; i++)
+    size += ((page_slot *)g_ptr_array_index(as->pages, i))->len * 3 / 2;
+  *text = splice_arrays(bare, len, pages, findings, size);
+  g_free(bare);
+  g_ptr_array_unref(pages);
+  g_ptr_array_unref(findings);
+  return root;
+}
+
+JsonNode *pp_assembly_finish(pp_assembly *as, const char *interrupted_reason, const char **word,
+                             const char **reason) {
+  char *text;
+  JsonNode *bare = pp_assembly_finish_text(as, interrupted_reason, word, reason, &text);
+  if (!bare)
+    return NULL;
+  json_node_unref(bare);
+  JsonNode *root = json_from_string(text, NULL);
+  g_free(text);
   return root;
 }
 

@@ -20,6 +20,12 @@ void pp_assembly_feed(pp_assembly *as, const char *line, gsize len);
 JsonNode *pp_assembly_finish(pp_assembly *as, const char *interrupted_reason, const char **word,
                              const char **reason);
 
+/* The same, written out: *text is the findings object as json-glib's pretty generator writes
+ * it (no final newline; g_free it), and the node returned holds everything but the page
+ * entries ("pages" is empty), which is enough for the totals and the summary counts. */
+JsonNode *pp_assembly_finish_text(pp_assembly *as, const char *interrupted_reason,
+                                  const char **word, const char **reason, char **text);
+
 gboolean pp_assembly_ended(const pp_assembly *as);     /* the worker said {"end": true} */
 guint pp_assembly_pages(const pp_assembly *as);        /* pages of the document, 0 before open */
 guint pp_assembly_pages_done(const pp_assembly *as);   /* page results received */

@@ -95,10 +95,13 @@ static void finish(task *t) {
       WIFEXITED(t->status) && WEXITSTATUS(t->status) == 0 && !t->timed_out && !t->killed;
   char *why = clean_exit ? NULL : worker_end_reason(t);
   const char *word = NULL, *reason = NULL;
-  JsonNode *root = pp_assembly_finish(t->as, why ? why : "the worker stopped", &word, &reason);
+  char *text = NULL;
+  JsonNode *root =
+      pp_assembly_finish_text(t->as, why ? why : "the worker stopped", &word, &reason, &text);
   pp_batch_result r = {0};
   r.id = t->item->id;
   r.root = root;
+  r.text = text;
   r.complete = root && clean_exit && pp_assembly_ended(t->as);
   r.interrupted = t->killed;
   r.pages = pp_assembly_pages(t->as);
@@ -118,6 +121,7 @@ static void finish(task *t) {
   b->done(&r, b->user_data);
   if (root)
     json_node_unref(root);
+  g_free(text);
   g_free(why);
   g_ptr_array_remove(b->running, t);
   pp_assembly_free(t->as);

@@ -16,7 +16,9 @@ typedef struct {
 
 typedef struct {
   guint id;
-  JsonNode *root;            /* the findings object, or NULL when the document failed */
+  JsonNode *root;   /* the findings object without its page entries, or NULL when the document
+                     * failed (pp_assembly_finish_text) */
+  const char *text; /* with root: the whole findings object as text (json-glib's pretty form) */
   const char *word, *reason; /* why it failed, or why pages are missing (NULL if complete) */
   gboolean complete;         /* every page reported and the worker ended normally */
   gboolean interrupted;      /* stopped by a signal to the batch */

@@ -18,7 +18,7 @@ typedef struct {
  *   {"error": {"code", "word", "message"}}       the document cannot be opened
  *   {"open": <findings object without pages>}    header, document identity
  *   {"start": I}                                 page I (0-based) begins
- *   {"page": I, "report": <one-page findings>}   page I done
+ *   {"page": I, "report": {"pages": [entry], "findings": [...]}}   page I done
  *   {"page": I, "error": "too complex: ..."}     page I over its budget, or crashed
  *   {"stop": "..."}                              the document's CPU limit is spent
  *   {"end": true}                                all pages done

@@ -134,6 +134,14 @@ static void document_failed(scan *s, guint idx, pp_record *r) {
   show(s, in, NULL, r);
 }
 
+/* Whether anything after the findings file reads the page entries: the summary block (its
+ * coverage lines), the JSON on stdout, the baseline and the review outputs. Otherwise the
+ * object without them (pp_assembly_finish_text) is enough, and no tree of the pages is built. */
+static gboolean reads_pages(const pp_cli_options *opt) {
+  return opt->json || !opt->quiet || opt->baseline_file || opt->csv_file || opt->sarif_file ||
+         opt->html_dir || opt->annotate;
+}
+
 static void on_done(const pp_batch_result *res, gpointer data) {
   scan *s = data;
   pp_input *in = g_ptr_array_index(s->inputs, res->id);
@@ -168,8 +176,7 @@ static void on_done(const pp_batch_result *res, gpointer data) {
     fill_counts(&r, root);
     r.status = res->complete && r.pages_failed == 0 ? PP_STATUS_OK : PP_STATUS_PARTIAL;
     if (out) {
-      char *text = pp_report_node_to_string(root, TRUE, NULL);
-      char *with_nl = g_strconcat(text, "\n", NULL);
+      char *with_nl = g_strconcat(res->text, "\n", NULL);
       GError *error = NULL;
       if (!pp_output_write_atomic(out, with_nl, strlen(with_nl), &error)) {
         r.status = PP_STATUS_FAILED;
@@ -180,9 +187,11 @@ static void on_done(const pp_batch_result *res, gpointer data) {
         root = NULL;
       }
       g_free(with_nl);
-      g_free(text);
     }
   }
+  JsonNode *full = NULL;
+  if (root && reads_pages(s->opt) && (full = json_from_string(res->text, NULL)))
+    root = full;
   if (!root) {
     document_failed(s, res->id, &r);
   } else {
@@ -207,6 +216,8 @@ static void on_done(const pp_batch_result *res, gpointer data) {
   }
   pp_progress_document(s->progress, in->path, r.status, (guint)r.pages, (guint)r.findings,
                        r.seconds);
+  if (full)
+    json_node_unref(full);
   g_free(reason);
   g_free(out);
 }

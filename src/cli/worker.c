@@ -237,12 +237,15 @@ static gboolean read_lines(int fd, const pp_worker_limits *limits, pp_worker_lin
       break;
     }
     gboolean go_on = TRUE;
-    for (ssize_t i = 0; i < n && go_on; i++) {
-      if (buf[i] != '\n') {
-        g_string_append_c(line, buf[i]);
-        continue;
-      }
-      g_string_append(all, line->str);
+    for (const char *p = buf, *stop = buf + n; p < stop && go_on;) {
+      const char *nl = memchr(p, '\n', (size_t)(stop - p));
+      g_string_append_len(line, p, (nl ? nl : stop) - p);
+      if (!nl)
+        break;
+      p = nl + 1;
+      /* The result needs no copy of the lines: a non-empty payload says the child spoke. */
+      if (all->len == 0 && line->len > 0)
+        g_string_append_c(all, '\n');
       go_on = on_line(line->str, line_data);
       g_string_truncate(line, 0);
       deadline = deadline_after(limits);

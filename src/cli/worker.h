@@ -46,7 +46,8 @@ typedef gboolean (*pp_worker_line_func)(const char *line, gpointer data);
 
 /* Like pp_worker_run for a child that reports in lines: the wall limit applies to each
  * line (from the start, then from the line before), so one child can do many short jobs
- * each under the limit. result->payload gets the lines joined; DONE needs at least one. */
+ * each under the limit. result->payload holds no copy of the lines (on_line has them): it is
+ * not empty once a non-empty line came, which DONE needs. */
 void pp_worker_run_lines(pp_worker_lines_func func, gpointer data, const pp_worker_limits *limits,
                          pp_worker_line_func on_line, gpointer line_data, pp_worker_result *result);
 

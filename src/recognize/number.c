@@ -231,6 +231,9 @@ static const unit_token *match_unit(const char *p, const char *end, size_t *len)
   const unit_token *best = NULL;
   size_t best_len = 0;
   for (size_t i = 0; i < G_N_ELEMENTS(unit_tokens); i++) {
+    /* The first byte rules out nearly every token before its length is taken. */
+    if (p >= end || unit_tokens[i].text[0] != *p)
+      continue;
     size_t n = strlen(unit_tokens[i].text);
     if (n <= best_len || (size_t)(end - p) < n || memcmp(p, unit_tokens[i].text, n) != 0)
       continue;
@@ -375,6 +378,39 @@ static gboolean apply_unit(const unit_token *t, size_t len, const char *p, pp_nu
   return FALSE;
 }
 
+/* "I.F0eE" for the digit string (nint of them before the decimal mark) and the power of ten,
+ * read by g_ascii_strtod: one correctly rounded conversion. Written without printf and on the
+ * stack unless the label is very long: this ran for every numeric word of every page. */
+static double decimal_value(const char *digits, int nint, int e10) {
+  char stack[96];
+  size_t ndig = strlen(digits), need = ndig + 24;
+  char *buf = need <= sizeof stack ? stack : g_malloc(need), *q = buf;
+  memcpy(q, digits, (size_t)nint);
+  q += nint;
+  if (nint == 0)
+    *q++ = '0';
+  *q++ = '.';
+  memcpy(q, digits + nint, ndig - (size_t)nint);
+  q += ndig - (size_t)nint;
+  *q++ = '0';
+  *q++ = 'e';
+  if (e10 < 0)
+    *q++ = '-';
+  unsigned int u = e10 < 0 ? 0u - (unsigned int)e10 : (unsigned int)e10;
+  char rev[12];
+  int k = 0;
+  do
+    rev[k++] = (char)('0' + u % 10);
+  while ((u /= 10) != 0);
+  while (k > 0)
+    *q++ = rev[--k];
+  *q = '\0';
+  double v = g_ascii_strtod(buf, NULL);
+  if (buf != stack)
+    g_free(buf);
+  return v;
+}
+
 /* Parses s..end under one definite convention. *last_dec_zero reports whether the final decimal
  * digit is '0', which the series chooser reads as a sign of a misread grouping ("1.000"). */
 static gboolean parse_strict(const char *s, const char *end, pp_decimal_mark conv, pp_number *out,
@@ -505,15 +541,7 @@ static gboolean parse_strict(const char *s, const char *end, pp_decimal_mark con
 
   /* one correctly rounded conversion of the whole decimal string, multiplier included */
   int nint_digits = (int)digits->len - out->decimals;
-  GString *num = g_string_new(NULL);
-  g_string_append_len(num, digits->str, nint_digits);
-  if (nint_digits == 0)
-    g_string_append_c(num, '0');
-  g_string_append_c(num, '.');
-  g_string_append(num, digits->str + nint_digits);
-  g_string_append_printf(num, "0e%d", exp + st.exp10);
-  out->value = g_ascii_strtod(num->str, NULL);
-  g_string_free(num, TRUE);
+  out->value = decimal_value(digits->str, nint_digits, exp + st.exp10);
   if (!isfinite(out->value))
     goto done;
   if (out->value == 0.0) /* "-0" is zero, not a negative value */

@@ -100,24 +100,66 @@ static gboolean continues(const slice *a, const slice *b) {
  * the window never leaves out a slice continues() would take. */
 #define PP_SLICE_SEARCH_SLACK 1e-6
 
-/* The first of slices (in order of top, all finite) from `from` on whose top lies where
- * one continuing a can start, and in *hi the lowest such top: continues() needs a gap of
- * at least -1 pt and at most PP_SLICE_GAP_SHARE of the thinner slice (so of a) plus
- * 1.5 pt. A page of 10^5 tiles otherwise tries every later slice of its row for each. */
-static guint continuation_start(GArray *slices, const slice *a, guint from, double *hi) {
+/* Where a slice continuing a can start: continues() needs a gap of at least -1 pt and at
+ * most PP_SLICE_GAP_SHARE of the thinner slice (so of a) plus 1.5 pt, so its top lies in
+ * [*lo, *hi]. */
+static void continuation_tops(const slice *a, double *lo, double *hi) {
   double h = fabs(a->y1 - a->y0);
   double slack = PP_SLICE_SEARCH_SLACK * (1 + fabs(a->y1) + h);
-  double lo = a->y1 - 1.0 - slack;
+  *lo = a->y1 - 1.0 - slack;
   *hi = a->y1 + PP_SLICE_GAP_SHARE * h + 1.5 + slack;
-  guint l = from, r = slices->len;
-  while (l < r) { /* the first top at least lo */
-    guint mid = l + (r - l) / 2;
-    if (g_array_index(slices, slice, mid).y0 < lo)
-      l = mid + 1;
-    else
-      r = mid;
+}
+
+/* Links each slice (in order of top) to the first later one that continues it and has
+ * none above yet. When every slice's numbers are finite, only the slices whose top and
+ * centre line can pass continues() are tried, found in a grid over (centre, top): the
+ * centres agree within PP_SLICE_CENTRE_SHARE of the wider plus 1 pt, so within that
+ * share of the page's widest slice. A page of 10^5 tiles otherwise tried every later
+ * slice of the next row for each. */
+static void link_slices(GArray *slices, int *next, gboolean *has_prev) {
+  guint n = slices->len;
+  double widest = 0;
+  gboolean finite = TRUE;
+  for (guint i = 0; i < n && finite; i++) {
+    const slice *s = &g_array_index(slices, slice, i);
+    finite =
+        isfinite(s->y0) && isfinite(s->y1) && isfinite(s->xc) && isfinite(s->w0) && isfinite(s->w1);
+    widest = fmax(widest, fmax(fabs(s->w0), fabs(s->w1)));
   }
-  return l;
+  double reach = PP_SLICE_CENTRE_SHARE * widest + 1;
+  finite = finite && isfinite(reach);
+  g_autoptr(pp_box_grid) grid = NULL;
+  g_autoptr(GArray) near = g_array_new(FALSE, FALSE, sizeof(guint));
+  if (finite) {
+    g_autofree pp_rect *pts = g_new(pp_rect, MAX(n, 1));
+    for (guint i = 0; i < n; i++) {
+      const slice *s = &g_array_index(slices, slice, i);
+      pts[i] = (pp_rect){s->xc, s->y0, s->xc, s->y0};
+    }
+    grid = pp_box_grid_new(pts, n);
+  }
+  for (guint i = 0; i < n; i++) {
+    const slice *a = &g_array_index(slices, slice, i);
+    next[i] = -1;
+    if (!finite) {
+      for (guint k = i + 1; k < n && next[i] < 0; k++)
+        if (!has_prev[k] && continues(a, &g_array_index(slices, slice, k))) {
+          next[i] = (int)k;
+          has_prev[k] = TRUE;
+        }
+      continue;
+    }
+    double lo, hi, dx = reach + PP_SLICE_SEARCH_SLACK * (1 + fabs(a->xc) + reach);
+    continuation_tops(a, &lo, &hi);
+    pp_box_grid_query(grid, (pp_rect){a->xc - dx, lo, a->xc + dx, hi}, near);
+    for (guint j = 0; j < near->len && next[i] < 0; j++) { /* ascending: the first wins */
+      guint k = g_array_index(near, guint, j);
+      if (k > i && !has_prev[k] && continues(a, &g_array_index(slices, slice, k))) {
+        next[i] = (int)k;
+        has_prev[k] = TRUE;
+      }
+    }
+  }
 }
 
 /* The free number on the slice: inside its box, else on its row beside it, nearest. */
@@ -237,22 +279,7 @@ void pp_recognize_pyramids(pp_recognize_ctx *ctx) {
   /* chains of slices, each continuing the one above */
   g_autofree int *next = g_new(int, MAX(slices->len, 1));
   g_autofree gboolean *has_prev = g_new0(gboolean, MAX(slices->len, 1));
-  gboolean finite = TRUE; /* then slices are in order of top and windows apply */
-  for (guint i = 0; i < slices->len && finite; i++) {
-    const slice *s = &g_array_index(slices, slice, i);
-    finite = isfinite(s->y0) && isfinite(s->y1);
-  }
-  for (guint i = 0; i < slices->len; i++) {
-    const slice *a = &g_array_index(slices, slice, i);
-    next[i] = -1;
-    double hi = INFINITY; /* no slice beyond this top continues a */
-    guint k = finite ? continuation_start(slices, a, i + 1, &hi) : i + 1;
-    for (; k < slices->len && !(g_array_index(slices, slice, k).y0 > hi) && next[i] < 0; k++)
-      if (!has_prev[k] && continues(a, &g_array_index(slices, slice, k))) {
-        next[i] = (int)k;
-        has_prev[k] = TRUE;
-      }
-  }
+  link_slices(slices, next, has_prev);
   for (guint i = 0; i < slices->len; i++) {
     if (has_prev[i])
       continue;

@@ -337,6 +337,8 @@ JsonNode *pp_report_to_json(const pp_report *r) {
 }
 
 char *pp_report_node_to_string(JsonNode *node, gboolean pretty, gsize *length) {
+  if (!pretty)
+    return pp_json_write_compact(node, length);
   g_autoptr(JsonGenerator) gen = json_generator_new();
   json_generator_set_pretty(gen, pretty);
   json_generator_set_indent(gen, 2);
@@ -348,6 +350,17 @@ char *pp_report_to_string(const pp_report *r, gboolean pretty, gsize *length) {
   JsonNode *root = pp_report_to_json(r);
   char *s = pp_report_node_to_string(root, pretty, length);
   json_node_unref(root);
+  return s;
+}
+
+char *pp_report_parts_to_string(const pp_report *r, gsize *length) {
+  JsonObject *o = json_object_new();
+  json_object_set_array_member(o, "pages", json_array_ref(r->pages));
+  json_object_set_array_member(o, "findings", json_array_ref(r->findings));
+  JsonNode *n = json_node_new(JSON_NODE_OBJECT);
+  json_node_take_object(n, o);
+  char *s = pp_json_write_compact(n, length);
+  json_node_unref(n);
   return s;
 }
 

@@ -13,6 +13,11 @@
  * the exponent). Such a value (one mantissa digit with an exponent) is moved one unit in the
  * last place toward zero, a relative change of 2^-52, whose text always has a '.'. */
 double pp_json_writable_double(double v) {
+  /* g_ascii_dtostr() is printf's "%.17g" (GLib's gstrfuncs.c), which uses an exponent only
+   * when the decimal exponent is below -4 or at least 17 (C17 §7.21.6.1): values in between
+   * need no formatting to be known safe. */
+  if (fabs(v) >= 1e-4 && fabs(v) < 1e16)
+    return v;
   char buf[G_ASCII_DTOSTR_BUF_SIZE];
   for (int i = 0; i < 4 && v != 0; i++) {
     g_ascii_dtostr(buf, sizeof buf, v);

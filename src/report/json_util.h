@@ -24,3 +24,5 @@ pp_rect pp_json_rect_map(pp_rect r, pp_matrix m);
 /* "evidence": what made the figure a chart, each piece with its score (the confidence
  * combines them); written alike in the findings file and the charts JSON. */
 void pp_json_member_evidence(JsonBuilder *b, const pp_figure *f);
+/* The compact text json-glib's generator writes for node, written directly (json_write.c). */
+char *pp_json_write_compact(JsonNode *node, gsize *length);

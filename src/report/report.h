@@ -42,6 +42,10 @@ guint pp_report_n_findings(const pp_report *report);
 JsonNode *pp_report_to_json(const pp_report *report);
 /* Serialised; pretty for files, compact (one line, for JSON Lines) otherwise. */
 char *pp_report_to_string(const pp_report *report, gboolean pretty, gsize *length);
+/* Only the page entries and the findings, compact: {"pages":[...],"findings":[...]}, what the
+ * scheduler takes from a page process (it has the rest from the document worker's header and
+ * sums the totals itself). */
+char *pp_report_parts_to_string(const pp_report *report, gsize *length);
 /* Writes atomically (temporary file + rename) so a crash never leaves half a file. */
 gboolean pp_report_write_file(const pp_report *report, const char *path, GError **error);
 

@@ -594,6 +594,38 @@ static void test_negatives(void **state) {
   CHECK_REJECTED("5)");
 }
 
+/* Exact, not close: the whole decimal string is converted once, and C17 §7.22.1.3 with IEEE 754
+ * §5.12.2 (glibc's strtod rounds correctly) gives the double nearest to it, the same as the
+ * literal. The long ones pass 96 bytes, where number.c builds the string on the heap. */
+static void test_exact_conversion(void **state) {
+  (void)state;
+  struct {
+    const char *label;
+    double want;
+  } cases[] = {{"0.1", 0.1},         {"123.456", 123.456},
+               {"2.5e-3", 2.5e-3},   {"-0.3", -0.3},
+               {"1.5E300", 1.5e300}, {"9,007,199,254,740,993", 9007199254740993.0},
+               {"0.0000001", 1e-7}};
+  for (size_t i = 0; i < G_N_ELEMENTS(cases); i++) {
+    pp_number n;
+    assert_true(pp_number_parse(cases[i].label, PP_DECIMAL_POINT, &n));
+    assert_true(n.value == cases[i].want);
+  }
+  GString *big = g_string_new("1"), *tiny = g_string_new("0.");
+  for (int i = 0; i < 120; i++)
+    g_string_append_c(big, '0');
+  for (int i = 0; i < 119; i++)
+    g_string_append_c(tiny, '0');
+  g_string_append_c(tiny, '1');
+  pp_number n;
+  assert_true(pp_number_parse(big->str, PP_DECIMAL_POINT, &n));
+  assert_true(n.value == 1e120);
+  assert_true(pp_number_parse(tiny->str, PP_DECIMAL_POINT, &n));
+  assert_true(n.value == 1e-120);
+  g_string_free(big, TRUE);
+  g_string_free(tiny, TRUE);
+}
+
 static void test_rejections(void **state) {
   (void)state;
   static const char *const bad[] = {
@@ -751,6 +783,7 @@ int main(void) {
       cmocka_unit_test(test_percent),
       cmocka_unit_test(test_suffixes),
       cmocka_unit_test(test_negatives),
+      cmocka_unit_test(test_exact_conversion),
       cmocka_unit_test(test_rejections),
       cmocka_unit_test(test_year_like),
       cmocka_unit_test(test_ambiguity_and_hints),

@@ -10,6 +10,7 @@
 #include <cmocka.h>
 #include <glib/gstdio.h>
 
+#include "report/json_util.h"
 #include "sample.h"
 
 static const char *schema_path;
@@ -78,6 +79,124 @@ static void test_values_round_trip(void **state) {
   g_free(text);
   pp_report_free(r);
   pp_sample_free(s);
+}
+
+/* The shortcut of pp_json_writable_double(): between 1e-4 and 1e16 "%.17g" has no exponent
+ * (C17 §7.21.6.1: style e only for an exponent below -4 or at least the precision, 17), so the
+ * value is returned as it is; outside, a one-digit mantissa with an exponent is moved one ulp
+ * so that the text has a '.' (RFC 8259 §6: no fraction after the exponent). */
+static void test_writable_double_ranges(void **state) {
+  (void)state;
+  char buf[G_ASCII_DTOSTR_BUF_SIZE];
+  GRand *r = g_rand_new_with_seed(12);
+  double edges[] = {1e-4, nextafter(1e-4, 1), 1.0, 9.999999999999999e15, nextafter(1e16, 0)};
+  for (int i = 0; i < 20000 + (int)G_N_ELEMENTS(edges); i++) {
+    double v = i < (int)G_N_ELEMENTS(edges) ? edges[i] : pow(10, g_rand_double_range(r, -4, 16));
+    if (v < 1e-4 || v >= 1e16)
+      continue;
+    for (int sign = -1; sign <= 1; sign += 2) {
+      g_ascii_dtostr(buf, sizeof buf, sign * v);
+      assert_null(strpbrk(buf, "eE"));
+      assert_true(pp_json_writable_double(sign * v) == sign * v);
+    }
+  }
+  g_rand_free(r);
+  double outside[] = {1e16, 1e20, -1e20, 5e-7, 9.99e-5, 1e300, 2e-300};
+  for (size_t i = 0; i < G_N_ELEMENTS(outside); i++) {
+    double w = pp_json_writable_double(outside[i]);
+    g_ascii_dtostr(buf, sizeof buf, w);
+    assert_true(strchr(buf, '.') || !strpbrk(buf, "eE"));
+    assert_true(fabs(w - outside[i]) <= fabs(outside[i]) * 1e-15);
+  }
+}
+
+/* pp_json_write_compact() against json-glib's own generator (the reference; json-generator.c)
+ * on random trees: every byte from 0x01 to 0xff in strings and names, integers to both ends of
+ * the 64-bit range, doubles of every magnitude (and one that prints without a '.'), empty and
+ * nested containers. */
+static JsonNode *random_node(GRand *r, int depth) {
+  JsonNode *n;
+  int kind = depth > 3 ? g_rand_int_range(r, 0, 5) : g_rand_int_range(r, 0, 7);
+  if (kind == 0) {
+    n = json_node_new(JSON_NODE_NULL);
+  } else if (kind == 1) {
+    n = json_node_new(JSON_NODE_VALUE);
+    gint64 pick[] = {0, -1, 7, G_MAXINT64, G_MININT64, (gint64)g_rand_int(r) - G_MAXINT32};
+    json_node_set_int(n, pick[g_rand_int_range(r, 0, 6)]);
+  } else if (kind == 2) {
+    n = json_node_new(JSON_NODE_VALUE);
+    double pick[] = {0.1,
+                     -0.0,
+                     1e-7,
+                     1e16,
+                     1e20,
+                     5e-324,
+                     -1.7976931348623157e308,
+                     g_rand_double_range(r, -1e6, 1e6) * pow(10, g_rand_int_range(r, -30, 30)),
+                     (double)g_rand_int(r) / (1 << g_rand_int_range(r, 0, 24))};
+    json_node_set_double(n, pick[g_rand_int_range(r, 0, 9)]);
+  } else if (kind == 3) {
+    n = json_node_new(JSON_NODE_VALUE);
+    json_node_set_boolean(n, g_rand_boolean(r));
+  } else if (kind == 4) {
+    char s[12];
+    int len = g_rand_int_range(r, 0, 11);
+    for (int i = 0; i < len; i++)
+      s[i] = (char)g_rand_int_range(r, 1, 256);
+    s[len] = '\0';
+    n = json_node_new(JSON_NODE_VALUE);
+    json_node_set_string(n, s);
+  } else if (kind == 5) {
+    JsonArray *a = json_array_new();
+    for (int i = g_rand_int_range(r, 0, 4); i > 0; i--)
+      json_array_add_element(a, random_node(r, depth + 1));
+    n = json_node_new(JSON_NODE_ARRAY);
+    json_node_take_array(n, a);
+  } else {
+    JsonObject *o = json_object_new();
+    for (int i = g_rand_int_range(r, 0, 4); i > 0; i--) {
+      char name[4] = {(char)g_rand_int_range(r, 1, 256), (char)g_rand_int_range(r, 'a', 'z'),
+                      (char)g_rand_int_range(r, 1, 128), '\0'};
+      json_object_set_member(o, name, random_node(r, depth + 1));
+    }
+    n = json_node_new(JSON_NODE_OBJECT);
+    json_node_take_object(n, o);
+  }
+  return n;
+}
+
+static void test_compact_like_json_glib(void **state) {
+  (void)state;
+  GRand *r = g_rand_new_with_seed(7);
+  for (int i = 0; i < 3000; i++) {
+    JsonNode *n = random_node(r, 0);
+    gsize len = 0;
+    char *mine = pp_json_write_compact(n, &len);
+    char *want = json_to_string(n, FALSE);
+    assert_string_equal(mine, want);
+    assert_int_equal(len, strlen(want));
+    g_free(mine);
+    g_free(want);
+    json_node_unref(n);
+  }
+  /* doubles alone, many of them multiples of a power of two (the shortcut of json_write.c), and
+   * its edges: 18 significant digits, just under 1e15, 1e-4 and the first power of two below */
+  double edges[] = {999999999999999.875, 99999999999999.9921875, 1e15 - 1, 1e-4, 0x1p-14,
+                    0.0001220703125,     123456.0009765625,      1.0 / 3};
+  for (int i = 0; i < 200000; i++) {
+    JsonNode *n = json_node_new(JSON_NODE_VALUE);
+    double v = i < (int)G_N_ELEMENTS(edges)
+                   ? edges[i]
+                   : (double)(gint64)(g_rand_double(r) * pow(10, g_rand_int_range(r, 0, 19))) /
+                         pow(2, g_rand_int_range(r, 0, 30));
+    json_node_set_double(n, g_rand_boolean(r) ? -v : v);
+    char *mine = pp_json_write_compact(n, NULL), *want = json_to_string(n, FALSE);
+    assert_string_equal(mine, want);
+    g_free(mine);
+    g_free(want);
+    json_node_unref(n);
+  }
+  g_rand_free(r);
 }
 
 static void assert_rect(JsonArray *a, double x0, double y0, double x1, double y1) {
@@ -289,6 +408,8 @@ int main(int argc, char **argv) {
   const struct CMUnitTest tests[] = {
       cmocka_unit_test(test_nan_and_inf_are_null),
       cmocka_unit_test(test_values_round_trip),
+      cmocka_unit_test(test_writable_double_ranges),
+      cmocka_unit_test(test_compact_like_json_glib),
       cmocka_unit_test(test_figure_boxes_and_coverage),
       cmocka_unit_test(test_schema_required_fields),
       cmocka_unit_test(test_write_file),
