@@ -178,65 +178,6 @@ gboolean pp_quads_share_edge(const pp_quad *a, const pp_quad *b, double tol) {
   return FALSE;
 }
 
-static guint find_root(guint *parent, guint i) {
-  while (parent[i] != i)
-    i = parent[i] = parent[parent[i]];
-  return i;
-}
-
-typedef struct {
-  double x0, x1, y0, y1;
-  guint index;
-} quad_span;
-
-static int cmp_span_x0(const void *a, const void *b) {
-  const quad_span *p = a, *q = b;
-  if (p->x0 != q->x0)
-    return p->x0 < q->x0 ? -1 : 1;
-  return (p->index > q->index) - (p->index < q->index);
-}
-
-/* Two quads that share an edge have boxes that meet once widened by tol, so a sweep over
- * the boxes sorted by left side compares only neighbours: a page of thousands of tiles
- * no longer costs every pair (issue 12 measured 88% of a 2,000-rectangle page here). */
-guint pp_quads_group_by_edges(const pp_quad *quads, guint n, double tol, guint *group) {
-  g_autofree guint *parent = g_new(guint, n ? n : 1);
-  g_autofree quad_span *span = g_new(quad_span, n ? n : 1);
-  for (guint i = 0; i < n; i++) {
-    parent[i] = i;
-    quad_span s = {quads[i].p[0].x, quads[i].p[0].x, quads[i].p[0].y, quads[i].p[0].y, i};
-    for (int c = 1; c < n_corners(&quads[i]); c++) {
-      s.x0 = fmin(s.x0, quads[i].p[c].x);
-      s.x1 = fmax(s.x1, quads[i].p[c].x);
-      s.y0 = fmin(s.y0, quads[i].p[c].y);
-      s.y1 = fmax(s.y1, quads[i].p[c].y);
-    }
-    span[i] = s;
-  }
-  qsort(span, n, sizeof *span, cmp_span_x0);
-  for (guint i = 0; i < n; i++)
-    for (guint k = i + 1; k < n && span[k].x0 <= span[i].x1 + 2 * tol; k++) {
-      if (span[k].y0 > span[i].y1 + 2 * tol || span[i].y0 > span[k].y1 + 2 * tol)
-        continue;
-      guint qi = span[i].index, qk = span[k].index;
-      if (pp_quads_share_edge(&quads[qi], &quads[qk], tol)) {
-        guint a = find_root(parent, qi), b = find_root(parent, qk);
-        if (a != b)
-          parent[MAX(a, b)] = MIN(a, b);
-      }
-    }
-  /* Number the groups in order of their first face. */
-  g_autofree guint *label = g_new(guint, n ? n : 1);
-  guint n_groups = 0;
-  for (guint i = 0; i < n; i++) {
-    guint r = find_root(parent, i);
-    if (r == i)
-      label[i] = n_groups++;
-    group[i] = label[r];
-  }
-  return n_groups;
-}
-
 double pp_polygon_area(const pp_point *pts, guint n) {
   double s = 0;
   for (guint i = 0; i < n; i++) {
