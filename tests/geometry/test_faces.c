@@ -171,6 +171,37 @@ static void test_grouping_tile_grid(void **state) {
   g_free(group);
 }
 
+/* Faces of very different sizes: 30 columns of 30 stacked tiles (each column one group, the
+ * columns 2 apart), a plinth under the first ten columns sharing its top edge with their
+ * bottom tiles (one group with them), and a face with a non-finite corner (alone). The
+ * groups follow from the construction: 1 + 20 + 1. The plinth spans far more grid cells
+ * than a tile, so it is compared apart from the grid, and must still join. */
+static void test_grouping_mixed_sizes(void **state) {
+  (void)state;
+  enum { side = 30, tiles = side * side, n = tiles + 2 };
+  pp_quad *q = g_new0(pp_quad, n);
+  guint *group = g_new(guint, n);
+  for (int i = 0; i < tiles; i++) {
+    double x = (i % side) * 12, y = (i / side) * 10;
+    q[i] = (pp_quad){PP_QUAD_RECTANGLE, {{x, y}, {x + 10, y}, {x + 10, y + 10}, {x, y + 10}}, 100};
+  }
+  double w = 9 * 12 + 10;
+  q[tiles] = (pp_quad){PP_QUAD_RECTANGLE, {{0, -200}, {w, -200}, {w, 0}, {0, 0}}, w * 200};
+  q[tiles + 1] =
+      (pp_quad){PP_QUAD_RECTANGLE, {{1000, 0}, {INFINITY, 0}, {1010, 10}, {1000, 10}}, 100};
+  assert_int_equal(pp_quads_group_by_edges(q, n, 0.01, group), 22);
+  for (int c = 0; c < side; c++)
+    for (int r = 1; r < side; r++)
+      assert_int_equal(group[r * side + c], group[c]);
+  for (int c = 0; c < side; c++)
+    if (c < 10)
+      assert_int_equal(group[c], group[tiles]);
+    else
+      assert_int_not_equal(group[c], group[tiles]);
+  g_free(q);
+  g_free(group);
+}
+
 static void test_oblique_bars(void **state) {
   (void)state;
   const double w = 30, dx = 12, dy = 8, hs[] = {60, 150, 240};
@@ -289,11 +320,12 @@ static void test_quad_vs_cairo_pixels(void **state) {
 
 int main(void) {
   const struct CMUnitTest tests[] = {
-      cmocka_unit_test(test_triangle_slices),     cmocka_unit_test(test_solid_slices),
-      cmocka_unit_test(test_radius_scaling),      cmocka_unit_test(test_power_fit_r2),
-      cmocka_unit_test(test_oblique_bars),        cmocka_unit_test(test_grouping_tile_grid),
-      cmocka_unit_test(test_grouping_neighbours), cmocka_unit_test(test_perspective_faces),
-      cmocka_unit_test(test_not_quads),           cmocka_unit_test(test_quad_vs_cairo_pixels),
+      cmocka_unit_test(test_triangle_slices),      cmocka_unit_test(test_solid_slices),
+      cmocka_unit_test(test_radius_scaling),       cmocka_unit_test(test_power_fit_r2),
+      cmocka_unit_test(test_oblique_bars),         cmocka_unit_test(test_grouping_tile_grid),
+      cmocka_unit_test(test_grouping_mixed_sizes), cmocka_unit_test(test_grouping_neighbours),
+      cmocka_unit_test(test_perspective_faces),    cmocka_unit_test(test_not_quads),
+      cmocka_unit_test(test_quad_vs_cairo_pixels),
   };
   return cmocka_run_group_tests(tests, NULL, NULL);
 }
