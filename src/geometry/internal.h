@@ -40,6 +40,8 @@ typedef struct {
 
 /* Exact area of the intersection of all regions; NaN past the sweep's work bound. */
 double pp_sweep_area(const pp_region *regs, guint n_reg);
+/* The same with another bound on crossings that involve a curve (tests). */
+double pp_sweep_area_bounded(const pp_region *regs, guint n_reg, long max_curve_swaps);
 
 /* The path's subpaths in groups whose boxes do not overlap (of pp_path*); empty when the
  * path has at most one subpath that draws. */
