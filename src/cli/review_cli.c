@@ -17,7 +17,8 @@ struct pp_cli_review {
   pp_sarif_writer *sarif;
   pp_html_index *index;
   guint n_accepted, n_annotated;
-  GString *accepted; /* one line per accepted finding, printed after the summary */
+  guint n_output_failed; /* documents whose HTML page or annotated copy was not written */
+  GString *accepted;     /* one line per accepted finding, printed after the summary */
 };
 
 static void review_free(pp_cli_review *rv) {
@@ -133,10 +134,13 @@ void pp_cli_review_document(pp_cli_review *rv, JsonNode *root, const char *pdf_p
     render_job job = {rv, doc, pdf_path, page_name, annotated};
     pp_worker_result res;
     pp_worker_run(render_document, &job, &(pp_worker_limits){rv->opt->timeout_s, 0, 0}, &res);
-    if (res.outcome != PP_WORKER_DONE)
+    if (res.outcome != PP_WORKER_DONE) {
       pp_cli_print_file_error(pdf_path, "output failed", "rendering the review pages stopped");
-    else if (strstr(res.payload->str, "\"error\""))
+      rv->n_output_failed++;
+    } else if (strstr(res.payload->str, "\"error\"")) {
       pp_cli_print_file_error(pdf_path, "output failed", res.payload->str);
+      rv->n_output_failed++;
+    }
     g_string_free(res.payload, TRUE);
     if (annotated && res.outcome == PP_WORKER_DONE)
       rv->n_annotated++;
@@ -183,6 +187,9 @@ int pp_cli_review_end(pp_cli_review *rv, int rc) {
     g_clear_error(&error);
     rc = PP_EXIT_PARTIAL;
   }
+  /* A review output that was asked for and not written is a partial run, not a clean one. */
+  if (rv->n_output_failed > 0 && (rc == PP_EXIT_CLEAN || rc == PP_EXIT_FINDINGS))
+    rc = PP_EXIT_PARTIAL;
   if (rv->index && !rv->opt->quiet && !rv->opt->json)
     printf("Review pack: %s/index.html\n", rv->opt->html_dir);
   if (rv->opt->annotate && !rv->opt->quiet && !rv->opt->json)

@@ -114,18 +114,20 @@ static void legend(GString *o, JsonObject *f) {
                      "value 0 on the axis</span></figcaption>\n");
 }
 
-static void explanation(GString *o, const char *rule) {
+static void explanation(GString *o, const char *root, const char *rule) {
   char *summary = pp_rule_page_summary(rule);
   g_string_append(o, "<h3>Why this matters</h3>\n<p>");
   pp_html_append_escaped(o, summary ? summary : "No rule page is available for this rule.");
-  g_string_append(o, "</p>\n<p><a href=\"rules/");
+  g_string_append(o, "</p>\n<p><a href=\"");
+  g_string_append(o, root);
+  g_string_append(o, "rules/");
   pp_html_append_escaped(o, rule);
   g_string_append(o, ".html\">The rule page</a>: how it measures, its published source, "
                      "typical false alarms, what to check, how to fix the chart.</p>\n");
   g_free(summary);
 }
 
-static void finding_heading(GString *o, JsonObject *doc, JsonObject *f) {
+static void finding_heading(GString *o, const char *root, JsonObject *doc, JsonObject *f) {
   const char *title = pp_rv_finding_title(doc, f);
   const char *fig = pp_rv_finding_figure_id(doc, f);
   g_string_append_printf(o, "<h2>Page %" G_GINT64_FORMAT " · ", pp_rv_int(f, "page"));
@@ -143,7 +145,7 @@ static void finding_heading(GString *o, JsonObject *doc, JsonObject *f) {
   }
   g_string_append(o, "</h2>\n<p>");
   sev_badge(o, pp_rv_str(f, "severity"));
-  g_string_append(o, " rule <a href=\"rules/");
+  g_string_append_printf(o, " rule <a href=\"%srules/", root);
   pp_html_append_escaped(o, pp_rv_str(f, "rule"));
   g_string_append(o, ".html\"><code>");
   pp_html_append_escaped(o, pp_rv_str(f, "rule"));
@@ -152,12 +154,13 @@ static void finding_heading(GString *o, JsonObject *doc, JsonObject *f) {
   g_string_append(o, "</code></p>\n");
 }
 
-static void finding_section(GString *o, const char *dir, const char *stem, guint k, JsonObject *doc,
-                            JsonObject *f, const char *pdf_path, const char *password) {
+static void finding_section(GString *o, const char *dir, const char *root, const char *stem,
+                            guint k, JsonObject *doc, JsonObject *f, const char *pdf_path,
+                            const char *password) {
   g_string_append(o, "<section class=\"finding\" id=\"f-");
   pp_html_append_escaped(o, pp_rv_str(f, "id"));
   g_string_append(o, "\">\n");
-  finding_heading(o, doc, f);
+  finding_heading(o, root, doc, f);
   JsonObject *acc = pp_rv_obj(f, "acceptance");
   if (acc) {
     g_string_append(o, "<p class=\"note\">Accepted by ");
@@ -185,14 +188,17 @@ static void finding_section(GString *o, const char *dir, const char *stem, guint
   g_string_append(o, "<div class=\"cols\">\n");
   char *crop_name = g_strdup_printf("img/%s-%u.png", stem, k);
   char *crop_path = g_build_filename(dir, crop_name, NULL);
+  char *crop_dir = g_path_get_dirname(crop_path);
+  g_mkdir_with_parents(crop_dir, 0755);
+  g_free(crop_dir);
   int w = 0, h = 0;
   GError *err = NULL;
   if (pdf_path && pp_html_render_crop(pdf_path, password, doc, f, crop_path, &w, &h, &err)) {
     /* Shown at 96 px per inch-ish: half the 150 dpi pixels keeps the page readable. */
     g_string_append_printf(o,
-                           "<figure><img class=\"crop\" src=\"%s\" width=\"%d\" height=\"%d\" "
+                           "<figure><img class=\"crop\" src=\"%s%s\" width=\"%d\" height=\"%d\" "
                            "alt=\"the figure on page %" G_GINT64_FORMAT " with overlays\">\n",
-                           crop_name, (w * 2) / 3, (h * 2) / 3, pp_rv_int(f, "page"));
+                           root, crop_name, (w * 2) / 3, (h * 2) / 3, pp_rv_int(f, "page"));
     legend(o, f);
     g_string_append(o, "</figure>\n");
   } else {
@@ -208,14 +214,14 @@ static void finding_section(GString *o, const char *dir, const char *stem, guint
   if (pp_html_render_shares(f, shares_path, &w, &h, &err)) {
     g_string_append(o, "<h3>Share of the ink against share of the value</h3>\n");
     g_string_append_printf(o,
-                           "<img src=\"%s\" width=\"%d\" height=\"%d\" alt=\"ink share and "
+                           "<img src=\"%s%s\" width=\"%d\" height=\"%d\" alt=\"ink share and "
                            "value share of each element, bars from 0\">\n",
-                           shares_name, w, h);
+                           root, shares_name, w, h);
   }
   g_clear_error(&err);
   g_string_append(o, "</div>\n</div>\n");
   elements_table(o, f);
-  explanation(o, pp_rv_str(f, "rule"));
+  explanation(o, root, pp_rv_str(f, "rule"));
   g_string_append(o, "</section>\n");
   g_free(crop_name), g_free(crop_path), g_free(shares_name), g_free(shares_path);
 }
@@ -253,16 +259,29 @@ static void coverage_notes(GString *o, JsonObject *doc) {
 
 gboolean pp_html_write_document(const char *dir, const char *page_name, JsonObject *doc,
                                 const char *pdf_path, const char *password, GError **error) {
-  char *img = g_build_filename(dir, "img", NULL);
-  g_mkdir_with_parents(img, 0755);
-  g_free(img);
+  /* The page sits where the findings file does, below the pack's folder when the inputs
+   * were nested; links to the pack's shared files climb back to its root. */
+  GString *up = g_string_new(NULL);
+  for (const char *c = page_name; *c; c++)
+    if (*c == '/')
+      g_string_append(up, "../");
+  char *root = g_string_free(up, FALSE);
+  char *page_path = g_build_filename(dir, page_name, NULL),
+       *page_dir = g_path_get_dirname(page_path);
+  g_mkdir_with_parents(page_dir, 0755);
+  g_free(page_dir);
   JsonObject *d = pp_rv_obj(doc, "document");
   const char *path = pp_rv_str(d, "path") ? pp_rv_str(d, "path") : "document";
-  char *stem = g_strndup(page_name, strcspn(page_name, "."));
+  /* The whole name less ".html": "q1.2031" and "q1.2032" must not share their pictures. */
+  char *stem = g_str_has_suffix(page_name, ".html")
+                   ? g_strndup(page_name, strlen(page_name) - strlen(".html"))
+                   : g_strdup(page_name);
   GString *o = g_string_new(NULL);
   char *base = g_path_get_basename(path);
-  pp_html_begin(o, base, "style.css");
-  g_string_append(o, "<nav><a href=\"index.html\">← all documents</a></nav>\n<h1>");
+  char *style = g_strconcat(root, "style.css", NULL);
+  pp_html_begin(o, base, style);
+  g_free(style);
+  g_string_append_printf(o, "<nav><a href=\"%sindex.html\">← all documents</a></nav>\n<h1>", root);
   pp_html_append_escaped(o, base);
   g_string_append(o, "</h1>\n<p class=\"note\">");
   pp_html_append_escaped(o, path);
@@ -277,20 +296,19 @@ gboolean pp_html_write_document(const char *dir, const char *page_name, JsonObje
   if (n == 0)
     g_string_append(o, "<p>No findings in the parts that were analysed.</p>\n");
   for (guint i = 0; i < n; i++)
-    finding_section(o, dir, stem, i + 1, doc, json_array_get_object_element(list, i), pdf_path,
-                    password);
+    finding_section(o, dir, root, stem, i + 1, doc, json_array_get_object_element(list, i),
+                    pdf_path, password);
   JsonArray *acc = pp_rv_arr(doc, "accepted");
   if (acc && json_array_get_length(acc) > 0) {
     g_string_append(o, "<h2>Accepted earlier (baseline)</h2>\n");
     for (guint i = 0; i < json_array_get_length(acc); i++)
-      finding_section(o, dir, stem, n + i + 1, doc, json_array_get_object_element(acc, i), pdf_path,
-                      password);
+      finding_section(o, dir, root, stem, n + i + 1, doc, json_array_get_object_element(acc, i),
+                      pdf_path, password);
   }
   coverage_notes(o, doc);
   pp_html_end(o);
-  char *out = g_build_filename(dir, page_name, NULL);
-  gboolean ok = g_file_set_contents(out, o->str, (gssize)o->len, error);
-  g_free(out), g_free(base), g_free(stem);
+  gboolean ok = g_file_set_contents(page_path, o->str, (gssize)o->len, error);
+  g_free(page_path), g_free(root), g_free(base), g_free(stem);
   g_string_free(o, TRUE);
   return ok;
 }

@@ -202,6 +202,40 @@ for n in crops:
     # 150 dpi: a plot area of at least 100 pt gives at least 208 pixels (100·150/72).
     check(w >= 208 and h >= 100, f"{n} rendered at 150 dpi ({w}x{h})")
 
+# Nested input folders: same base names in two folders and names that differ only after
+# a dot. Each document gets its own page below the pack, its own pictures, and links that
+# climb back to the pack's shared files (the pack once failed with "No such file" here and
+# still exited 0; "q1.2031" and "q1.2032" once shared their picture names).
+os.makedirs("nested/a"), os.makedirs("nested/b")
+shutil.copy(D1, "nested/a/q1.2031.pdf")
+shutil.copy(D2, "nested/b/q1.2031.pdf")
+with open(D1, "rb") as f:  # the same report with a comment after %%EOF: other bytes
+    open("nested/a/q1.2032.pdf", "wb").write(f.read() + b"\n% another copy\n")
+rc, out, err = run("scan", "nested", "-o", "nestout", "--html", "nestpack", "-q")
+check(rc == 1, f"nested scan with findings exits 1, got {rc}: {err}")
+check("output failed" not in err, f"nested scan writes every review page: {err}")
+for name in ("a/q1.2031", "b/q1.2031", "a/q1.2032"):
+    page = os.path.join("nestpack", name + ".html")
+    check(os.path.exists(page), f"{page} written")
+    if not os.path.exists(page):
+        continue
+    p = Links()
+    p.feed(open(page, encoding="utf-8").read())
+    imgs = [r for r in p.refs if r.endswith(".png")]
+    nf = len(json.load(open(f"nestout/{name}.findings.json", encoding="utf-8"))["findings"])
+    check(len(imgs) >= nf > 0, f"{page}: a picture per finding ({len(imgs)} for {nf})")
+    check(all(os.path.basename(name) + "-" in r for r in imgs), f"{page}: pictures named for it")
+    for ref in p.refs:
+        target = os.path.normpath(os.path.join(os.path.dirname(page), ref.split("#")[0]))
+        check(os.path.exists(target), f"{page}: link target {ref} exists")
+# A review page that cannot be written makes the run partial (exit 3, cli.h): a plain file
+# where its folder should be stops it even for root.
+shutil.rmtree("nestpack"), shutil.rmtree("nestout")
+os.makedirs("nestpack")
+open("nestpack/a", "w").close()
+rc, out, err = run("scan", "nested", "-o", "nestout", "--html", "nestpack", "-q")
+check(rc == 3 and "output failed" in err, f"unwritable review page: exit 3, got {rc}: {err}")
+
 # Hostile text in a findings file: formulas for spreadsheets, markup for browsers.
 hostile = json.loads(json.dumps(doc))
 evil = ["=HYPERLINK(\"http://x\")", "+1+2", "-3", "@SUM(A1)", "<script>alert(1)</script>",
