@@ -114,6 +114,14 @@ typedef struct {
   char *producer, *creator, *title; /* NULL when absent */
 } pp_document_info;
 
+/* SHA-256, the documents' identity (FIPS 180-4), as lowercase hex: fed in pieces, then
+ * freed into its digest (g_free it). */
+typedef struct pp_sha256 pp_sha256;
+pp_sha256 *pp_sha256_new(void);
+void pp_sha256_update(pp_sha256 *sum, const void *data, gsize len);
+char *pp_sha256_free_to_hex(pp_sha256 *sum);
+char *pp_sha256_hex(const void *data, gsize len);
+
 typedef struct pp_document pp_document;
 
 /* Opens and checks the file; a clean GError for every way it can fail. */

@@ -76,7 +76,7 @@ pp_document *pp_document_open(const char *path, const char *password, GError **e
                 "no %%PDF- header in the first 1024 bytes");
     return NULL;
   }
-  char *sha = g_compute_checksum_for_data(G_CHECKSUM_SHA256, (const guchar *)data, len);
+  char *sha = pp_sha256_hex(data, len);
   g_mapped_file_unref(mapped);
 
   GFile *file = g_file_new_for_path(path);

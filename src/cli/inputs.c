@@ -170,7 +170,7 @@ static char *sha256_file(const char *path, guint64 *size, GError **error) {
     g_set_error_literal(error, G_FILE_ERROR, g_file_error_from_errno(errno), g_strerror(errno));
     return NULL;
   }
-  GChecksum *sum = g_checksum_new(G_CHECKSUM_SHA256);
+  pp_sha256 *sum = pp_sha256_new();
   guchar buf[1 << 16];
   ssize_t n;
   *size = 0;
@@ -179,17 +179,15 @@ static char *sha256_file(const char *path, guint64 *size, GError **error) {
       continue;
     if (n < 0) {
       g_set_error_literal(error, G_FILE_ERROR, g_file_error_from_errno(errno), g_strerror(errno));
-      g_checksum_free(sum);
+      g_free(pp_sha256_free_to_hex(sum));
       close(fd);
       return NULL;
     }
-    g_checksum_update(sum, buf, n);
+    pp_sha256_update(sum, buf, (gsize)n);
     *size += (guint64)n;
   }
   close(fd);
-  char *hex = g_strdup(g_checksum_get_string(sum));
-  g_checksum_free(sum);
-  return hex;
+  return pp_sha256_free_to_hex(sum);
 }
 
 char *pp_inputs_output_base(const char *path, const char *tag) {
