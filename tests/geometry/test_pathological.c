@@ -72,16 +72,10 @@ static void test_random_curves(void **state) {
   g_rand_free(rng);
 }
 
-/* The shape of the fuzzer's slow crossings inputs (tests/fuzz/known/scene-slow-crossings*.bin:
- * about 20 overlapping chains of 900 cubics, each cubic swinging across the whole width
- * while it climbs a sliver of the height): 20 chains of 600 such cubics, ~2.7·10⁵
- * crossings between nearly level pieces. Each chain is one subpath, closed by the fill.
- * Against cairo's pixels within 1%, as test_random_curves. */
-static void test_swinging_chains(void **state) {
-  (void)state;
-  GRand *rng = g_rand_new_with_seed(3);
+/* Chains of cubics, each swinging across the whole width while it climbs a sliver of the
+ * height; each chain is one subpath, closed by the fill. */
+static pp_path *swinging_chains(GRand *rng, int chains, int links) {
   pp_path *p = pp_path_new();
-  const int chains = 20, links = 600;
   for (int c = 0; c < chains; c++) {
     double y = g_rand_double_range(rng, 50, 100), dy = (500 - y) / links;
     pp_path_move_to(p, g_rand_double_range(rng, 50, 550), y);
@@ -90,6 +84,18 @@ static void test_swinging_chains(void **state) {
                        g_rand_double_range(rng, 50, 550), y + 2 * dy / 3,
                        g_rand_double_range(rng, 50, 550), y + dy);
   }
+  return p;
+}
+
+/* The shape of the fuzzer's slow crossings inputs (tests/fuzz/known/scene-slow-crossings*.bin:
+ * about 20 overlapping chains of 900 cubics, each cubic swinging across the whole width
+ * while it climbs a sliver of the height): 20 chains of 600 such cubics, ~2.7·10⁵
+ * crossings between nearly level pieces. Each chain is one subpath, closed by the fill.
+ * Against cairo's pixels within 1%, as test_random_curves. */
+static void test_swinging_chains(void **state) {
+  (void)state;
+  GRand *rng = g_rand_new_with_seed(3);
+  pp_path *p = swinging_chains(rng, 20, 600);
   for (int rule = 0; rule < 2; rule++) {
     double want = cairo_ink(p, rule);
     tu_assert_near(pp_path_fill_area(p, rule), want, 0.01 * want);
@@ -107,16 +113,7 @@ static void test_swinging_chains(void **state) {
 static void test_curve_swap_bound(void **state) {
   (void)state;
   GRand *rng = g_rand_new_with_seed(5);
-  pp_path *p = pp_path_new();
-  const int chains = 20, links = 100;
-  for (int c = 0; c < chains; c++) {
-    double y = g_rand_double_range(rng, 50, 100), dy = (500 - y) / links;
-    pp_path_move_to(p, g_rand_double_range(rng, 50, 550), y);
-    for (int i = 0; i < links; i++, y += dy)
-      pp_path_curve_to(p, g_rand_double_range(rng, 50, 550), y + dy / 3,
-                       g_rand_double_range(rng, 50, 550), y + 2 * dy / 3,
-                       g_rand_double_range(rng, 50, 550), y + dy);
-  }
+  pp_path *p = swinging_chains(rng, 20, 100);
   pp_region reg = {p, PP_FILL_NONZERO, pp_path_bbox(p)};
   assert_true(isnan(pp_sweep_area_bounded(&reg, 1, 1000)));
   double want = cairo_ink(p, PP_FILL_NONZERO);
