@@ -36,6 +36,9 @@
 #define CIRCLE_FIT_TOL 0.004
 /* Pieces shorter than this fraction of the subpath's size are joints, not edges. */
 #define TINY_PIECE 1e-6
+/* Pieces of a wedge's outline at most: two arcs (an annular sector's) and two straight
+ * edges (its radial sides); read_subpath() refuses more. */
+#define MAX_WEDGE_PIECES 4
 
 typedef struct {
   pp_seg_kind kind; /* LINE or CURVE */
@@ -167,6 +170,14 @@ static GArray *pieces_of(GArray *ring, gboolean closed, double eps, double size)
   gboolean *corner = g_new0(gboolean, n); /* corner[i]: a corner before segment i */
   int n_corners = 0;
   for (int i = 0; i < n; i++) {
+    /* Each corner starts a piece, and a wedge has at most MAX_WEDGE_PIECES: an outline of
+     * more is none, and its remaining joints need no angles (a random walk of a million
+     * points spent 7% of its page here). */
+    if (n_corners > MAX_WEDGE_PIECES) {
+      g_free(corner);
+      g_array_set_size(out, 0);
+      return out;
+    }
     if (i == 0 && !closed) {
       corner[i] = TRUE;
     } else {
@@ -454,6 +465,8 @@ static gboolean read_subpath(GArray *ring, gboolean closed, double size, const p
                              pp_wedge *w) {
   double eps = TINY_PIECE * fmax(size, 1e-12);
   g_autoptr(GArray) pieces = pieces_of(ring, closed, eps, size);
+  if (pieces->len == 0)
+    return FALSE;
   int arcs[2] = {-1, -1}, n_arcs = 0, n_edges = 0;
   pp_point e[4] = {{0, 0}, {0, 0}, {0, 0}, {0, 0}}; /* start and end of each edge */
   for (guint i = 0; i < pieces->len; i++) {
