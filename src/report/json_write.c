@@ -47,13 +47,13 @@ static void add_int(GString *out, gint64 v) {
   g_string_append_len(out, q, buf + sizeof buf - q);
 }
 
-/* Decimal places and significant digits a double can have for the shortcut below: 2^-20
- * reaches the tap's 1/1024 pt and its quarters, and %.17g prints 17 significant digits
- * (C17 §7.21.6.1). */
-#define PP_JSON_DYADIC_BITS 20
+/* Decimal places and significant digits a double can have for the shortcut below: 2^-19
+ * reaches the tap's 1/1024 pt and far below, 10^19 is the largest power of ten in 64 bits
+ * (10^20 would wrap), and %.17g prints 17 significant digits (C17 §7.21.6.1). */
+#define PP_JSON_DYADIC_BITS 19
 #define PP_JSON_G_DIGITS 17
 
-/* The text g_ascii_dtostr() ("%.17g") gives v, when v = m / 2^k with k <= 20 and the exact
+/* The text g_ascii_dtostr() ("%.17g") gives v, when v = m / 2^k with k <= 19 and the exact
  * decimal value m * 5^k / 10^k has at most 17 significant digits: then "%.17g" prints that
  * value exactly, in fixed notation for 1e-4 <= |v| < 1e15, trailing zeros dropped. Most
  * coordinates are such (multiples of 1/1024 pt); FALSE otherwise. */

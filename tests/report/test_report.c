@@ -180,9 +180,12 @@ static void test_compact_like_json_glib(void **state) {
     json_node_unref(n);
   }
   /* doubles alone, many of them multiples of a power of two (the shortcut of json_write.c), and
-   * its edges: 18 significant digits, just under 1e15, 1e-4 and the first power of two below */
-  double edges[] = {999999999999999.875, 99999999999999.9921875, 1e15 - 1, 1e-4, 0x1p-14,
-                    0.0001220703125,     123456.0009765625,      1.0 / 3};
+   * its edges: 18 significant digits, just under 1e15, 1e-4 and the first power of two below,
+   * 20 and 19 binary places (10^20 does not fit in 64 bits) */
+  double edges[] = {
+      999999999999999.875, 99999999999999.9921875, 1e15 - 1, 1e-4,          0x1p-14,
+      0.0001220703125,     123456.0009765625,      1.0 / 3,  105 * 0x1p-20, 81543 * 0x1p-20,
+      12345 * 0x1p-19};
   for (int i = 0; i < 200000; i++) {
     JsonNode *n = json_node_new(JSON_NODE_VALUE);
     double v = i < (int)G_N_ELEMENTS(edges)
