@@ -10,6 +10,19 @@
  * deep, and the bound keeps the recursion here small. No outside source. */
 #define PP_JSON_TEXT_MAX_DEPTH 256
 
+/* The bytes that open, close or separate values in compact text; the others (digits, letters,
+ * the ':' after a name) are passed over by one table look-up each. */
+static const guchar structural[256] = {
+    ['"'] = 1, ['{'] = 1, ['['] = 1, ['}'] = 1, [']'] = 1, [','] = 1};
+
+#define PP_ROW(x) x, x, x, x, x, x, x, x, x, x, x, x, x, x, x, x
+/* The bytes a string holds as they are: printable ASCII but '"' (0x22) and '\\' (0x5c). */
+static const guchar string_plain[256] = {
+    PP_ROW(0), PP_ROW(0), 1, 1, 0, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, /* 0x20 */
+    PP_ROW(1), PP_ROW(1), 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 0, 1, 1, 1, /* 0x50 */
+    PP_ROW(1), PP_ROW(1)};
+#undef PP_ROW
+
 static gboolean is_digit(char c) {
   return c >= '0' && c <= '9';
 }
@@ -20,7 +33,7 @@ static const char *skip_string(const char *p, const char *end) {
   gboolean ascii = TRUE;
   while (p < end) {
     guchar c = (guchar)*p;
-    if (c >= 0x20 && c < 0x80 && c != '"' && c != '\\') { /* most of the text */
+    if (string_plain[c]) { /* most of the text */
       p++;
       continue;
     }
@@ -119,11 +132,6 @@ static const char *skip_value(const char *p, const char *end, int depth) {
 const char *pp_json_text_skip(const char *p, const char *end) {
   return skip_value(p, end, 0);
 }
-
-/* The bytes that open, close or separate values in compact text; the others (digits, letters,
- * the ':' after a name) are passed over by one table look-up each. */
-static const guchar structural[256] = {
-    ['"'] = 1, ['{'] = 1, ['['] = 1, ['}'] = 1, [']'] = 1, [','] = 1};
 
 /* The end of the value at p in text already checked: strings and nesting only. */
 const char *pp_json_text_end(const char *p, const char *end) {
@@ -255,7 +263,7 @@ void pp_json_text_indent(GString *out, const char *p, const char *end, guint lev
       p++;
       continue;
     } else {
-      while (q < end && *q != ',' && *q != ']' && *q != '}')
+      while (q < end && !structural[(guchar)*q]) /* a scalar ends at ',' ']' '}' */
         q++;
     }
     memcpy(room(out, w, (gsize)(q - p)), p, (gsize)(q - p));
