@@ -50,10 +50,18 @@ static guint64 scaled(guint64 m, int e, int p, int *half) {
   return (guint64)(n >> s);
 }
 
-static gboolean exact_text(double v, char *buf) {
+/* "00" "01" ... "99": two digits a division. */
+static const char two_digits[201] = "00010203040506070809101112131415161718192021222324"
+                                    "25262728293031323334353637383940414243444546474849"
+                                    "50515253545556575859606162636465666768697071727374"
+                                    "75767778798081828384858687888990919293949596979899";
+/* The text's length, or 0 when v is outside the exact way's range. buf has room for
+ * G_ASCII_DTOSTR_BUF_SIZE (39) bytes: the digits are copied 17 at a time (fixed-size copies
+ * cost no call), which writes at most 35 bytes before the end is set. */
+static gsize exact_text(double v, char *buf) {
   double a = fabs(v);
   if (!(a >= PP_JSON_EXACT_LOW && a < PP_JSON_EXACT_HIGH))
-    return FALSE;
+    return 0;
   /* IEEE 754 binary64 (C17 Annex F): a normal a is (2^52 + fraction) * 2^(exponent - 1075). */
   guint64 bits;
   memcpy(&bits, &a, sizeof bits);
@@ -76,10 +84,12 @@ static gboolean exact_text(double v, char *buf) {
     x++;
   }
   if (q < lo || q >= hi) /* cannot happen with the bounds above; printf then decides */
-    return FALSE;
-  char d[PP_JSON_G_DIGITS];
-  for (int i = PP_JSON_G_DIGITS - 1; i >= 0; i--, q /= 10)
-    d[i] = (char)('0' + q % 10);
+    return 0;
+  char d[2 * PP_JSON_G_DIGITS] = {0}; /* the digits, then room for the 17-byte copies */
+  d[0] = (char)('0' + q / lo);
+  q %= lo;
+  for (int i = PP_JSON_G_DIGITS - 2; i >= 1; i -= 2, q /= 100)
+    memcpy(d + i, two_digits + 2 * (q % 100), 2);
   int nd = PP_JSON_G_DIGITS;
   while (nd > 1 && d[nd - 1] == '0')
     nd--;
@@ -90,45 +100,43 @@ static gboolean exact_text(double v, char *buf) {
     *o++ = d[0];
     if (nd > 1) {
       *o++ = '.';
-      memcpy(o, d + 1, nd - 1);
+      memcpy(o, d + 1, PP_JSON_G_DIGITS);
       o += nd - 1;
     }
-    *o++ = 'e';
-    *o++ = '-';
-    int ax = -x;
-    if (ax >= 10)
-      *o++ = (char)('0' + ax / 10);
-    else
-      *o++ = '0';
-    *o++ = (char)('0' + ax % 10);
+    int ax = -x; /* 5 to 15 */
+    o[0] = 'e';
+    o[1] = '-';
+    o[2] = (char)('0' + ax / 10);
+    o[3] = (char)('0' + ax % 10);
+    o += 4;
   } else if (x >= 0) {
-    memcpy(o, d, x + 1);
+    memcpy(o, d, PP_JSON_G_DIGITS);
     o += x + 1;
     if (nd > x + 1) {
       *o++ = '.';
-      memcpy(o, d + x + 1, nd - x - 1);
+      memcpy(o, d + x + 1, PP_JSON_G_DIGITS);
       o += nd - x - 1;
     }
   } else {
-    *o++ = '0';
-    *o++ = '.';
-    for (int i = 0; i < -x - 1; i++)
-      *o++ = '0';
-    memcpy(o, d, nd);
+    memcpy(o, "0.000", 5);
+    o += 1 - x; /* "0." and -x - 1 zeros */
+    memcpy(o, d, PP_JSON_G_DIGITS);
     o += nd;
   }
   *o = '\0';
-  return TRUE;
+  return (gsize)(o - buf);
 }
 #else
-static gboolean exact_text(double v, char *buf) {
+static gsize exact_text(double v, char *buf) {
   (void)v, (void)buf;
-  return FALSE;
+  return 0;
 }
 #endif
 
-char *pp_json_format_double(double v, char *buf) {
-  if (!exact_text(v, buf))
-    g_ascii_dtostr(buf, G_ASCII_DTOSTR_BUF_SIZE, v);
-  return buf;
+gsize pp_json_format_double(double v, char *buf) {
+  gsize n = exact_text(v, buf);
+  if (n)
+    return n;
+  g_ascii_dtostr(buf, G_ASCII_DTOSTR_BUF_SIZE, v);
+  return strlen(buf);
 }

@@ -28,8 +28,8 @@ void pp_json_member_evidence(JsonBuilder *b, const pp_figure *f);
 char *pp_json_write_compact(JsonNode *node, gsize *length);
 
 /* The text g_ascii_dtostr() writes for v ("%.17g"), into buf of G_ASCII_DTOSTR_BUF_SIZE bytes;
- * worked out without printf where that is exact (json_number.c). Returns buf. */
-char *pp_json_format_double(double v, char *buf);
+ * worked out without printf where that is exact (json_number.c). Returns its length. */
+gsize pp_json_format_double(double v, char *buf);
 
 /* Compact JSON text written straight from the model, call for call as the JsonBuilder helpers
  * above, and the same bytes json-glib's generator writes for the tree they would build. Start

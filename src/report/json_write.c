@@ -7,13 +7,24 @@
 
 /* json-glib's json_strescape(): '"' and '\\' escaped, \b \f \n \r \t by name, the other bytes
  * from 0x01 to 0x1e and 0x7f as \u00xx; 0x1f and everything else (UTF-8 included) as it is. */
+static const guchar escaped[256] = {
+    0, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, /* 0x00: NUL ends the string */
+    1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 0, /* 0x10: 0x1f as it is */
+    0, 0, 1, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, /* 0x20: '"' */
+    0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, /* 0x30 */
+    0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, /* 0x40 */
+    0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 1, 0, 0, 0, /* 0x50: '\\' */
+    0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, /* 0x60 */
+    0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 1, /* 0x70: 0x7f */
+};
+
 static void add_string(GString *out, const char *s) {
   static const char hex[] = "0123456789abcdef";
   g_string_append_c(out, '"');
-  const char *run = s;
-  for (const char *p = s; *p; p++) {
+  const char *run = s, *p = s;
+  for (; *p; p++) {
     guchar c = (guchar)*p;
-    if (c != '"' && c != '\\' && (c >= 0x1f || c == 0) && c != 0x7f)
+    if (!escaped[c])
       continue;
     g_string_append_len(out, run, p - run);
     run = p + 1;
@@ -31,7 +42,7 @@ static void add_string(GString *out, const char *s) {
     }
     }
   }
-  g_string_append_len(out, run, (gssize)strlen(run));
+  g_string_append_len(out, run, p - run);
   g_string_append_c(out, '"');
 }
 
@@ -49,10 +60,10 @@ static void add_int(GString *out, gint64 v) {
 /* json-glib: g_ascii_dtostr(), then ".0" when the text has no '.' */
 static void add_double(GString *out, double v) {
   char buf[G_ASCII_DTOSTR_BUF_SIZE];
-  pp_json_format_double(v, buf);
-  g_string_append(out, buf);
-  if (!strchr(buf, '.'))
-    g_string_append_len(out, ".0", 2);
+  gsize n = pp_json_format_double(v, buf);
+  if (!memchr(buf, '.', n))
+    buf[n++] = '.', buf[n++] = '0'; /* room: the longest text is 24 bytes */
+  g_string_append_len(out, buf, (gssize)n);
 }
 
 static void add_node(GString *out, JsonNode *node) {

@@ -26,9 +26,9 @@ static guint64 checked;
 
 static void check(double v) {
   char mine[G_ASCII_DTOSTR_BUF_SIZE], want[64];
-  pp_json_format_double(v, mine);
+  gsize n = pp_json_format_double(v, mine);
   snprintf(want, sizeof want, "%.17g", v);
-  if (strcmp(mine, want) != 0)
+  if (strcmp(mine, want) != 0 || n != strlen(want))
     fail_msg("%a: \"%s\", printf \"%s\"", v, mine, want);
   checked++;
 }
