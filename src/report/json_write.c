@@ -5,6 +5,19 @@
 
 #include "json_util.h"
 
+/* g_string_append_len() without its call when the bytes fit, as GLib's own
+ * g_string_append_c_inline() does for one byte (glib/gstring.h): most appends here are a few
+ * bytes, and the call cost more than the copy. */
+static inline void put(GString *out, const char *s, gsize n) {
+  if (out->len + n < out->allocated_len) {
+    memcpy(out->str + out->len, s, n);
+    out->len += n;
+    out->str[out->len] = '\0';
+  } else {
+    g_string_append_len(out, s, (gssize)n);
+  }
+}
+
 /* json-glib's json_strescape(): '"' and '\\' escaped, \b \f \n \r \t by name, the other bytes
  * from 0x01 to 0x1e and 0x7f as \u00xx; 0x1f and everything else (UTF-8 included) as it is. */
 static const guchar escaped[256] = {
@@ -26,23 +39,23 @@ static void add_string(GString *out, const char *s) {
     guchar c = (guchar)*p;
     if (!escaped[c])
       continue;
-    g_string_append_len(out, run, p - run);
+    put(out, run, (gsize)(p - run));
     run = p + 1;
     switch (c) {
-    case '"': g_string_append_len(out, "\\\"", 2); break;
-    case '\\': g_string_append_len(out, "\\\\", 2); break;
-    case '\b': g_string_append_len(out, "\\b", 2); break;
-    case '\f': g_string_append_len(out, "\\f", 2); break;
-    case '\n': g_string_append_len(out, "\\n", 2); break;
-    case '\r': g_string_append_len(out, "\\r", 2); break;
-    case '\t': g_string_append_len(out, "\\t", 2); break;
+    case '"': put(out, "\\\"", 2); break;
+    case '\\': put(out, "\\\\", 2); break;
+    case '\b': put(out, "\\b", 2); break;
+    case '\f': put(out, "\\f", 2); break;
+    case '\n': put(out, "\\n", 2); break;
+    case '\r': put(out, "\\r", 2); break;
+    case '\t': put(out, "\\t", 2); break;
     default: {
       char u[6] = {'\\', 'u', '0', '0', hex[c >> 4], hex[c & 15]};
-      g_string_append_len(out, u, 6);
+      put(out, u, 6);
     }
     }
   }
-  g_string_append_len(out, run, p - run);
+  put(out, run, (gsize)(p - run));
   g_string_append_c(out, '"');
 }
 
@@ -54,7 +67,7 @@ static void add_int(GString *out, gint64 v) {
   while ((u /= 10) != 0);
   if (v < 0)
     *--q = '-';
-  g_string_append_len(out, q, buf + sizeof buf - q);
+  put(out, q, (gsize)(buf + sizeof buf - q));
 }
 
 /* json-glib: g_ascii_dtostr(), then ".0" when the text has no '.' */
@@ -63,7 +76,7 @@ static void add_double(GString *out, double v) {
   gsize n = pp_json_format_double(v, buf);
   if (!memchr(buf, '.', n))
     buf[n++] = '.', buf[n++] = '0'; /* room: the longest text is 24 bytes */
-  g_string_append_len(out, buf, (gssize)n);
+  put(out, buf, n);
 }
 
 static void add_node(GString *out, JsonNode *node) {
@@ -109,11 +122,11 @@ static void add_node(GString *out, JsonNode *node) {
     } else if (t == G_TYPE_STRING) {
       add_string(out, json_node_get_string(node));
     } else {
-      g_string_append_len(out, "null", 4); /* no other value type is ever written */
+      put(out, "null", 4); /* no other value type is ever written */
     }
     break;
   }
-  case JSON_NODE_NULL: g_string_append_len(out, "null", 4); break;
+  case JSON_NODE_NULL: put(out, "null", 4); break;
   }
 }
 
@@ -162,7 +175,7 @@ void pp_json_out_name(pp_json_out *o, const char *name) {
 
 void pp_json_out_null(pp_json_out *o) {
   separate(o);
-  g_string_append_len(o->text, "null", 4);
+  put(o->text, "null", 4);
   o->more = TRUE;
 }
 
@@ -181,9 +194,9 @@ void pp_json_out_double(pp_json_out *o, double v) {
 void pp_json_out_bool(pp_json_out *o, gboolean v) {
   separate(o);
   if (v)
-    g_string_append_len(o->text, "true", 4);
+    put(o->text, "true", 4);
   else
-    g_string_append_len(o->text, "false", 5);
+    put(o->text, "false", 5);
   o->more = TRUE;
 }
 
