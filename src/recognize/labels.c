@@ -33,14 +33,15 @@ static void label_free(gpointer p) {
 }
 
 static void add_label(GPtrArray *out, const char *text, pp_rect box, double size, double angle,
-                      const pp_number *num) {
+                      const pp_number_reading *reading) {
   pp_label *l = g_new0(pp_label, 1);
   l->text = g_strdup(text);
   l->box = box;
   l->centre = (pp_point){(box.x0 + box.x1) / 2, (box.y0 + box.y1) / 2};
   l->size = size > 0 ? size : pp_rect_height(box);
   l->angle = angle;
-  l->number = *num;
+  l->reading = *reading;
+  pp_number_reading_alone(reading, &l->number);
   l->index = out->len;
   g_ptr_array_add(out, l);
 }
@@ -145,6 +146,7 @@ static void recover_minus_signs(const pp_scene *scene, GPtrArray *labels, GHashT
     g_free(l->text);
     l->text = text;
     l->number.value = -l->number.value;
+    pp_number_read(l->text, &l->reading); /* the signed text, as an axis reads it */
     l->box = pp_rect_union(l->box, m->bbox);
     l->centre = (pp_point){(l->box.x0 + l->box.x1) / 2, (l->box.y0 + l->box.y1) / 2};
     g_hash_table_add(glyph_marks, GUINT_TO_POINTER((guint)mark));
@@ -162,7 +164,7 @@ GPtrArray *pp_labels_collect(const pp_scene *scene, GHashTable *glyph_marks) {
   for (guint i = 0; i < n;) {
     /* Longest run of up to four words on one baseline that parses as one number. */
     guint best = 0;
-    pp_number best_num;
+    pp_number_reading best_reading;
     GString *phrase = g_string_new(NULL);
     gboolean has_digit = FALSE;
     for (guint k = 0; k < 4 && i + k < n; k++) {
@@ -175,10 +177,10 @@ GPtrArray *pp_labels_collect(const pp_scene *scene, GHashTable *glyph_marks) {
       /* Every number in number.c's grammar holds an ASCII digit: a phrase without one is
        * not parsed (most words of a text page), which spares the parser's unit search. */
       has_digit = has_digit || strpbrk(w->text, "0123456789") != NULL;
-      pp_number num;
-      if (has_digit && pp_number_parse(phrase->str, PP_DECIMAL_UNKNOWN, &num)) {
+      pp_number_reading reading;
+      if (has_digit && pp_number_read(phrase->str, &reading)) {
         best = k + 1;
-        best_num = num;
+        best_reading = reading;
       }
     }
     if (best == 0) {
@@ -196,7 +198,7 @@ GPtrArray *pp_labels_collect(const pp_scene *scene, GHashTable *glyph_marks) {
         g_string_append(text, joiner(text->str, w->text));
       g_string_append(text, w->text);
     }
-    add_label(out, text->str, box, first->font_size, first->angle, &best_num);
+    add_label(out, text->str, box, first->font_size, first->angle, &best_reading);
     g_string_free(text, TRUE);
     g_string_free(phrase, TRUE);
     i += best;
