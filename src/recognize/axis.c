@@ -416,27 +416,28 @@ static void group_by(GPtrArray *labels, label_key key, double tol, gboolean vert
   /* The labels this call may group, with their keys and sizes. A label taken during the call
    * belongs to a run of a group already made, so it is never looked at again: `taken` and the
    * reading direction are checked once here, not for every pair. */
-  pp_label **free_labels = g_new(pp_label *, MAX(n, 1));
+  pp_label **eligible = g_new(pp_label *, MAX(n, 1));
   double *keys = g_new(double, MAX(n, 1)), *sizes = g_new(double, MAX(n, 1));
   for (guint i = 0; i < n; i++) {
     pp_label *l = g_ptr_array_index(labels, i);
     if (g_hash_table_contains(taken, l) || !reads_along(l, vertical))
       continue;
-    free_labels[m] = l;
+    eligible[m] = l;
     keys[m] = key(l);
     sizes[m] = l->size;
     m++;
   }
   gboolean *done = g_new0(gboolean, MAX(m, 1));
+  GPtrArray *group = g_ptr_array_new();
   for (guint i = 0; i < m; i++) {
     if (done[i])
       continue;
-    GPtrArray *group = g_ptr_array_new();
+    g_ptr_array_set_size(group, 0);
     for (guint j = i; j < m; j++) {
       if (done[j])
         continue;
       if (fabs(keys[j] - keys[i]) <= tol && fabs(sizes[j] - sizes[i]) <= PP_SIZE_TOL * sizes[i]) {
-        g_ptr_array_add(group, free_labels[j]);
+        g_ptr_array_add(group, eligible[j]);
         done[j] = TRUE;
       }
     }
@@ -450,10 +451,10 @@ static void group_by(GPtrArray *labels, label_key key, double tol, gboolean vert
           g_hash_table_add(taken, g_ptr_array_index(c->labels, q));
       }
     }
-    g_ptr_array_unref(group);
   }
+  g_ptr_array_unref(group);
   g_free(done);
-  g_free(free_labels);
+  g_free(eligible);
   g_free(keys);
   g_free(sizes);
 }

@@ -288,8 +288,11 @@ static gboolean parse_strict(const char *s, const char *end, pp_decimal_mark con
     p = skip_gaps(p + len, end);
   }
 
-  /* core: digit groups split by separators that are followed by a digit */
-  GString *digits = g_string_new(NULL);
+  /* core: digit groups split by separators that are followed by a digit; the digit string is
+   * on the stack unless the label is very long (this runs for every numeric word of a page) */
+  char dstack[64];
+  size_t dcap = (size_t)(end - p) + 1, dlen = 0;
+  char *digits = dcap <= sizeof dstack ? dstack : g_malloc(dcap);
   int glen[MAX_GROUPS], seps[MAX_GROUPS], ng = 0, cur = 0;
   const char *first_digit = p;
   gboolean ok = FALSE;
@@ -302,7 +305,7 @@ static gboolean parse_strict(const char *s, const char *end, pp_decimal_mark con
   }
   while (p < end) {
     if (g_ascii_isdigit(*p)) {
-      g_string_append_c(digits, *p++);
+      digits[dlen++] = *p++;
       cur++;
       continue;
     }
@@ -316,6 +319,7 @@ static gboolean parse_strict(const char *s, const char *end, pp_decimal_mark con
     cur = 0;
     p += len;
   }
+  digits[dlen] = '\0';
   glen[ng++] = cur;
 
   /* at most one decimal mark, and only as the last separator; the rest group with one class */
@@ -339,12 +343,12 @@ static gboolean parse_strict(const char *s, const char *end, pp_decimal_mark con
   out->has_grouping = group_sep != SEP_NONE;
   out->decimals = ndec ? glen[ng - 1] : 0;
   out->decimal_mark = ndec ? conv : PP_DECIMAL_UNKNOWN;
-  *last_dec_zero = ndec && digits->str[digits->len - 1] == '0';
+  *last_dec_zero = ndec && digits[dlen - 1] == '0';
 
   int exp = 0;
   gboolean has_exp = !out->has_grouping && parse_exponent(&p, end, &exp);
-  if (!has_exp && ng == 1 && strcmp(digits->str, "10") == 0 && parse_bare_power(&p, end, &exp)) {
-    g_string_assign(digits, "1"); /* 10^k = 1·10^k */
+  if (!has_exp && ng == 1 && strcmp(digits, "10") == 0 && parse_bare_power(&p, end, &exp)) {
+    digits[0] = '1', digits[1] = '\0', dlen = 1; /* 10^k = 1·10^k */
     has_exp = TRUE;
   }
 
@@ -371,8 +375,8 @@ static gboolean parse_strict(const char *s, const char *end, pp_decimal_mark con
     goto done;
 
   /* one correctly rounded conversion of the whole decimal string, multiplier included */
-  int nint_digits = (int)digits->len - out->decimals;
-  out->value = decimal_value(digits->str, nint_digits, exp + st.exp10);
+  int nint_digits = (int)dlen - out->decimals;
+  out->value = decimal_value(digits, nint_digits, exp + st.exp10);
   if (!isfinite(out->value))
     goto done;
   if (out->value == 0.0) /* "-0" is zero, not a negative value */
@@ -386,7 +390,8 @@ static gboolean parse_strict(const char *s, const char *end, pp_decimal_mark con
                    out->value <= PP_YEAR_LAST;
   ok = TRUE;
 done:
-  g_string_free(digits, TRUE);
+  if (digits != dstack)
+    g_free(digits);
   if (!ok)
     memset(out, 0, sizeof *out);
   return ok;

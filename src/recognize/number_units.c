@@ -147,21 +147,48 @@ static const pp_number_unit units[] = {
     {"VND", PP_UNIT_CURRENCY, 0},
 };
 
-/* Longest unit token at p; a token ending in a letter must not run on into another letter, so
- * "km" is neither "k" nor "kr" and "EURO" is not "EUR". */
+/* The table by first byte, in table order within a byte, built once: the lookup runs for every
+ * character around the digits of every numeric word, and the first byte rules out nearly every
+ * unit. */
+static guint8 by_byte[G_N_ELEMENTS(units)];
+static guint8 by_byte_len[G_N_ELEMENTS(units)];
+static guint16 byte_start[257];
+G_STATIC_ASSERT(G_N_ELEMENTS(units) < 256);
+
+static void index_units(void) {
+  static gsize indexed = 0;
+  if (!g_once_init_enter(&indexed))
+    return;
+  guint16 fill[256] = {0};
+  for (size_t i = 0; i < G_N_ELEMENTS(units); i++)
+    byte_start[(guchar)units[i].text[0] + 1]++;
+  for (int b = 0; b < 256; b++)
+    byte_start[b + 1] += byte_start[b];
+  for (size_t i = 0; i < G_N_ELEMENTS(units); i++) {
+    guchar b = (guchar)units[i].text[0];
+    guint16 k = byte_start[b] + fill[b]++;
+    by_byte[k] = (guint8)i;
+    by_byte_len[k] = (guint8)strlen(units[i].text);
+  }
+  g_once_init_leave(&indexed, 1);
+}
+
+/* Longest unit at p, the first in table order among equals (the scan of one byte's units keeps
+ * table order). A unit ending in a letter must not run on into another letter, so "km" is
+ * neither "k" nor "kr" and "EURO" is not "EUR". */
 const pp_number_unit *pp_number_unit_match(const char *p, const char *end, size_t *len) {
   const pp_number_unit *best = NULL;
   size_t best_len = 0;
-  for (size_t i = 0; i < G_N_ELEMENTS(units); i++) {
-    /* The first byte rules out nearly every token before its length is taken. */
-    if (p >= end || units[i].text[0] != *p)
-      continue;
-    size_t n = strlen(units[i].text);
-    if (n <= best_len || (size_t)(end - p) < n || memcmp(p, units[i].text, n) != 0)
+  index_units();
+  guchar b = p < end ? (guchar)*p : 0;
+  for (guint k = byte_start[b]; p < end && k < byte_start[b + 1]; k++) {
+    const pp_number_unit *u = &units[by_byte[k]];
+    size_t n = by_byte_len[k];
+    if (n <= best_len || (size_t)(end - p) < n || memcmp(p, u->text, n) != 0)
       continue;
     if (g_ascii_isalpha(p[n - 1]) && p + n < end && g_ascii_isalpha(p[n]))
       continue;
-    best = &units[i];
+    best = u;
     best_len = n;
   }
   *len = best_len;
