@@ -215,10 +215,11 @@ static pp_axis_candidate *make_candidate(GPtrArray *run, gboolean vertical, GArr
   guint m = 0, n_snapped = snap_run(run, vertical, segs, pos);
   gboolean all_positive = TRUE;
   pp_axis_candidate *c = g_new0(pp_axis_candidate, 1);
-  c->labels = g_ptr_array_new();
+  c->labels = g_ptr_array_sized_new(n);
   c->label_edge = edge;
   pp_scale *axis = pp_scale_new(vertical);
   c->scale = axis;
+  g_array_set_size(axis->ticks, n); /* one tick a label, filled in order below */
   for (guint i = 0; i < n; i++) {
     pp_label *l = g_ptr_array_index(run, i);
     /* Every label parsed on its own; the series reading wins where it exists. */
@@ -226,8 +227,7 @@ static pp_axis_candidate *make_candidate(GPtrArray *run, gboolean vertical, GArr
     val[m] = v;
     all_positive &= v > 0;
     lval[m] = v > 0 ? log10(v) : 0;
-    pp_tick t = {pos[m], v, g_strdup(l->text)};
-    g_array_append_val(axis->ticks, t);
+    g_array_index(axis->ticks, pp_tick, m) = (pp_tick){pos[m], v, g_strdup(l->text)};
     g_ptr_array_add(c->labels, l);
     axis->box = pp_rect_union(axis->box, l->box);
     m++;
