@@ -449,6 +449,13 @@ gboolean pp_number_reading_alone(const pp_number_reading *r, pp_number *out) {
 
 gboolean pp_number_parse(const char *utf8, pp_decimal_mark hint, pp_number *out) {
   if (hint == PP_DECIMAL_UNKNOWN) {
+    /* Every number of the grammar holds an ASCII digit, and with neither reading parsed the
+     * result is zeroed: titles and prose lines, which callers test to tell them from numbers,
+     * stop here. */
+    if (!utf8 || !strpbrk(utf8, "0123456789")) {
+      memset(out, 0, sizeof *out);
+      return FALSE;
+    }
     pp_number_reading r;
     pp_number_read(utf8, &r);
     return pp_number_reading_alone(&r, out);

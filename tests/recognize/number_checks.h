@@ -1,8 +1,10 @@
-/* number_checks.h — what the label-reading tests share: the hint names and checks that parse one
- * string and fail the test, naming the string and the caller's line, unless it reads as wanted. */
+/* number_checks.h — what the label-reading tests share: the hint names, checks that parse one
+ * string and fail the test, naming the string and the caller's line, unless it reads as wanted,
+ * and field-by-field comparison of two readings. */
 #pragma once
 
 #include <math.h>
+#include <string.h>
 
 #include "recognize/number.h"
 
@@ -39,3 +41,35 @@ static inline void check_rejected_at(const char *s, int line) {
     }
 }
 #define CHECK_REJECTED(s) check_rejected_at((s), __LINE__)
+
+/* Every field of two readings equal, values bit for bit (a -0 would differ from 0). */
+static inline gboolean same_number(const pp_number *a, const pp_number *b) {
+  return memcmp(&a->value, &b->value, sizeof(double)) == 0 &&
+         memcmp(&a->multiplier, &b->multiplier, sizeof(double)) == 0 && a->percent == b->percent &&
+         a->permille == b->permille && strcmp(a->currency, b->currency) == 0 &&
+         a->decimals == b->decimals && a->has_grouping == b->has_grouping &&
+         a->decimal_mark == b->decimal_mark && a->year_like == b->year_like &&
+         a->ambiguous == b->ambiguous;
+}
+
+static inline void print_number(const char *what, const pp_number *n) {
+  print_error("  %s: value %.17g mult %g pct %d pm %d cur \"%s\" dec %d grp %d mark %d year %d "
+              "amb %d\n",
+              what, n->value, n->multiplier, n->percent, n->permille, n->currency, n->decimals,
+              n->has_grouping, n->decimal_mark, n->year_like, n->ambiguous);
+}
+
+/* Whether the last decimal digit is '0', from the text (the parser keeps the flag to itself): a
+ * label's decimals are its last ASCII digits unless an exponent ("e", "\u00d710") follows. */
+static inline gboolean last_dec_zero_of_text(const char *s, const pp_number *n) {
+  if (n->decimals == 0)
+    return FALSE;
+  const char *last = NULL;
+  for (const char *p = s; *p; p++) {
+    if (*p == 'e' || *p == 'E' || (guchar)*p == 0xC3) /* exponent, or the × of ×10 */
+      break;
+    if (g_ascii_isdigit(*p))
+      last = p;
+  }
+  return last && *last == '0';
+}
