@@ -10,7 +10,8 @@
  *   power  := "10" (^ [sign] digits | superscript-digits)   in place of core [exp]: 10^k
  *   suffix := gap* (multiplier | currency | percent | permille) | ')'
  * Each of sign, parenthesis pair, currency, multiplier, percent appears at most once; a sign and
- * parentheses together, or a percent with a currency or multiplier, are rejected.
+ * parentheses together, or a percent with a currency or multiplier, are rejected. The currencies,
+ * multipliers and percent signs themselves are listed in number_units.c.
  * Choices (none comes from a standard, all are common practice, no source):
  * - A trailing minus ("5-") is rejected: in chart text it is more often half of a range "5–10"
  *   split by the text extractor than an accounting sign, and a wrong sign is worse than no value.
