@@ -80,6 +80,7 @@ struct pp_bar_text {
   guint n_by_y0, n_by_x1, n_labels_x, n_labels_y; /* entries with a key (not NaN) */
   gboolean lines_in_order;     /* words' line numbers never decrease (capture's reading order) */
   double tallest, upside_down; /* the largest y1 - y0 and y0 - y1 of a word, at least 0 */
+  guint8 *is_number;           /* per word: 0 not read yet, 1 a number, 2 not (pp_number_parse) */
 };
 
 static double key_of(const void *base, gsize stride, guint i) {
@@ -136,6 +137,7 @@ static const pp_bar_text *bar_text(pp_recognize_ctx *ctx) {
     t->tallest = fmax(t->tallest, w->box.y1 - w->box.y0);
     t->upside_down = fmax(t->upside_down, w->box.y0 - w->box.y1);
   }
+  t->is_number = g_new0(guint8, MAX(words->len, 1));
   t->lines_in_order = TRUE;
   for (guint i = 1; i < words->len && t->lines_in_order; i++)
     t->lines_in_order = ((const pp_text_run *)g_ptr_array_index(words, i - 1))->line <=
@@ -149,6 +151,7 @@ void pp_bar_text_free(pp_bar_text *t) {
     return;
   g_free(t->by_y0);
   g_free(t->by_x1);
+  g_free(t->is_number);
   g_free(t->labels_x);
   g_free(t->labels_y);
   g_free(t);
@@ -584,15 +587,28 @@ pp_figure *pp_bars_build(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *sca
 
 /* Legend keys: swatches of one size, each with a series name beside, above or below
  * it. They share edges like bars do but stand for no value. */
-static gboolean swatch_named(const pp_text_run *word, pp_rect b) {
+/* Whether word k of the page reads as a number, parsed once per page: a page of tiles
+ * asks it of the same words for thousands of swatches. */
+static gboolean word_is_number(pp_recognize_ctx *ctx, guint k) {
+  pp_bar_text *t = ctx->bar_text;
+  if (!t->is_number[k]) {
+    pp_number num;
+    const pp_text_run *w = g_ptr_array_index(ctx->scene->words, k);
+    t->is_number[k] = pp_number_parse(w->text, PP_DECIMAL_UNKNOWN, &num) ? 1 : 2;
+  }
+  return t->is_number[k] == 1;
+}
+
+static gboolean swatch_named(pp_recognize_ctx *ctx, guint k, pp_rect b) {
+  const pp_text_run *word = g_ptr_array_index(ctx->scene->words, k);
   double reach = fmin(pp_rect_width(b), pp_rect_height(b)) + PP_SWATCH_NAME_GAP;
   pp_rect w = word->box;
   double e = PP_EDGE_SLACK;
   gboolean right = w.x0 >= b.x1 - e && w.x0 <= b.x1 + reach && w.y0 < b.y1 && w.y1 > b.y0;
   gboolean below = w.y0 >= b.y1 - e && w.y0 <= b.y1 + reach && w.x0 < b.x1 && w.x1 > b.x0;
   gboolean above = w.y1 <= b.y0 + e && w.y1 >= b.y0 - reach && w.x0 < b.x1 && w.x1 > b.x0;
-  pp_number num; /* a number beside a bar is its data label, not a series name */
-  return (right || below || above) && !pp_number_parse(word->text, PP_DECIMAL_UNKNOWN, &num);
+  /* a number beside a bar is its data label, not a series name */
+  return (right || below || above) && !word_is_number(ctx, k);
 }
 
 /* Figures with more swatches than this look their names up by height (a page of tiles
@@ -613,12 +629,13 @@ gboolean pp_bars_legend_like(pp_recognize_ctx *ctx, const pp_figure *fig) {
       return FALSE;
   }
   GPtrArray *words = ctx->scene->words;
+  const pp_bar_text *t = bar_text(ctx);
   if (els->len < PP_LEGEND_INDEX_MIN) {
     for (guint i = 0; i < els->len; i++) {
       pp_rect b = g_array_index(els, pp_element, i).box;
       gboolean named = FALSE;
       for (guint k = 0; k < words->len && !named; k++)
-        named = swatch_named(g_ptr_array_index(words, k), b);
+        named = swatch_named(ctx, k, b);
       if (!named)
         return FALSE;
     }
@@ -628,7 +645,6 @@ gboolean pp_bars_legend_like(pp_recognize_ctx *ctx, const pp_figure *fig) {
    * bottom within reach above it: the words by top, in that band widened by the tallest
    * word (and any box with y0 > y1); words without a top (NaN) are always tried. The
    * words' order is the page's (ctx->bar_text), sorted once, not once per figure. */
-  const pp_bar_text *t = bar_text(ctx);
   const guint *by_y0 = t->by_y0;
   guint n_top = t->n_by_y0;
   double tallest = t->tallest, upside_down = t->upside_down;
@@ -644,10 +660,10 @@ gboolean pp_bars_legend_like(pp_recognize_ctx *ctx, const pp_figure *fig) {
       const pp_text_run *w = g_ptr_array_index(words, by_y0[k]);
       if (w->box.y0 > hi)
         break;
-      named = swatch_named(w, b);
+      named = swatch_named(ctx, by_y0[k], b);
     }
     for (k = n_top; k < words->len && !named; k++)
-      named = swatch_named(g_ptr_array_index(words, by_y0[k]), b);
+      named = swatch_named(ctx, by_y0[k], b);
     all = named;
   }
   return all;

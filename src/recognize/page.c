@@ -69,6 +69,21 @@ static gboolean has_bars_beside(const pp_recognize_ctx *ctx, const pp_axis_candi
       g_array_append_val(near, b->rect);
   }
   gboolean found = FALSE;
+  /* The bars on any one edge are some of the near bars, so their spread of lengths is at
+   * most the near bars' own and their longest at most the near bars' longest: when these
+   * already fail the test below, no edge passes it (a page of equal tiles), and the edges
+   * need not be searched. */
+  double shortest_near = INFINITY, longest_near = 0;
+  for (guint j = 0; j < near->len; j++) {
+    pp_frame_rect r = pp_frame_of(g_array_index(near, pp_rect, j), vertical);
+    shortest_near = fmin(shortest_near, r.u1 - r.u0);
+    longest_near = fmax(longest_near, r.u1 - r.u0);
+  }
+  if (!(longest_near - shortest_near > PP_FAILED_SCALE_MIN_SPREAD &&
+        longest_near >= PP_FAILED_SCALE_MIN_LONGEST * (c->span1 - c->span0))) {
+    g_array_unref(near);
+    return FALSE;
+  }
   /* The near bars' ends along the axis in order, so that the bars on an edge are found by
    * binary search: a page of tiles has as many edges as rows, each tried once. */
   g_autofree double *ends = g_new(double, MAX(near->len, 1));
