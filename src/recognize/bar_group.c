@@ -29,10 +29,6 @@
  * inside it (labels printed in the bar's end; common practice, no source). */
 #define PP_LABEL_BEYOND 2.5
 #define PP_LABEL_INSIDE 3.0
-/* Legend swatches are at most this big, pt (common practice, no source), and named
- * within their size plus this gap, pt (common practice, no source). */
-#define PP_SWATCH_MAX 40.0
-#define PP_SWATCH_NAME_GAP 6.0
 
 pp_frame_rect pp_frame_of(pp_rect r, gboolean vertical) {
   return vertical ? (pp_frame_rect){r.y0, r.y1, r.x0, r.x1}
@@ -137,7 +133,6 @@ static const pp_bar_text *bar_text(pp_recognize_ctx *ctx) {
     t->tallest = fmax(t->tallest, w->box.y1 - w->box.y0);
     t->upside_down = fmax(t->upside_down, w->box.y0 - w->box.y1);
   }
-  t->is_number = g_new0(guint8, MAX(words->len, 1));
   t->lines_in_order = TRUE;
   for (guint i = 1; i < words->len && t->lines_in_order; i++)
     t->lines_in_order = ((const pp_text_run *)g_ptr_array_index(words, i - 1))->line <=
@@ -151,7 +146,6 @@ void pp_bar_text_free(pp_bar_text *t) {
     return;
   g_free(t->by_y0);
   g_free(t->by_x1);
-  g_free(t->is_number);
   g_free(t->labels_x);
   g_free(t->labels_y);
   g_free(t);
@@ -583,88 +577,4 @@ pp_figure *pp_bars_build(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *sca
   find_group_categories(ctx, fig, plot, vertical);
   attach_data_labels(ctx, fig, vertical, base);
   return fig;
-}
-
-/* Legend keys: swatches of one size, each with a series name beside, above or below
- * it. They share edges like bars do but stand for no value. */
-/* Whether word k of the page reads as a number, parsed once per page: a page of tiles
- * asks it of the same words for thousands of swatches. */
-static gboolean word_is_number(pp_recognize_ctx *ctx, guint k) {
-  pp_bar_text *t = ctx->bar_text;
-  if (!t->is_number[k]) {
-    pp_number num;
-    const pp_text_run *w = g_ptr_array_index(ctx->scene->words, k);
-    t->is_number[k] = pp_number_parse(w->text, PP_DECIMAL_UNKNOWN, &num) ? 1 : 2;
-  }
-  return t->is_number[k] == 1;
-}
-
-static gboolean swatch_named(pp_recognize_ctx *ctx, guint k, pp_rect b) {
-  const pp_text_run *word = g_ptr_array_index(ctx->scene->words, k);
-  double reach = fmin(pp_rect_width(b), pp_rect_height(b)) + PP_SWATCH_NAME_GAP;
-  pp_rect w = word->box;
-  double e = PP_EDGE_SLACK;
-  gboolean right = w.x0 >= b.x1 - e && w.x0 <= b.x1 + reach && w.y0 < b.y1 && w.y1 > b.y0;
-  gboolean below = w.y0 >= b.y1 - e && w.y0 <= b.y1 + reach && w.x0 < b.x1 && w.x1 > b.x0;
-  gboolean above = w.y1 <= b.y0 + e && w.y1 >= b.y0 - reach && w.x0 < b.x1 && w.x1 > b.x0;
-  /* a number beside a bar is its data label, not a series name */
-  return (right || below || above) && !word_is_number(ctx, k);
-}
-
-/* Figures with more swatches than this look their names up by height (a page of tiles
- * can hold thousands); fewer scan every word (common practice, no source). */
-#define PP_LEGEND_INDEX_MIN 8
-/* Slack on that lookup's band, pt: far above rounding, so no word that names a swatch is
- * left out of it (common practice, no source). */
-#define PP_LEGEND_BAND_SLACK 1.0
-
-gboolean pp_bars_legend_like(pp_recognize_ctx *ctx, const pp_figure *fig) {
-  GArray *els = fig->elements;
-  pp_rect first = g_array_index(els, pp_element, 0).box;
-  for (guint i = 0; i < els->len; i++) {
-    pp_rect b = g_array_index(els, pp_element, i).box;
-    if (fabs(pp_rect_width(b) - pp_rect_width(first)) > PP_EDGE_SLACK ||
-        fabs(pp_rect_height(b) - pp_rect_height(first)) > PP_EDGE_SLACK ||
-        pp_rect_width(b) > PP_SWATCH_MAX || pp_rect_height(b) > PP_SWATCH_MAX)
-      return FALSE;
-  }
-  GPtrArray *words = ctx->scene->words;
-  const pp_bar_text *t = bar_text(ctx);
-  if (els->len < PP_LEGEND_INDEX_MIN) {
-    for (guint i = 0; i < els->len; i++) {
-      pp_rect b = g_array_index(els, pp_element, i).box;
-      gboolean named = FALSE;
-      for (guint k = 0; k < words->len && !named; k++)
-        named = swatch_named(ctx, k, b);
-      if (!named)
-        return FALSE;
-    }
-    return TRUE;
-  }
-  /* A word names a swatch only if its top lies within reach below the swatch and its
-   * bottom within reach above it: the words by top, in that band widened by the tallest
-   * word (and any box with y0 > y1); words without a top (NaN) are always tried. The
-   * words' order is the page's (ctx->bar_text), sorted once, not once per figure. */
-  const guint *by_y0 = t->by_y0;
-  guint n_top = t->n_by_y0;
-  double tallest = t->tallest, upside_down = t->upside_down;
-  gboolean all = TRUE;
-  for (guint i = 0; i < els->len && all; i++) {
-    pp_rect b = g_array_index(els, pp_element, i).box;
-    double reach = fmin(pp_rect_width(b), pp_rect_height(b)) + PP_SWATCH_NAME_GAP;
-    double lo = b.y0 - reach - tallest - PP_LEGEND_BAND_SLACK;
-    double hi = b.y1 + reach + upside_down + PP_LEGEND_BAND_SLACK;
-    gboolean named = FALSE;
-    guint k = lower_bound(words, G_STRUCT_OFFSET(pp_text_run, box.y0), by_y0, n_top, lo);
-    for (; k < n_top && !named; k++) {
-      const pp_text_run *w = g_ptr_array_index(words, by_y0[k]);
-      if (w->box.y0 > hi)
-        break;
-      named = swatch_named(ctx, by_y0[k], b);
-    }
-    for (k = n_top; k < words->len && !named; k++)
-      named = swatch_named(ctx, by_y0[k], b);
-    all = named;
-  }
-  return all;
 }

@@ -108,7 +108,8 @@ typedef struct {
   pp_claims *claims;            /* the ledger */
   GArray *wedges;               /* pp_wedge_candidate of every fill, claimed or not (wedges.c) */
   struct pp_bar_text *bar_text; /* words and labels in coordinate order (bar_group.c) */
-  pp_page_charts *out;          /* figures found so far */
+  struct pp_legend_words *legend_words; /* words by position for legend keys (legend.c) */
+  pp_page_charts *out;                  /* figures found so far */
 } pp_recognize_ctx;
 
 /* A recognizer finds every figure of its family on the page, claiming marks and labels
@@ -191,8 +192,10 @@ pp_figure *pp_bars_build(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *sca
                          gboolean vertical, double base, const char *owner);
 typedef struct pp_bar_text pp_bar_text;
 void pp_bar_text_free(pp_bar_text *t);
-/* Legend keys: swatches of one size, each named beside it. */
+/* Legend keys: swatches of one size, each named beside it (legend.c). */
 gboolean pp_bars_legend_like(pp_recognize_ctx *ctx, const pp_figure *fig);
+typedef struct pp_legend_words pp_legend_words;
+void pp_legend_words_free(pp_legend_words *lw);
 /* Evidence of a bar layout: the shared baseline and how regularly the bars of each series
  * are spaced (pp_bars_spacing_regularity: share of regular gaps, NAN with too few bars). */
 double pp_bars_spacing_regularity(const pp_figure *fig);

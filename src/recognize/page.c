@@ -187,6 +187,7 @@ pp_page_charts *pp_page_charts_find(const pp_scene *scene) {
   if (ctx.wedges)
     g_array_unref(ctx.wedges);
   pp_bar_text_free(ctx.bar_text);
+  pp_legend_words_free(ctx.legend_words);
   g_ptr_array_unref(ctx.areas);
   g_array_unref(ctx.bars);
   g_hash_table_unref(ctx.glyph_marks);
