@@ -129,6 +129,11 @@ static inline void take(pp_box_grid *g, guint id, guint *ids, guint *n) {
 }
 
 void pp_box_grid_query(pp_box_grid *g, pp_rect q, GArray *out) {
+  pp_box_grid_query_any(g, q, out);
+  sort_ids(out);
+}
+
+void pp_box_grid_query_any(pp_box_grid *g, pp_rect q, GArray *out) {
   g_array_set_size(out, 0);
   if (g->n == 0 || !(q.x0 <= q.x1 && q.y0 <= q.y1))
     return;
@@ -154,7 +159,6 @@ void pp_box_grid_query(pp_box_grid *g, pp_rect q, GArray *out) {
     for (guint k = g->start[r * g->cols + c0]; k < g->start[r * g->cols + c1 + 1]; k++)
       take(g, g->ids[k], ids, &n);
   g_array_set_size(out, n);
-  sort_ids(out);
 }
 
 void pp_box_grid_query_inside(pp_box_grid *g, pp_rect outer, double tol, GArray *out) {

@@ -323,6 +323,8 @@ void pp_box_grid_free(pp_box_grid *grid);
 /* Sets out (guint) to the indices, ascending and once each, of every box that touches q,
  * plus possibly some that do not: callers apply their exact test to each. */
 void pp_box_grid_query(pp_box_grid *grid, pp_rect q, GArray *out);
+/* The same ids in no particular order, for callers whose answer does not depend on it. */
+void pp_box_grid_query_any(pp_box_grid *grid, pp_rect q, GArray *out);
 /* Sets out likewise to a superset of the boxes b with pp_rect_contains(outer, b, tol),
  * empty ones included. */
 void pp_box_grid_query_inside(pp_box_grid *grid, pp_rect outer, double tol, GArray *out);

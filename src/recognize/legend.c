@@ -98,7 +98,7 @@ static gboolean named_by_some_word(pp_recognize_ctx *ctx, pp_legend_words *lw, p
   double grow = fmin(pp_rect_width(b), pp_rect_height(b)) + PP_SWATCH_NAME_GAP + PP_SWATCH_SLACK +
                 PP_LEGEND_SEARCH_SLACK;
   pp_rect q = {b.x0 - grow, b.y0 - grow, b.x1 + grow, b.y1 + grow};
-  pp_box_grid_query(lw->grid, q, lw->near);
+  pp_box_grid_query_any(lw->grid, q, lw->near); /* any order: the answer is whether one does */
   for (guint i = 0; i < lw->near->len; i++)
     if (swatch_named(ctx, lw, g_array_index(lw->near, guint, i), b))
       return TRUE;
