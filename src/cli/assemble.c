@@ -184,95 +184,126 @@ static gboolean read_literal(const char **p, const char *end, const char *text) 
   return TRUE;
 }
 
-/* No member name of the object [o, o_end) has an escape (one could spell "severity"). */
-static gboolean escape_free_names(const char *o, const char *o_end) {
-  const char *n, *n_end, *v, *v_end;
-  while (pp_json_text_next(&o, o_end, &n, &n_end, &v, &v_end))
-    if (memchr(n, '\\', (size_t)(n_end - n)))
+static gboolean has_escape(const char *n, const char *n_end) {
+  return memchr(n, '\\', (size_t)(n_end - n)) != NULL;
+}
+
+/* Walks the array at *p (any other value is passed over): its elements counted, *p left past
+ * its end. */
+static guint count_elements(const char **p, const char *end) {
+  guint n = 0;
+  if (**p != '[') {
+    *p = pp_json_text_end(*p, end);
+    return 0;
+  }
+  while (pp_json_text_member(p, end, NULL, NULL)) {
+    *p = pp_json_text_end(*p, end);
+    n++;
+  }
+  (*p)++;
+  return n;
+}
+
+/* The one page entry of "pages" at *p, read into ps: its text's span, error and counts. *p is
+ * left past the array; FALSE when it is not one object whose names have no escape. */
+static gboolean walk_pages(const char **p, const char *end, page_slot *ps, const char **entry,
+                           const char **entry_end, const char **error, const char **error_end) {
+  const char *q = *p, *n, *n_end;
+  if (*q != '[' || !pp_json_text_member(&q, end, NULL, NULL) || *q != '{')
+    return FALSE;
+  *entry = q;
+  while (pp_json_text_member(&q, end, &n, &n_end)) {
+    if (has_escape(n, n_end) || pp_json_text_name_is(n, n_end, "_findings"))
       return FALSE;
+    if (pp_json_text_name_is(n, n_end, "error")) {
+      *error = q;
+      q = *error_end = pp_json_text_end(q, end);
+    } else if (pp_json_text_name_is(n, n_end, "figures")) {
+      ps->figures = count_elements(&q, end);
+    } else if (pp_json_text_name_is(n, n_end, "raster_images_not_analysed")) {
+      ps->raster = count_elements(&q, end);
+    } else if (pp_json_text_name_is(n, n_end, "scale_failures")) {
+      ps->scale = count_elements(&q, end);
+    } else {
+      q = pp_json_text_end(q, end);
+    }
+  }
+  *entry_end = ++q;
+  if (*q != ']') /* a second entry */
+    return FALSE;
+  *p = q + 1;
   return TRUE;
 }
 
-static guint count_elements(const char *v, const char *v_end) {
-  const char *el, *el_end;
-  guint n = 0;
-  if (*v != '[')
-    return 0;
-  while (pp_json_text_next(&v, v_end, NULL, NULL, &el, &el_end))
-    n++;
-  return n;
+/* The findings at *p into ps: as pp_assembly_finish counts them, findings that are not objects
+ * are dropped, and a severity counts only as a string. *p is left past the value; FALSE for a
+ * name or a severity with an escape (json-glib unescapes them; one could spell "severity"). */
+static gboolean walk_findings(const char **p, const char *end, page_slot *ps) {
+  const char *a = *p, *n, *n_end;
+  if (*a != '[') {
+    *p = pp_json_text_end(a, end);
+    return TRUE;
+  }
+  while (pp_json_text_member(&a, end, NULL, NULL)) {
+    const char *f = a, *sev = NULL, *sev_end = NULL;
+    if (*f != '{') {
+      a = pp_json_text_end(a, end);
+      continue;
+    }
+    while (pp_json_text_member(&a, end, &n, &n_end)) {
+      if (has_escape(n, n_end))
+        return FALSE;
+      const char *v = a;
+      a = pp_json_text_end(a, end);
+      if (pp_json_text_name_is(n, n_end, "severity"))
+        sev = v, sev_end = a;
+    }
+    a++;
+    if (sev && *sev == '"' && has_escape(sev, sev_end))
+      return FALSE;
+    for (int k = 0; sev && *sev == '"' && k < 3; k++)
+      ps->by_severity[k] += pp_json_text_name_is(sev, sev_end, pp_severity_name(k));
+    g_ptr_array_add(ps->findings, g_strndup(f, (gsize)(a - f)));
+  }
+  *p = a + 1;
+  return TRUE;
 }
 
 /* {"page":N,"rss_kib":R,"report":{...}} exactly as the document worker writes it
  * (docworker.c): the page entry is kept as text, only its error, its counts and the findings
- * are read. FALSE for anything else, before any change: json-glib then reads the line. */
+ * are read, in one walk after the check. FALSE for anything else, before any change: json-glib
+ * then reads the line (also for a report naming "pages" or "findings" twice). */
 static gboolean feed_page_text(pp_assembly *as, const char *line, gsize len) {
-  const char *p = line, *end = line + len, *n, *n_end, *v, *v_end;
+  const char *p = line, *end = line + len, *n, *n_end;
   gint64 index, rss;
   if (!read_literal(&p, end, "{\"page\":") || !read_count(&p, end, &index) ||
       !read_literal(&p, end, ",\"rss_kib\":") || !read_count(&p, end, &rss) ||
       !read_literal(&p, end, ",\"report\":") || p >= end || *p != '{' || end[-1] != '}' ||
       pp_json_text_skip(p, end - 1) != end - 1)
     return FALSE;
-  /* Member names with escapes could spell "pages" another way: json-glib reads those. */
-  const char *pages = NULL, *pages_end = NULL, *found = NULL, *found_end = NULL;
-  for (const char *r = p; pp_json_text_next(&r, end - 1, &n, &n_end, &v, &v_end);) {
-    if (memchr(n, '\\', (size_t)(n_end - n)))
-      return FALSE;
-    if (pp_json_text_name_is(n, n_end, "pages"))
-      pages = v, pages_end = v_end;
-    else if (pp_json_text_name_is(n, n_end, "findings"))
-      found = v, found_end = v_end;
-  }
-  const char *entry, *entry_end, *rest;
-  if (!pages || *pages != '[' ||
-      !pp_json_text_next(&pages, pages_end, NULL, NULL, &entry, &entry_end) || *entry != '{' ||
-      pp_json_text_next(&pages, pages_end, NULL, NULL, &rest, &rest))
-    return FALSE; /* not one page entry: the slow way reports it */
   page_slot *ps = g_new0(page_slot, 1);
-  const char *error = NULL, *error_end = NULL;
-  for (const char *e = entry; pp_json_text_next(&e, entry_end, &n, &n_end, &v, &v_end);) {
-    if (memchr(n, '\\', (size_t)(n_end - n)) || pp_json_text_name_is(n, n_end, "_findings")) {
-      page_slot_free(ps);
-      return FALSE;
-    }
-    if (pp_json_text_name_is(n, n_end, "error"))
-      error = v, error_end = v_end;
-    else if (pp_json_text_name_is(n, n_end, "figures"))
-      ps->figures = count_elements(v, v_end);
-    else if (pp_json_text_name_is(n, n_end, "raster_images_not_analysed"))
-      ps->raster = count_elements(v, v_end);
-    else if (pp_json_text_name_is(n, n_end, "scale_failures"))
-      ps->scale = count_elements(v, v_end);
-  }
-  if (error && *error == '"') {
-    if (memchr(error, '\\', (size_t)(error_end - error))) {
-      page_slot_free(ps);
-      return FALSE; /* an escaped error text: json-glib unescapes it */
-    }
-    ps->error = g_strndup(error + 1, (gsize)(error_end - error - 2));
-  }
-  /* As pp_assembly_finish counts them: findings that are not objects are dropped, and a
-   * severity counts only as a string (an escaped one is left to json-glib). */
   ps->findings = g_ptr_array_new_with_free_func(g_free);
-  const char *f, *f_end;
-  for (const char *a = found && *found == '[' ? found : NULL;
-       a && pp_json_text_next(&a, found_end, NULL, NULL, &f, &f_end);) {
-    if (*f != '{')
-      continue;
-    const char *sev = NULL, *sev_end = NULL;
-    for (const char *m = f; pp_json_text_next(&m, f_end, &n, &n_end, &v, &v_end);)
-      if (pp_json_text_name_is(n, n_end, "severity"))
-        sev = v, sev_end = v_end;
-    if ((sev && *sev == '"' && memchr(sev, '\\', (size_t)(sev_end - sev))) ||
-        !escape_free_names(f, f_end)) {
-      page_slot_free(ps);
-      return FALSE;
-    }
-    for (int k = 0; sev && *sev == '"' && k < 3; k++)
-      ps->by_severity[k] += pp_json_text_name_is(sev, sev_end, pp_severity_name(k));
-    g_ptr_array_add(ps->findings, g_strndup(f, (gsize)(f_end - f)));
+  const char *entry = NULL, *entry_end = NULL, *error = NULL, *error_end = NULL;
+  gboolean ok = TRUE, found = FALSE;
+  for (const char *r = p; ok && pp_json_text_member(&r, end - 1, &n, &n_end);) {
+    /* Member names with escapes could spell "pages" another way: json-glib reads those. */
+    if (has_escape(n, n_end))
+      ok = FALSE;
+    else if (pp_json_text_name_is(n, n_end, "pages"))
+      ok = !entry && walk_pages(&r, end - 1, ps, &entry, &entry_end, &error, &error_end);
+    else if (pp_json_text_name_is(n, n_end, "findings")) {
+      ok = !found && walk_findings(&r, end - 1, ps);
+      found = TRUE;
+    } else
+      r = pp_json_text_end(r, end - 1);
   }
+  /* not one page entry, or an escaped error text (json-glib unescapes it): the slow way */
+  if (!ok || !entry || (error && *error == '"' && has_escape(error, error_end))) {
+    page_slot_free(ps);
+    return FALSE;
+  }
+  if (error && *error == '"')
+    ps->error = g_strndup(error + 1, (gsize)(error_end - error - 2));
   /* As the slow way: an index outside the document the header opened is a corrupt line. */
   if (index >= (gint64)header_pages(as)) {
     as->bad_lines++;

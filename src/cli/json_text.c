@@ -10,6 +10,19 @@
  * deep, and the bound keeps the recursion here small. No outside source. */
 #define PP_JSON_TEXT_MAX_DEPTH 256
 
+/* The bytes that open, close or separate values in compact text; the others (digits, letters,
+ * the ':' after a name) are passed over by one table look-up each. */
+static const guchar structural[256] = {
+    ['"'] = 1, ['{'] = 1, ['['] = 1, ['}'] = 1, [']'] = 1, [','] = 1};
+
+#define PP_ROW(x) x, x, x, x, x, x, x, x, x, x, x, x, x, x, x, x
+/* The bytes a string holds as they are: printable ASCII but '"' (0x22) and '\\' (0x5c). */
+static const guchar string_plain[256] = {
+    PP_ROW(0), PP_ROW(0), 1, 1, 0, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, /* 0x20 */
+    PP_ROW(1), PP_ROW(1), 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 0, 1, 1, 1, /* 0x50 */
+    PP_ROW(1), PP_ROW(1)};
+#undef PP_ROW
+
 static gboolean is_digit(char c) {
   return c >= '0' && c <= '9';
 }
@@ -20,7 +33,7 @@ static const char *skip_string(const char *p, const char *end) {
   gboolean ascii = TRUE;
   while (p < end) {
     guchar c = (guchar)*p;
-    if (c >= 0x20 && c < 0x80 && c != '"' && c != '\\') { /* most of the text */
+    if (string_plain[c]) { /* most of the text */
       p++;
       continue;
     }
@@ -121,36 +134,38 @@ const char *pp_json_text_skip(const char *p, const char *end) {
 }
 
 /* The end of the value at p in text already checked: strings and nesting only. */
-static const char *skip_checked(const char *p, const char *end) {
+const char *pp_json_text_end(const char *p, const char *end) {
   int depth = 0;
-  while (p < end) {
+  for (;;) {
+    while (p < end && !structural[(guchar)*p])
+      p++;
+    if (p >= end)
+      return p;
     char c = *p;
     if (c == '"') {
       for (p++; *p != '"'; p++)
         if (*p == '\\')
           p++;
       p++;
+      if (depth == 0)
+        return p;
     } else if (c == '{' || c == '[') {
       depth++;
       p++;
-    } else if (c == '}' || c == ']') {
-      if (depth == 0)
-        return p;
-      depth--;
-      p++;
-    } else if (c == ',' && depth == 0) {
+    } else if (depth == 0) { /* the ',' after a value, or its container's close */
       return p;
+    } else if (c == ',') {
+      p++;
+    } else if (--depth == 0) {
+      return p + 1;
     } else {
       p++;
     }
-    if (depth == 0 && (c == '"' || c == '}' || c == ']'))
-      return p;
   }
-  return p;
 }
 
-gboolean pp_json_text_next(const char **p, const char *end, const char **name,
-                           const char **name_end, const char **value, const char **value_end) {
+gboolean pp_json_text_member(const char **p, const char *end, const char **name,
+                             const char **name_end) {
   const char *q = *p;
   if (q >= end || *q == '}' || *q == ']')
     return FALSE;
@@ -161,11 +176,19 @@ gboolean pp_json_text_next(const char **p, const char *end, const char **name,
   }
   if (name) {
     *name = q;
-    q = *name_end = skip_checked(q, end);
+    q = *name_end = pp_json_text_end(q, end);
     q++; /* ':' */
   }
-  *value = q;
-  *p = *value_end = skip_checked(q, end);
+  *p = q;
+  return TRUE;
+}
+
+gboolean pp_json_text_next(const char **p, const char *end, const char **name,
+                           const char **name_end, const char **value, const char **value_end) {
+  if (!pp_json_text_member(p, end, name, name_end))
+    return FALSE;
+  *value = *p;
+  *p = *value_end = pp_json_text_end(*p, end);
   return TRUE;
 }
 
@@ -174,13 +197,23 @@ gboolean pp_json_text_name_is(const char *name, const char *name_end, const char
   return (size_t)(name_end - name) == n + 2 && memcmp(name + 1, word, n) == 0;
 }
 
-static void spaces(GString *out, guint n) {
-  static const char blank[] = "                                ";
-  while (n > 0) {
-    guint k = MIN(n, sizeof blank - 1);
-    g_string_append_len(out, blank, k);
-    n -= k;
-  }
+/* Room for n more bytes at offset w of out: the text is written through a pointer, and out's
+ * length runs ahead of w (cut back at the end), so that most bytes cost no call. */
+#define PP_JSON_TEXT_SLACK 4096 /* bytes grown ahead at a time; no outside source */
+
+static char *room(GString *out, gsize w, gsize n) {
+  if (w + n > out->len)
+    g_string_set_size(out, w + n + PP_JSON_TEXT_SLACK);
+  return out->str + w;
+}
+
+/* A line break and the indent of level lv after the byte c. */
+static gsize newline(GString *out, gsize w, char c, guint lv) {
+  char *o = room(out, w, 2 + 2 * (gsize)lv);
+  o[0] = c;
+  o[1] = '\n';
+  memset(o + 2, ' ', 2 * (gsize)lv);
+  return w + 2 + 2 * (gsize)lv;
 }
 
 /* json-glib 1.6 json-generator.c: two spaces a level; a member as "name" : value; an
@@ -188,45 +221,54 @@ static void spaces(GString *out, guint n) {
  * a line. Strings, numbers and literals are the same text as in the compact form. */
 void pp_json_text_indent(GString *out, const char *p, const char *end, guint level) {
   guint lv = level;
+  gsize w = out->len;
   while (p < end) {
     char c = *p;
+    const char *q = p;
     if (c == '"') {
-      const char *q = p + 1;
-      while (*q != '"')
-        q += *q == '\\' ? 2 : 1;
-      g_string_append_len(out, p, q + 1 - p);
-      p = q + 1;
+      for (q++; *q != '"'; q++)
+        if (*q == '\\')
+          q++;
+      q++;
     } else if (c == '{' || c == '[') {
       char close = c == '{' ? '}' : ']';
-      g_string_append_c(out, c);
       if (p + 1 < end && p[1] == close) {
-        if (c == '{')
-          spaces(out, 2 * lv);
-        g_string_append_c(out, close);
+        guint pad = c == '{' ? 2 * lv : 0;
+        char *o = room(out, w, 2 + pad);
+        o[0] = c;
+        memset(o + 1, ' ', pad);
+        o[1 + pad] = close;
+        w += 2 + pad;
         p += 2;
       } else {
-        g_string_append_c(out, '\n');
-        spaces(out, 2 * ++lv);
+        w = newline(out, w, c, ++lv);
         p++;
       }
+      continue;
     } else if (c == '}' || c == ']') {
-      g_string_append_c(out, '\n');
-      spaces(out, 2 * --lv);
-      g_string_append_c(out, c);
+      char *o = room(out, w, 2 + 2 * (gsize)--lv);
+      o[0] = '\n';
+      memset(o + 1, ' ', 2 * (gsize)lv);
+      o[1 + 2 * lv] = c;
+      w += 2 + 2 * (gsize)lv;
       p++;
+      continue;
     } else if (c == ',') {
-      g_string_append_len(out, ",\n", 2);
-      spaces(out, 2 * lv);
+      w = newline(out, w, ',', lv);
       p++;
+      continue;
     } else if (c == ':') {
-      g_string_append_len(out, " : ", 3);
+      memcpy(room(out, w, 3), " : ", 3);
+      w += 3;
       p++;
+      continue;
     } else {
-      const char *q = p;
-      while (q < end && *q != ',' && *q != ']' && *q != '}')
+      while (q < end && !structural[(guchar)*q]) /* a scalar ends at ',' ']' '}' */
         q++;
-      g_string_append_len(out, p, q - p);
-      p = q;
     }
+    memcpy(room(out, w, (gsize)(q - p)), p, (gsize)(q - p));
+    w += (gsize)(q - p);
+    p = q;
   }
+  g_string_truncate(out, w);
 }

@@ -15,6 +15,16 @@ const char *pp_json_text_skip(const char *p, const char *end);
 gboolean pp_json_text_next(const char **p, const char *end, const char **name,
                            const char **name_end, const char **value, const char **value_end);
 
+/* The same step, stopping at the start of the value: *p is left there, and the caller moves it
+ * to the value's end (pp_json_text_end, or its own walk through the value) before the next
+ * call. Walking into a value this way reads each byte once, where pp_json_text_next() and a
+ * walk through the value it returned read them twice. */
+gboolean pp_json_text_member(const char **p, const char *end, const char **name,
+                             const char **name_end);
+
+/* The end of the one value at p in checked text. */
+const char *pp_json_text_end(const char *p, const char *end);
+
 /* Is the quoted name [name, name_end) the plain word (no escapes)? */
 gboolean pp_json_text_name_is(const char *name, const char *name_end, const char *word);
 

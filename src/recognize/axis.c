@@ -204,20 +204,22 @@ static void candidate_free(gpointer p) {
 static pp_axis_candidate *make_candidate(GPtrArray *run, gboolean vertical, GArray *segs,
                                          double edge) {
   guint n = run->len;
-  const char **texts = g_new0(const char *, n);
+  const pp_number_reading **readings = g_new0(const pp_number_reading *, n);
   pp_number *nums = g_new0(pp_number, n);
   gboolean *ok = g_new0(gboolean, n);
+  /* each label was read under both conventions when collected: only the pick is per run */
   for (guint i = 0; i < n; i++)
-    texts[i] = ((pp_label *)g_ptr_array_index(run, i))->text;
-  pp_number_parse_series(texts, n, nums, ok);
+    readings[i] = &((pp_label *)g_ptr_array_index(run, i))->reading;
+  pp_number_pick_series(readings, n, nums, ok);
   double *pos = g_new(double, n), *val = g_new(double, n), *lval = g_new(double, n);
   guint m = 0, n_snapped = snap_run(run, vertical, segs, pos);
   gboolean all_positive = TRUE;
   pp_axis_candidate *c = g_new0(pp_axis_candidate, 1);
-  c->labels = g_ptr_array_new();
+  c->labels = g_ptr_array_sized_new(n);
   c->label_edge = edge;
   pp_scale *axis = pp_scale_new(vertical);
   c->scale = axis;
+  g_array_set_size(axis->ticks, n); /* one tick a label, filled in order below */
   for (guint i = 0; i < n; i++) {
     pp_label *l = g_ptr_array_index(run, i);
     /* Every label parsed on its own; the series reading wins where it exists. */
@@ -225,8 +227,7 @@ static pp_axis_candidate *make_candidate(GPtrArray *run, gboolean vertical, GArr
     val[m] = v;
     all_positive &= v > 0;
     lval[m] = v > 0 ? log10(v) : 0;
-    pp_tick t = {pos[m], v, g_strdup(l->text)};
-    g_array_append_val(axis->ticks, t);
+    g_array_index(axis->ticks, pp_tick, m) = (pp_tick){pos[m], v, g_strdup(l->text)};
     g_ptr_array_add(c->labels, l);
     axis->box = pp_rect_union(axis->box, l->box);
     m++;
@@ -287,7 +288,7 @@ static pp_axis_candidate *make_candidate(GPtrArray *run, gboolean vertical, GArr
       }
     }
   }
-  g_free(texts), g_free(nums), g_free(ok), g_free(pos), g_free(val), g_free(lval);
+  g_free(readings), g_free(nums), g_free(ok), g_free(pos), g_free(val), g_free(lval);
   return c;
 }
 
@@ -407,38 +408,55 @@ static gboolean reads_along(const pp_label *l, gboolean vertical) {
   return fabs(l->angle) <= PP_ANGLE_TOL || (vertical && fabs(fabs(l->angle) - 90) <= PP_ANGLE_TOL);
 }
 
-/* Groups labels whose key agrees within tol; each group of 2+ becomes runs. */
+/* Groups labels whose key agrees within tol; each group of 2+ becomes runs. Groups are
+ * formed in label order, each from its first free label. */
 static void group_by(GPtrArray *labels, label_key key, double tol, gboolean vertical, GArray *segs,
                      GPtrArray *out, GHashTable *taken) {
-  guint n = labels->len;
-  gboolean *done = g_new0(gboolean, n);
+  guint n = labels->len, m = 0;
+  /* The labels this call may group, with their keys and sizes. A label taken during the call
+   * belongs to a run of a group already made, so it is never looked at again: `taken` and the
+   * reading direction are checked once here, not for every pair. */
+  pp_label **eligible = g_new(pp_label *, MAX(n, 1));
+  double *keys = g_new(double, MAX(n, 1)), *sizes = g_new(double, MAX(n, 1));
   for (guint i = 0; i < n; i++) {
-    pp_label *li = g_ptr_array_index(labels, i);
-    if (done[i] || g_hash_table_contains(taken, li) || !reads_along(li, vertical))
+    pp_label *l = g_ptr_array_index(labels, i);
+    if (g_hash_table_contains(taken, l) || !reads_along(l, vertical))
       continue;
-    GPtrArray *group = g_ptr_array_new();
-    for (guint j = i; j < n; j++) {
-      pp_label *lj = g_ptr_array_index(labels, j);
-      if (done[j] || g_hash_table_contains(taken, lj) || !reads_along(lj, vertical))
+    eligible[m] = l;
+    keys[m] = key(l);
+    sizes[m] = l->size;
+    m++;
+  }
+  gboolean *done = g_new0(gboolean, MAX(m, 1));
+  GPtrArray *group = g_ptr_array_new();
+  for (guint i = 0; i < m; i++) {
+    if (done[i])
+      continue;
+    g_ptr_array_set_size(group, 0);
+    for (guint j = i; j < m; j++) {
+      if (done[j])
         continue;
-      if (fabs(key(lj) - key(li)) <= tol && fabs(lj->size - li->size) <= PP_SIZE_TOL * li->size) {
-        g_ptr_array_add(group, lj);
+      if (fabs(keys[j] - keys[i]) <= tol && fabs(sizes[j] - sizes[i]) <= PP_SIZE_TOL * sizes[i]) {
+        g_ptr_array_add(group, eligible[j]);
         done[j] = TRUE;
       }
     }
     if (group->len >= 2) {
       g_ptr_array_sort_with_data(group, cmp_pos, GINT_TO_POINTER(vertical));
       guint before = out->len;
-      split_runs(group, vertical, segs, key(li), out);
+      split_runs(group, vertical, segs, keys[i], out);
       for (guint k = before; k < out->len; k++) {
         pp_axis_candidate *c = g_ptr_array_index(out, k);
         for (guint q = 0; q < c->labels->len; q++)
           g_hash_table_add(taken, g_ptr_array_index(c->labels, q));
       }
     }
-    g_ptr_array_unref(group);
   }
+  g_ptr_array_unref(group);
   g_free(done);
+  g_free(eligible);
+  g_free(keys);
+  g_free(sizes);
 }
 
 GPtrArray *pp_axes_find(const pp_scene *scene, GPtrArray *labels) {

@@ -15,7 +15,8 @@ typedef struct {
   double size;
   double angle;
   pp_number number;
-  guint index; /* position in the page's label list: the ledger's key */
+  pp_number_reading reading; /* under each decimal convention, for axes to choose between */
+  guint index;               /* position in the page's label list: the ledger's key */
 } pp_label;
 
 /* Every numeric phrase of the page, words merged where a number was split by

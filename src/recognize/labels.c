@@ -33,14 +33,15 @@ static void label_free(gpointer p) {
 }
 
 static void add_label(GPtrArray *out, const char *text, pp_rect box, double size, double angle,
-                      const pp_number *num) {
+                      const pp_number_reading *reading) {
   pp_label *l = g_new0(pp_label, 1);
   l->text = g_strdup(text);
   l->box = box;
   l->centre = (pp_point){(box.x0 + box.x1) / 2, (box.y0 + box.y1) / 2};
   l->size = size > 0 ? size : pp_rect_height(box);
   l->angle = angle;
-  l->number = *num;
+  l->reading = *reading;
+  pp_number_reading_alone(reading, &l->number);
   l->index = out->len;
   g_ptr_array_add(out, l);
 }
@@ -145,6 +146,7 @@ static void recover_minus_signs(const pp_scene *scene, GPtrArray *labels, GHashT
     g_free(l->text);
     l->text = text;
     l->number.value = -l->number.value;
+    pp_number_read(l->text, &l->reading); /* the signed text, as an axis reads it */
     l->box = pp_rect_union(l->box, m->bbox);
     l->centre = (pp_point){(l->box.x0 + l->box.x1) / 2, (l->box.y0 + l->box.y1) / 2};
     g_hash_table_add(glyph_marks, GUINT_TO_POINTER((guint)mark));
@@ -159,48 +161,60 @@ static void recover_minus_signs(const pp_scene *scene, GPtrArray *labels, GHashT
 GPtrArray *pp_labels_collect(const pp_scene *scene, GHashTable *glyph_marks) {
   GPtrArray *out = g_ptr_array_new_with_free_func(label_free);
   guint n = scene->words->len;
+  /* Every number in number.c's grammar holds an ASCII digit: a phrase without one is not
+   * parsed (most words of a text page), which spares the parser's unit search. */
+  gboolean *digit = g_new(gboolean, MAX(n, 1));
+  for (guint i = 0; i < n; i++)
+    digit[i] = strpbrk(((const pp_text_run *)g_ptr_array_index(scene->words, i))->text,
+                       "0123456789") != NULL;
+  GString *phrase = g_string_new(NULL);
   for (guint i = 0; i < n;) {
     /* Longest run of up to four words on one baseline that parses as one number. */
+    guint len = 1;
+    gboolean any_digit = digit[i];
+    while (len < 4 && i + len < n &&
+           same_baseline(g_ptr_array_index(scene->words, i + len - 1),
+                         g_ptr_array_index(scene->words, i + len))) {
+      any_digit = any_digit || digit[i + len];
+      len++;
+    }
+    if (!any_digit) {
+      i++;
+      continue;
+    }
     guint best = 0;
-    pp_number best_num;
-    GString *phrase = g_string_new(NULL);
+    gsize best_len = 0;
+    pp_number_reading best_reading;
     gboolean has_digit = FALSE;
-    for (guint k = 0; k < 4 && i + k < n; k++) {
+    g_string_truncate(phrase, 0);
+    for (guint k = 0; k < len; k++) {
       const pp_text_run *w = g_ptr_array_index(scene->words, i + k);
-      if (k > 0 && !same_baseline(g_ptr_array_index(scene->words, i + k - 1), w))
-        break;
       if (k > 0)
         g_string_append(phrase, joiner(phrase->str, w->text));
       g_string_append(phrase, w->text);
-      /* Every number in number.c's grammar holds an ASCII digit: a phrase without one is
-       * not parsed (most words of a text page), which spares the parser's unit search. */
-      has_digit = has_digit || strpbrk(w->text, "0123456789") != NULL;
-      pp_number num;
-      if (has_digit && pp_number_parse(phrase->str, PP_DECIMAL_UNKNOWN, &num)) {
+      has_digit = has_digit || digit[i + k];
+      pp_number_reading reading;
+      if (has_digit && pp_number_read(phrase->str, &reading)) {
         best = k + 1;
-        best_num = num;
+        best_len = phrase->len;
+        best_reading = reading;
       }
     }
     if (best == 0) {
-      g_string_free(phrase, TRUE);
       i++;
       continue;
     }
     const pp_text_run *first = g_ptr_array_index(scene->words, i);
     pp_rect box = pp_rect_empty();
-    GString *text = g_string_new(NULL);
-    for (guint k = 0; k < best; k++) {
-      const pp_text_run *w = g_ptr_array_index(scene->words, i + k);
-      box = pp_rect_union(box, w->box);
-      if (k)
-        g_string_append(text, joiner(text->str, w->text));
-      g_string_append(text, w->text);
-    }
-    add_label(out, text->str, box, first->font_size, first->angle, &best_num);
-    g_string_free(text, TRUE);
-    g_string_free(phrase, TRUE);
+    for (guint k = 0; k < best; k++)
+      box = pp_rect_union(box, ((const pp_text_run *)g_ptr_array_index(scene->words, i + k))->box);
+    /* the label's text is the phrase as it stood when it last parsed */
+    g_string_truncate(phrase, best_len);
+    add_label(out, phrase->str, box, first->font_size, first->angle, &best_reading);
     i += best;
   }
+  g_string_free(phrase, TRUE);
+  g_free(digit);
   recover_minus_signs(scene, out, glyph_marks);
   return out;
 }

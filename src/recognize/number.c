@@ -10,7 +10,8 @@
  *   power  := "10" (^ [sign] digits | superscript-digits)   in place of core [exp]: 10^k
  *   suffix := gap* (multiplier | currency | percent | permille) | ')'
  * Each of sign, parenthesis pair, currency, multiplier, percent appears at most once; a sign and
- * parentheses together, or a percent with a currency or multiplier, are rejected.
+ * parentheses together, or a percent with a currency or multiplier, are rejected. The currencies,
+ * multipliers and percent signs themselves are listed in number_units.c.
  * Choices (none comes from a standard, all are common practice, no source):
  * - A trailing minus ("5-") is rejected: in chart text it is more often half of a range "5–10"
  *   split by the text extractor than an accounting sign, and a wrong sign is worse than no value.
@@ -24,158 +25,10 @@
  * - Group sizes are checked: 3s everywhere, or with ',' the Indian 2s-then-3 pattern; a leading
  *   zero group ("0,234") can never be grouping, which is what resolves many ambiguous strings. */
 #include "recognize/number.h"
+#include "recognize/number_units.h"
 
 #include <math.h>
 #include <string.h>
-
-enum { TOK_CURRENCY, TOK_MULT, TOK_PERCENT, TOK_PERMILLE };
-
-typedef struct {
-  const char *text;
-  int kind;
-  int exp10; /* TOK_MULT only */
-} unit_token;
-
-static const unit_token unit_tokens[] = {
-    {"%", TOK_PERCENT, 0},
-    {"\u066a", TOK_PERCENT, 0},
-    {"\uff05", TOK_PERCENT, 0},
-    {"\u2030", TOK_PERMILLE, 0},
-    /* magnitudes: English, German, French compact forms (see CLDR compact decimals) */
-    {"k", TOK_MULT, 3},
-    {"K", TOK_MULT, 3},
-    {"Tsd.", TOK_MULT, 3},
-    {"Tsd", TOK_MULT, 3},
-    {"thousand", TOK_MULT, 3},
-    {"Tausend", TOK_MULT, 3},
-    {"mille", TOK_MULT, 3},
-    {"millier", TOK_MULT, 3},
-    {"milliers", TOK_MULT, 3},
-    {"L", TOK_MULT, 5},
-    {"lakh", TOK_MULT, 5},
-    {"Lakh", TOK_MULT, 5},
-    {"lac", TOK_MULT, 5},
-    {"m", TOK_MULT, 6},
-    {"M", TOK_MULT, 6},
-    {"mn", TOK_MULT, 6},
-    {"Mn", TOK_MULT, 6},
-    {"MN", TOK_MULT, 6},
-    {"MM", TOK_MULT, 6},
-    {"Mio.", TOK_MULT, 6},
-    {"Mio", TOK_MULT, 6},
-    {"million", TOK_MULT, 6},
-    {"millions", TOK_MULT, 6},
-    {"Million", TOK_MULT, 6},
-    {"Millionen", TOK_MULT, 6},
-    {"Cr", TOK_MULT, 7},
-    {"crore", TOK_MULT, 7},
-    {"Crore", TOK_MULT, 7},
-    {"bn", TOK_MULT, 9},
-    {"Bn", TOK_MULT, 9},
-    {"BN", TOK_MULT, 9},
-    {"B", TOK_MULT, 9},
-    {"Mrd.", TOK_MULT, 9},
-    {"Mrd", TOK_MULT, 9},
-    {"Md", TOK_MULT, 9},
-    {"Mds", TOK_MULT, 9},
-    {"billion", TOK_MULT, 9},
-    {"Milliarde", TOK_MULT, 9},
-    {"Milliarden", TOK_MULT, 9},
-    {"milliard", TOK_MULT, 9},
-    {"milliards", TOK_MULT, 9},
-    {"tn", TOK_MULT, 12},
-    {"Tn", TOK_MULT, 12},
-    {"T", TOK_MULT, 12},
-    {"Bio.", TOK_MULT, 12},
-    {"Bio", TOK_MULT, 12},
-    {"trillion", TOK_MULT, 12},
-    {"Billionen", TOK_MULT, 12},
-    /* currency symbols, then ISO 4217 codes in common use ("RMB" is not ISO but is printed) */
-    {"$", TOK_CURRENCY, 0},
-    {"\u20ac", TOK_CURRENCY, 0},
-    {"\u00a3", TOK_CURRENCY, 0},
-    {"\u00a5", TOK_CURRENCY, 0},
-    {"\u20b9", TOK_CURRENCY, 0},
-    {"\u20a9", TOK_CURRENCY, 0},
-    {"\u20bd", TOK_CURRENCY, 0},
-    {"\u20ba", TOK_CURRENCY, 0},
-    {"\u20aa", TOK_CURRENCY, 0},
-    {"\u20ab", TOK_CURRENCY, 0},
-    {"\u20a6", TOK_CURRENCY, 0},
-    {"\u20b1", TOK_CURRENCY, 0},
-    {"\u20b4", TOK_CURRENCY, 0},
-    {"\u0e3f", TOK_CURRENCY, 0},
-    {"\u00a2", TOK_CURRENCY, 0},
-    {"US$", TOK_CURRENCY, 0},
-    {"A$", TOK_CURRENCY, 0},
-    {"AU$", TOK_CURRENCY, 0},
-    {"C$", TOK_CURRENCY, 0},
-    {"CA$", TOK_CURRENCY, 0},
-    {"NZ$", TOK_CURRENCY, 0},
-    {"HK$", TOK_CURRENCY, 0},
-    {"S$", TOK_CURRENCY, 0},
-    {"R$", TOK_CURRENCY, 0},
-    {"MX$", TOK_CURRENCY, 0},
-    {"$US", TOK_CURRENCY, 0},
-    {"$CA", TOK_CURRENCY, 0},
-    {"$AU", TOK_CURRENCY, 0},
-    {"Fr.", TOK_CURRENCY, 0},
-    {"fr.", TOK_CURRENCY, 0},
-    {"kr", TOK_CURRENCY, 0},
-    {"kr.", TOK_CURRENCY, 0},
-    {"Kr", TOK_CURRENCY, 0},
-    {"z\u0142", TOK_CURRENCY, 0},
-    {"K\u010d", TOK_CURRENCY, 0},
-    {"Ft", TOK_CURRENCY, 0},
-    {"Rs", TOK_CURRENCY, 0},
-    {"Rs.", TOK_CURRENCY, 0},
-    {"USD", TOK_CURRENCY, 0},
-    {"EUR", TOK_CURRENCY, 0},
-    {"GBP", TOK_CURRENCY, 0},
-    {"JPY", TOK_CURRENCY, 0},
-    {"CHF", TOK_CURRENCY, 0},
-    {"CNY", TOK_CURRENCY, 0},
-    {"RMB", TOK_CURRENCY, 0},
-    {"CAD", TOK_CURRENCY, 0},
-    {"AUD", TOK_CURRENCY, 0},
-    {"NZD", TOK_CURRENCY, 0},
-    {"SEK", TOK_CURRENCY, 0},
-    {"NOK", TOK_CURRENCY, 0},
-    {"DKK", TOK_CURRENCY, 0},
-    {"ISK", TOK_CURRENCY, 0},
-    {"INR", TOK_CURRENCY, 0},
-    {"RUB", TOK_CURRENCY, 0},
-    {"BRL", TOK_CURRENCY, 0},
-    {"ZAR", TOK_CURRENCY, 0},
-    {"HKD", TOK_CURRENCY, 0},
-    {"SGD", TOK_CURRENCY, 0},
-    {"KRW", TOK_CURRENCY, 0},
-    {"MXN", TOK_CURRENCY, 0},
-    {"PLN", TOK_CURRENCY, 0},
-    {"CZK", TOK_CURRENCY, 0},
-    {"HUF", TOK_CURRENCY, 0},
-    {"TRY", TOK_CURRENCY, 0},
-    {"ILS", TOK_CURRENCY, 0},
-    {"AED", TOK_CURRENCY, 0},
-    {"SAR", TOK_CURRENCY, 0},
-    {"THB", TOK_CURRENCY, 0},
-    {"IDR", TOK_CURRENCY, 0},
-    {"MYR", TOK_CURRENCY, 0},
-    {"PHP", TOK_CURRENCY, 0},
-    {"TWD", TOK_CURRENCY, 0},
-    {"ARS", TOK_CURRENCY, 0},
-    {"CLP", TOK_CURRENCY, 0},
-    {"COP", TOK_CURRENCY, 0},
-    {"PEN", TOK_CURRENCY, 0},
-    {"UAH", TOK_CURRENCY, 0},
-    {"RON", TOK_CURRENCY, 0},
-    {"BGN", TOK_CURRENCY, 0},
-    {"EGP", TOK_CURRENCY, 0},
-    {"NGN", TOK_CURRENCY, 0},
-    {"KES", TOK_CURRENCY, 0},
-    {"PKR", TOK_CURRENCY, 0},
-    {"VND", TOK_CURRENCY, 0},
-};
 
 /* Separator classes after folding the look-alikes: all spaces are one class, ' and ’ another. */
 enum { SEP_NONE = 0, SEP_POINT = '.', SEP_COMMA = ',', SEP_SPACE = ' ', SEP_APOS = '\'' };
@@ -223,27 +76,6 @@ static size_t match_sign(const char *p, const char *end, gboolean *neg) {
   gunichar c = char_at(p, end, &len);
   *neg = c == '-' || c == 0x2212 || c == 0x2013;
   return (*neg || c == '+') ? len : 0;
-}
-
-/* Longest unit token at p; a token ending in a letter must not run on into another letter, so
- * "km" is neither "k" nor "kr" and "EURO" is not "EUR". */
-static const unit_token *match_unit(const char *p, const char *end, size_t *len) {
-  const unit_token *best = NULL;
-  size_t best_len = 0;
-  for (size_t i = 0; i < G_N_ELEMENTS(unit_tokens); i++) {
-    /* The first byte rules out nearly every token before its length is taken. */
-    if (p >= end || unit_tokens[i].text[0] != *p)
-      continue;
-    size_t n = strlen(unit_tokens[i].text);
-    if (n <= best_len || (size_t)(end - p) < n || memcmp(p, unit_tokens[i].text, n) != 0)
-      continue;
-    if (g_ascii_isalpha(p[n - 1]) && p + n < end && g_ascii_isalpha(p[n]))
-      continue;
-    best = &unit_tokens[i];
-    best_len = n;
-  }
-  *len = best_len;
-  return best;
 }
 
 static const char *skip_gaps(const char *p, const char *end) {
@@ -352,27 +184,27 @@ typedef struct {
   int exp10;
 } label_state;
 
-static gboolean apply_unit(const unit_token *t, size_t len, const char *p, pp_number *out,
+static gboolean apply_unit(const pp_number_unit *t, size_t len, const char *p, pp_number *out,
                            label_state *st) {
   switch (t->kind) {
-  case TOK_CURRENCY:
+  case PP_UNIT_CURRENCY:
     if (out->currency[0] || len >= sizeof out->currency)
       return FALSE;
     memcpy(out->currency, p, len);
     out->currency[len] = '\0';
     return TRUE;
-  case TOK_MULT:
+  case PP_UNIT_MULT:
     if (out->multiplier != 1.0)
       return FALSE;
     out->multiplier = pow(10.0, t->exp10);
     st->exp10 += t->exp10;
     return TRUE;
-  case TOK_PERCENT:
-  case TOK_PERMILLE:
+  case PP_UNIT_PERCENT:
+  case PP_UNIT_PERMILLE:
     if (out->percent || out->permille)
       return FALSE;
-    out->percent = t->kind == TOK_PERCENT;
-    out->permille = t->kind == TOK_PERMILLE;
+    out->percent = t->kind == PP_UNIT_PERCENT;
+    out->permille = t->kind == PP_UNIT_PERMILLE;
     return TRUE;
   }
   return FALSE;
@@ -451,14 +283,17 @@ static gboolean parse_strict(const char *s, const char *end, pp_decimal_mark con
       p += len;
       continue;
     }
-    const unit_token *t = match_unit(p, end, &len);
-    if (!t || t->kind == TOK_MULT || !apply_unit(t, len, p, out, &st))
+    const pp_number_unit *t = pp_number_unit_match(p, end, &len);
+    if (!t || t->kind == PP_UNIT_MULT || !apply_unit(t, len, p, out, &st))
       return FALSE;
     p = skip_gaps(p + len, end);
   }
 
-  /* core: digit groups split by separators that are followed by a digit */
-  GString *digits = g_string_new(NULL);
+  /* core: digit groups split by separators that are followed by a digit; the digit string is
+   * on the stack unless the label is very long (this runs for every numeric word of a page) */
+  char dstack[64];
+  size_t dcap = (size_t)(end - p) + 1, dlen = 0;
+  char *digits = dcap <= sizeof dstack ? dstack : g_malloc(dcap);
   int glen[MAX_GROUPS], seps[MAX_GROUPS], ng = 0, cur = 0;
   const char *first_digit = p;
   gboolean ok = FALSE;
@@ -471,7 +306,7 @@ static gboolean parse_strict(const char *s, const char *end, pp_decimal_mark con
   }
   while (p < end) {
     if (g_ascii_isdigit(*p)) {
-      g_string_append_c(digits, *p++);
+      digits[dlen++] = *p++;
       cur++;
       continue;
     }
@@ -485,6 +320,7 @@ static gboolean parse_strict(const char *s, const char *end, pp_decimal_mark con
     cur = 0;
     p += len;
   }
+  digits[dlen] = '\0';
   glen[ng++] = cur;
 
   /* at most one decimal mark, and only as the last separator; the rest group with one class */
@@ -508,12 +344,12 @@ static gboolean parse_strict(const char *s, const char *end, pp_decimal_mark con
   out->has_grouping = group_sep != SEP_NONE;
   out->decimals = ndec ? glen[ng - 1] : 0;
   out->decimal_mark = ndec ? conv : PP_DECIMAL_UNKNOWN;
-  *last_dec_zero = ndec && digits->str[digits->len - 1] == '0';
+  *last_dec_zero = ndec && digits[dlen - 1] == '0';
 
   int exp = 0;
   gboolean has_exp = !out->has_grouping && parse_exponent(&p, end, &exp);
-  if (!has_exp && ng == 1 && strcmp(digits->str, "10") == 0 && parse_bare_power(&p, end, &exp)) {
-    g_string_assign(digits, "1"); /* 10^k = 1·10^k */
+  if (!has_exp && ng == 1 && strcmp(digits, "10") == 0 && parse_bare_power(&p, end, &exp)) {
+    digits[0] = '1', digits[1] = '\0', dlen = 1; /* 10^k = 1·10^k */
     has_exp = TRUE;
   }
 
@@ -527,7 +363,7 @@ static gboolean parse_strict(const char *s, const char *end, pp_decimal_mark con
       p++;
       continue;
     }
-    const unit_token *t = match_unit(q, end, &len);
+    const pp_number_unit *t = pp_number_unit_match(q, end, &len);
     if (!t || !apply_unit(t, len, q, out, &st))
       goto done;
     p = q + len;
@@ -540,8 +376,8 @@ static gboolean parse_strict(const char *s, const char *end, pp_decimal_mark con
     goto done;
 
   /* one correctly rounded conversion of the whole decimal string, multiplier included */
-  int nint_digits = (int)digits->len - out->decimals;
-  out->value = decimal_value(digits->str, nint_digits, exp + st.exp10);
+  int nint_digits = (int)dlen - out->decimals;
+  out->value = decimal_value(digits, nint_digits, exp + st.exp10);
   if (!isfinite(out->value))
     goto done;
   if (out->value == 0.0) /* "-0" is zero, not a negative value */
@@ -555,21 +391,16 @@ static gboolean parse_strict(const char *s, const char *end, pp_decimal_mark con
                    out->value <= PP_YEAR_LAST;
   ok = TRUE;
 done:
-  g_string_free(digits, TRUE);
+  if (digits != dstack)
+    g_free(digits);
   if (!ok)
     memset(out, 0, sizeof *out);
   return ok;
 }
 
-/* Trims, validates UTF-8 and parses under hint, trying both conventions for UNKNOWN. */
-static gboolean parse_label(const char *utf8, pp_decimal_mark hint, pp_number *out,
-                            gboolean *last_dec_zero) {
-  pp_number a, b;
-  gboolean za, zb;
+/* The label without the whitespace around it; FALSE when it is NULL, not UTF-8 or blank. */
+static gboolean trim_label(const char *utf8, const char **s_out, const char **end_out) {
   size_t len;
-
-  memset(out, 0, sizeof *out);
-  *last_dec_zero = FALSE;
   if (!utf8 || !g_utf8_validate(utf8, -1, NULL))
     return FALSE;
   const char *s = utf8, *end = utf8 + strlen(utf8);
@@ -581,120 +412,59 @@ static gboolean parse_label(const char *utf8, pp_decimal_mark hint, pp_number *o
       break;
     end = prev;
   }
-  if (s == end)
-    return FALSE;
+  *s_out = s;
+  *end_out = end;
+  return s < end;
+}
 
-  if (hint != PP_DECIMAL_UNKNOWN)
-    return parse_strict(s, end, hint, out, last_dec_zero);
-  gboolean oka = parse_strict(s, end, PP_DECIMAL_POINT, &a, &za);
-  gboolean okb = parse_strict(s, end, PP_DECIMAL_COMMA, &b, &zb);
-  if (oka) {
-    *out = a;
-    *last_dec_zero = za;
-    out->ambiguous = okb && a.value != b.value;
-  } else if (okb) {
-    *out = b;
-    *last_dec_zero = zb;
+gboolean pp_number_read(const char *utf8, pp_number_reading *out) {
+  const char *s, *end;
+  memset(out, 0, sizeof *out);
+  if (!trim_label(utf8, &s, &end))
+    return FALSE;
+  out->ok[0] = parse_strict(s, end, PP_DECIMAL_POINT, &out->as[0], &out->last_dec_zero[0]);
+  /* The conventions differ only in which of '.' and ',' is the decimal mark: without either,
+   * both read the same separators the same way and no decimal mark, so the comma reading is
+   * the point reading (most numeric words of a page: "2019", "45%", "12 500"). */
+  size_t n = (size_t)(end - s);
+  if (memchr(s, '.', n) || memchr(s, ',', n)) {
+    out->ok[1] = parse_strict(s, end, PP_DECIMAL_COMMA, &out->as[1], &out->last_dec_zero[1]);
+  } else {
+    out->as[1] = out->as[0];
+    out->ok[1] = out->ok[0];
+    out->last_dec_zero[1] = out->last_dec_zero[0];
   }
-  return oka || okb;
+  return out->ok[0] || out->ok[1];
+}
+
+gboolean pp_number_reading_alone(const pp_number_reading *r, pp_number *out) {
+  memset(out, 0, sizeof *out);
+  if (r->ok[0]) {
+    *out = r->as[0];
+    out->ambiguous = r->ok[1] && r->as[0].value != r->as[1].value;
+  } else if (r->ok[1]) {
+    *out = r->as[1];
+  }
+  return r->ok[0] || r->ok[1];
 }
 
 gboolean pp_number_parse(const char *utf8, pp_decimal_mark hint, pp_number *out) {
+  if (hint == PP_DECIMAL_UNKNOWN) {
+    /* Every number of the grammar holds an ASCII digit, and with neither reading parsed the
+     * result is zeroed: titles and prose lines, which callers test to tell them from numbers,
+     * stop here. */
+    if (!utf8 || !strpbrk(utf8, "0123456789")) {
+      memset(out, 0, sizeof *out);
+      return FALSE;
+    }
+    pp_number_reading r;
+    pp_number_read(utf8, &r);
+    return pp_number_reading_alone(&r, out);
+  }
+  const char *s, *end;
   gboolean last_dec_zero;
-  return parse_label(utf8, hint, out, &last_dec_zero);
-}
-
-/* Evidence that a reading is the intended one, for tick labels in axis order: evenly spaced
- * (linear or log axis), monotonic, same number of decimals, no decimal part that always ends in
- * '0' (a tick formatter never pads "1.5" to "1.500"). Weights only break ties between them. */
-static int pattern_score(const pp_number *v, const gboolean *ok, const gboolean *zero, size_t n) {
-  double prev = 0;
-  size_t m = 0;
-  gboolean same_dec = TRUE, any_dec = FALSE, all_zero = TRUE, mono_up = TRUE, mono_down = TRUE;
-  gboolean linear = TRUE, geometric = TRUE;
-  double first_diff = 0, first_ratio = 0, scale = 0;
-  int dec0 = -1;
-
-  for (size_t i = 0; i < n; i++)
-    if (ok[i])
-      scale = MAX(scale, fabs(v[i].value));
-  double tol = 1e-9 * scale + 1e-300;
-  for (size_t i = 0; i < n; i++) {
-    if (!ok[i])
-      continue;
-    double x = v[i].value;
-    if (dec0 < 0)
-      dec0 = v[i].decimals;
-    same_dec = same_dec && v[i].decimals == dec0;
-    if (v[i].decimals > 0) {
-      any_dec = TRUE;
-      all_zero = all_zero && zero[i];
-    }
-    if (m > 0) {
-      double d = x - prev;
-      mono_up = mono_up && d > 0;
-      mono_down = mono_down && d < 0;
-      if (m == 1)
-        first_diff = d;
-      linear = linear && fabs(d - first_diff) <= tol;
-      if (prev != 0 && x / prev > 0) {
-        double r = x / prev;
-        if (m == 1)
-          first_ratio = r;
-        geometric = geometric && fabs(r - first_ratio) <= 1e-9 * fabs(first_ratio);
-      } else {
-        geometric = FALSE;
-      }
-    }
-    prev = x;
-    m++;
-  }
-  int score = 0;
-  if (m >= 3 && (mono_up || mono_down) && (linear || geometric))
-    score += 8;
-  if (m >= 3 && (mono_up || mono_down))
-    score += 4;
-  if (m >= 2 && same_dec)
-    score += 2;
-  if (!(any_dec && all_zero))
-    score += 1;
-  return score;
-}
-
-size_t pp_number_parse_series(const char *const *labels, size_t n, pp_number *out, gboolean *ok) {
-  static const pp_decimal_mark conv[2] = {PP_DECIMAL_POINT, PP_DECIMAL_COMMA};
-  pp_number *cand[2];
-  gboolean *cok[2], *czero[2];
-  size_t count[2] = {0, 0};
-  int score[2];
-
-  if (n == 0)
-    return 0;
-  for (int c = 0; c < 2; c++) {
-    cand[c] = g_new0(pp_number, n);
-    cok[c] = g_new0(gboolean, n);
-    czero[c] = g_new0(gboolean, n);
-    for (size_t i = 0; i < n; i++) {
-      cok[c][i] = parse_label(labels[i], conv[c], &cand[c][i], &czero[c][i]);
-      count[c] += cok[c][i] ? 1 : 0;
-    }
-    score[c] =
-        (int)MIN(count[c], (size_t)1 << 20) * 16 + pattern_score(cand[c], cok[c], czero[c], n);
-  }
-  int pick = score[1] > score[0] ? 1 : 0;
-  gboolean tie = score[0] == score[1];
-  for (size_t i = 0; i < n; i++) {
-    out[i] = cand[pick][i];
-    /* with no evidence either way, flag the labels the other convention reads differently */
-    out[i].ambiguous = tie && cok[0][i] && cok[1][i] && cand[0][i].value != cand[1][i].value;
-    if (ok)
-      ok[i] = cok[pick][i];
-  }
-  size_t result = count[pick];
-  for (int c = 0; c < 2; c++) {
-    g_free(cand[c]);
-    g_free(cok[c]);
-    g_free(czero[c]);
-  }
-  return result;
+  memset(out, 0, sizeof *out);
+  if (!trim_label(utf8, &s, &end))
+    return FALSE;
+  return parse_strict(s, end, hint, out, &last_dec_zero);
 }

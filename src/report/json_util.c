@@ -105,3 +105,72 @@ void pp_json_member_evidence(JsonBuilder *b, const pp_figure *f) {
   }
   json_builder_end_array(b);
 }
+
+/* The same rules, written as text (pp_json_out). */
+void pp_json_out_number(pp_json_out *o, double v) {
+  if (!isfinite(v))
+    pp_json_out_null(o);
+  else if (v == floor(v) && fabs(v) < PP_JSON_INT_LIMIT)
+    pp_json_out_int(o, (gint64)v);
+  else
+    pp_json_out_double(o, pp_json_writable_double(v));
+}
+
+void pp_json_out_text(pp_json_out *o, const char *s) {
+  if (!s) {
+    pp_json_out_null(o);
+  } else if (g_utf8_validate(s, -1, NULL)) {
+    pp_json_out_string(o, s);
+  } else {
+    char *valid = g_utf8_make_valid(s, -1);
+    pp_json_out_string(o, valid);
+    g_free(valid);
+  }
+}
+
+void pp_json_out_member_number(pp_json_out *o, const char *name, double v) {
+  pp_json_out_name(o, name);
+  pp_json_out_number(o, v);
+}
+
+void pp_json_out_member_text(pp_json_out *o, const char *name, const char *s) {
+  pp_json_out_name(o, name);
+  pp_json_out_text(o, s);
+}
+
+void pp_json_out_member_int(pp_json_out *o, const char *name, gint64 v) {
+  pp_json_out_name(o, name);
+  pp_json_out_int(o, v);
+}
+
+void pp_json_out_member_bool(pp_json_out *o, const char *name, gboolean v) {
+  pp_json_out_name(o, name);
+  pp_json_out_bool(o, v);
+}
+
+void pp_json_out_member_rect(pp_json_out *o, const char *name, pp_rect r) {
+  pp_json_out_name(o, name);
+  if (!rect_usable(r)) {
+    pp_json_out_null(o);
+    return;
+  }
+  pp_json_out_begin_array(o);
+  pp_json_out_number(o, r.x0);
+  pp_json_out_number(o, r.y0);
+  pp_json_out_number(o, r.x1);
+  pp_json_out_number(o, r.y1);
+  pp_json_out_end_array(o);
+}
+
+void pp_json_out_member_evidence(pp_json_out *o, const pp_figure *f) {
+  pp_json_out_name(o, "evidence");
+  pp_json_out_begin_array(o);
+  for (guint i = 0; f->evidence && i < f->evidence->len; i++) {
+    const pp_evidence *ev = &g_array_index(f->evidence, pp_evidence, i);
+    pp_json_out_begin_object(o);
+    pp_json_out_member_text(o, "what", ev->what);
+    pp_json_out_member_number(o, "score", ev->score);
+    pp_json_out_end_object(o);
+  }
+  pp_json_out_end_array(o);
+}

@@ -1,7 +1,6 @@
-/* json_write.c — compact JSON text of a json-glib tree, byte for byte what json-glib 1.6's
- * generator writes (tests/report compares them), without its per-value allocations and printf:
- * every page process writes its whole report this way. */
-#include <math.h>
+/* json_write.c — compact JSON text, byte for byte what json-glib 1.6's generator writes
+ * (tests/report compares them): of a json-glib tree, or written value by value (pp_json_out)
+ * with no tree at all, as every page process writes its page entry and findings. */
 #include <string.h>
 
 #include "json_util.h"
@@ -47,59 +46,13 @@ static void add_int(GString *out, gint64 v) {
   g_string_append_len(out, q, buf + sizeof buf - q);
 }
 
-/* Decimal places and significant digits a double can have for the shortcut below: 2^-19
- * reaches the tap's 1/1024 pt and far below, 10^19 is the largest power of ten in 64 bits
- * (10^20 would wrap), and %.17g prints 17 significant digits (C17 §7.21.6.1). */
-#define PP_JSON_DYADIC_BITS 19
-#define PP_JSON_G_DIGITS 17
-
-/* The text g_ascii_dtostr() ("%.17g") gives v, when v = m / 2^k with k <= 19 and the exact
- * decimal value m * 5^k / 10^k has at most 17 significant digits: then "%.17g" prints that
- * value exactly, in fixed notation for 1e-4 <= |v| < 1e15, trailing zeros dropped. Most
- * coordinates are such (multiples of 1/1024 pt); FALSE otherwise. */
-static gboolean dyadic_text(double v, char *buf) {
-  double a = fabs(v), s = a;
-  if (!(a >= 1e-4 && a < 1e15))
-    return FALSE;
-  int k = 0;
-  while (s != floor(s)) {
-    if (++k > PP_JSON_DYADIC_BITS)
-      return FALSE;
-    s *= 2; /* exact */
-  }
-  guint64 m = (guint64)s, pow5 = 1, pow10 = 1;
-  for (int i = 0; i < k; i++)
-    pow5 *= 5, pow10 *= 10;
-  if (m > G_MAXUINT64 / pow5)
-    return FALSE;
-  guint64 d = m * pow5, ip = d / pow10, fp = d % pow10;
-  char digits[24];
-  int n = 0;
-  for (guint64 t = d; t; t /= 10)
-    n++;
-  int frac_digits = k;
-  while (frac_digits > 0 && fp % 10 == 0)
-    fp /= 10, frac_digits--;
-  int significant = n - (k - frac_digits); /* trailing zeros of d are not significant */
-  if (significant > PP_JSON_G_DIGITS)
-    return FALSE;
-  char *q = buf;
-  if (v < 0)
-    *q++ = '-';
-  int len = 0;
-  do
-    digits[len++] = (char)('0' + ip % 10);
-  while ((ip /= 10) != 0);
-  while (len > 0)
-    *q++ = digits[--len];
-  if (frac_digits > 0) {
-    *q++ = '.';
-    for (int i = frac_digits - 1; i >= 0; i--, fp /= 10)
-      q[i] = (char)('0' + fp % 10);
-    q += frac_digits;
-  }
-  *q = '\0';
-  return TRUE;
+/* json-glib: g_ascii_dtostr(), then ".0" when the text has no '.' */
+static void add_double(GString *out, double v) {
+  char buf[G_ASCII_DTOSTR_BUF_SIZE];
+  pp_json_format_double(v, buf);
+  g_string_append(out, buf);
+  if (!strchr(buf, '.'))
+    g_string_append_len(out, ".0", 2);
 }
 
 static void add_node(GString *out, JsonNode *node) {
@@ -139,14 +92,7 @@ static void add_node(GString *out, JsonNode *node) {
     if (t == G_TYPE_INT64) {
       add_int(out, json_node_get_int(node));
     } else if (t == G_TYPE_DOUBLE) {
-      /* json-glib: g_ascii_dtostr(), then ".0" when the text has no '.' */
-      char buf[G_ASCII_DTOSTR_BUF_SIZE];
-      double v = json_node_get_double(node);
-      if (!dyadic_text(v, buf))
-        g_ascii_dtostr(buf, sizeof buf, v);
-      g_string_append(out, buf);
-      if (!strchr(buf, '.'))
-        g_string_append_len(out, ".0", 2);
+      add_double(out, json_node_get_double(node));
     } else if (t == G_TYPE_BOOLEAN) {
       g_string_append(out, json_node_get_boolean(node) ? "true" : "false");
     } else if (t == G_TYPE_STRING) {
@@ -166,4 +112,72 @@ char *pp_json_write_compact(JsonNode *node, gsize *length) {
   if (length)
     *length = out->len;
   return g_string_free(out, FALSE);
+}
+
+/* The writer: a ',' goes before every value and name but the first of its level. */
+static void separate(pp_json_out *o) {
+  if (o->more)
+    g_string_append_c(o->text, ',');
+}
+
+void pp_json_out_begin_object(pp_json_out *o) {
+  separate(o);
+  g_string_append_c(o->text, '{');
+  o->more = FALSE;
+}
+
+void pp_json_out_end_object(pp_json_out *o) {
+  g_string_append_c(o->text, '}');
+  o->more = TRUE;
+}
+
+void pp_json_out_begin_array(pp_json_out *o) {
+  separate(o);
+  g_string_append_c(o->text, '[');
+  o->more = FALSE;
+}
+
+void pp_json_out_end_array(pp_json_out *o) {
+  g_string_append_c(o->text, ']');
+  o->more = TRUE;
+}
+
+void pp_json_out_name(pp_json_out *o, const char *name) {
+  separate(o);
+  add_string(o->text, name);
+  g_string_append_c(o->text, ':');
+  o->more = FALSE;
+}
+
+void pp_json_out_null(pp_json_out *o) {
+  separate(o);
+  g_string_append_len(o->text, "null", 4);
+  o->more = TRUE;
+}
+
+void pp_json_out_int(pp_json_out *o, gint64 v) {
+  separate(o);
+  add_int(o->text, v);
+  o->more = TRUE;
+}
+
+void pp_json_out_double(pp_json_out *o, double v) {
+  separate(o);
+  add_double(o->text, v);
+  o->more = TRUE;
+}
+
+void pp_json_out_bool(pp_json_out *o, gboolean v) {
+  separate(o);
+  if (v)
+    g_string_append_len(o->text, "true", 4);
+  else
+    g_string_append_len(o->text, "false", 5);
+  o->more = TRUE;
+}
+
+void pp_json_out_string(pp_json_out *o, const char *s) {
+  separate(o);
+  add_string(o->text, s);
+  o->more = TRUE;
 }

@@ -202,6 +202,70 @@ static void test_compact_like_json_glib(void **state) {
   g_rand_free(r);
 }
 
+/* The report keeps its pages and findings as text (pp_json_out): the tree pp_report_to_json()
+ * reads back from it must write out, by json-glib's own generator, as the same compact text,
+ * with every byte from 0x01 to 0xff in a warning and a failed page's reason. A measure named
+ * twice keeps its first place and last value, as json-glib's builder makes the object
+ * (json_object_set_member replaces a member in place). */
+static void test_text_and_tree_agree(void **state) {
+  (void)state;
+  pp_sample *s = pp_sample_new(1.0 / 7.0, 1e-9);
+  char bytes[256];
+  for (int i = 1; i < 256; i++)
+    bytes[i - 1] = (char)i;
+  bytes[255] = '\0';
+  g_ptr_array_add(s->scene->warnings, g_strdup(bytes));
+  pp_finding *f = g_ptr_array_index(s->findings, 0);
+  pp_measures_add_extra(&f->measures, "gdi", 12.5);
+  pp_measures_add_extra(&f->measures, "share", 0.1 * 3);
+  pp_measures_add_extra(&f->measures, "share", -2.0);
+  pp_report *r = pp_sample_report(s);
+  pp_report_add_failed_page(r, 2, bytes);
+  char *text = pp_report_to_string(r, FALSE, NULL);
+  JsonNode *tree = pp_report_to_json(r);
+  char *want = json_to_string(tree, FALSE);
+  assert_string_equal(text, want);
+  /* the parts a page process sends: the same arrays */
+  JsonObject *o = json_node_get_object(tree);
+  char *parts = pp_report_parts_to_string(r, NULL);
+  char *pages = json_to_string(json_object_get_member(o, "pages"), FALSE);
+  char *found = json_to_string(json_object_get_member(o, "findings"), FALSE);
+  char *joined = g_strdup_printf("{\"pages\":%s,\"findings\":%s}", pages, found);
+  assert_string_equal(parts, joined);
+  /* the measures against JsonBuilder given the same members in the same order */
+  g_autoptr(JsonBuilder) b = json_builder_new();
+  json_builder_begin_object(b);
+  pp_json_member_number(b, "lie_factor", 1.0 / 7.0);
+  pp_json_member_string(b, "lie_factor_definition", PP_REPORT_LIE_FACTOR_DEFINITION);
+  pp_json_member_number(b, "ink_growth_ratio", f->measures.growth_ratio);
+  pp_json_member_number(b, "gdi", 1e-9);
+  pp_json_member_number(b, "baseline_value", f->measures.baseline_value);
+  pp_json_member_number(b, "max_pair_departure", f->measures.max_pair_departure);
+  pp_json_member_number(b, "distortion", f->measures.distortion);
+  for (guint i = 0; i < f->measures.n_extra; i++)
+    pp_json_member_number(b, f->measures.extra[i].name, f->measures.extra[i].value);
+  json_builder_end_object(b);
+  JsonNode *m = json_builder_get_root(b);
+  char *want_m = json_to_string(m, FALSE);
+  JsonObject *f0 = json_array_get_object_element(json_object_get_array_member(o, "findings"), 0);
+  char *got_m = json_to_string(json_object_get_member(f0, "measures"), FALSE);
+  assert_string_equal(got_m, want_m);
+  assert_non_null(strstr(got_m, "\"gdi\":12.5,"));
+  assert_non_null(strstr(got_m, "\"share\":-2}"));
+  g_free(got_m);
+  g_free(want_m);
+  json_node_unref(m);
+  g_free(joined);
+  g_free(found);
+  g_free(pages);
+  g_free(parts);
+  g_free(want);
+  json_node_unref(tree);
+  g_free(text);
+  pp_report_free(r);
+  pp_sample_free(s);
+}
+
 static void assert_rect(JsonArray *a, double x0, double y0, double x1, double y1) {
   assert_non_null(a);
   assert_int_equal(json_array_get_length(a), 4);
@@ -413,6 +477,7 @@ int main(int argc, char **argv) {
       cmocka_unit_test(test_values_round_trip),
       cmocka_unit_test(test_writable_double_ranges),
       cmocka_unit_test(test_compact_like_json_glib),
+      cmocka_unit_test(test_text_and_tree_agree),
       cmocka_unit_test(test_figure_boxes_and_coverage),
       cmocka_unit_test(test_schema_required_fields),
       cmocka_unit_test(test_write_file),
