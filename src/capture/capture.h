@@ -122,10 +122,37 @@ void pp_sha256_update(pp_sha256 *sum, const void *data, gsize len);
 char *pp_sha256_free_to_hex(pp_sha256 *sum);
 char *pp_sha256_hex(const void *data, gsize len);
 
+/* What the file system says about a file's bytes without reading them. Every write to a
+ * file moves its change time (ctime) to the current time, and nobody can set it back, so the
+ * same identity means the same bytes, unless a write fell in the clock tick of the reading. */
+typedef struct {
+  guint64 device, inode, size;
+  gint64 mtime_ns, ctime_ns;
+} pp_file_identity;
+
+/* A file's SHA-256 with its identity while it was read. trusted is FALSE when the identity
+ * cannot vouch for the bytes: it changed during the reading, or its ctime was too close to
+ * the reading's start (pp_file_digest_compute). */
+typedef struct {
+  pp_file_identity identity;
+  char sha256[65]; /* lowercase hex */
+  gboolean trusted;
+} pp_file_digest;
+
+/* Reads the whole file at path and hashes it (G_FILE_ERROR when it cannot be read). */
+gboolean pp_file_digest_compute(const char *path, pp_file_digest *out, GError **error);
+/* The identity of an open file descriptor (FALSE when fstat fails). */
+gboolean pp_file_identity_of_fd(int fd, pp_file_identity *out);
+gboolean pp_file_identity_equal(const pp_file_identity *a, const pp_file_identity *b);
+
 typedef struct pp_document pp_document;
 
 /* Opens and checks the file; a clean GError for every way it can fail. */
 pp_document *pp_document_open(const char *path, const char *password, GError **error);
+/* The same, taking the SHA-256 from known (may be NULL) instead of reading every byte again
+ * when known is trusted and the file still has its identity. */
+pp_document *pp_document_open_digested(const char *path, const char *password,
+                                       const pp_file_digest *known, GError **error);
 void pp_document_free(pp_document *doc);
 G_DEFINE_AUTOPTR_CLEANUP_FUNC(pp_document, pp_document_free)
 

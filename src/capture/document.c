@@ -1,9 +1,11 @@
 /* document.c — opening a PDF with a precise error for each way it can fail, its
  * identity (size, SHA-256, metadata), and the per-page capture driver around the tap. */
 #include <errno.h>
+#include <fcntl.h>
 #include <fontconfig/fontconfig.h>
 #include <math.h>
 #include <string.h>
+#include <unistd.h>
 
 #include "internal.h"
 
@@ -46,6 +48,9 @@ static GPtrArray *current_warnings;
 static void collect_poppler_log(const char *domain, GLogLevelFlags level, const char *message,
                                 gpointer user_data);
 
+static pp_document *open_poppler(const char *path, const char *password, char *sha, guint64 len,
+                                 GError **error);
+
 static char *dup_or_null(char *s) {
   if (s && !*s) {
     g_free(s);
@@ -54,9 +59,40 @@ static char *dup_or_null(char *s) {
   return s;
 }
 
+/* The known digest, when the file at path still has the identity it was read with and
+ * starts like a PDF; NULL sends the caller to read and hash every byte. */
+static char *known_digest(const char *path, const pp_file_digest *known, guint64 *size) {
+  if (!known || !known->trusted)
+    return NULL;
+  int fd = open(path, O_RDONLY | O_CLOEXEC | O_NONBLOCK);
+  if (fd < 0)
+    return NULL;
+  pp_file_identity now;
+  char head[1024];
+  ssize_t n = 0;
+  gboolean same =
+      pp_file_identity_of_fd(fd, &now) && pp_file_identity_equal(&now, &known->identity);
+  if (same)
+    n = pread(fd, head, sizeof head, 0);
+  close(fd);
+  if (!same || n <= 0 || !has_pdf_header(head, (gsize)n))
+    return NULL;
+  *size = now.size;
+  return g_strdup(known->sha256);
+}
+
 pp_document *pp_document_open(const char *path, const char *password, GError **error) {
+  return pp_document_open_digested(path, password, NULL, error);
+}
+
+pp_document *pp_document_open_digested(const char *path, const char *password,
+                                       const pp_file_digest *known, GError **error) {
   g_return_val_if_fail(path != NULL, NULL);
   GError *local = NULL;
+  guint64 known_size = 0;
+  char *sha = known_digest(path, known, &known_size);
+  if (sha)
+    return open_poppler(path, password, sha, known_size, error);
   GMappedFile *mapped = g_mapped_file_new(path, FALSE, &local);
   if (!mapped) {
     g_set_error(error, PP_CAPTURE_ERROR, PP_CAPTURE_ERROR_UNREADABLE, "%s", local->message);
@@ -76,9 +112,15 @@ pp_document *pp_document_open(const char *path, const char *password, GError **e
                 "no %%PDF- header in the first 1024 bytes");
     return NULL;
   }
-  char *sha = pp_sha256_hex(data, len);
+  sha = pp_sha256_hex(data, len);
   g_mapped_file_unref(mapped);
+  return open_poppler(path, password, sha, len, error);
+}
 
+/* Opens the checked file with poppler; takes sha. */
+static pp_document *open_poppler(const char *path, const char *password, char *sha, guint64 len,
+                                 GError **error) {
+  GError *local = NULL;
   GFile *file = g_file_new_for_path(path);
   char *uri = g_file_get_uri(file);
   g_object_unref(file);

@@ -189,7 +189,7 @@ static void start(batch *b, const pp_batch_item *item) {
   t->proc = g_subprocess_new(G_SUBPROCESS_FLAGS_STDIN_PIPE | G_SUBPROCESS_FLAGS_STDOUT_PIPE, &error,
                              b->self, "__worker", NULL);
   if (t->proc) {
-    pp_docworker_job job = {item->path, item->password, b->opt};
+    pp_docworker_job job = {item->path, item->password, b->opt, item->digest};
     char *text = pp_docworker_job_to_json(&job, getpid());
     GOutputStream *in = g_subprocess_get_stdin_pipe(t->proc);
     g_output_stream_write_all(in, text, strlen(text), NULL, NULL, NULL);

@@ -11,7 +11,8 @@
 typedef struct {
   const char *path;
   const char *password;
-  guint id; /* the caller's index, handed back in the result */
+  const pp_file_digest *digest; /* the scheduler's reading of the file, or NULL */
+  guint id;                     /* the caller's index, handed back in the result */
 } pp_batch_item;
 
 typedef struct {

@@ -161,7 +161,7 @@ int pp_docworker_main(int fd, const pp_docworker_job *job, pid_t parent) {
   pp_worker_child_setup(&doc_limits, parent);
   int messages_fd = catch_stderr();
   GError *error = NULL;
-  pp_document *doc = pp_document_open(job->path, job->password, &error);
+  pp_document *doc = pp_document_open_digested(job->path, job->password, job->digest, &error);
   if (!doc) {
     char *payload = pp_analyse_gerror_payload(error);
     send_line(fd, payload);
@@ -246,6 +246,17 @@ char *pp_docworker_job_to_json(const pp_docworker_job *job, pid_t parent) {
   json_builder_set_member_name(b, "path_hex");
   json_builder_add_string_value(b, hex->str);
   g_string_free(hex, TRUE);
+  if (job->digest && job->digest->trusted) {
+    /* Integers as text: a device or inode number may not fit a signed 64-bit JSON number. */
+    const pp_file_identity *id = &job->digest->identity;
+    char *parts = g_strdup_printf("%s %" G_GUINT64_FORMAT " %" G_GUINT64_FORMAT
+                                  " %" G_GUINT64_FORMAT " %" G_GINT64_FORMAT " %" G_GINT64_FORMAT,
+                                  job->digest->sha256, id->device, id->inode, id->size,
+                                  id->mtime_ns, id->ctime_ns);
+    json_builder_set_member_name(b, "digest");
+    json_builder_add_string_value(b, parts);
+    g_free(parts);
+  }
   json_builder_set_member_name(b, "password");
   if (job->password)
     json_builder_add_string_value(b, job->password);
@@ -285,6 +296,22 @@ char *pp_docworker_job_to_json(const pp_docworker_job *job, pid_t parent) {
 static double number(JsonObject *o, const char *name, double fallback) {
   JsonNode *n = json_object_get_member(o, name);
   return n && JSON_NODE_HOLDS_VALUE(n) ? json_node_get_double(n) : fallback;
+}
+
+/* The "digest" member of a job: 64 hex digits and five integers; anything else is no digest. */
+static gboolean read_digest(const char *text, pp_file_digest *out) {
+  memset(out, 0, sizeof *out);
+  pp_file_identity *id = &out->identity;
+  int used = 0;
+  if (sscanf(text,
+             "%64[0-9a-f] %" G_GUINT64_FORMAT " %" G_GUINT64_FORMAT " %" G_GUINT64_FORMAT
+             " %" G_GINT64_FORMAT " %" G_GINT64_FORMAT "%n",
+             out->sha256, &id->device, &id->inode, &id->size, &id->mtime_ns, &id->ctime_ns,
+             &used) != 6 ||
+      strlen(out->sha256) != 64 || text[used] != '\0')
+    return FALSE;
+  out->trusted = TRUE;
+  return TRUE;
 }
 
 G_NORETURN void pp_docworker_run_stdin(void) {
@@ -330,8 +357,12 @@ G_NORETURN void pp_docworker_run_stdin(void) {
   for (size_t i = 0; hex[i] && hex[i + 1]; i += 2)
     g_string_append_c(path,
                       (char)(g_ascii_xdigit_value(hex[i]) * 16 + g_ascii_xdigit_value(hex[i + 1])));
+  pp_file_digest digest;
+  gboolean has_digest =
+      read_digest(json_object_get_string_member_with_default(o, "digest", ""), &digest);
   pp_docworker_job job = {path->str,
-                          pw && JSON_NODE_HOLDS_VALUE(pw) ? json_node_get_string(pw) : NULL, &opt};
+                          pw && JSON_NODE_HOLDS_VALUE(pw) ? json_node_get_string(pw) : NULL, &opt,
+                          has_digest ? &digest : NULL};
   int status = pp_docworker_main(STDOUT_FILENO, &job, (pid_t)number(o, "parent", 0));
   /* Everything freed before leaving, so that valgrind's leak check (scripts/test) sees
    * plotproof's own leaks only. */

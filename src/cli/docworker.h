@@ -12,6 +12,7 @@ typedef struct {
   const char *path;
   const char *password;
   const pp_cli_options *opt;
+  const pp_file_digest *digest; /* the scheduler's, reused while the file keeps its identity */
 } pp_docworker_job;
 
 /* The lines written to fd, each one JSON object:

@@ -164,32 +164,6 @@ static gboolean add_list(collector *c, const char *from) {
   return ok;
 }
 
-static char *sha256_file(const char *path, guint64 *size, GError **error) {
-  int fd = open(path, O_RDONLY | O_CLOEXEC | O_NONBLOCK);
-  if (fd < 0) {
-    g_set_error_literal(error, G_FILE_ERROR, g_file_error_from_errno(errno), g_strerror(errno));
-    return NULL;
-  }
-  pp_sha256 *sum = pp_sha256_new();
-  guchar buf[1 << 16];
-  ssize_t n;
-  *size = 0;
-  while ((n = read(fd, buf, sizeof buf)) != 0) {
-    if (n < 0 && errno == EINTR)
-      continue;
-    if (n < 0) {
-      g_set_error_literal(error, G_FILE_ERROR, g_file_error_from_errno(errno), g_strerror(errno));
-      g_free(pp_sha256_free_to_hex(sum));
-      close(fd);
-      return NULL;
-    }
-    pp_sha256_update(sum, buf, (gsize)n);
-    *size += (guint64)n;
-  }
-  close(fd);
-  return pp_sha256_free_to_hex(sum);
-}
-
 char *pp_inputs_output_base(const char *path, const char *tag) {
   char *base = g_path_get_basename(path);
   if (has_pdf_suffix(base))
@@ -268,7 +242,10 @@ static void hash_inputs(GPtrArray *inputs, guint *n_failed) {
   for (guint i = 0; i < inputs->len;) {
     pp_input *in = g_ptr_array_index(inputs, i);
     GError *error = NULL;
-    in->sha256 = sha256_file(in->path, &in->size, &error);
+    if (pp_file_digest_compute(in->path, &in->digest, &error)) {
+      in->sha256 = g_strdup(in->digest.sha256);
+      in->size = in->digest.identity.size;
+    }
     if (!in->sha256) {
       pp_cli_print_file_error(in->path, "unreadable", error->message);
       g_error_free(error);

@@ -5,12 +5,15 @@
 
 #include <glib.h>
 
+#include "capture/capture.h"
+
 typedef struct {
-  char *path;        /* as the user would recognise it (argument or argument/sub/file) */
-  char *canonical;   /* realpath(), for deduplication and collision suffixes */
-  char *rel_dir;     /* folder below the output directory mirroring the input's, or "" */
-  char *output_name; /* relative to the output directory: "[rel_dir/]<name>.findings.json" */
-  char *sha256;      /* lowercase hex; NULL until hashed */
+  char *path;            /* as the user would recognise it (argument or argument/sub/file) */
+  char *canonical;       /* realpath(), for deduplication and collision suffixes */
+  char *rel_dir;         /* folder below the output directory mirroring the input's, or "" */
+  char *output_name;     /* relative to the output directory: "[rel_dir/]<name>.findings.json" */
+  char *sha256;          /* lowercase hex; NULL until hashed */
+  pp_file_digest digest; /* the same, with the file's identity for the worker */
   guint64 size;
   int primary; /* index of the first input with the same SHA-256, or -1 when this is it */
 } pp_input;

@@ -528,7 +528,8 @@ int pp_cli_scan(char **paths, int n_paths, const pp_cli_options *opt) {
       resume(&s, i, root, prev);
       continue;
     }
-    pp_batch_item item = {in->path, pp_passwords_lookup(s.passwords, in->path, in->sha256), i};
+    pp_batch_item item = {in->path, pp_passwords_lookup(s.passwords, in->path, in->sha256),
+                          &in->digest, i};
     g_array_append_val(items, item);
   }
   gboolean interrupted = pp_batch_run(opt, items, on_done, &s, s.progress);

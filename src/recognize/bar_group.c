@@ -29,10 +29,6 @@
  * inside it (labels printed in the bar's end; common practice, no source). */
 #define PP_LABEL_BEYOND 2.5
 #define PP_LABEL_INSIDE 3.0
-/* Legend swatches are at most this big, pt (common practice, no source), and named
- * within their size plus this gap, pt (common practice, no source). */
-#define PP_SWATCH_MAX 40.0
-#define PP_SWATCH_NAME_GAP 6.0
 
 pp_frame_rect pp_frame_of(pp_rect r, gboolean vertical) {
   return vertical ? (pp_frame_rect){r.y0, r.y1, r.x0, r.x1}
@@ -80,6 +76,7 @@ struct pp_bar_text {
   guint n_by_y0, n_by_x1, n_labels_x, n_labels_y; /* entries with a key (not NaN) */
   gboolean lines_in_order;     /* words' line numbers never decrease (capture's reading order) */
   double tallest, upside_down; /* the largest y1 - y0 and y0 - y1 of a word, at least 0 */
+  guint8 *is_number;           /* per word: 0 not read yet, 1 a number, 2 not (pp_number_parse) */
 };
 
 static double key_of(const void *base, gsize stride, guint i) {
@@ -580,75 +577,4 @@ pp_figure *pp_bars_build(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *sca
   find_group_categories(ctx, fig, plot, vertical);
   attach_data_labels(ctx, fig, vertical, base);
   return fig;
-}
-
-/* Legend keys: swatches of one size, each with a series name beside, above or below
- * it. They share edges like bars do but stand for no value. */
-static gboolean swatch_named(const pp_text_run *word, pp_rect b) {
-  double reach = fmin(pp_rect_width(b), pp_rect_height(b)) + PP_SWATCH_NAME_GAP;
-  pp_rect w = word->box;
-  double e = PP_EDGE_SLACK;
-  gboolean right = w.x0 >= b.x1 - e && w.x0 <= b.x1 + reach && w.y0 < b.y1 && w.y1 > b.y0;
-  gboolean below = w.y0 >= b.y1 - e && w.y0 <= b.y1 + reach && w.x0 < b.x1 && w.x1 > b.x0;
-  gboolean above = w.y1 <= b.y0 + e && w.y1 >= b.y0 - reach && w.x0 < b.x1 && w.x1 > b.x0;
-  pp_number num; /* a number beside a bar is its data label, not a series name */
-  return (right || below || above) && !pp_number_parse(word->text, PP_DECIMAL_UNKNOWN, &num);
-}
-
-/* Figures with more swatches than this look their names up by height (a page of tiles
- * can hold thousands); fewer scan every word (common practice, no source). */
-#define PP_LEGEND_INDEX_MIN 8
-/* Slack on that lookup's band, pt: far above rounding, so no word that names a swatch is
- * left out of it (common practice, no source). */
-#define PP_LEGEND_BAND_SLACK 1.0
-
-gboolean pp_bars_legend_like(pp_recognize_ctx *ctx, const pp_figure *fig) {
-  GArray *els = fig->elements;
-  pp_rect first = g_array_index(els, pp_element, 0).box;
-  for (guint i = 0; i < els->len; i++) {
-    pp_rect b = g_array_index(els, pp_element, i).box;
-    if (fabs(pp_rect_width(b) - pp_rect_width(first)) > PP_EDGE_SLACK ||
-        fabs(pp_rect_height(b) - pp_rect_height(first)) > PP_EDGE_SLACK ||
-        pp_rect_width(b) > PP_SWATCH_MAX || pp_rect_height(b) > PP_SWATCH_MAX)
-      return FALSE;
-  }
-  GPtrArray *words = ctx->scene->words;
-  if (els->len < PP_LEGEND_INDEX_MIN) {
-    for (guint i = 0; i < els->len; i++) {
-      pp_rect b = g_array_index(els, pp_element, i).box;
-      gboolean named = FALSE;
-      for (guint k = 0; k < words->len && !named; k++)
-        named = swatch_named(g_ptr_array_index(words, k), b);
-      if (!named)
-        return FALSE;
-    }
-    return TRUE;
-  }
-  /* A word names a swatch only if its top lies within reach below the swatch and its
-   * bottom within reach above it: the words by top, in that band widened by the tallest
-   * word (and any box with y0 > y1); words without a top (NaN) are always tried. The
-   * words' order is the page's (ctx->bar_text), sorted once, not once per figure. */
-  const pp_bar_text *t = bar_text(ctx);
-  const guint *by_y0 = t->by_y0;
-  guint n_top = t->n_by_y0;
-  double tallest = t->tallest, upside_down = t->upside_down;
-  gboolean all = TRUE;
-  for (guint i = 0; i < els->len && all; i++) {
-    pp_rect b = g_array_index(els, pp_element, i).box;
-    double reach = fmin(pp_rect_width(b), pp_rect_height(b)) + PP_SWATCH_NAME_GAP;
-    double lo = b.y0 - reach - tallest - PP_LEGEND_BAND_SLACK;
-    double hi = b.y1 + reach + upside_down + PP_LEGEND_BAND_SLACK;
-    gboolean named = FALSE;
-    guint k = lower_bound(words, G_STRUCT_OFFSET(pp_text_run, box.y0), by_y0, n_top, lo);
-    for (; k < n_top && !named; k++) {
-      const pp_text_run *w = g_ptr_array_index(words, by_y0[k]);
-      if (w->box.y0 > hi)
-        break;
-      named = swatch_named(w, b);
-    }
-    for (k = n_top; k < words->len && !named; k++)
-      named = swatch_named(g_ptr_array_index(words, by_y0[k]), b);
-    all = named;
-  }
-  return all;
 }

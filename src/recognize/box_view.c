@@ -118,6 +118,15 @@ static int corner_of(const pp_quad *q, pp_point p) {
   return -1;
 }
 
+/* Bit k set when corner k of a is a corner of b. */
+static guint8 corners_shared(const pp_quad *a, const pp_quad *b) {
+  guint8 bits = 0;
+  for (int k = 0; k < 4; k++)
+    if (corner_of(b, a->p[k]) >= 0)
+      bits |= (guint8)(1u << k);
+  return bits;
+}
+
 /* Three panes meeting at one corner O, each pair along an edge: the floor and two walls.
  * The edge from O that rises most steeply on the page is the vertical. */
 static gboolean fit_panes(const pp_quad *a, const pp_quad *b, const pp_quad *c, pp_box_view *v) {
@@ -216,9 +225,17 @@ gboolean pp_box_view_find(const pp_recognize_ctx *ctx, const pp_quad *quads, gui
     order[i] = i;
   g_qsort_with_data(order, (gint)n, sizeof(guint), by_area_desc, (gpointer)quads);
   guint m = MIN(n, PP_VIEW_MAX_CANDIDATES);
+  /* fit_panes needs a corner of the first pane that the other two share, so a triple
+   * whose pairs share no such corner is skipped without trying it (the same answer). */
+  guint8 shared[PP_VIEW_MAX_CANDIDATES][PP_VIEW_MAX_CANDIDATES];
+  for (guint i = 0; i < m; i++)
+    for (guint j = i + 1; j < m; j++)
+      shared[i][j] = corners_shared(&quads[order[i]], &quads[order[j]]);
   for (guint i = 0; i < m; i++)
     for (guint j = i + 1; j < m; j++)
       for (guint k = j + 1; k < m; k++) {
+        if (!(shared[i][j] & shared[i][k]))
+          continue;
         memset(v, 0, sizeof *v);
         if (!fit_panes(&quads[order[i]], &quads[order[j]], &quads[order[k]], v))
           continue;

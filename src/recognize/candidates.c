@@ -101,16 +101,26 @@ static gboolean behind_text(word_lookup *wl, pp_rect r) {
   return FALSE;
 }
 
-/* Hatch lines inside an outlined rectangle: single slanted strokes whose box lies within
- * it. Slanted, because ticks and gridlines inside a plot frame are axis-aligned. */
-static guint count_hatching(const pp_scene *scene, pp_rect r) {
-  guint n = 0;
-  for (guint i = 0; i < scene->marks->len && n < PP_HATCH_MIN_LINES; i++) {
+/* Hatch lines: single slanted strokes, in page order. Slanted, because ticks and gridlines
+ * inside a plot frame are axis-aligned. Listed once per page, since every outlined
+ * rectangle (a table of a thousand cells has as many) looks for them. */
+static GArray *hatch_lines(const pp_scene *scene) {
+  GArray *lines = g_array_new(FALSE, FALSE, sizeof(guint));
+  for (guint i = 0; i < scene->marks->len; i++) {
     const pp_mark *m = g_ptr_array_index(scene->marks, i);
-    if (m->kind != PP_MARK_STROKE || m->path->n_segs != 2 || m->path->segs[1].kind != PP_SEG_LINE ||
-        !pp_rect_contains(r, m->bbox, PP_HATCH_INSIDE_TOL))
-      continue;
-    n += pp_rect_width(m->bbox) > PP_HATCH_SLANT && pp_rect_height(m->bbox) > PP_HATCH_SLANT;
+    if (m->kind == PP_MARK_STROKE && m->path->n_segs == 2 && m->path->segs[1].kind == PP_SEG_LINE &&
+        pp_rect_width(m->bbox) > PP_HATCH_SLANT && pp_rect_height(m->bbox) > PP_HATCH_SLANT)
+      g_array_append_val(lines, i);
+  }
+  return lines;
+}
+
+/* Hatch lines whose box lies within r, counted up to PP_HATCH_MIN_LINES. */
+static guint count_hatching(const pp_scene *scene, GArray *lines, pp_rect r) {
+  guint n = 0;
+  for (guint k = 0; k < lines->len && n < PP_HATCH_MIN_LINES; k++) {
+    const pp_mark *m = g_ptr_array_index(scene->marks, g_array_index(lines, guint, k));
+    n += pp_rect_contains(r, m->bbox, PP_HATCH_INSIDE_TOL);
   }
   return n;
 }
@@ -119,12 +129,13 @@ static guint count_hatching(const pp_scene *scene, pp_rect r) {
  * the reader sees the region, so the region is its ink. Unhatched outlines are table
  * cells, frames and legends, never bars. */
 static void collect_hatched(const pp_scene *scene, GArray *out) {
-  for (guint i = 0; i < scene->marks->len; i++) {
+  g_autoptr(GArray) lines = hatch_lines(scene);
+  for (guint i = 0; i < scene->marks->len && lines->len >= PP_HATCH_MIN_LINES; i++) {
     const pp_mark *m = g_ptr_array_index(scene->marks, i);
     pp_rect r;
     if (m->kind != PP_MARK_STROKE || !pp_path_is_rectangle(m->path, PP_RECT_TOL, &r) ||
         pp_rect_width(r) < PP_HATCHED_MIN_SIDE || pp_rect_height(r) < PP_HATCHED_MIN_SIDE ||
-        count_hatching(scene, r) < PP_HATCH_MIN_LINES)
+        count_hatching(scene, lines, r) < PP_HATCH_MIN_LINES)
       continue;
     pp_rect clip = pp_clip_bbox(m->clip);
     pp_rect vis = pp_rect_intersect(r, clip);

@@ -109,7 +109,8 @@ typedef struct {
   pp_claims *claims;            /* the ledger */
   GArray *wedges;               /* pp_wedge_candidate of every fill, claimed or not (wedges.c) */
   struct pp_bar_text *bar_text; /* words and labels in coordinate order (bar_group.c) */
-  pp_page_charts *out;          /* figures found so far */
+  struct pp_legend_words *legend_words; /* words by position for legend keys (legend.c) */
+  pp_page_charts *out;                  /* figures found so far */
 } pp_recognize_ctx;
 
 /* A recognizer finds every figure of its family on the page, claiming marks and labels
@@ -192,8 +193,10 @@ pp_figure *pp_bars_build(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *sca
                          gboolean vertical, double base, const char *owner);
 typedef struct pp_bar_text pp_bar_text;
 void pp_bar_text_free(pp_bar_text *t);
-/* Legend keys: swatches of one size, each named beside it. */
+/* Legend keys: swatches of one size, each named beside it (legend.c). */
 gboolean pp_bars_legend_like(pp_recognize_ctx *ctx, const pp_figure *fig);
+typedef struct pp_legend_words pp_legend_words;
+void pp_legend_words_free(pp_legend_words *lw);
 /* Evidence of a bar layout: the shared baseline and how regularly the bars of each series
  * are spaced (pp_bars_spacing_regularity: share of regular gaps, NAN with too few bars). */
 double pp_bars_spacing_regularity(const pp_figure *fig);
@@ -321,6 +324,8 @@ void pp_box_grid_free(pp_box_grid *grid);
 /* Sets out (guint) to the indices, ascending and once each, of every box that touches q,
  * plus possibly some that do not: callers apply their exact test to each. */
 void pp_box_grid_query(pp_box_grid *grid, pp_rect q, GArray *out);
+/* The same ids in no particular order, for callers whose answer does not depend on it. */
+void pp_box_grid_query_any(pp_box_grid *grid, pp_rect q, GArray *out);
 /* Sets out likewise to a superset of the boxes b with pp_rect_contains(outer, b, tol),
  * empty ones included. */
 void pp_box_grid_query_inside(pp_box_grid *grid, pp_rect outer, double tol, GArray *out);

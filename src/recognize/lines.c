@@ -39,16 +39,18 @@ static gboolean is_line_mark(const pp_mark *m) {
 }
 
 /* Lines and markers beside a fitted axis, claimed; NULL when there are none. */
-static pp_figure *build_on_axis(pp_recognize_ctx *ctx, const pp_axis_candidate *cand) {
+static pp_figure *build_on_axis(pp_recognize_ctx *ctx, const pp_axis_candidate *cand,
+                                GArray *line_marks) {
   const pp_scene *scene = ctx->scene;
   pp_rect box = pp_rect_empty();
   const pp_scale *axis = cand->scale;
   double lo, hi;
   pp_axis_reach(cand, ctx->axes, cand->side ? cand->side : +1, &lo, &hi);
   GArray *taken = g_array_new(FALSE, FALSE, sizeof(guint));
-  for (guint i = 0; i < scene->marks->len; i++) {
+  for (guint k = 0; k < line_marks->len; k++) {
+    guint i = g_array_index(line_marks, guint, k);
     const pp_mark *m = g_ptr_array_index(scene->marks, i);
-    if (!pp_claims_mark_free(ctx->claims, i) || !is_line_mark(m))
+    if (!pp_claims_mark_free(ctx->claims, i))
       continue;
     pp_rect r = m->bbox;
     double u0 = axis->vertical ? r.y0 : r.x0, u1 = axis->vertical ? r.y1 : r.x1;
@@ -85,13 +87,22 @@ static pp_figure *build_on_axis(pp_recognize_ctx *ctx, const pp_axis_candidate *
 }
 
 void pp_recognize_lines(pp_recognize_ctx *ctx) {
+  /* The page's line marks, in page order, found once for the first axis that asks: a page
+   * of tiles has as many axis candidates as rows of numbers, and each looked at every mark. */
+  g_autoptr(GArray) line_marks = NULL;
   for (guint i = 0; i < ctx->axes->len; i++) {
     const pp_axis_candidate *c = g_ptr_array_index(ctx->axes, i);
     if (c->fit_failed || !c->scale->vertical || pp_axis_taken(ctx, c))
       continue;
+    if (!line_marks) {
+      line_marks = g_array_new(FALSE, FALSE, sizeof(guint));
+      for (guint k = 0; k < ctx->scene->marks->len; k++)
+        if (is_line_mark(g_ptr_array_index(ctx->scene->marks, k)))
+          g_array_append_val(line_marks, k);
+    }
     pp_claims_begin(ctx->claims);
     pp_axis_claim_labels(ctx, c);
-    pp_figure *f = build_on_axis(ctx, c);
+    pp_figure *f = build_on_axis(ctx, c, line_marks);
     if (!f) {
       pp_claims_rollback(ctx->claims);
       continue;

@@ -57,17 +57,35 @@ static int cmp_guint(gconstpointer a, gconstpointer b) {
 /* Is there an unread bar chart beside this axis? Then its failed scale matters: a few
  * unclaimed bars within reach that share an edge along the axis and differ in length.
  * Tables (rules, equal row shading) have labels too, but no such bars. */
+/* Whether bar i is free and within reach of the axis box ab. */
+static gboolean bar_near(const pp_recognize_ctx *ctx, guint i, pp_rect ab, gboolean vertical) {
+  const pp_bar_candidate *b = &g_array_index(ctx->bars, pp_bar_candidate, i);
+  double d = vertical ? fmin(fabs(b->rect.x0 - ab.x1), fabs(ab.x0 - b->rect.x1))
+                      : fmin(fabs(b->rect.y1 - ab.y0), fabs(ab.y1 - b->rect.y0));
+  return pp_claims_mark_free(ctx->claims, b->mark) && d < PP_FAILED_SCALE_BAR_REACH;
+}
+
 static gboolean has_bars_beside(const pp_recognize_ctx *ctx, const pp_axis_candidate *c) {
   gboolean vertical = c->scale->vertical;
   pp_rect ab = c->scale->box;
+  /* The bars on any one edge are some of the near bars, so their spread of lengths is at
+   * most the near bars' own and their longest at most the near bars' longest: when these
+   * already fail the test below, no edge passes it (a page of equal tiles), and the edges
+   * need not be searched. */
+  double shortest_near = INFINITY, longest_near = 0;
+  for (guint i = 0; i < ctx->bars->len; i++)
+    if (bar_near(ctx, i, ab, vertical)) {
+      pp_frame_rect r = pp_frame_of(g_array_index(ctx->bars, pp_bar_candidate, i).rect, vertical);
+      shortest_near = fmin(shortest_near, r.u1 - r.u0);
+      longest_near = fmax(longest_near, r.u1 - r.u0);
+    }
+  if (!(longest_near - shortest_near > PP_FAILED_SCALE_MIN_SPREAD &&
+        longest_near >= PP_FAILED_SCALE_MIN_LONGEST * (c->span1 - c->span0)))
+    return FALSE;
   GArray *near = g_array_new(FALSE, FALSE, sizeof(pp_rect));
-  for (guint i = 0; i < ctx->bars->len; i++) {
-    pp_bar_candidate *b = &g_array_index(ctx->bars, pp_bar_candidate, i);
-    double d = vertical ? fmin(fabs(b->rect.x0 - ab.x1), fabs(ab.x0 - b->rect.x1))
-                        : fmin(fabs(b->rect.y1 - ab.y0), fabs(ab.y1 - b->rect.y0));
-    if (pp_claims_mark_free(ctx->claims, b->mark) && d < PP_FAILED_SCALE_BAR_REACH)
-      g_array_append_val(near, b->rect);
-  }
+  for (guint i = 0; i < ctx->bars->len; i++)
+    if (bar_near(ctx, i, ab, vertical))
+      g_array_append_val(near, g_array_index(ctx->bars, pp_bar_candidate, i).rect);
   gboolean found = FALSE;
   /* The near bars' ends along the axis in order, so that the bars on an edge are found by
    * binary search: a page of tiles has as many edges as rows, each tried once. */
@@ -172,6 +190,7 @@ pp_page_charts *pp_page_charts_find(const pp_scene *scene) {
   if (ctx.wedges)
     g_array_unref(ctx.wedges);
   pp_bar_text_free(ctx.bar_text);
+  pp_legend_words_free(ctx.legend_words);
   g_ptr_array_unref(ctx.areas);
   g_array_unref(ctx.bars);
   g_hash_table_unref(ctx.glyph_marks);

@@ -1,7 +1,7 @@
 /* test_box_grid.c — the recognizers' bucket grid: every box that touches a query is
- * returned, ascending and once, whatever the boxes' sizes (points, page-wide boxes, empty
- * boxes). The reference is the exhaustive test of every box against the query (closed
- * rectangles intersect when they overlap on both axes: textbook). */
+ * returned, ascending and once (or in any order, once), whatever the boxes' sizes (points,
+ * page-wide boxes, empty boxes). The reference is the exhaustive test of every box against the
+ * query (closed rectangles intersect when they overlap on both axes: textbook). */
 #include <setjmp.h>
 #include <stdarg.h>
 #include <stddef.h>
@@ -14,9 +14,21 @@ static gboolean touches(pp_rect a, pp_rect b) {
   return !pp_rect_is_empty(a) && a.x0 <= b.x1 && b.x0 <= a.x1 && a.y0 <= b.y1 && b.y0 <= a.y1;
 }
 
+static int cmp_id(gconstpointer a, gconstpointer b) {
+  guint x = *(const guint *)a, y = *(const guint *)b;
+  return (x > y) - (x < y);
+}
+
 static void check(pp_box_grid *g, const pp_rect *boxes, guint n, pp_rect q) {
   g_autoptr(GArray) hits = g_array_new(FALSE, FALSE, sizeof(guint));
+  /* The unordered query gives the same ids as the ordered one, as a set. */
+  g_autoptr(GArray) any = g_array_new(FALSE, FALSE, sizeof(guint));
+  pp_box_grid_query_any(g, q, any);
+  g_array_sort(any, cmp_id);
   pp_box_grid_query(g, q, hits);
+  assert_int_equal(any->len, hits->len);
+  for (guint k = 0; k < hits->len; k++)
+    assert_int_equal(g_array_index(any, guint, k), g_array_index(hits, guint, k));
   for (guint k = 1; k < hits->len; k++) /* ascending, once each */
     assert_true(g_array_index(hits, guint, k - 1) < g_array_index(hits, guint, k));
   guint j = 0;
