@@ -57,15 +57,15 @@ static int cmp_guint(gconstpointer a, gconstpointer b) {
 /* Is there an unread bar chart beside this axis? Then its failed scale matters: a few
  * unclaimed bars within reach that share an edge along the axis and differ in length.
  * Tables (rules, equal row shading) have labels too, but no such bars. */
-/* Whether bar i is free and within reach of the axis box ab. */
-static gboolean bar_near(const pp_recognize_ctx *ctx, guint i, pp_rect ab, gboolean vertical) {
-  const pp_bar_candidate *b = &g_array_index(ctx->bars, pp_bar_candidate, i);
-  double d = vertical ? fmin(fabs(b->rect.x0 - ab.x1), fabs(ab.x0 - b->rect.x1))
-                      : fmin(fabs(b->rect.y1 - ab.y0), fabs(ab.y1 - b->rect.y0));
-  return pp_claims_mark_free(ctx->claims, b->mark) && d < PP_FAILED_SCALE_BAR_REACH;
+/* Whether a bar is within reach of the axis box ab. */
+static inline gboolean bar_near(pp_rect b, pp_rect ab, gboolean vertical) {
+  double d = vertical ? fmin(fabs(b.x0 - ab.x1), fabs(ab.x0 - b.x1))
+                      : fmin(fabs(b.y1 - ab.y0), fabs(ab.y1 - b.y0));
+  return d < PP_FAILED_SCALE_BAR_REACH;
 }
 
-static gboolean has_bars_beside(const pp_recognize_ctx *ctx, const pp_axis_candidate *c) {
+/* free_bars: the rectangles of the unclaimed bars, in page order. */
+static gboolean has_bars_beside(GArray *free_bars, const pp_axis_candidate *c) {
   gboolean vertical = c->scale->vertical;
   pp_rect ab = c->scale->box;
   /* The bars on any one edge are some of the near bars, so their spread of lengths is at
@@ -73,9 +73,9 @@ static gboolean has_bars_beside(const pp_recognize_ctx *ctx, const pp_axis_candi
    * already fail the test below, no edge passes it (a page of equal tiles), and the edges
    * need not be searched. */
   double shortest_near = INFINITY, longest_near = 0;
-  for (guint i = 0; i < ctx->bars->len; i++)
-    if (bar_near(ctx, i, ab, vertical)) {
-      pp_frame_rect r = pp_frame_of(g_array_index(ctx->bars, pp_bar_candidate, i).rect, vertical);
+  for (guint i = 0; i < free_bars->len; i++)
+    if (bar_near(g_array_index(free_bars, pp_rect, i), ab, vertical)) {
+      pp_frame_rect r = pp_frame_of(g_array_index(free_bars, pp_rect, i), vertical);
       shortest_near = fmin(shortest_near, r.u1 - r.u0);
       longest_near = fmax(longest_near, r.u1 - r.u0);
     }
@@ -83,9 +83,9 @@ static gboolean has_bars_beside(const pp_recognize_ctx *ctx, const pp_axis_candi
         longest_near >= PP_FAILED_SCALE_MIN_LONGEST * (c->span1 - c->span0)))
     return FALSE;
   GArray *near = g_array_new(FALSE, FALSE, sizeof(pp_rect));
-  for (guint i = 0; i < ctx->bars->len; i++)
-    if (bar_near(ctx, i, ab, vertical))
-      g_array_append_val(near, g_array_index(ctx->bars, pp_bar_candidate, i).rect);
+  for (guint i = 0; i < free_bars->len; i++)
+    if (bar_near(g_array_index(free_bars, pp_rect, i), ab, vertical))
+      g_array_append_val(near, g_array_index(free_bars, pp_rect, i));
   gboolean found = FALSE;
   /* The near bars' ends along the axis in order, so that the bars on an edge are found by
    * binary search: a page of tiles has as many edges as rows, each tried once. */
@@ -141,9 +141,22 @@ static gboolean has_bars_beside(const pp_recognize_ctx *ctx, const pp_axis_candi
 }
 
 static void add_scale_failures(pp_recognize_ctx *ctx) {
+  /* The unclaimed bars, listed once on the first failed scale (nothing is claimed from
+   * here on): a page of tiles has as many failed scales as rows and columns of numbers. */
+  g_autoptr(GArray) free_bars = NULL;
   for (guint i = 0; i < ctx->axes->len; i++) {
     pp_axis_candidate *c = g_ptr_array_index(ctx->axes, i);
-    if (!c->fit_failed || c->category || c->labels->len < 3 || !has_bars_beside(ctx, c))
+    if (!c->fit_failed || c->category || c->labels->len < 3)
+      continue;
+    if (!free_bars) {
+      free_bars = g_array_new(FALSE, FALSE, sizeof(pp_rect));
+      for (guint k = 0; k < ctx->bars->len; k++) {
+        const pp_bar_candidate *b = &g_array_index(ctx->bars, pp_bar_candidate, k);
+        if (pp_claims_mark_free(ctx->claims, b->mark))
+          g_array_append_val(free_bars, b->rect);
+      }
+    }
+    if (!has_bars_beside(free_bars, c))
       continue;
     pp_scale_failure *s = g_new0(pp_scale_failure, 1);
     s->bbox = c->scale->box;
