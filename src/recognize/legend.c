@@ -85,9 +85,20 @@ static gboolean swatch_named(pp_recognize_ctx *ctx, pp_legend_words *lw, guint k
   return (right || below || above) && !word_is_number(ctx, lw, k);
 }
 
-/* Whether some word names the swatch. A word with an ordinary box that is right of,
- * below or above an ordinary swatch within reach touches the swatch grown by reach and
- * the slack on every side, so only the grid's words there and the others are tried. */
+/* Tries the words the grid holds in q and the others; TRUE when one names the swatch. */
+static gboolean named_in(pp_recognize_ctx *ctx, pp_legend_words *lw, pp_rect q, pp_rect b) {
+  pp_box_grid_query_any(lw->grid, q, lw->near); /* any order: the answer is whether one does */
+  for (guint i = 0; i < lw->near->len; i++)
+    if (swatch_named(ctx, lw, g_array_index(lw->near, guint, i), b))
+      return TRUE;
+  return FALSE;
+}
+
+/* Whether some word names the swatch. A word with an ordinary box that is right of, below
+ * or above an ordinary swatch (swatch_named) touches one of three strips: the reach beside
+ * the swatch's right edge, across its height; below and above it, across its width. Each
+ * strip has the search slack all round, so only the grid's words there and the others are
+ * tried. */
 static gboolean named_by_some_word(pp_recognize_ctx *ctx, pp_legend_words *lw, pp_rect b) {
   if (!ordinary(b, PP_LEGEND_GRID_REACH)) {
     for (guint k = 0; k < ctx->scene->words->len; k++)
@@ -95,13 +106,13 @@ static gboolean named_by_some_word(pp_recognize_ctx *ctx, pp_legend_words *lw, p
         return TRUE;
     return FALSE;
   }
-  double grow = fmin(pp_rect_width(b), pp_rect_height(b)) + PP_SWATCH_NAME_GAP + PP_SWATCH_SLACK +
-                PP_LEGEND_SEARCH_SLACK;
-  pp_rect q = {b.x0 - grow, b.y0 - grow, b.x1 + grow, b.y1 + grow};
-  pp_box_grid_query_any(lw->grid, q, lw->near); /* any order: the answer is whether one does */
-  for (guint i = 0; i < lw->near->len; i++)
-    if (swatch_named(ctx, lw, g_array_index(lw->near, guint, i), b))
-      return TRUE;
+  double reach = fmin(pp_rect_width(b), pp_rect_height(b)) + PP_SWATCH_NAME_GAP;
+  double e = PP_SWATCH_SLACK, s = PP_LEGEND_SEARCH_SLACK;
+  pp_rect right = {b.x1 - e - s, b.y0 - s, b.x1 + reach + s, b.y1 + s};
+  pp_rect below = {b.x0 - s, b.y1 - e - s, b.x1 + s, b.y1 + reach + s};
+  pp_rect above = {b.x0 - s, b.y0 - reach - s, b.x1 + s, b.y0 + e + s};
+  if (named_in(ctx, lw, right, b) || named_in(ctx, lw, below, b) || named_in(ctx, lw, above, b))
+    return TRUE;
   for (guint i = 0; i < lw->others->len; i++)
     if (swatch_named(ctx, lw, g_array_index(lw->others, guint, i), b))
       return TRUE;
