@@ -68,15 +68,18 @@ static int cmp_element(gconstpointer a, gconstpointer b, gpointer vertical) {
  * word or label in page order among the nearest. Words with a NaN key, which the scans
  * never chose, are skipped; labels with one are still tried. */
 struct pp_bar_text {
-  guint n_words, n_labels;
-  guint *by_y0;                                   /* word indices by box.y0 */
-  guint *by_x1;                                   /* word indices by box.x1 */
-  guint *labels_x;                                /* label indices by centre.x */
-  guint *labels_y;                                /* label indices by centre.y */
-  guint n_by_y0, n_by_x1, n_labels_x, n_labels_y; /* entries with a key (not NaN) */
+  guint n_words;
+  guint *by_y0;                /* word indices by box.y0 */
+  guint *by_x1;                /* word indices by box.x1 */
+  guint n_by_y0, n_by_x1;      /* entries with a key (not NaN) */
   gboolean lines_in_order;     /* words' line numbers never decrease (capture's reading order) */
   double tallest, upside_down; /* the largest y1 - y0 and y0 - y1 of a word, at least 0 */
-  guint8 *is_number;           /* per word: 0 not read yet, 1 a number, 2 not (pp_number_parse) */
+  /* Data labels (tip_label), on first use: a grid of the labels' centres, and the labels
+   * the grid cannot answer for (a centre or size not finite, or beyond its reach), which
+   * are tried for every bar. */
+  pp_box_grid *centres;
+  GArray *centres_others, *near; /* guint label indices; near is scratch */
+  double largest_size;           /* of the labels in the grid */
 };
 
 static double key_of(const void *base, gsize stride, guint i) {
@@ -123,11 +126,8 @@ static const pp_bar_text *bar_text(pp_recognize_ctx *ctx) {
   pp_bar_text *t = g_new0(pp_bar_text, 1);
   GPtrArray *words = ctx->scene->words;
   t->n_words = words->len;
-  t->n_labels = ctx->labels->len;
   t->by_y0 = sorted_indices(words, G_STRUCT_OFFSET(pp_text_run, box.y0), &t->n_by_y0);
   t->by_x1 = sorted_indices(words, G_STRUCT_OFFSET(pp_text_run, box.x1), &t->n_by_x1);
-  t->labels_x = sorted_indices(ctx->labels, G_STRUCT_OFFSET(pp_label, centre.x), &t->n_labels_x);
-  t->labels_y = sorted_indices(ctx->labels, G_STRUCT_OFFSET(pp_label, centre.y), &t->n_labels_y);
   for (guint k = 0; k < words->len; k++) { /* capture's boxes have y0 <= y1; not assumed */
     const pp_text_run *w = g_ptr_array_index(words, k);
     t->tallest = fmax(t->tallest, w->box.y1 - w->box.y0);
@@ -146,8 +146,11 @@ void pp_bar_text_free(pp_bar_text *t) {
     return;
   g_free(t->by_y0);
   g_free(t->by_x1);
-  g_free(t->labels_x);
-  g_free(t->labels_y);
+  pp_box_grid_free(t->centres);
+  if (t->centres_others)
+    g_array_unref(t->centres_others);
+  if (t->near)
+    g_array_unref(t->near);
   g_free(t);
 }
 
@@ -343,40 +346,84 @@ static void attach_segment_labels(pp_recognize_ctx *ctx, pp_element *e, gboolean
   }
 }
 
+/* Far beyond any page, pt (ISO 32000-1 Annex C: at most 14,400 units a side), and small
+ * enough that the grid's extent stays finite. */
+#define PP_LABEL_GRID_REACH 1e6
+/* Margin of the data-label search box, pt: far above rounding, so no label tip_label
+ * would take is left out of it (common practice, no source). */
+#define PP_LABEL_SEARCH_SLACK 1.0
+
+static pp_bar_text *label_centres(pp_recognize_ctx *ctx) {
+  pp_bar_text *t = (pp_bar_text *)bar_text(ctx);
+  if (t->centres)
+    return t;
+  GPtrArray *labels = ctx->labels;
+  g_autofree pp_rect *boxes = g_new(pp_rect, MAX(labels->len, 1));
+  t->centres_others = g_array_new(FALSE, FALSE, sizeof(guint));
+  t->near = g_array_new(FALSE, FALSE, sizeof(guint));
+  for (guint k = 0; k < labels->len; k++) {
+    const pp_label *l = g_ptr_array_index(labels, k);
+    double x = l->centre.x, y = l->centre.y;
+    gboolean placed = fabs(x) <= PP_LABEL_GRID_REACH && fabs(y) <= PP_LABEL_GRID_REACH &&
+                      isfinite(l->size) && fabs(l->size) <= PP_LABEL_GRID_REACH;
+    boxes[k] = placed ? (pp_rect){x, y, x, y} : pp_rect_empty();
+    if (placed)
+      t->largest_size = fmax(t->largest_size, fabs(l->size));
+    else
+      g_array_append_val(t->centres_others, k);
+  }
+  t->centres = pp_box_grid_new(boxes, labels->len);
+  return t;
+}
+
+/* Whether label l is a better data label for the bar than *best (at *best_d); updates them. */
+static void consider_tip_label(pp_recognize_ctx *ctx, const pp_element *e, pp_label *l,
+                               gboolean vertical, double tip, double base, double dir,
+                               pp_label **best, double *best_d) {
+  if (!pp_claims_label_free(ctx->claims, l->index))
+    return;
+  double lu = label_u(l, vertical);
+  double beyond = (lu - tip) * dir; /* > 0 outside the bar, < 0 inside */
+  double from_base = (lu - base) * dir;
+  /* a stack's total stands beyond its tip: labels inside are its segments' */
+  double inside = e->stacked ? PP_EDGE_SLACK : PP_LABEL_INSIDE * l->size;
+  if (from_base <= 0 || beyond > PP_LABEL_BEYOND * l->size || beyond < -inside)
+    return;
+  double d = fabs(beyond);
+  if (d < *best_d || (d == *best_d && *best && l->index < (*best)->index)) {
+    *best_d = d;
+    *best = l;
+  }
+}
+
 /* The data label of one bar: the free label nearest its tip, just beyond it or inside it
- * (first in page order among equals). */
+ * (first in page order among equals). Candidates lie across the bar's width (within
+ * PP_EDGE_SLACK); a label with no position across (NaN) is always a candidate. A label
+ * whose position along is NaN never passes the distance tests, so one that can pass lies
+ * within the largest label's reach of the tip: the grid answers for the box of both. */
 static pp_label *tip_label(pp_recognize_ctx *ctx, const pp_element *e, gboolean vertical,
                            double base) {
   GPtrArray *labels = ctx->labels;
-  const pp_bar_text *t = bar_text(ctx);
+  pp_bar_text *t = label_centres(ctx);
   pp_frame_rect f = pp_frame_of(e->box, vertical);
   double tip = fabs(f.u0 - base) > fabs(f.u1 - base) ? f.u0 : f.u1;
   double dir = tip < base ? -1 : 1; /* from base towards tip */
   pp_label *best = NULL;
   double best_d = INFINITY;
-  /* The labels across the bar's width, then those with no position across (NaN). */
-  gsize off = vertical ? G_STRUCT_OFFSET(pp_label, centre.x) : G_STRUCT_OFFSET(pp_label, centre.y);
-  const guint *idx = vertical ? t->labels_x : t->labels_y;
-  guint n_idx = vertical ? t->n_labels_x : t->n_labels_y;
-  guint from[2] = {lower_bound(labels, off, idx, n_idx, f.w0 - PP_EDGE_SLACK), n_idx};
-  guint to[2] = {upper_bound(labels, off, idx, n_idx, f.w1 + PP_EDGE_SLACK), t->n_labels};
-  for (int r = 0; r < 2; r++)
-    for (guint k = from[r]; k < to[r]; k++) {
-      pp_label *l = g_ptr_array_index(labels, idx[k]);
-      if (!pp_claims_label_free(ctx->claims, l->index))
-        continue;
-      double lu = label_u(l, vertical);
-      double beyond = (lu - tip) * dir; /* > 0 outside the bar, < 0 inside */
-      double from_base = (lu - base) * dir;
-      /* a stack's total stands beyond its tip: labels inside are its segments' */
-      double inside = e->stacked ? PP_EDGE_SLACK : PP_LABEL_INSIDE * l->size;
-      if (from_base <= 0 || beyond > PP_LABEL_BEYOND * l->size || beyond < -inside)
-        continue;
-      double d = fabs(beyond);
-      if (d < best_d || (d == best_d && best && l->index < best->index)) {
-        best_d = d;
-        best = l;
-      }
+  double w0 = f.w0 - PP_EDGE_SLACK, w1 = f.w1 + PP_EDGE_SLACK;
+  double along = fmax(PP_EDGE_SLACK, fmax(PP_LABEL_INSIDE, PP_LABEL_BEYOND) * t->largest_size) +
+                 PP_LABEL_SEARCH_SLACK;
+  double s = PP_LABEL_SEARCH_SLACK;
+  pp_rect q = vertical ? (pp_rect){w0 - s, tip - along, w1 + s, tip + along}
+                       : (pp_rect){tip - along, w0 - s, tip + along, w1 + s};
+  pp_box_grid_query_any(t->centres, q, t->near); /* any order: ties go by index */
+  GArray *sources[2] = {t->near, t->centres_others};
+  for (int k = 0; k < 2; k++)
+    for (guint j = 0; j < sources[k]->len; j++) {
+      pp_label *l = g_ptr_array_index(labels, g_array_index(sources[k], guint, j));
+      double lw = label_w(l, vertical);
+      if (isnan(lw) || (lw >= w0 && lw <= w1))
+        consider_tip_label(ctx, e, l, vertical, tip, base, dir, &best, &best_d);
     }
   return best;
 }
