@@ -61,38 +61,78 @@ static int cmp_element(gconstpointer a, gconstpointer b, gpointer vertical) {
   return (pa > pb) - (pa < pb);
 }
 
-/* Far beyond any page, pt (ISO 32000-1 Annex C: at most 14,400 units a side), and small
- * enough that the grid's extent stays finite. */
-#define PP_LABEL_GRID_REACH 1e6
-/* Margin of the data-label search box, pt: far above rounding, so no label tip_label
- * would take is left out of it (common practice, no source). */
-#define PP_LABEL_SEARCH_SLACK 1.0
-
-/* The page's words and labels by position, built on the first bar figure of a page
- * (ctx->bar_text), so that categories and data labels are looked up near each bar instead
- * of among every word and label per bar: a page of a thousand labelled tiles has as many
- * words as bars. Lookups keep the linear scans' answers (the nearest, first in page order
- * among equals); what a grid cannot hold is tried for every bar. */
+/* The page's words and labels in coordinate order, built on the first bar figure of a
+ * page (ctx->bar_text) so that categories and data labels are looked up in the band
+ * where they can lie instead of among every word per bar: a page of a thousand labelled
+ * tiles has as many words as bars. Lookups keep the linear scans' answers: the first
+ * word or label in page order among the nearest. Words with a NaN key, which the scans
+ * never chose, are skipped; labels with one are still tried. */
 struct pp_bar_text {
-  gboolean lines_in_order; /* words' line numbers never decrease (capture's reading order) */
+  guint n_words;
+  guint *by_y0;                /* word indices by box.y0 */
+  guint *by_x1;                /* word indices by box.x1 */
+  guint n_by_y0, n_by_x1;      /* entries with a key (not NaN) */
+  gboolean lines_in_order;     /* words' line numbers never decrease (capture's reading order) */
+  double tallest, upside_down; /* the largest y1 - y0 and y0 - y1 of a word, at least 0 */
   /* Data labels (tip_label), on first use: a grid of the labels' centres, and the labels
-   * it cannot hold (a centre or size not finite, or beyond its reach). */
+   * the grid cannot answer for (a centre or size not finite, or beyond its reach), which
+   * are tried for every bar. */
   pp_box_grid *centres;
-  GArray *centres_others; /* guint label indices */
-  double largest_size;    /* of the labels in the grid */
-  /* Categories (find_category), on first use: a grid of the words' boxes, and the words
-   * whose box it cannot hold (not finite, inverted, or beyond its reach). */
-  pp_box_grid *word_boxes;
-  GArray *words_others; /* guint word indices */
-  GArray *near;         /* guint: scratch for the grids' answers */
+  GArray *centres_others, *near; /* guint label indices; near is scratch */
+  double largest_size;           /* of the labels in the grid */
 };
 
-static pp_bar_text *bar_text(pp_recognize_ctx *ctx) {
+static double key_of(const void *base, gsize stride, guint i) {
+  return *(const double *)((const char *)base + stride * i);
+}
+
+static const void *sort_base;
+static gsize sort_stride;
+
+/* Key, then index: ties stay in page order. */
+static int cmp_by_key(const void *a, const void *b) {
+  guint i = *(const guint *)a, j = *(const guint *)b;
+  double x = key_of(sort_base, sort_stride, i), y = key_of(sort_base, sort_stride, j);
+  if (x != y)
+    return x < y ? -1 : 1;
+  return (i > j) - (i < j);
+}
+
+/* Indices 0..n-1 of the items (their key a double at byte offset off), those with a key
+ * sorted by it in the first *n_out places, those with a NaN key after them. */
+static guint *sorted_indices(GPtrArray *items, gsize off, guint *n_out) {
+  guint n = items->len, m = 0, back = n;
+  double *keys = g_new(double, MAX(n, 1));
+  guint *idx = g_new(guint, MAX(n, 1));
+  for (guint i = 0; i < n; i++) {
+    keys[i] = *(const double *)((const char *)g_ptr_array_index(items, i) + off);
+    if (!isnan(keys[i]))
+      idx[m++] = i;
+  }
+  for (guint i = n; i-- > 0;) /* NaN keys last, in page order */
+    if (isnan(keys[i]))
+      idx[--back] = i;
+  sort_base = keys, sort_stride = sizeof(double);
+  qsort(idx, m, sizeof(guint), cmp_by_key);
+  sort_base = NULL;
+  g_free(keys);
+  *n_out = m;
+  return idx;
+}
+
+static const pp_bar_text *bar_text(pp_recognize_ctx *ctx) {
   if (ctx->bar_text)
     return ctx->bar_text;
   pp_bar_text *t = g_new0(pp_bar_text, 1);
   GPtrArray *words = ctx->scene->words;
-  t->near = g_array_new(FALSE, FALSE, sizeof(guint));
+  t->n_words = words->len;
+  t->by_y0 = sorted_indices(words, G_STRUCT_OFFSET(pp_text_run, box.y0), &t->n_by_y0);
+  t->by_x1 = sorted_indices(words, G_STRUCT_OFFSET(pp_text_run, box.x1), &t->n_by_x1);
+  for (guint k = 0; k < words->len; k++) { /* capture's boxes have y0 <= y1; not assumed */
+    const pp_text_run *w = g_ptr_array_index(words, k);
+    t->tallest = fmax(t->tallest, w->box.y1 - w->box.y0);
+    t->upside_down = fmax(t->upside_down, w->box.y0 - w->box.y1);
+  }
   t->lines_in_order = TRUE;
   for (guint i = 1; i < words->len && t->lines_in_order; i++)
     t->lines_in_order = ((const pp_text_run *)g_ptr_array_index(words, i - 1))->line <=
@@ -104,97 +144,92 @@ static pp_bar_text *bar_text(pp_recognize_ctx *ctx) {
 void pp_bar_text_free(pp_bar_text *t) {
   if (!t)
     return;
+  g_free(t->by_y0);
+  g_free(t->by_x1);
   pp_box_grid_free(t->centres);
-  pp_box_grid_free(t->word_boxes);
-  if (t->words_others)
-    g_array_unref(t->words_others);
   if (t->centres_others)
     g_array_unref(t->centres_others);
-  g_array_unref(t->near);
+  if (t->near)
+    g_array_unref(t->near);
   g_free(t);
+}
+
+/* First position in idx (n sorted entries of items) whose key at off is >= v. */
+static guint lower_bound(GPtrArray *items, gsize off, const guint *idx, guint n, double v) {
+  guint lo = 0, hi = n;
+  while (lo < hi) {
+    guint mid = lo + (hi - lo) / 2;
+    if (*(const double *)((const char *)g_ptr_array_index(items, idx[mid]) + off) < v)
+      lo = mid + 1;
+    else
+      hi = mid;
+  }
+  return lo;
+}
+
+/* First position whose key is > v. */
+static guint upper_bound(GPtrArray *items, gsize off, const guint *idx, guint n, double v) {
+  guint lo = 0, hi = n;
+  while (lo < hi) {
+    guint mid = lo + (hi - lo) / 2;
+    if (*(const double *)((const char *)g_ptr_array_index(items, idx[mid]) + off) <= v)
+      lo = mid + 1;
+    else
+      hi = mid;
+  }
+  return lo;
 }
 
 /* Category label: the nearest word outside the plot, beyond the baseline, centred on
  * (or, when rotated, ending at) the bar. */
-static pp_bar_text *word_boxes(pp_recognize_ctx *ctx) {
-  pp_bar_text *t = bar_text(ctx);
-  if (t->word_boxes)
-    return t;
-  GPtrArray *words = ctx->scene->words;
-  g_autofree pp_rect *boxes = g_new(pp_rect, MAX(words->len, 1));
-  t->words_others = g_array_new(FALSE, FALSE, sizeof(guint));
-  for (guint k = 0; k < words->len; k++) {
-    pp_rect b = ((const pp_text_run *)g_ptr_array_index(words, k))->box;
-    gboolean placed = b.x0 <= b.x1 && b.y0 <= b.y1 && fabs(b.x0) <= PP_LABEL_GRID_REACH &&
-                      fabs(b.x1) <= PP_LABEL_GRID_REACH && fabs(b.y0) <= PP_LABEL_GRID_REACH &&
-                      fabs(b.y1) <= PP_LABEL_GRID_REACH;
-    boxes[k] = placed ? b : pp_rect_empty();
-    if (!placed)
-      g_array_append_val(t->words_others, k);
-  }
-  t->word_boxes = pp_box_grid_new(boxes, words->len);
-  return t;
-}
-
-/* Word i as the category of the bar if it is nearer than *best_d (ties: the first word). */
-static void consider_category(const pp_text_run *w, guint i, pp_rect bar, pp_rect plot,
-                              gboolean vertical, const pp_text_run **best, guint *best_i,
-                              double *best_d) {
-  double d;
-  if (vertical) {
-    /* Its top at most PP_EDGE_SLACK above the plot's bottom, centred over the bar. */
-    if (!(w->box.y0 >= plot.y1 - PP_EDGE_SLACK))
-      return;
-    d = w->box.y0 - plot.y1;
-    double cx = (w->box.x0 + w->box.x1) / 2;
-    gboolean over =
-        (cx >= bar.x0 - PP_CATEGORY_SLACK && cx <= bar.x1 + PP_CATEGORY_SLACK) ||
-        (w->angle != 0 && w->box.x1 >= bar.x0 && w->box.x1 <= bar.x1 + PP_CATEGORY_ROTATED_SLACK);
-    if (!over)
-      return;
-  } else {
-    /* Its end at most PP_EDGE_SLACK right of the plot's left edge, beside the bar. */
-    if (!(w->box.x1 <= plot.x0 + PP_EDGE_SLACK))
-      return;
-    d = plot.x0 - w->box.x1;
-    double cy = (w->box.y0 + w->box.y1) / 2;
-    if (cy < bar.y0 - PP_CATEGORY_SLACK || cy > bar.y1 + PP_CATEGORY_SLACK)
-      return;
-  }
-  if (!(d < PP_CATEGORY_MAX_GAP))
-    return;
-  if (d < *best_d || (d == *best_d && i < *best_i)) {
-    *best_d = d;
-    *best = w;
-    *best_i = i;
-  }
-}
-
 static char *find_category(pp_recognize_ctx *ctx, pp_rect bar, pp_rect plot, gboolean vertical,
                            double *dist) {
   const pp_scene *scene = ctx->scene;
-  pp_bar_text *t = word_boxes(ctx);
+  const pp_bar_text *t = bar_text(ctx);
   GPtrArray *words = scene->words;
   const pp_text_run *best = NULL;
   guint best_i = G_MAXUINT;
   double best_d = INFINITY;
-  /* The nearest word that names the bar, first in page order among equals. A word with an
-   * ordinary box that passes consider_category touches this box, so only the grid's words
-   * there and the others are tried. */
-  double slack = PP_LABEL_SEARCH_SLACK;
-  double across = PP_CATEGORY_SLACK + PP_CATEGORY_ROTATED_SLACK + slack;
-  pp_rect q = vertical ? (pp_rect){bar.x0 - across, plot.y1 - PP_EDGE_SLACK - slack,
-                                   bar.x1 + across, plot.y1 + PP_CATEGORY_MAX_GAP + slack}
-                       : (pp_rect){plot.x0 - PP_CATEGORY_MAX_GAP - slack, bar.y0 - across,
-                                   plot.x0 + PP_EDGE_SLACK + slack, bar.y1 + across};
-  pp_box_grid_query_any(t->word_boxes, q, t->near);
-  GArray *sources[2] = {t->near, t->words_others};
-  for (int k = 0; k < 2; k++)
-    for (guint j = 0; j < sources[k]->len; j++) {
-      guint i = g_array_index(sources[k], guint, j);
-      consider_category(g_ptr_array_index(words, i), i, bar, plot, vertical, &best, &best_i,
-                        &best_d);
+  if (vertical) {
+    /* Words whose top is at most PP_EDGE_SLACK above the plot's bottom, nearest first. */
+    guint k = lower_bound(words, G_STRUCT_OFFSET(pp_text_run, box.y0), t->by_y0, t->n_by_y0,
+                          plot.y1 - PP_EDGE_SLACK);
+    for (; k < t->n_by_y0; k++) {
+      guint i = t->by_y0[k];
+      const pp_text_run *w = g_ptr_array_index(words, i);
+      double d = w->box.y0 - plot.y1; /* never decreases along by_y0 */
+      if (!(d < PP_CATEGORY_MAX_GAP) || d > best_d)
+        break;
+      double cx = (w->box.x0 + w->box.x1) / 2;
+      gboolean over =
+          (cx >= bar.x0 - PP_CATEGORY_SLACK && cx <= bar.x1 + PP_CATEGORY_SLACK) ||
+          (w->angle != 0 && w->box.x1 >= bar.x0 && w->box.x1 <= bar.x1 + PP_CATEGORY_ROTATED_SLACK);
+      if (over && (d < best_d || (d == best_d && i < best_i))) {
+        best_d = d;
+        best = w;
+        best_i = i;
+      }
     }
+  } else {
+    /* Words ending at most PP_EDGE_SLACK right of the plot's left edge, nearest first. */
+    guint k = upper_bound(words, G_STRUCT_OFFSET(pp_text_run, box.x1), t->by_x1, t->n_by_x1,
+                          plot.x0 + PP_EDGE_SLACK);
+    while (k-- > 0) {
+      guint i = t->by_x1[k];
+      const pp_text_run *w = g_ptr_array_index(words, i);
+      double d = plot.x0 - w->box.x1; /* never decreases along by_x1 taken backwards */
+      if (!(d < PP_CATEGORY_MAX_GAP) || d > best_d)
+        break;
+      double cy = (w->box.y0 + w->box.y1) / 2;
+      if (cy < bar.y0 - PP_CATEGORY_SLACK || cy > bar.y1 + PP_CATEGORY_SLACK)
+        continue;
+      if (d < best_d || (d == best_d && i < best_i)) {
+        best_d = d;
+        best = w;
+        best_i = i;
+      }
+    }
+  }
   if (dist)
     *dist = best_d;
   if (!best)
@@ -311,13 +346,21 @@ static void attach_segment_labels(pp_recognize_ctx *ctx, pp_element *e, gboolean
   }
 }
 
+/* Far beyond any page, pt (ISO 32000-1 Annex C: at most 14,400 units a side), and small
+ * enough that the grid's extent stays finite. */
+#define PP_LABEL_GRID_REACH 1e6
+/* Margin of the data-label search box, pt: far above rounding, so no label tip_label
+ * would take is left out of it (common practice, no source). */
+#define PP_LABEL_SEARCH_SLACK 1.0
+
 static pp_bar_text *label_centres(pp_recognize_ctx *ctx) {
-  pp_bar_text *t = bar_text(ctx);
+  pp_bar_text *t = (pp_bar_text *)bar_text(ctx);
   if (t->centres)
     return t;
   GPtrArray *labels = ctx->labels;
   g_autofree pp_rect *boxes = g_new(pp_rect, MAX(labels->len, 1));
   t->centres_others = g_array_new(FALSE, FALSE, sizeof(guint));
+  t->near = g_array_new(FALSE, FALSE, sizeof(guint));
   for (guint k = 0; k < labels->len; k++) {
     const pp_label *l = g_ptr_array_index(labels, k);
     double x = l->centre.x, y = l->centre.y;
