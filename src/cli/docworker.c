@@ -83,22 +83,21 @@ typedef struct {
   long recycle_kib;
 } page_run;
 
-static double self_cpu(void) {
-  struct rusage ru;
-  getrusage(RUSAGE_SELF, &ru);
-  return (double)ru.ru_utime.tv_sec + ru.ru_utime.tv_usec / 1e6 + (double)ru.ru_stime.tv_sec +
-         ru.ru_stime.tv_usec / 1e6;
+static double cpu_of(const struct rusage *ru) {
+  return (double)ru->ru_utime.tv_sec + ru->ru_utime.tv_usec / 1e6 + (double)ru->ru_stime.tv_sec +
+         ru->ru_stime.tv_usec / 1e6;
 }
 
-/* In the page child: one line per page, "INDEX RSS_KIB CPU_S REPORT". */
+/* In the page child: one line per page, "INDEX RSS_KIB CPU_S REPORT". One getrusage() a
+ * page serves the line, the memory bound and the next page's CPU limit. */
 static gboolean page_run_child(int fd, gpointer data) {
   page_run *run = data;
   struct rusage ru;
   getrusage(RUSAGE_SELF, &ru);
   long rss_limit = ru.ru_maxrss + run->recycle_kib;
-  double cpu0 = self_cpu();
+  double cpu0 = cpu_of(&ru);
   for (guint i = run->first; i < run->n_pages; i++) {
-    pp_worker_child_rearm(run->page_limits);
+    pp_worker_child_rearm(run->page_limits, &ru);
     pp_analyse_job job = run->page;
     job.page_index = i;
     char *payload = pp_analyse_report_page(&job);
@@ -107,7 +106,7 @@ static gboolean page_run_child(int fd, gpointer data) {
       if (*c == '\n' || *c == '\r')
         *c = ' ';
     getrusage(RUSAGE_SELF, &ru);
-    double cpu = self_cpu();
+    double cpu = cpu_of(&ru);
     char *line = g_strdup_printf("%u %ld %.6f %s\n", i, ru.ru_maxrss, cpu - cpu0, payload);
     cpu0 = cpu;
     gboolean ok = pp_worker_write_all(fd, line, strlen(line));
@@ -116,7 +115,8 @@ static gboolean page_run_child(int fd, gpointer data) {
     if (!ok)
       return FALSE;
     /* Messages printed after the page's capture was read belong to no page. */
-    if (job.messages_fd >= 0 && ftruncate(job.messages_fd, 0) == 0)
+    if (job.messages_fd >= 0 && lseek(job.messages_fd, 0, SEEK_CUR) > 0 &&
+        ftruncate(job.messages_fd, 0) == 0)
       lseek(job.messages_fd, 0, SEEK_SET);
     if (ru.ru_maxrss > rss_limit)
       break; /* a fresh child takes the next page */
