@@ -2,7 +2,6 @@
  * identity (size, SHA-256, metadata), and the per-page capture driver around the tap. */
 #include <errno.h>
 #include <fcntl.h>
-#include <fontconfig/fontconfig.h>
 #include <math.h>
 #include <string.h>
 #include <unistd.h>
@@ -139,11 +138,9 @@ static pp_document *open_poppler(const char *path, const char *password, char *s
     g_free(sha);
     return NULL;
   }
-  /* poppler looks fonts up through fontconfig, which loads its configuration and font
-   * list (about 28 M instructions) on first use. Loading it here, while the document is
-   * opened, lets the page processes forked after this share one copy instead of each
-   * loading its own. */
-  FcInit();
+  /* fontconfig is left to load on first use (about 28 M instructions): a document whose
+   * fonts are all embedded never needs it, and one page process now takes a whole
+   * document, so loading it here would save nothing. */
   int n_pages = poppler_document_get_n_pages(pd);
   if (n_pages <= 0) {
     g_object_unref(pd);
