@@ -1,5 +1,6 @@
-/* batch.c — worker processes driven by a GMainLoop: no sleep-poll loop. A worker is
- * finished when both its pipe has reached end of file and its exit has been seen. */
+/* batch.c — worker processes driven by a GMainLoop: no sleep-poll loop. Workers are forked
+ * by the launcher (launcher.h), which reports each one's end; a worker is finished when
+ * both its pipe has reached end of file and its end has been reported. */
 #include <errno.h>
 #include <fcntl.h>
 #include <signal.h>
@@ -8,13 +9,12 @@
 #include <sys/wait.h>
 #include <unistd.h>
 
-#include <gio/gio.h>
-#include <gio/gunixinputstream.h>
 #include <glib-unix.h>
 
 #include "assemble.h"
 #include "batch.h"
 #include "docworker.h"
+#include "launcher.h"
 
 /* How often the progress line is redrawn. Common practice, no source. */
 #define PP_BATCH_PROGRESS_MS 250
@@ -24,8 +24,8 @@ typedef struct batch batch;
 typedef struct {
   batch *b;
   const pp_batch_item *item;
-  GSubprocess *proc;
-  int fd; /* the worker's stdout, owned by proc's stream */
+  guint launch_id; /* the launcher's name for the worker, 0 before it is asked for one */
+  int fd;          /* the worker's stdout */
   guint fd_source, timeout_source;
   GString *buf;
   pp_assembly *as;
@@ -37,12 +37,14 @@ typedef struct {
 
 struct batch {
   const pp_cli_options *opt;
-  char *self; /* this program, from /proc/self/exe */
+  pp_launcher *launcher; /* NULL when it could not be started */
+  guint launched;
   const GArray *items;
   guint next;
   GPtrArray *running;
   GMainLoop *loop;
   gboolean interrupted;
+  gboolean launcher_lost;
   pp_batch_done_func done;
   gpointer user_data;
   pp_progress *progress;
@@ -126,8 +128,8 @@ static void finish(task *t) {
   g_ptr_array_remove(b->running, t);
   pp_assembly_free(t->as);
   g_string_free(t->buf, TRUE);
-  if (t->proc)
-    g_object_unref(t->proc);
+  if (t->fd >= 0)
+    close(t->fd);
   g_free(t);
   launch_more(b);
 }
@@ -151,7 +153,6 @@ static gboolean on_readable(int fd, GIOCondition cond, gpointer data) {
     break; /* end of file or an error: the worker is gone */
   }
   feed_lines(t);
-  t->fd = -1;
   t->eof = TRUE;
   t->fd_source = 0;
   if (t->exited)
@@ -163,20 +164,47 @@ static gboolean on_deadline(gpointer data) {
   task *t = data;
   t->timed_out = TRUE;
   t->timeout_source = 0;
-  g_subprocess_force_exit(t->proc);
+  pp_launcher_kill(t->b->launcher, t->launch_id);
   return G_SOURCE_REMOVE;
 }
 
-static void on_wait(GObject *source, GAsyncResult *result, gpointer data) {
-  task *t = data;
-  g_subprocess_wait_finish(G_SUBPROCESS(source), result, NULL);
-  t->status = g_subprocess_get_status(t->proc);
+static void ended(task *t, int status) {
+  t->status = status;
   t->exited = TRUE;
   if (t->eof)
     finish(t);
 }
 
-/* A worker is this same program run as `plotproof __worker`, its job on its stdin. */
+static void on_worker_end(guint id, int status, gpointer data) {
+  batch *b = data;
+  for (guint i = 0; i < b->running->len; i++) {
+    task *t = g_ptr_array_index(b->running, i);
+    if (t->launch_id == id && !t->exited) {
+      ended(t, status);
+      return;
+    }
+  }
+}
+
+/* The launcher went away (someone killed it), and its workers with it: the batch stops as
+ * if interrupted, so that a rerun resumes it. */
+static gboolean on_launcher(int fd, GIOCondition cond, gpointer data) {
+  batch *b = data;
+  (void)fd;
+  (void)cond;
+  if (pp_launcher_read(b->launcher, on_worker_end, b))
+    return G_SOURCE_CONTINUE;
+  b->interrupted = b->launcher_lost = TRUE;
+  for (guint i = b->running->len; i-- > 0;) {
+    task *t = g_ptr_array_index(b->running, i);
+    t->killed = TRUE;
+    if (!t->exited)
+      ended(t, SIGKILL); /* a wait status: ended by that signal */
+  }
+  return G_SOURCE_REMOVE;
+}
+
+/* A worker runs pp_docworker_run_job() in a process the launcher forks for it. */
 static void start(batch *b, const pp_batch_item *item) {
   task *t = g_new0(task, 1);
   t->b = b;
@@ -184,29 +212,26 @@ static void start(batch *b, const pp_batch_item *item) {
   t->buf = g_string_new(NULL);
   t->as = pp_assembly_new();
   t->start_us = g_get_monotonic_time();
+  t->fd = -1;
   g_ptr_array_add(b->running, t);
-  GError *error = NULL;
-  t->proc = g_subprocess_new(G_SUBPROCESS_FLAGS_STDIN_PIPE | G_SUBPROCESS_FLAGS_STDOUT_PIPE, &error,
-                             b->self, "__worker", NULL);
-  if (t->proc) {
+  int out[2];
+  gboolean started = FALSE;
+  if (b->launcher && pipe2(out, O_CLOEXEC) == 0) {
     pp_docworker_job job = {item->path, item->password, b->opt, item->digest};
-    char *text = pp_docworker_job_to_json(&job, getpid());
-    GOutputStream *in = g_subprocess_get_stdin_pipe(t->proc);
-    g_output_stream_write_all(in, text, strlen(text), NULL, NULL, NULL);
-    g_output_stream_close(in, NULL, NULL);
+    char *text = pp_docworker_job_to_json(&job);
+    t->launch_id = ++b->launched;
+    started = pp_launcher_start(b->launcher, t->launch_id, text, out[1]);
     g_free(text);
+    t->fd = out[0];
   }
-  if (!t->proc) { /* no process: reported like a worker that ended without a result */
-    g_clear_error(&error);
+  if (!started) { /* no process: reported like a worker that ended without a result */
     t->eof = t->exited = TRUE;
     t->status = 1 << 8;
     finish(t);
     return;
   }
-  t->fd = g_unix_input_stream_get_fd(G_UNIX_INPUT_STREAM(g_subprocess_get_stdout_pipe(t->proc)));
   g_unix_set_fd_nonblocking(t->fd, TRUE, NULL);
   t->fd_source = g_unix_fd_add(t->fd, G_IO_IN | G_IO_HUP | G_IO_ERR, on_readable, t);
-  g_subprocess_wait_async(t->proc, NULL, on_wait, t);
   t->timeout_source = g_timeout_add_seconds(b->opt->timeout_s, on_deadline, t);
 }
 
@@ -223,8 +248,8 @@ static gboolean on_signal(gpointer data) {
   for (guint i = 0; i < b->running->len; i++) {
     task *t = g_ptr_array_index(b->running, i);
     t->killed = TRUE;
-    if (t->proc)
-      g_subprocess_force_exit(t->proc);
+    if (!t->exited)
+      pp_launcher_kill(b->launcher, t->launch_id);
   }
   if (b->running->len == 0)
     g_main_loop_quit(b->loop);
@@ -238,8 +263,15 @@ static gboolean on_tick(gpointer data) {
 
 gboolean pp_batch_run(const pp_cli_options *opt, const GArray *items, pp_batch_done_func done,
                       gpointer user_data, pp_progress *progress) {
+  /* First, while this process has one thread: the signal sources below start GLib's. */
+  GError *error = NULL;
+  pp_launcher *launcher = pp_launcher_new(pp_docworker_run_job, &error);
+  if (!launcher) {
+    fprintf(stderr, "plotproof: %s\n", error->message);
+    g_error_free(error);
+  }
   batch b = {.opt = opt,
-             .self = g_file_read_link("/proc/self/exe", NULL),
+             .launcher = launcher,
              .items = items,
              .running = g_ptr_array_new(),
              .loop = g_main_loop_new(NULL, FALSE),
@@ -250,14 +282,19 @@ gboolean pp_batch_run(const pp_cli_options *opt, const GArray *items, pp_batch_d
                   g_unix_signal_add(SIGTERM, on_signal, &b),
                   g_unix_signal_add(SIGHUP, on_signal, &b)};
   guint tick = g_timeout_add(PP_BATCH_PROGRESS_MS, on_tick, progress);
+  guint ends = launcher ? g_unix_fd_add(pp_launcher_get_fd(launcher), G_IO_IN | G_IO_HUP | G_IO_ERR,
+                                        on_launcher, &b)
+                        : 0;
   launch_more(&b);
   if (b.running->len > 0)
     g_main_loop_run(b.loop);
   g_source_remove(tick);
   for (int i = 0; i < 3; i++)
     g_source_remove(sig[i]);
+  if (ends && !b.launcher_lost)
+    g_source_remove(ends);
   g_main_loop_unref(b.loop);
-  g_free(b.self);
+  pp_launcher_free(launcher);
   g_ptr_array_unref(b.running);
   return b.interrupted;
 }

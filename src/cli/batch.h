@@ -1,6 +1,7 @@
-/* batch.h — the scheduler: up to --jobs document workers at once, each a forked process
- * watched from a GLib main loop (child watch, pipe watch, deadline), with SIGINT, SIGTERM
- * and SIGHUP stopping the workers while every finished result is kept. */
+/* batch.h — the scheduler: up to --jobs document workers at once, each a process forked
+ * by the launcher and watched from a GLib main loop (its pipe, the launcher's reports, a
+ * deadline), with SIGINT, SIGTERM and SIGHUP stopping the workers while every finished
+ * result is kept. */
 #pragma once
 
 #include <json-glib/json-glib.h>

@@ -252,7 +252,7 @@ int pp_docworker_main(int fd, const pp_docworker_job *job, pid_t parent) {
   return 0;
 }
 
-char *pp_docworker_job_to_json(const pp_docworker_job *job, pid_t parent) {
+char *pp_docworker_job_to_json(const pp_docworker_job *job) {
   const pp_cli_options *o = job->opt;
   g_autoptr(JsonBuilder) b = json_builder_new();
   json_builder_begin_object(b);
@@ -279,8 +279,8 @@ char *pp_docworker_job_to_json(const pp_docworker_job *job, pid_t parent) {
     json_builder_add_string_value(b, job->password);
   else
     json_builder_add_null_value(b);
-  const char *names[] = {"parent", "timeout_s", "cpu_s", "page_s", "memory_mib"};
-  gint64 values[] = {parent, o->timeout_s, o->cpu_s, o->page_s, o->memory_mib};
+  const char *names[] = {"timeout_s", "cpu_s", "page_s", "memory_mib"};
+  gint64 values[] = {o->timeout_s, o->cpu_s, o->page_s, o->memory_mib};
   for (guint i = 0; i < G_N_ELEMENTS(names); i++) {
     json_builder_set_member_name(b, names[i]);
     json_builder_add_int_value(b, values[i]);
@@ -331,17 +331,9 @@ static gboolean read_digest(const char *text, pp_file_digest *out) {
   return TRUE;
 }
 
-G_NORETURN void pp_docworker_run_stdin(void) {
-  GString *in = g_string_new(NULL);
-  char buf[4096];
-  ssize_t n;
-  while ((n = read(STDIN_FILENO, buf, sizeof buf)) != 0) {
-    if (n < 0)
-      _exit(2);
-    g_string_append_len(in, buf, n);
-  }
+G_NORETURN void pp_docworker_run_job(const char *text, gsize len, pid_t parent) {
   g_autoptr(JsonParser) parser = json_parser_new();
-  if (!json_parser_load_from_data(parser, in->str, (gssize)in->len, NULL) ||
+  if (!json_parser_load_from_data(parser, text, (gssize)len, NULL) ||
       !JSON_NODE_HOLDS_OBJECT(json_parser_get_root(parser)))
     _exit(2);
   JsonObject *o = json_node_get_object(json_parser_get_root(parser));
@@ -380,13 +372,12 @@ G_NORETURN void pp_docworker_run_stdin(void) {
   pp_docworker_job job = {path->str,
                           pw && JSON_NODE_HOLDS_VALUE(pw) ? json_node_get_string(pw) : NULL, &opt,
                           has_digest ? &digest : NULL};
-  int status = pp_docworker_main(STDOUT_FILENO, &job, (pid_t)number(o, "parent", 0));
+  int status = pp_docworker_main(STDOUT_FILENO, &job, parent);
   /* Everything freed before leaving, so that valgrind's leak check (scripts/test) sees
    * plotproof's own leaks only. */
   g_string_free(path, TRUE);
   g_clear_pointer(&opt.disabled_rules, g_ptr_array_unref);
   g_clear_pointer(&opt.min_severity, g_ptr_array_unref);
   g_clear_object(&parser);
-  g_string_free(in, TRUE);
   _exit(status);
 }

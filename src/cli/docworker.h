@@ -1,9 +1,8 @@
-/* docworker.h — the batch worker: one process per document, started by the scheduler as
- * `plotproof __worker` (a fresh process: the scheduler has GLib threads, and a fork of a
- * threaded process may inherit a held lock), with its job as JSON on standard input.
- * It opens the document and runs each page in a page child of its own under the page
- * budget, streaming one JSON line per event to the scheduler, so that every page
- * finished before a crash or a timeout reaches the findings file. */
+/* docworker.h — the batch worker: one process per document, forked by the launcher
+ * (launcher.h: never from the scheduler, which has GLib threads, so that no lock another
+ * thread held comes along), with its job as JSON text. It opens the document and runs each page in
+ * a page child of its own under the page budget, streaming one JSON line per event to the
+ * scheduler, so that every page finished before a crash or a timeout reaches the findings file. */
 #pragma once
 
 #include "cli.h"
@@ -27,8 +26,9 @@ typedef struct {
  * failed write ends the process at once with _exit(3)). */
 int pp_docworker_main(int fd, const pp_docworker_job *job, pid_t parent);
 
-/* The job as the scheduler writes it to the worker's standard input (password included,
- * so it never shows on a command line). */
-char *pp_docworker_job_to_json(const pp_docworker_job *job, pid_t parent);
-/* `plotproof __worker`: reads the job from stdin, writes the event lines to stdout. */
-G_NORETURN void pp_docworker_run_stdin(void);
+/* The job as the scheduler hands it to the launcher (password included, so it never shows
+ * on a command line). */
+char *pp_docworker_job_to_json(const pp_docworker_job *job);
+/* In a worker forked by the launcher: reads the job, writes the event lines to stdout and
+ * leaves with _exit(); parent is the launcher. A pp_launcher_job_func. */
+G_NORETURN void pp_docworker_run_job(const char *text, gsize len, pid_t parent);

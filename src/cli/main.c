@@ -8,7 +8,6 @@
 #include <string.h>
 
 #include "cli.h"
-#include "docworker.h"
 
 #include <unistd.h>
 
@@ -443,8 +442,6 @@ int main(int argc, char **argv) {
   /* Debug output (G_MESSAGES_DEBUG=plotproof-recognize) goes to stderr, never into the
    * JSON on stdout; GLib sends debug to stdout by default. */
   g_log_writer_default_set_use_stderr(TRUE);
-  if (argc == 2 && strcmp(argv[1], "__worker") == 0) /* started by the batch scheduler */
-    pp_docworker_run_stdin();
   pp_cli_options opt = {0};
   opt.output_dir = g_strdup(".");
   opt.timeout_s = DEFAULT_TIMEOUT_S;
