@@ -331,7 +331,7 @@ static gboolean read_digest(const char *text, pp_file_digest *out) {
   return TRUE;
 }
 
-G_NORETURN void pp_docworker_run_job(const char *text, gsize len, pid_t parent) {
+G_NORETURN void pp_docworker_run_job(char *text, gsize len, pid_t parent) {
   g_autoptr(JsonParser) parser = json_parser_new();
   if (!json_parser_load_from_data(parser, text, (gssize)len, NULL) ||
       !JSON_NODE_HOLDS_OBJECT(json_parser_get_root(parser)))
@@ -379,5 +379,6 @@ G_NORETURN void pp_docworker_run_job(const char *text, gsize len, pid_t parent) 
   g_clear_pointer(&opt.disabled_rules, g_ptr_array_unref);
   g_clear_pointer(&opt.min_severity, g_ptr_array_unref);
   g_clear_object(&parser);
+  g_free(text);
   _exit(status);
 }

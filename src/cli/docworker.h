@@ -29,6 +29,6 @@ int pp_docworker_main(int fd, const pp_docworker_job *job, pid_t parent);
 /* The job as the scheduler hands it to the launcher (password included, so it never shows
  * on a command line). */
 char *pp_docworker_job_to_json(const pp_docworker_job *job);
-/* In a worker forked by the launcher: reads the job, writes the event lines to stdout and
- * leaves with _exit(); parent is the launcher. A pp_launcher_job_func. */
-G_NORETURN void pp_docworker_run_job(const char *text, gsize len, pid_t parent);
+/* In a worker forked by the launcher: reads the job (and frees it), writes the event lines
+ * to stdout and leaves with _exit(); parent is the launcher. A pp_launcher_job_func. */
+G_NORETURN void pp_docworker_run_job(char *text, gsize len, pid_t parent);

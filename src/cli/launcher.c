@@ -91,11 +91,21 @@ static ssize_t receive(int sock, char *buf, size_t size, int *fd, int flags) {
   return n;
 }
 
-/* In a new worker: its output on stdout, nothing on stdin, no launcher descriptors. */
+/* What the launcher holds: the workers running, and the buffer requests arrive in. */
+typedef struct {
+  GArray *workers; /* of running_worker */
+  char *buf;       /* PP_LAUNCHER_MESSAGE_MAX bytes */
+} launcher_state;
+
+/* In a new worker: its output on stdout, nothing on stdin, no launcher descriptors, and
+ * none of the launcher's memory (valgrind's leak check runs in every process). */
 static G_NORETURN void run_worker(pp_launcher_job_func run, const char *job, int out_fd, int sock,
-                                  int sfd, pid_t launcher) {
+                                  int sfd, launcher_state *ls, pid_t launcher) {
   close(sock);
   close(sfd);
+  char *own = g_strdup(job);
+  g_array_free(ls->workers, TRUE);
+  g_free(ls->buf);
   if (out_fd != STDOUT_FILENO) {
     dup2(out_fd, STDOUT_FILENO);
     close(out_fd);
@@ -105,8 +115,8 @@ static G_NORETURN void run_worker(pp_launcher_job_func run, const char *job, int
     dup2(null_fd, STDIN_FILENO);
     close(null_fd);
   }
-  run(job, strlen(job), launcher);
-  _exit(2); /* run must not return */
+  run(own, strlen(own), launcher);
+  _exit(2);
 }
 
 static void report_ended(int sock, GArray *workers) {
@@ -126,7 +136,8 @@ static void report_ended(int sock, GArray *workers) {
 }
 
 static void handle_request(int sock, int sfd, pp_launcher_job_func run, char *text, int fd,
-                           GArray *workers) {
+                           launcher_state *ls) {
+  GArray *workers = ls->workers;
   guint id;
   int at = 0;
   if (text[0] == 'K' && sscanf(text, "K %u", &id) == 1) {
@@ -137,7 +148,7 @@ static void handle_request(int sock, int sfd, pp_launcher_job_func run, char *te
     pid_t me = getpid();
     pid_t pid = fork();
     if (pid == 0)
-      run_worker(run, text + at, fd, sock, sfd, me);
+      run_worker(run, text + at, fd, sock, sfd, ls, me);
     close(fd);
     fd = -1;
     if (pid > 0) {
@@ -170,8 +181,8 @@ static G_NORETURN void launcher_main(int sock, pp_launcher_job_func run, pid_t s
   sigaddset(&chld, SIGCHLD);
   sigprocmask(SIG_BLOCK, &chld, NULL);
   int sfd = signalfd(-1, &chld, SFD_CLOEXEC | SFD_NONBLOCK);
-  GArray *workers = g_array_new(FALSE, FALSE, sizeof(running_worker));
-  char *buf = g_malloc(PP_LAUNCHER_MESSAGE_MAX);
+  launcher_state ls = {g_array_new(FALSE, FALSE, sizeof(running_worker)),
+                       g_malloc(PP_LAUNCHER_MESSAGE_MAX)};
   for (;;) {
     struct pollfd p[2] = {{sock, POLLIN, 0}, {sfd, POLLIN, 0}};
     if (poll(p, 2, -1) < 0 && errno != EINTR)
@@ -180,19 +191,21 @@ static G_NORETURN void launcher_main(int sock, pp_launcher_job_func run, pid_t s
       struct signalfd_siginfo si;
       while (read(sfd, &si, sizeof si) == sizeof si)
         ;
-      report_ended(sock, workers);
+      report_ended(sock, ls.workers);
     }
     if (p[0].revents) {
       int fd;
-      ssize_t n = receive(sock, buf, PP_LAUNCHER_MESSAGE_MAX, &fd, MSG_DONTWAIT);
+      ssize_t n = receive(sock, ls.buf, PP_LAUNCHER_MESSAGE_MAX, &fd, MSG_DONTWAIT);
       if (n == 0 || (n < 0 && errno != EAGAIN))
         break; /* the scheduler is done, or gone */
       if (n > 0)
-        handle_request(sock, sfd, run, buf, fd, workers);
+        handle_request(sock, sfd, run, ls.buf, fd, &ls);
     }
   }
-  for (guint i = 0; i < workers->len; i++)
-    kill(g_array_index(workers, running_worker, i).pid, SIGKILL);
+  for (guint i = 0; i < ls.workers->len; i++)
+    kill(g_array_index(ls.workers, running_worker, i).pid, SIGKILL);
+  g_array_free(ls.workers, TRUE);
+  g_free(ls.buf);
   _exit(0);
 }
 

@@ -11,9 +11,10 @@
 
 typedef struct pp_launcher pp_launcher;
 
-/* Run in the worker process: the job text as given to pp_launcher_start(); parent is the
- * launcher's pid, for the worker's death-with-parent check. Must not return. */
-typedef void (*pp_launcher_job_func)(const char *job, gsize len, pid_t parent);
+/* Run in the worker process: the job text as given to pp_launcher_start(), which it owns
+ * (g_free); parent is the launcher's pid, for the worker's death-with-parent check. Must
+ * not return. */
+typedef void (*pp_launcher_job_func)(char *job, gsize len, pid_t parent);
 /* A worker ended: the id given to pp_launcher_start() and its wait status. */
 typedef void (*pp_launcher_exit_func)(guint id, int wait_status, gpointer data);
 

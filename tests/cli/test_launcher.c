@@ -19,7 +19,7 @@
 
 /* The worker: writes "PARENT-OK JOB" (PARENT-OK when its parent is the given launcher
  * pid), then ends as the job says: "exit N" or "hang". */
-static void echo_job(const char *job, gsize len, pid_t parent) {
+static void echo_job(char *job, gsize len, pid_t parent) {
   char line[256];
   g_snprintf(line, sizeof line, "%s %.*s\n", getppid() == parent ? "parent-ok" : "parent-wrong",
              (int)len, job);
