@@ -453,6 +453,30 @@ static gboolean reads_along(const pp_label *l, gboolean vertical) {
   return fabs(l->angle) <= PP_ANGLE_TOL || (vertical && fabs(fabs(l->angle) - 90) <= PP_ANGLE_TOL);
 }
 
+static gint cmp_by_key(gconstpointer a, gconstpointer b, gpointer keys) {
+  guint i = *(const guint *)a, j = *(const guint *)b;
+  double ki = ((const double *)keys)[i], kj = ((const double *)keys)[j];
+  return ki < kj ? -1 : ki > kj ? 1 : (i > j) - (i < j);
+}
+
+static int cmp_index(const void *a, const void *b) {
+  guint i = *(const guint *)a, j = *(const guint *)b;
+  return (i > j) - (i < j);
+}
+
+/* The first of n positions of order (sorted by key) whose key is at least k. */
+static guint lower_bound(const guint *order, guint n, const double *keys, double k) {
+  guint lo = 0, hi = n;
+  while (lo < hi) {
+    guint mid = lo + (hi - lo) / 2;
+    if (keys[order[mid]] < k)
+      lo = mid + 1;
+    else
+      hi = mid;
+  }
+  return lo;
+}
+
 /* Groups labels whose key agrees within tol; each group of 2+ becomes runs. Groups are
  * formed in label order, each from its first free label. */
 static void group_by(GPtrArray *labels, label_key key, double tol, gboolean vertical, GArray *segs,
@@ -472,19 +496,33 @@ static void group_by(GPtrArray *labels, label_key key, double tol, gboolean vert
     sizes[m] = l->size;
     m++;
   }
+  /* Labels with a finite key in key order: a group's members are found among the few keys
+   * near its first label's, not among all labels (a page of tiles has thousands). Labels
+   * whose key is not finite match none. */
+  guint *order = g_new(guint, MAX(m, 1)), n_order = 0, *members = g_new(guint, MAX(m, 1));
+  for (guint i = 0; i < m; i++)
+    if (isfinite(keys[i]))
+      order[n_order++] = i;
+  g_qsort_with_data(order, (gint)n_order, sizeof(guint), cmp_by_key, keys);
   gboolean *done = g_new0(gboolean, MAX(m, 1));
   GPtrArray *group = g_ptr_array_new();
   for (guint i = 0; i < m; i++) {
-    if (done[i])
+    if (done[i] || !isfinite(keys[i]))
       continue;
+    /* twice the tolerance: every key within it of keys[i], whatever the rounding */
+    guint k = lower_bound(order, n_order, keys, keys[i] - 2 * tol), n_members = 0;
+    for (; k < n_order && keys[order[k]] <= keys[i] + 2 * tol; k++) {
+      guint j = order[k];
+      if (j >= i && !done[j] && fabs(keys[j] - keys[i]) <= tol &&
+          fabs(sizes[j] - sizes[i]) <= PP_SIZE_TOL * sizes[i])
+        members[n_members++] = j;
+    }
+    /* in label order, as the groups have always been */
+    qsort(members, n_members, sizeof(guint), cmp_index);
     g_ptr_array_set_size(group, 0);
-    for (guint j = i; j < m; j++) {
-      if (done[j])
-        continue;
-      if (fabs(keys[j] - keys[i]) <= tol && fabs(sizes[j] - sizes[i]) <= PP_SIZE_TOL * sizes[i]) {
-        g_ptr_array_add(group, eligible[j]);
-        done[j] = TRUE;
-      }
+    for (guint q = 0; q < n_members; q++) {
+      g_ptr_array_add(group, eligible[members[q]]);
+      done[members[q]] = TRUE;
     }
     if (group->len >= 2) {
       g_ptr_array_sort_with_data(group, cmp_pos, GINT_TO_POINTER(vertical));
@@ -499,6 +537,8 @@ static void group_by(GPtrArray *labels, label_key key, double tol, gboolean vert
   }
   g_ptr_array_unref(group);
   g_free(done);
+  g_free(order);
+  g_free(members);
   g_free(eligible);
   g_free(keys);
   g_free(sizes);
