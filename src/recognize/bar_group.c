@@ -562,8 +562,8 @@ static guint next_segment(stack_index *st, pp_frame_rect f, gboolean down, doubl
 
 /* Bars touching the baseline, then whatever stacks on them in their column: one
  * element per column, its segments kept as parts. scale may be NULL (labels-only
- * charts). Claims every bar and data label it uses, for owner. */
-pp_figure *pp_bars_build(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *scale,
+ * charts). Claims every bar it uses, for owner. */
+pp_figure *pp_bars_stack(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *scale,
                          gboolean vertical, double base, const char *owner) {
   const pp_scene *scene = ctx->scene;
   GArray *bars = ctx->bars;
@@ -633,13 +633,24 @@ pp_figure *pp_bars_build(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *sca
   g_array_unref(colours);
   g_array_sort_with_data(fig->elements, cmp_element, GINT_TO_POINTER(vertical));
   fig->bbox = plot;
+  return fig;
+}
+
+/* Categories beyond the plot (fig->bbox) and data labels at the tips; claims the labels. */
+void pp_bars_annotate(pp_recognize_ctx *ctx, pp_figure *fig, gboolean vertical, double base) {
   /* each element's own category and its distance, which its group's must beat */
   g_autofree double *own = g_new(double, MAX(fig->elements->len, 1));
   for (guint i = 0; i < fig->elements->len; i++) {
     pp_element *e = &g_array_index(fig->elements, pp_element, i);
-    e->category = find_category(ctx, e->box, plot, vertical, &own[i]);
+    e->category = find_category(ctx, e->box, fig->bbox, vertical, &own[i]);
   }
-  find_group_categories(ctx, fig, plot, vertical, own);
+  find_group_categories(ctx, fig, fig->bbox, vertical, own);
   attach_data_labels(ctx, fig, vertical, base);
+}
+
+pp_figure *pp_bars_build(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *scale,
+                         gboolean vertical, double base, const char *owner) {
+  pp_figure *fig = pp_bars_stack(ctx, sel, scale, vertical, base, owner);
+  pp_bars_annotate(ctx, fig, vertical, base);
   return fig;
 }

@@ -78,12 +78,19 @@ static GArray *select_on_edge(const pp_recognize_ctx *ctx, edge_index *x, int or
   return sel;
 }
 
-/* Every element carries a printed number, and the group is not a legend. */
-static gboolean all_labelled(pp_recognize_ctx *ctx, pp_figure *fig) {
+/* Every element of two or more carries a printed number, and the group is not a legend.
+ * The legend test needs only the elements' boxes: it is asked first, before the labels are
+ * looked for, so that a grid of small tiles (each named like a legend key) is turned down
+ * without a search for its categories and data labels. */
+static gboolean legend_or_single(pp_recognize_ctx *ctx, pp_figure *fig) {
+  return fig->elements->len < 2 || pp_bars_legend_like(ctx, fig);
+}
+
+static gboolean all_labelled(const pp_figure *fig) {
   guint labelled = 0;
   for (guint k = 0; k < fig->elements->len; k++)
     labelled += !isnan(g_array_index(fig->elements, pp_element, k).label_value);
-  return labelled == fig->elements->len && labelled >= 2 && !pp_bars_legend_like(ctx, fig);
+  return labelled == fig->elements->len;
 }
 
 /* An edge already tried in this pass: the selection depends only on the orientation, the
@@ -147,9 +154,14 @@ static gboolean find_one(pp_recognize_ctx *ctx, edge_index *x) {
           continue;
         }
         pp_claims_begin(ctx->claims);
-        pp_figure *fig = pp_bars_build(ctx, sel, NULL, vertical, edges[e], OWNER);
+        pp_figure *fig = pp_bars_stack(ctx, sel, NULL, vertical, edges[e], OWNER);
         g_array_unref(sel);
-        if (!all_labelled(ctx, fig)) {
+        gboolean rejected = legend_or_single(ctx, fig);
+        if (!rejected) {
+          pp_bars_annotate(ctx, fig, vertical, edges[e]);
+          rejected = !all_labelled(fig);
+        }
+        if (rejected) {
           pp_claims_rollback(ctx->claims);
           pp_figure_free(fig);
           continue;
