@@ -332,6 +332,10 @@ void pp_box_grid_free(pp_box_grid *grid);
 void pp_box_grid_query(pp_box_grid *grid, pp_rect q, GArray *out);
 /* The same ids in no particular order, for callers whose answer does not depend on it. */
 void pp_box_grid_query_any(pp_box_grid *grid, pp_rect q, GArray *out);
+/* Whether accept takes one of the ids pp_box_grid_query_any would give for q, each asked
+ * at most once, in no particular order; stops at the first taken. */
+typedef gboolean (*pp_box_grid_accept)(guint id, gpointer data);
+gboolean pp_box_grid_find(pp_box_grid *grid, pp_rect q, pp_box_grid_accept accept, gpointer data);
 /* Sets out likewise to a superset of the boxes b with pp_rect_contains(outer, b, tol),
  * empty ones included. */
 void pp_box_grid_query_inside(pp_box_grid *grid, pp_rect outer, double tol, GArray *out);
