@@ -210,6 +210,10 @@ typedef struct {
   double edge;
   const pp_number_reading **readings;
   double *gaps; /* gaps[i]: from label i to label i + 1, along the axis */
+  /* Under each reading convention c (what the series pick may choose), counts over the run:
+   * rises[c][j] and falls[c][j] of the steps up and down between labels 0 .. j - 1, plain[c][j]
+   * of the labels before j that do not read as a year. */
+  guint *rises[2], *falls[2], *plain[2];
   /* scratch of the last judge(): index 0 is the first label of its range */
   pp_number *nums;
   gboolean *ok;
@@ -223,6 +227,46 @@ typedef struct {
   double rel, lrel;   /* worst residuals, for the reason of a failed fit */
   const char *reason; /* of a failure; NULL for the residual one */
 } run_verdict;
+
+/* The value and year reading of label k under convention c, as judge() reads them when the
+ * pick is c. */
+static double value_as(const run_fit *rf, guint k, int c, gboolean *year) {
+  const pp_number_reading *r = rf->readings[k];
+  const pp_number *num = r->ok[c] ? &r->as[c] : &rf->labels[k]->number;
+  *year = num->year_like;
+  return num->value;
+}
+
+static void run_counts_init(run_fit *rf, guint n) {
+  for (int c = 0; c < 2; c++) {
+    guint *rises = rf->rises[c] = g_new0(guint, n + 1),
+          *falls = rf->falls[c] = g_new0(guint, n + 1);
+    guint *plain = rf->plain[c] = g_new0(guint, n + 1);
+    double prev = 0;
+    for (guint k = 0; k < n; k++) {
+      gboolean year;
+      double v = value_as(rf, k, c, &year);
+      plain[k + 1] = plain[k] + !year;
+      rises[k + 1] = rises[k] + (k > 0 && v - prev > 0);
+      falls[k + 1] = falls[k] + (k > 0 && v - prev < 0);
+      prev = v;
+    }
+  }
+}
+
+/* Whether labels [lo, hi) surely fail, and not as years, whichever convention the pick takes:
+ * under each, some step rises and another falls (so no step agrees in sign with all the
+ * others: not monotonic) and some label is no year. What judge() would find, told from the
+ * counts alone; FALSE says nothing. */
+static gboolean surely_fails(const run_fit *rf, guint lo, guint hi) {
+  if (hi - lo < 3)
+    return FALSE;
+  for (int c = 0; c < 2; c++) /* steps lo + 1 .. hi - 1 end at labels lo + 1 .. hi - 1 */
+    if (rf->rises[c][hi] == rf->rises[c][lo + 1] || rf->falls[c][hi] == rf->falls[c][lo + 1] ||
+        rf->plain[c][hi] == rf->plain[c][lo])
+      return FALSE;
+  return TRUE;
+}
 
 /* Fits labels [lo, hi) of the run into rf's scratch. With quick, a range that fails before
  * any fit (consecutive years, values not monotonic) is told without snapping or fitting;
@@ -341,19 +385,26 @@ static void fit_range(run_fit *rf, guint lo, guint hi, GPtrArray *out) {
     if (fabs(rf->gaps[lo]) > PP_PAIR_MAX_GAP * fmax(a->size, b->size))
       return;
   }
-  run_verdict v;
-  judge(rf, lo, hi, TRUE, &v);
-  if (!v.failed || n < 4) {
+  if (n < 4) { /* kept whatever its fit */
+    g_ptr_array_add(out, make_candidate(rf, lo, hi));
+    return;
+  }
+  run_verdict v = {.failed = TRUE};
+  if (!surely_fails(rf, lo, hi))
+    judge(rf, lo, hi, TRUE, &v);
+  if (!v.failed) {
     g_ptr_array_add(out, make_candidate(rf, lo, hi));
     return;
   }
   /* An end label cut by the page edge ("100" for 1000) spoils an otherwise clean
    * scale: drop the first or the last label if the rest then fits. */
   for (int end = 0; end < 2 && !v.category; end++) {
-    run_verdict r;
-    judge(rf, lo + (end ? 0 : 1), hi - (end ? 1 : 0), TRUE, &r);
+    guint a = lo + (end ? 0 : 1), b = hi - (end ? 1 : 0);
+    run_verdict r = {.failed = TRUE};
+    if (!surely_fails(rf, a, b))
+      judge(rf, a, b, TRUE, &r);
     if (!r.failed) {
-      g_ptr_array_add(out, make_candidate(rf, lo + (end ? 0 : 1), hi - (end ? 1 : 0)));
+      g_ptr_array_add(out, make_candidate(rf, a, b));
       return;
     }
   }
@@ -392,7 +443,10 @@ static void fit_or_split(GPtrArray *run, gboolean vertical, GArray *segs, double
       rf.gaps[i] = vertical ? b->centre.y - a->centre.y : b->centre.x - a->centre.x;
     }
   }
+  run_counts_init(&rf, n);
   fit_range(&rf, 0, n, out);
+  for (int c = 0; c < 2; c++)
+    g_free(rf.rises[c]), g_free(rf.falls[c]), g_free(rf.plain[c]);
   g_free(rf.readings), g_free(rf.gaps), g_free(rf.nums), g_free(rf.ok);
   g_free(rf.pos), g_free(rf.val), g_free(rf.lval), g_free(rf.ends);
 }
