@@ -68,7 +68,7 @@ void pp_analyse_take_messages(int fd, GPtrArray *warnings) {
     g_strfreev(lines);
   }
   g_free(buf);
-  if (ftruncate(fd, 0) == 0)
+  if (n != 0 && ftruncate(fd, 0) == 0) /* nothing written, nothing to clear */
     lseek(fd, 0, SEEK_SET);
 }
 

@@ -273,13 +273,12 @@ void pp_worker_run_lines(pp_worker_lines_func func, gpointer data, const pp_work
   finish_child(pid, eof, deadline_after(limits), res);
 }
 
-void pp_worker_child_rearm(const pp_worker_limits *job) {
+void pp_worker_child_rearm(const pp_worker_limits *job, const struct rusage *now) {
   if (job->wall_s)
     alarm(job->wall_s + PP_WORKER_ALARM_GRACE_S);
   struct rlimit cur;
-  struct rusage ru;
-  if (job->cpu_s && getrlimit(RLIMIT_CPU, &cur) == 0 && getrusage(RUSAGE_SELF, &ru) == 0) {
-    rlim_t used = (rlim_t)(ru.ru_utime.tv_sec + ru.ru_stime.tv_sec + 1);
+  if (job->cpu_s && getrlimit(RLIMIT_CPU, &cur) == 0) {
+    rlim_t used = (rlim_t)(now->ru_utime.tv_sec + now->ru_stime.tv_sec + 1);
     rlim_t soft = used + job->cpu_s;
     cur.rlim_cur = cur.rlim_max == RLIM_INFINITY ? soft : MIN(soft, cur.rlim_max);
     setrlimit(RLIMIT_CPU, &cur);

@@ -52,8 +52,10 @@ void pp_worker_run_lines(pp_worker_lines_func func, gpointer data, const pp_work
                          pp_worker_line_func on_line, gpointer line_data, pp_worker_result *result);
 
 /* In a pp_worker_run_lines child before each job: the alarm and the CPU limit (soft, under
- * the child's hard limit) start again for the job's own wall_s and cpu_s. */
-void pp_worker_child_rearm(const pp_worker_limits *job);
+ * the child's hard limit) start again for the job's own wall_s and cpu_s, counted from now,
+ * the child's getrusage(RUSAGE_SELF) of a moment ago. */
+struct rusage;
+void pp_worker_child_rearm(const pp_worker_limits *job, const struct rusage *now);
 
 /* What every child does first: default signal dispositions, death with the parent
  * (PR_SET_PDEATHSIG, and _exit if the parent is already gone), no core files, the

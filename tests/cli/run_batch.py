@@ -244,6 +244,33 @@ else:
     recs, _ = records("o-budget3")
     check(all(r["max_rss_mib"] <= 256 for r in recs.values()), "worker memory stayed within 256 MiB")
 
+# --- Page processes: a whole document runs in one, and a page that leaves its process
+# 96 MiB larger (over the 64 MiB bound of docworker.c; common practice, no source) sends
+# the next page to a fresh one, with nothing lost.
+def page_pids(out_dir, *extra, env=None):
+    log = os.path.abspath(out_dir + ".pages")
+    rc, _, _ = run("scan", "-q", "--force", "-o", out_dir, *extra, demo,
+                   env={"LD_PRELOAD": PAGE_FAULT, "PP_TEST_PAGE_LOG": log, **(env or {})})
+    pids = {}
+    for line in open(log):
+        page, pid = map(int, line.split())
+        pids.setdefault(page, pid)
+    doc = findings(os.path.join(out_dir, tree_files(out_dir)[0]), out_dir)
+    return rc, pids, doc
+
+
+rc, pids, doc_one = page_pids("o-proc")
+n_pages = doc_one["document"]["pages"]
+check(sorted(pids) == list(range(2, n_pages + 1)) and len(set(pids.values())) == 1,
+      f"pages 2-{n_pages} run in one page process: {pids}")
+rc, pids, doc_grow = page_pids("o-grow", env={"PP_TEST_PAGE_FAULT": "grow", "PP_TEST_PAGE": "3"})
+check(pids[2] == pids[3] and pids[4] != pids[3] and len(set(pids[p] for p in range(4, n_pages + 1))) == 1,
+      f"after page 3 grew, page 4 on run in a fresh process: {pids}")
+strip = lambda d: json.dumps([{k: v for k, v in e.items() if k not in ("seconds", "rss_kib")}
+                              for e in d["pages"]], sort_keys=True)
+check(doc_grow["totals"]["pages_analysed"] == n_pages and strip(doc_grow) == strip(doc_one),
+      "the pages of the grown run equal those of the run in one process")
+
 # --- A timed-out document keeps its finished pages (partial), and says where it stopped.
 env = {"LD_PRELOAD": PAGE_FAULT, "PP_TEST_PAGE_FAULT": "hang", "PP_TEST_PAGE": "3"}
 rc, _, err = run("scan", "-q", "-o", "o-timeout", "--timeout", "3", "--page-seconds", "100", demo, env=env)
