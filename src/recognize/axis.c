@@ -136,14 +136,14 @@ static int cmp_double(const void *a, const void *b) {
  * edge, the axis line; a legend frame or another chart's edge that passes nearer a
  * label's centre does not. When two or more labels snapped, their median near end is
  * that edge, and each label is snapped again to segments starting there; a label with
- * none there keeps its first snap. */
-static guint snap_run(GPtrArray *run, gboolean vertical, GArray *segs, double *pos) {
-  guint n = run->len, n_snapped = 0;
-  double *ends = g_new(double, MAX(n, 1));
+ * none there keeps its first snap. ends is scratch space for n values. */
+static guint snap_run(pp_label *const *run, guint n, gboolean vertical, GArray *segs, double *pos,
+                      double *ends) {
+  guint n_snapped = 0;
   for (guint i = 0; i < n; i++) {
     gboolean snapped;
     double end = NAN;
-    pos[i] = snap(g_ptr_array_index(run, i), vertical, segs, NAN, &snapped, &end);
+    pos[i] = snap(run[i], vertical, segs, NAN, &snapped, &end);
     if (snapped)
       ends[n_snapped++] = end;
   }
@@ -152,12 +152,11 @@ static guint snap_run(GPtrArray *run, gboolean vertical, GArray *segs, double *p
     double column = ends[n_snapped / 2];
     for (guint i = 0; i < n; i++) {
       gboolean snapped;
-      double end, p = snap(g_ptr_array_index(run, i), vertical, segs, column, &snapped, &end);
+      double end, p = snap(run[i], vertical, segs, column, &snapped, &end);
       if (snapped)
         pos[i] = p;
     }
   }
-  g_free(ends);
   return n_snapped;
 }
 
@@ -200,84 +199,167 @@ static void candidate_free(gpointer p) {
   g_free(c);
 }
 
-/* Fits one run of aligned labels; always returns a candidate (failed ones say why). */
-static pp_axis_candidate *make_candidate(GPtrArray *run, gboolean vertical, GArray *segs,
-                                         double edge) {
-  guint n = run->len;
-  const pp_number_reading **readings = g_new0(const pp_number_reading *, n);
-  pp_number *nums = g_new0(pp_number, n);
-  gboolean *ok = g_new0(gboolean, n);
-  /* each label was read under both conventions when collected: only the pick is per run */
-  for (guint i = 0; i < n; i++)
-    readings[i] = &((pp_label *)g_ptr_array_index(run, i))->reading;
-  pp_number_pick_series(readings, n, nums, ok);
-  double *pos = g_new(double, n), *val = g_new(double, n), *lval = g_new(double, n);
-  guint m = 0, n_snapped = snap_run(run, vertical, segs, pos);
+/* One run of labels as it is fitted whole, trimmed and split: its readings, the gaps between
+ * neighbours and the scratch space of one fit are laid out once, each try is a range of the
+ * run, and a try that fails builds nothing (a long row of numbers that are no scale is tried
+ * about as many times as it has labels). */
+typedef struct {
+  pp_label **labels; /* the run's, in axis order */
+  gboolean vertical;
+  GArray *segs;
+  double edge;
+  const pp_number_reading **readings;
+  double *gaps; /* gaps[i]: from label i to label i + 1, along the axis */
+  /* Under each reading convention c (what the series pick may choose), counts over the run:
+   * rises[c][j] and falls[c][j] of the steps up and down between labels 0 .. j - 1, plain[c][j]
+   * of the labels before j that do not read as a year. */
+  guint *rises[2], *falls[2], *plain[2];
+  /* scratch of the last judge(): index 0 is the first label of its range */
+  pp_number *nums;
+  gboolean *ok;
+  double *pos, *val, *lval, *ends;
+} run_fit;
+
+/* What the fit of one range found. */
+typedef struct {
+  gboolean failed, category, log_scale;
+  double a, b, rms;   /* the scale, when one fits */
+  double rel, lrel;   /* worst residuals, for the reason of a failed fit */
+  const char *reason; /* of a failure; NULL for the residual one */
+} run_verdict;
+
+/* The value and year reading of label k under convention c, as judge() reads them when the
+ * pick is c. */
+static double value_as(const run_fit *rf, guint k, int c, gboolean *year) {
+  const pp_number_reading *r = rf->readings[k];
+  const pp_number *num = r->ok[c] ? &r->as[c] : &rf->labels[k]->number;
+  *year = num->year_like;
+  return num->value;
+}
+
+static void run_counts_init(run_fit *rf, guint n) {
+  for (int c = 0; c < 2; c++) {
+    guint *rises = rf->rises[c] = g_new0(guint, n + 1),
+          *falls = rf->falls[c] = g_new0(guint, n + 1);
+    guint *plain = rf->plain[c] = g_new0(guint, n + 1);
+    double prev = 0;
+    for (guint k = 0; k < n; k++) {
+      gboolean year;
+      double v = value_as(rf, k, c, &year);
+      plain[k + 1] = plain[k] + !year;
+      rises[k + 1] = rises[k] + (k > 0 && v - prev > 0);
+      falls[k + 1] = falls[k] + (k > 0 && v - prev < 0);
+      prev = v;
+    }
+  }
+}
+
+/* Whether labels [lo, hi) surely fail, and not as years, whichever convention the pick takes:
+ * under each, some step rises and another falls (so no step agrees in sign with all the
+ * others: not monotonic) and some label is no year. What judge() would find, told from the
+ * counts alone; FALSE says nothing. */
+static gboolean surely_fails(const run_fit *rf, guint lo, guint hi) {
+  if (hi - lo < 3)
+    return FALSE;
+  for (int c = 0; c < 2; c++) /* steps lo + 1 .. hi - 1 end at labels lo + 1 .. hi - 1 */
+    if (rf->rises[c][hi] == rf->rises[c][lo + 1] || rf->falls[c][hi] == rf->falls[c][lo + 1] ||
+        rf->plain[c][hi] == rf->plain[c][lo])
+      return FALSE;
+  return TRUE;
+}
+
+/* Fits labels [lo, hi) of the run into rf's scratch. With quick, a range that fails before
+ * any fit (consecutive years, values not monotonic) is told without snapping or fitting;
+ * the verdict's failed and category are the same either way. */
+static void judge(run_fit *rf, guint lo, guint hi, gboolean quick, run_verdict *v) {
+  guint n = hi - lo;
+  pp_label **labels = rf->labels + lo;
+  double *val = rf->val, *pos = rf->pos;
+  *v = (run_verdict){.rel = INFINITY, .lrel = INFINITY};
+  /* each label was read under both conventions when collected: only the pick is per range */
+  pp_number_pick_series(rf->readings + lo, n, rf->nums, rf->ok);
   gboolean all_positive = TRUE;
+  for (guint i = 0; i < n; i++) {
+    /* Every label parsed on its own; the series reading wins where it exists. */
+    val[i] = rf->ok[i] ? rf->nums[i].value : labels[i]->number.value;
+    all_positive &= val[i] > 0;
+  }
+  /* Values must change monotonically with position for any scale. */
+  gboolean mono = TRUE;
+  for (guint i = 2; i < n; i++)
+    mono &= (val[i] - val[i - 1]) * (val[1] - val[0]) > 0;
+  if (n >= 2 && val[1] == val[0])
+    mono = FALSE;
+  /* 2019, 2020, 2021…: years name categories even though they fit a line. */
+  gboolean years = n >= 2;
+  for (guint i = 0; i < n && years; i++) {
+    double step = i > 0 ? fabs(val[i] - val[i - 1]) : 1;
+    years = (rf->ok[i] ? rf->nums[i].year_like : labels[i]->number.year_like) && step >= 1 &&
+            step <= PP_YEARS_MAX_STEP && (i < 2 || fabs(step - fabs(val[1] - val[0])) < 1e-9);
+  }
+  v->failed = TRUE;
+  v->category = years;
+  if (quick && (years || n < 2 || !mono))
+    return;
+  guint n_snapped = snap_run(labels, n, rf->vertical, rf->segs, pos, rf->ends);
+  double la, lb, lrms = 0;
+  gboolean lin = fit(pos, val, n, &v->a, &v->b, &v->rel, &v->rms), lg = FALSE;
+  if (all_positive && n >= 3) {
+    for (guint i = 0; i < n; i++)
+      rf->lval[i] = log10(val[i]);
+    lg = fit(pos, rf->lval, n, &la, &lb, &v->lrel, &lrms);
+  }
+  if (years) {
+    v->reason = "consecutive years: a category axis";
+  } else if (n < 2) {
+    v->reason = "fewer than two numeric tick labels";
+  } else if (n == 2 && n_snapped < 2) {
+    /* Two numbers in a column fit any line; only their tick marks make them a scale. */
+    v->reason = "two labels without tick marks";
+  } else if (!mono) {
+    v->reason = "tick values do not change monotonically along the axis";
+  } else if (lin && v->rel <= PP_AXIS_MAX_RESIDUAL) {
+    v->failed = FALSE;
+  } else if (lg && v->lrel <= PP_AXIS_MAX_RESIDUAL) {
+    v->failed = FALSE;
+    v->log_scale = TRUE;
+    v->a = la, v->b = lb, v->rms = lrms;
+  }
+}
+
+/* Fits labels [lo, hi) of the run; always returns a candidate (failed ones say why). */
+static pp_axis_candidate *make_candidate(run_fit *rf, guint lo, guint hi) {
+  guint n = hi - lo;
+  run_verdict v;
+  judge(rf, lo, hi, FALSE, &v);
   pp_axis_candidate *c = g_new0(pp_axis_candidate, 1);
   c->labels = g_ptr_array_sized_new(n);
-  c->label_edge = edge;
-  pp_scale *axis = pp_scale_new(vertical);
+  c->label_edge = rf->edge;
+  pp_scale *axis = pp_scale_new(rf->vertical);
   c->scale = axis;
   g_array_set_size(axis->ticks, n); /* one tick a label, filled in order below */
   for (guint i = 0; i < n; i++) {
-    pp_label *l = g_ptr_array_index(run, i);
-    /* Every label parsed on its own; the series reading wins where it exists. */
-    double v = ok[i] ? nums[i].value : l->number.value;
-    val[m] = v;
-    all_positive &= v > 0;
-    lval[m] = v > 0 ? log10(v) : 0;
-    g_array_index(axis->ticks, pp_tick, m) = (pp_tick){pos[m], v, g_strdup(l->text)};
+    pp_label *l = rf->labels[lo + i];
+    g_array_index(axis->ticks, pp_tick, i) = (pp_tick){rf->pos[i], rf->val[i], g_strdup(l->text)};
     g_ptr_array_add(c->labels, l);
     axis->box = pp_rect_union(axis->box, l->box);
-    m++;
   }
-  double a, b, rel = INFINITY, la, lb, lrel = INFINITY, rms = 0, lrms = 0;
-  gboolean lin = fit(pos, val, m, &a, &b, &rel, &rms);
-  gboolean lg = all_positive && m >= 3 && fit(pos, lval, m, &la, &lb, &lrel, &lrms);
-  /* Values must change monotonically with position for any scale. */
-  gboolean mono = TRUE;
-  for (guint i = 2; i < m; i++)
-    mono &= (val[i] - val[i - 1]) * (val[1] - val[0]) > 0;
-  if (m >= 2 && val[1] == val[0])
-    mono = FALSE;
-  /* 2019, 2020, 2021…: years name categories even though they fit a line. */
-  gboolean years = m >= 2;
-  for (guint i = 0; i < m && years; i++) {
-    const pp_label *l = g_ptr_array_index(c->labels, i);
-    double step = i > 0 ? fabs(val[i] - val[i - 1]) : 1;
-    years = (ok[i] ? nums[i].year_like : l->number.year_like) && step >= 1 &&
-            step <= PP_YEARS_MAX_STEP && (i < 2 || fabs(step - fabs(val[1] - val[0])) < 1e-9);
-  }
-  if (years) {
-    c->fit_failed = c->category = TRUE;
-    c->reason = g_strdup("consecutive years: a category axis");
-  } else if (m < 2) {
-    c->fit_failed = TRUE;
-    c->reason = g_strdup("fewer than two numeric tick labels");
-  } else if (m == 2 && n_snapped < 2) {
-    /* Two numbers in a column fit any line; only their tick marks make them a scale. */
-    c->fit_failed = TRUE;
-    c->reason = g_strdup("two labels without tick marks");
-  } else if (!mono) {
-    c->fit_failed = TRUE;
-    c->reason = g_strdup("tick values do not change monotonically along the axis");
-  } else if (lin && rel <= PP_AXIS_MAX_RESIDUAL) {
-    axis->offset = a, axis->slope = b;
-    axis->rms_residual = rms;
-  } else if (lg && lrel <= PP_AXIS_MAX_RESIDUAL) {
-    axis->kind = PP_SCALE_LOG;
-    axis->offset = la, axis->slope = lb;
-    axis->rms_residual = lrms;
+  c->fit_failed = v.failed;
+  c->category = v.category;
+  if (v.failed) {
+    c->reason = v.reason ? g_strdup(v.reason)
+                         : g_strdup_printf("tick labels fit neither a linear nor a log scale "
+                                           "(worst residual %.1f%% of the range)",
+                                           100 * fmin(v.rel, v.lrel));
   } else {
-    c->fit_failed = TRUE;
-    c->reason = g_strdup_printf("tick labels fit neither a linear nor a log scale "
-                                "(worst residual %.1f%% of the range)",
-                                100 * fmin(rel, lrel));
+    if (v.log_scale)
+      axis->kind = PP_SCALE_LOG;
+    axis->offset = v.a, axis->slope = v.b;
+    axis->rms_residual = v.rms;
   }
-  if (m > 0) {
-    c->span0 = fmin(pos[0], pos[m - 1]);
-    c->span1 = fmax(pos[0], pos[m - 1]);
+  if (n > 0) {
+    c->span0 = fmin(rf->pos[0], rf->pos[n - 1]);
+    c->span1 = fmax(rf->pos[0], rf->pos[n - 1]);
     if (!c->fit_failed) {
       axis->min_value = pp_scale_value_at(axis, c->span0);
       axis->max_value = pp_scale_value_at(axis, c->span1);
@@ -288,68 +370,85 @@ static pp_axis_candidate *make_candidate(GPtrArray *run, gboolean vertical, GArr
       }
     }
   }
-  g_free(readings), g_free(nums), g_free(ok), g_free(pos), g_free(val), g_free(lval);
   return c;
 }
 
-static void candidate_free(gpointer p);
-
-/* Fits a run; when the fit fails, the run may be two axes stacked on one label edge
- * with a gap too small to split on: retry both sides of its widest gap. */
-static void fit_or_split(GPtrArray *run, gboolean vertical, GArray *segs, double edge,
-                         GPtrArray *out) {
-  if (run->len == 2) {
+/* Fits labels [lo, hi) of the run; when the fit fails, the range may be two axes stacked on
+ * one label edge with a gap too small to split on: retry both sides of its widest gap. */
+static void fit_range(run_fit *rf, guint lo, guint hi, GPtrArray *out) {
+  guint n = hi - lo;
+  if (n == 2) {
     /* Two labels far apart (an x-axis label above a category label of the chart below)
      * are a coincidence of alignment; ticks sit a few text heights apart (common
      * practice, no source). */
-    pp_label *a = g_ptr_array_index(run, 0), *b = g_ptr_array_index(run, 1);
-    double gap = vertical ? b->centre.y - a->centre.y : b->centre.x - a->centre.x;
-    if (fabs(gap) > PP_PAIR_MAX_GAP * fmax(a->size, b->size))
+    const pp_label *a = rf->labels[lo], *b = rf->labels[lo + 1];
+    if (fabs(rf->gaps[lo]) > PP_PAIR_MAX_GAP * fmax(a->size, b->size))
       return;
   }
-  pp_axis_candidate *c = make_candidate(run, vertical, segs, edge);
-  if (!c->fit_failed || run->len < 4) {
-    g_ptr_array_add(out, c);
+  if (n < 4) { /* kept whatever its fit */
+    g_ptr_array_add(out, make_candidate(rf, lo, hi));
+    return;
+  }
+  run_verdict v = {.failed = TRUE};
+  if (!surely_fails(rf, lo, hi))
+    judge(rf, lo, hi, TRUE, &v);
+  if (!v.failed) {
+    g_ptr_array_add(out, make_candidate(rf, lo, hi));
     return;
   }
   /* An end label cut by the page edge ("100" for 1000) spoils an otherwise clean
    * scale: drop the first or the last label if the rest then fits. */
-  for (int end = 0; end < 2 && !c->category; end++) {
-    GPtrArray *rest = g_ptr_array_new();
-    for (guint i = 0; i < run->len; i++)
-      if (i != (end ? run->len - 1 : 0))
-        g_ptr_array_add(rest, g_ptr_array_index(run, i));
-    pp_axis_candidate *r = make_candidate(rest, vertical, segs, edge);
-    g_ptr_array_unref(rest);
-    if (!r->fit_failed) {
-      candidate_free(c);
-      g_ptr_array_add(out, r);
+  for (int end = 0; end < 2 && !v.category; end++) {
+    guint a = lo + (end ? 0 : 1), b = hi - (end ? 1 : 0);
+    run_verdict r = {.failed = TRUE};
+    if (!surely_fails(rf, a, b))
+      judge(rf, a, b, TRUE, &r);
+    if (!r.failed) {
+      g_ptr_array_add(out, make_candidate(rf, a, b));
       return;
     }
-    candidate_free(r);
   }
+  /* the first widest gap that leaves two labels or more on each side */
   guint cut = 0;
   double widest = -1;
-  for (guint i = 1; i + 1 < run->len; i++) {
-    pp_label *a = g_ptr_array_index(run, i), *b = g_ptr_array_index(run, i + 1);
-    double gap = vertical ? b->centre.y - a->centre.y : b->centre.x - a->centre.x;
-    if (gap > widest && i + 1 >= 2 && run->len - (i + 1) >= 2) {
-      widest = gap;
+  for (guint i = 1; i + 2 < n; i++)
+    if (rf->gaps[lo + i] > widest) {
+      widest = rf->gaps[lo + i];
       cut = i + 1;
     }
-  }
   if (cut == 0) {
-    g_ptr_array_add(out, c);
+    g_ptr_array_add(out, make_candidate(rf, lo, hi));
     return;
   }
-  candidate_free(c);
-  GPtrArray *head = g_ptr_array_new(), *tail = g_ptr_array_new();
-  for (guint i = 0; i < run->len; i++)
-    g_ptr_array_add(i < cut ? head : tail, g_ptr_array_index(run, i));
-  fit_or_split(head, vertical, segs, edge, out);
-  fit_or_split(tail, vertical, segs, edge, out);
-  g_ptr_array_unref(head);
-  g_ptr_array_unref(tail);
+  fit_range(rf, lo, lo + cut, out);
+  fit_range(rf, lo + cut, hi, out);
+}
+
+static void fit_or_split(GPtrArray *run, gboolean vertical, GArray *segs, double edge,
+                         GPtrArray *out) {
+  guint n = run->len;
+  run_fit rf = {
+      .labels = (pp_label **)run->pdata, .vertical = vertical, .segs = segs, .edge = edge};
+  rf.readings = g_new(const pp_number_reading *, n);
+  rf.gaps = g_new0(double, n);
+  rf.nums = g_new0(pp_number, n);
+  rf.ok = g_new0(gboolean, n);
+  rf.pos = g_new(double, n), rf.val = g_new(double, n);
+  rf.lval = g_new(double, n), rf.ends = g_new(double, n);
+  for (guint i = 0; i < n; i++) {
+    const pp_label *a = rf.labels[i];
+    rf.readings[i] = &a->reading;
+    if (i + 1 < n) {
+      const pp_label *b = rf.labels[i + 1];
+      rf.gaps[i] = vertical ? b->centre.y - a->centre.y : b->centre.x - a->centre.x;
+    }
+  }
+  run_counts_init(&rf, n);
+  fit_range(&rf, 0, n, out);
+  for (int c = 0; c < 2; c++)
+    g_free(rf.rises[c]), g_free(rf.falls[c]), g_free(rf.plain[c]);
+  g_free(rf.readings), g_free(rf.gaps), g_free(rf.nums), g_free(rf.ok);
+  g_free(rf.pos), g_free(rf.val), g_free(rf.lval), g_free(rf.ends);
 }
 
 /* Splits a sorted run where the spacing jumps (two charts stacked on one page
@@ -408,6 +507,30 @@ static gboolean reads_along(const pp_label *l, gboolean vertical) {
   return fabs(l->angle) <= PP_ANGLE_TOL || (vertical && fabs(fabs(l->angle) - 90) <= PP_ANGLE_TOL);
 }
 
+static gint cmp_by_key(gconstpointer a, gconstpointer b, gpointer keys) {
+  guint i = *(const guint *)a, j = *(const guint *)b;
+  double ki = ((const double *)keys)[i], kj = ((const double *)keys)[j];
+  return ki < kj ? -1 : ki > kj ? 1 : (i > j) - (i < j);
+}
+
+static int cmp_index(const void *a, const void *b) {
+  guint i = *(const guint *)a, j = *(const guint *)b;
+  return (i > j) - (i < j);
+}
+
+/* The first of n positions of order (sorted by key) whose key is at least k. */
+static guint lower_bound(const guint *order, guint n, const double *keys, double k) {
+  guint lo = 0, hi = n;
+  while (lo < hi) {
+    guint mid = lo + (hi - lo) / 2;
+    if (keys[order[mid]] < k)
+      lo = mid + 1;
+    else
+      hi = mid;
+  }
+  return lo;
+}
+
 /* Groups labels whose key agrees within tol; each group of 2+ becomes runs. Groups are
  * formed in label order, each from its first free label. */
 static void group_by(GPtrArray *labels, label_key key, double tol, gboolean vertical, GArray *segs,
@@ -427,19 +550,33 @@ static void group_by(GPtrArray *labels, label_key key, double tol, gboolean vert
     sizes[m] = l->size;
     m++;
   }
+  /* Labels with a finite key in key order: a group's members are found among the few keys
+   * near its first label's, not among all labels (a page of tiles has thousands). Labels
+   * whose key is not finite match none. */
+  guint *order = g_new(guint, MAX(m, 1)), n_order = 0, *members = g_new(guint, MAX(m, 1));
+  for (guint i = 0; i < m; i++)
+    if (isfinite(keys[i]))
+      order[n_order++] = i;
+  g_qsort_with_data(order, (gint)n_order, sizeof(guint), cmp_by_key, keys);
   gboolean *done = g_new0(gboolean, MAX(m, 1));
   GPtrArray *group = g_ptr_array_new();
   for (guint i = 0; i < m; i++) {
-    if (done[i])
+    if (done[i] || !isfinite(keys[i]))
       continue;
+    /* twice the tolerance: every key within it of keys[i], whatever the rounding */
+    guint k = lower_bound(order, n_order, keys, keys[i] - 2 * tol), n_members = 0;
+    for (; k < n_order && keys[order[k]] <= keys[i] + 2 * tol; k++) {
+      guint j = order[k];
+      if (j >= i && !done[j] && fabs(keys[j] - keys[i]) <= tol &&
+          fabs(sizes[j] - sizes[i]) <= PP_SIZE_TOL * sizes[i])
+        members[n_members++] = j;
+    }
+    /* in label order, as the groups have always been */
+    qsort(members, n_members, sizeof(guint), cmp_index);
     g_ptr_array_set_size(group, 0);
-    for (guint j = i; j < m; j++) {
-      if (done[j])
-        continue;
-      if (fabs(keys[j] - keys[i]) <= tol && fabs(sizes[j] - sizes[i]) <= PP_SIZE_TOL * sizes[i]) {
-        g_ptr_array_add(group, eligible[j]);
-        done[j] = TRUE;
-      }
+    for (guint q = 0; q < n_members; q++) {
+      g_ptr_array_add(group, eligible[members[q]]);
+      done[members[q]] = TRUE;
     }
     if (group->len >= 2) {
       g_ptr_array_sort_with_data(group, cmp_pos, GINT_TO_POINTER(vertical));
@@ -454,6 +591,8 @@ static void group_by(GPtrArray *labels, label_key key, double tol, gboolean vert
   }
   g_ptr_array_unref(group);
   g_free(done);
+  g_free(order);
+  g_free(members);
   g_free(eligible);
   g_free(keys);
   g_free(sizes);

@@ -181,9 +181,10 @@ static guint upper_bound(GPtrArray *items, gsize off, const guint *idx, guint n,
 }
 
 /* Category label: the nearest word outside the plot, beyond the baseline, centred on
- * (or, when rotated, ending at) the bar. */
-static char *find_category(pp_recognize_ctx *ctx, pp_rect bar, pp_rect plot, gboolean vertical,
-                           double *dist) {
+ * (or, when rotated, ending at) the bar. Its index in the page's words, G_MAXUINT when
+ * none; *dist gets its distance (INFINITY when none). */
+static guint nearest_category(pp_recognize_ctx *ctx, pp_rect bar, pp_rect plot, gboolean vertical,
+                              double *dist) {
   const pp_scene *scene = ctx->scene;
   const pp_bar_text *t = bar_text(ctx);
   GPtrArray *words = scene->words;
@@ -230,13 +231,23 @@ static char *find_category(pp_recognize_ctx *ctx, pp_rect bar, pp_rect plot, gbo
       }
     }
   }
-  if (dist)
-    *dist = best_d;
-  if (!best)
+  *dist = best_d;
+  return best ? best_i : G_MAXUINT;
+}
+
+/* The category's text: word best_i of the page (G_MAXUINT: none, NULL) with the words
+ * that continue it. */
+static char *category_text(pp_recognize_ctx *ctx, guint best_i, pp_rect bar, gboolean vertical) {
+  if (best_i == G_MAXUINT)
     return NULL;
+  const pp_scene *scene = ctx->scene;
+  const pp_bar_text *t = bar_text(ctx);
+  GPtrArray *words = scene->words;
+  const pp_text_run *best = g_ptr_array_index(words, best_i);
   /* Multi-word categories ("North Sea") continue on the same line: to the right under a
-   * column, to the left (towards the margin) beside a horizontal bar. */
-  GString *s = g_string_new(best->text);
+   * column, to the left (towards the margin) beside a horizontal bar. Most are one word:
+   * the string is only built when another joins. */
+  GString *s = NULL;
   const pp_text_run *edge = best;
   /* Only words of best's line can continue it: with lines in order, that is one run. */
   guint first = 0, end = words->len;
@@ -261,6 +272,8 @@ static char *find_category(pp_recognize_ctx *ctx, pp_rect bar, pp_rect plot, gbo
         continue;
       if (vertical && w->box.x0 > bar.x1 + PP_CATEGORY_SPILL * (bar.x1 - bar.x0))
         continue;
+      if (!s)
+        s = g_string_new(best->text);
       if (vertical) {
         g_string_append_c(s, ' ');
         g_string_append(s, w->text);
@@ -272,7 +285,12 @@ static char *find_category(pp_recognize_ctx *ctx, pp_rect bar, pp_rect plot, gbo
       grew = TRUE;
     }
   }
-  return g_string_free(s, FALSE);
+  return s ? g_string_free(s, FALSE) : g_strdup(best->text);
+}
+
+static char *find_category(pp_recognize_ctx *ctx, pp_rect bar, pp_rect plot, gboolean vertical,
+                           double *dist) {
+  return category_text(ctx, nearest_category(ctx, bar, plot, vertical, dist), bar, vertical);
 }
 
 /* Bars of one group (one per series, side by side) may stand apart, their category
@@ -281,9 +299,9 @@ static char *find_category(pp_recognize_ctx *ctx, pp_rect bar, pp_rect plot, gbo
 #define PP_GROUP_MAX_GAP_SHARE 1.0
 
 /* A group takes the category centred under it when that is nearer than the ones its bars
- * found alone (a footnote below the year, say). */
+ * found alone (a footnote below the year, say), own[i] the distance of element i's. */
 static void find_group_categories(pp_recognize_ctx *ctx, pp_figure *fig, pp_rect plot,
-                                  gboolean vertical) {
+                                  gboolean vertical, const double *own) {
   guint n = fig->elements->len;
   for (guint start = 0, end; start < n; start = end) {
     pp_element *first = &g_array_index(fig->elements, pp_element, start);
@@ -305,9 +323,7 @@ static void find_group_categories(pp_recognize_ctx *ctx, pp_figure *fig, pp_rect
     char *category = find_category(ctx, span, plot, vertical, &d);
     for (guint i = start; category && i < end; i++) {
       pp_element *e = &g_array_index(fig->elements, pp_element, i);
-      double own = INFINITY;
-      g_autofree char *alone = find_category(ctx, e->box, plot, vertical, &own);
-      if (d < own) {
+      if (d < own[i]) {
         g_free(e->category);
         e->category = g_strdup(category);
       }
@@ -546,8 +562,8 @@ static guint next_segment(stack_index *st, pp_frame_rect f, gboolean down, doubl
 
 /* Bars touching the baseline, then whatever stacks on them in their column: one
  * element per column, its segments kept as parts. scale may be NULL (labels-only
- * charts). Claims every bar and data label it uses, for owner. */
-pp_figure *pp_bars_build(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *scale,
+ * charts). Claims every bar it uses, for owner. */
+pp_figure *pp_bars_stack(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *scale,
                          gboolean vertical, double base, const char *owner) {
   const pp_scene *scene = ctx->scene;
   GArray *bars = ctx->bars;
@@ -617,11 +633,24 @@ pp_figure *pp_bars_build(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *sca
   g_array_unref(colours);
   g_array_sort_with_data(fig->elements, cmp_element, GINT_TO_POINTER(vertical));
   fig->bbox = plot;
+  return fig;
+}
+
+/* Categories beyond the plot (fig->bbox) and data labels at the tips; claims the labels. */
+void pp_bars_annotate(pp_recognize_ctx *ctx, pp_figure *fig, gboolean vertical, double base) {
+  /* each element's own category and its distance, which its group's must beat */
+  g_autofree double *own = g_new(double, MAX(fig->elements->len, 1));
   for (guint i = 0; i < fig->elements->len; i++) {
     pp_element *e = &g_array_index(fig->elements, pp_element, i);
-    e->category = find_category(ctx, e->box, plot, vertical, NULL);
+    e->category = find_category(ctx, e->box, fig->bbox, vertical, &own[i]);
   }
-  find_group_categories(ctx, fig, plot, vertical);
+  find_group_categories(ctx, fig, fig->bbox, vertical, own);
   attach_data_labels(ctx, fig, vertical, base);
+}
+
+pp_figure *pp_bars_build(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *scale,
+                         gboolean vertical, double base, const char *owner) {
+  pp_figure *fig = pp_bars_stack(ctx, sel, scale, vertical, base, owner);
+  pp_bars_annotate(ctx, fig, vertical, base);
   return fig;
 }

@@ -48,11 +48,67 @@ static double scale_fit_score(const pp_scale *s) {
   return PP_EVIDENCE_SCALE_WEIGHT * fit * ticks;
 }
 
-static GArray *select_bars(const pp_recognize_ctx *ctx, const pp_axis_candidate *axis, double lo,
-                           double hi) {
+/* The bars by their near edge across each orientation's axis (w0 of pp_frame_of), so that an
+ * axis finds the bars within its reach across by binary search instead of a pass over every
+ * bar: a page of tiles has a fitted axis for every row and column of them. A bar whose w0 is
+ * not finite or lies beyond its w1, which a range of w0 cannot answer for, is tried for every
+ * axis. Built on first use. */
+typedef struct {
+  pp_coord_index *w0[2]; /* [0: vertical axes, 1: horizontal] */
+  GArray *others[2];     /* guint */
+  GArray *hits;          /* guint: scratch */
+} across_index;
+
+static void across_index_build(across_index *x, GArray *bars) {
+  g_autofree double *v = g_new(double, MAX(bars->len, 1));
+  for (int o = 0; o < 2; o++) {
+    x->others[o] = g_array_new(FALSE, FALSE, sizeof(guint));
+    for (guint i = 0; i < bars->len; i++) {
+      pp_frame_rect f = pp_frame_of(g_array_index(bars, pp_bar_candidate, i).rect, o == 0);
+      v[i] = isfinite(f.w0) && f.w0 <= f.w1 ? f.w0 : NAN; /* NaN: left out of the index */
+      if (isnan(v[i]))
+        g_array_append_val(x->others[o], i);
+    }
+    x->w0[o] = pp_coord_index_new(v, bars->len);
+  }
+  x->hits = g_array_new(FALSE, FALSE, sizeof(guint));
+}
+
+static void across_index_clear(across_index *x) {
+  if (!x->hits)
+    return;
+  for (int o = 0; o < 2; o++) {
+    pp_coord_index_free(x->w0[o]);
+    g_array_unref(x->others[o]);
+  }
+  g_array_unref(x->hits);
+}
+
+static int cmp_guint(gconstpointer a, gconstpointer b) {
+  guint x = *(const guint *)a, y = *(const guint *)b;
+  return (x > y) - (x < y);
+}
+
+/* The free bars across the axis between lo and hi and within its reach along, in page
+ * order. A bar there has lo <= w0 <= w1 <= hi, so the index's range of w0 holds it. */
+static GArray *select_bars(const pp_recognize_ctx *ctx, across_index *x,
+                           const pp_axis_candidate *axis, double lo, double hi) {
   gboolean vertical = axis->scale->vertical;
   GArray *sel = g_array_new(FALSE, FALSE, sizeof(guint));
-  for (guint i = 0; i < ctx->bars->len; i++) {
+  GArray *hits = NULL;
+  if (!isnan(lo) && !isnan(hi)) { /* a NaN bound passes every bar */
+    if (!x->hits)
+      across_index_build(x, ctx->bars);
+    int o = vertical ? 0 : 1;
+    hits = x->hits;
+    g_array_set_size(hits, 0);
+    pp_coord_index_range(x->w0[o], lo, hi, hits);
+    g_array_append_vals(hits, x->others[o]->data, x->others[o]->len);
+    g_array_sort(hits, cmp_guint);
+  }
+  guint n = hits ? hits->len : ctx->bars->len;
+  for (guint k = 0; k < n; k++) {
+    guint i = hits ? g_array_index(hits, guint, k) : k;
     pp_bar_candidate *b = &g_array_index(ctx->bars, pp_bar_candidate, i);
     if (!pp_claims_mark_free(ctx->claims, b->mark))
       continue;
@@ -164,10 +220,11 @@ static gboolean too_short(const pp_figure *fig, const pp_axis_candidate *axis) {
 
 /* The bar figure on one side of an axis (+1: towards larger x, or y for a horizontal
  * axis), or NULL. Claims inside the caller's transaction. */
-static pp_figure *build_on_axis(pp_recognize_ctx *ctx, const pp_axis_candidate *axis, int side) {
+static pp_figure *build_on_axis(pp_recognize_ctx *ctx, across_index *x,
+                                const pp_axis_candidate *axis, int side) {
   double lo, hi, base;
   pp_axis_reach(axis, ctx->axes, side, &lo, &hi);
-  GArray *sel = select_bars(ctx, axis, lo, hi);
+  GArray *sel = select_bars(ctx, x, axis, lo, hi);
   g_debug("  side %d: %u bars between %.1f and %.1f", side, sel->len, lo, hi);
   pp_figure *fig = NULL;
   if (sel->len >= 2 && find_baseline(ctx->bars, sel, axis->scale, &base)) {
@@ -189,6 +246,7 @@ static pp_figure *build_on_axis(pp_recognize_ctx *ctx, const pp_axis_candidate *
 /* First every axis on the side its labels face, then the ones still free on the other
  * side: with two value axes, the bars go to the axis that faces them. */
 void pp_recognize_bars(pp_recognize_ctx *ctx) {
+  across_index x = {{NULL, NULL}, {NULL, NULL}, NULL};
   for (int pass = 0; pass < 2; pass++)
     for (guint i = 0; i < ctx->axes->len; i++) {
       const pp_axis_candidate *c = g_ptr_array_index(ctx->axes, i);
@@ -198,7 +256,7 @@ void pp_recognize_bars(pp_recognize_ctx *ctx) {
       pp_claims_begin(ctx->claims);
       /* The axis' own labels must not be taken for data labels while its bars are read. */
       pp_axis_claim_labels(ctx, c);
-      pp_figure *f = build_on_axis(ctx, c, side);
+      pp_figure *f = build_on_axis(ctx, &x, c, side);
       g_debug("axis %s %u labels side %d: %s", c->scale->vertical ? "vertical" : "horizontal",
               c->labels->len, side, f ? pp_figure_kind_name(f->kind) : "no bars");
       if (!f) {
@@ -208,4 +266,5 @@ void pp_recognize_bars(pp_recognize_ctx *ctx) {
       pp_claims_commit(ctx->claims);
       pp_figure_finish(ctx, f, c);
     }
+  across_index_clear(&x);
 }

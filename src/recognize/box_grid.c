@@ -133,19 +133,48 @@ void pp_box_grid_query(pp_box_grid *g, pp_rect q, GArray *out) {
   sort_ids(out);
 }
 
-void pp_box_grid_query_any(pp_box_grid *g, pp_rect q, GArray *out) {
-  g_array_set_size(out, 0);
+/* Starts a query of q: FALSE when it has no answer; else a fresh stamp and the rows and
+ * columns of cells to visit (none when q misses the extent). */
+static gboolean query_begin(pp_box_grid *g, pp_rect q, guint *c0, guint *c1, guint *r0, guint *r1) {
   if (g->n == 0 || !(q.x0 <= q.x1 && q.y0 <= q.y1))
-    return;
+    return FALSE;
   if (++g->query == 0) { /* the stamp counter wrapped: forget every stamp */
     memset(g->stamp, 0, g->n * sizeof(guint));
     g->query = 1;
   }
   gboolean inside =
       q.x1 >= g->extent.x0 && q.x0 <= g->extent.x1 && q.y1 >= g->extent.y0 && q.y0 <= g->extent.y1;
-  guint c0 = 0, c1 = 0, r0 = 1, r1 = 0; /* no rows unless inside */
+  *c0 = 0, *c1 = 0, *r0 = 1, *r1 = 0; /* no rows unless inside */
   if (inside)
-    cells_of(g, q, &c0, &c1, &r0, &r1);
+    cells_of(g, q, c0, c1, r0, r1);
+  return TRUE;
+}
+
+gboolean pp_box_grid_find(pp_box_grid *g, pp_rect q, pp_box_grid_accept accept, gpointer data) {
+  guint c0, c1, r0, r1, id;
+  if (!query_begin(g, q, &c0, &c1, &r0, &r1))
+    return FALSE;
+  for (guint k = 0; k < g->wide->len; k++)
+    if (g->stamp[id = g_array_index(g->wide, guint, k)] != g->query) {
+      g->stamp[id] = g->query;
+      if (accept(id, data))
+        return TRUE;
+    }
+  for (guint r = r0; r <= r1; r++)
+    for (guint k = g->start[r * g->cols + c0]; k < g->start[r * g->cols + c1 + 1]; k++)
+      if (g->stamp[id = g->ids[k]] != g->query) {
+        g->stamp[id] = g->query;
+        if (accept(id, data))
+          return TRUE;
+      }
+  return FALSE;
+}
+
+void pp_box_grid_query_any(pp_box_grid *g, pp_rect q, GArray *out) {
+  g_array_set_size(out, 0);
+  guint c0, c1, r0, r1;
+  if (!query_begin(g, q, &c0, &c1, &r0, &r1))
+    return;
   /* Room for every candidate first, then filled in place: one call per query, not one per
    * id (a cell's ids are contiguous in each row of cells). */
   guint room = g->wide->len;

@@ -191,6 +191,12 @@ gboolean pp_same_column(pp_frame_rect a, pp_frame_rect b);
  * marks and the data labels for owner; the caller runs it inside a transaction. */
 pp_figure *pp_bars_build(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *scale,
                          gboolean vertical, double base, const char *owner);
+/* pp_bars_build in two steps, for a caller that may reject the figure by its elements'
+ * boxes alone (they do not change in the second step): the elements (columns, stacks,
+ * series, values), then their categories and data labels. */
+pp_figure *pp_bars_stack(pp_recognize_ctx *ctx, GArray *sel, const pp_scale *scale,
+                         gboolean vertical, double base, const char *owner);
+void pp_bars_annotate(pp_recognize_ctx *ctx, pp_figure *fig, gboolean vertical, double base);
 typedef struct pp_bar_text pp_bar_text;
 void pp_bar_text_free(pp_bar_text *t);
 /* Legend keys: swatches of one size, each named beside it (legend.c). */
@@ -326,6 +332,10 @@ void pp_box_grid_free(pp_box_grid *grid);
 void pp_box_grid_query(pp_box_grid *grid, pp_rect q, GArray *out);
 /* The same ids in no particular order, for callers whose answer does not depend on it. */
 void pp_box_grid_query_any(pp_box_grid *grid, pp_rect q, GArray *out);
+/* Whether accept takes one of the ids pp_box_grid_query_any would give for q, each asked
+ * at most once, in no particular order; stops at the first taken. */
+typedef gboolean (*pp_box_grid_accept)(guint id, gpointer data);
+gboolean pp_box_grid_find(pp_box_grid *grid, pp_rect q, pp_box_grid_accept accept, gpointer data);
 /* Sets out likewise to a superset of the boxes b with pp_rect_contains(outer, b, tol),
  * empty ones included. */
 void pp_box_grid_query_inside(pp_box_grid *grid, pp_rect outer, double tol, GArray *out);

@@ -2,6 +2,7 @@
  * alone. Bars of one width sharing a baseline edge, each carrying its own printed
  * number; the printed numbers are the values. */
 #include <math.h>
+#include <string.h>
 
 #include "internal.h"
 
@@ -78,12 +79,19 @@ static GArray *select_on_edge(const pp_recognize_ctx *ctx, edge_index *x, int or
   return sel;
 }
 
-/* Every element carries a printed number, and the group is not a legend. */
-static gboolean all_labelled(pp_recognize_ctx *ctx, pp_figure *fig) {
+/* Every element of two or more carries a printed number, and the group is not a legend.
+ * The legend test needs only the elements' boxes: it is asked first, before the labels are
+ * looked for, so that a grid of small tiles (each named like a legend key) is turned down
+ * without a search for its categories and data labels. */
+static gboolean legend_or_single(pp_recognize_ctx *ctx, pp_figure *fig) {
+  return fig->elements->len < 2 || pp_bars_legend_like(ctx, fig);
+}
+
+static gboolean all_labelled(const pp_figure *fig) {
   guint labelled = 0;
   for (guint k = 0; k < fig->elements->len; k++)
     labelled += !isnan(g_array_index(fig->elements, pp_element, k).label_value);
-  return labelled == fig->elements->len && labelled >= 2 && !pp_bars_legend_like(ctx, fig);
+  return labelled == fig->elements->len;
 }
 
 /* An edge already tried in this pass: the selection depends only on the orientation, the
@@ -112,6 +120,43 @@ static gboolean first_try(GHashTable *tried, int orient, double edge, double wid
   return TRUE;
 }
 
+/* A selection already built on an edge in this pass: the figure depends only on the
+ * selection, the orientation and the edge, so one rejected is rejected again. Tiles whose
+ * widths differ in the last digit are tried as different widths above, and each gives its
+ * whole row again. */
+typedef struct {
+  double edge;
+  int orient;
+  guint n;
+  guint ids[]; /* the selection, ascending */
+} tried_sel;
+
+static guint tried_sel_hash(gconstpointer p) {
+  const tried_sel *t = p;
+  guint h = g_double_hash(&t->edge) * 31u + (guint)t->orient;
+  for (guint k = 0; k < t->n; k++)
+    h = h * 16777619u ^ t->ids[k]; /* FNV-style mixing: common practice, no source */
+  return h;
+}
+
+static gboolean tried_sel_equal(gconstpointer a, gconstpointer b) {
+  const tried_sel *x = a, *y = b;
+  return x->edge == y->edge && x->orient == y->orient && x->n == y->n &&
+         memcmp(x->ids, y->ids, x->n * sizeof(guint)) == 0;
+}
+
+static gboolean first_build(GHashTable *built, int orient, double edge, GArray *sel) {
+  tried_sel *t = g_malloc(sizeof(tried_sel) + sel->len * sizeof(guint));
+  t->edge = edge, t->orient = orient, t->n = sel->len;
+  memcpy(t->ids, sel->data, sel->len * sizeof(guint));
+  if (g_hash_table_contains(built, t)) {
+    g_free(t);
+    return FALSE;
+  }
+  g_hash_table_add(built, t);
+  return TRUE;
+}
+
 /* A labels-only figure needs two labelled bars, and each bar takes a free label of its
  * own (a data label is looked for among the free ones and claimed when found), so with
  * fewer than two free labels on the page no edge can give one: a page of unlabelled
@@ -130,6 +175,8 @@ static gboolean find_one(pp_recognize_ctx *ctx, edge_index *x) {
   if (!two_free_labels(ctx))
     return FALSE;
   g_autoptr(GHashTable) tried = g_hash_table_new_full(tried_hash, tried_equal, g_free, NULL);
+  g_autoptr(GHashTable) built =
+      g_hash_table_new_full(tried_sel_hash, tried_sel_equal, g_free, NULL);
   for (int orient = 0; orient < 2; orient++) {
     gboolean vertical = orient == 0;
     for (guint i = 0; i < ctx->bars->len; i++) {
@@ -142,14 +189,19 @@ static gboolean find_one(pp_recognize_ctx *ctx, edge_index *x) {
         if (!first_try(tried, orient, edges[e], fa.w1 - fa.w0))
           continue;
         GArray *sel = select_on_edge(ctx, x, orient, edges[e], fa.w1 - fa.w0);
-        if (sel->len < 2) {
+        if (sel->len < 2 || !first_build(built, orient, edges[e], sel)) {
           g_array_unref(sel);
           continue;
         }
         pp_claims_begin(ctx->claims);
-        pp_figure *fig = pp_bars_build(ctx, sel, NULL, vertical, edges[e], OWNER);
+        pp_figure *fig = pp_bars_stack(ctx, sel, NULL, vertical, edges[e], OWNER);
         g_array_unref(sel);
-        if (!all_labelled(ctx, fig)) {
+        gboolean rejected = legend_or_single(ctx, fig);
+        if (!rejected) {
+          pp_bars_annotate(ctx, fig, vertical, edges[e]);
+          rejected = !all_labelled(fig);
+        }
+        if (rejected) {
           pp_claims_rollback(ctx->claims);
           pp_figure_free(fig);
           continue;

@@ -22,7 +22,6 @@
 struct pp_legend_words {
   pp_box_grid *grid; /* words with an ordinary box (finite, x0 <= x1, y0 <= y1) */
   GArray *others;    /* guint: the rest, tried for every swatch */
-  GArray *near;      /* guint: scratch */
   guint8 *is_number; /* per word: 0 not read yet, 1 a number, 2 not (pp_number_parse) */
 };
 
@@ -37,7 +36,6 @@ static pp_legend_words *legend_words(pp_recognize_ctx *ctx) {
   GPtrArray *words = ctx->scene->words;
   pp_legend_words *lw = g_new0(pp_legend_words, 1);
   lw->others = g_array_new(FALSE, FALSE, sizeof(guint));
-  lw->near = g_array_new(FALSE, FALSE, sizeof(guint));
   lw->is_number = g_new0(guint8, MAX(words->len, 1));
   g_autofree pp_rect *boxes = g_new(pp_rect, MAX(words->len, 1));
   for (guint k = 0; k < words->len; k++) {
@@ -57,7 +55,6 @@ void pp_legend_words_free(pp_legend_words *lw) {
     return;
   pp_box_grid_free(lw->grid);
   g_array_unref(lw->others);
-  g_array_unref(lw->near);
   g_free(lw->is_number);
   g_free(lw);
 }
@@ -85,13 +82,22 @@ static gboolean swatch_named(pp_recognize_ctx *ctx, pp_legend_words *lw, guint k
   return (right || below || above) && !word_is_number(ctx, lw, k);
 }
 
-/* Tries the words the grid holds in q and the others; TRUE when one names the swatch. */
+typedef struct {
+  pp_recognize_ctx *ctx;
+  pp_legend_words *lw;
+  pp_rect swatch;
+} swatch_query;
+
+static gboolean names_swatch(guint k, gpointer data) {
+  swatch_query *sq = data;
+  return swatch_named(sq->ctx, sq->lw, k, sq->swatch);
+}
+
+/* Tries the words the grid holds in q until one names the swatch (any order: the answer
+ * is whether one does). */
 static gboolean named_in(pp_recognize_ctx *ctx, pp_legend_words *lw, pp_rect q, pp_rect b) {
-  pp_box_grid_query_any(lw->grid, q, lw->near); /* any order: the answer is whether one does */
-  for (guint i = 0; i < lw->near->len; i++)
-    if (swatch_named(ctx, lw, g_array_index(lw->near, guint, i), b))
-      return TRUE;
-  return FALSE;
+  swatch_query sq = {ctx, lw, b};
+  return pp_box_grid_find(lw->grid, q, names_swatch, &sq);
 }
 
 /* Whether some word names the swatch. A word with an ordinary box that is right of, below

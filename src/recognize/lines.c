@@ -38,17 +38,71 @@ static gboolean is_line_mark(const pp_mark *m) {
          !pp_path_is_rectangle(m->path, PP_RECT_TOL, &rect);
 }
 
-/* Lines and markers beside a fitted axis, claimed; NULL when there are none. */
+/* The page's line marks, in page order, found once for the first axis that asks (a page of
+ * tiles has as many axis candidates as rows of numbers, and each looked at every mark), and
+ * indexed by their left edge: an axis' marks lie between its labels and the next axis, so
+ * they are found by binary search. A mark whose x0 is not finite or lies beyond its x1, which
+ * a range of x0 cannot answer for, is tried for every axis. */
+typedef struct {
+  GArray *marks;         /* guint mark indices, ascending */
+  pp_coord_index *x0;    /* item k: marks[k] */
+  GArray *others, *hits; /* guint positions in marks; hits is scratch */
+} line_index;
+
+static void line_index_build(line_index *x, const pp_scene *scene) {
+  x->marks = g_array_new(FALSE, FALSE, sizeof(guint));
+  for (guint k = 0; k < scene->marks->len; k++)
+    if (is_line_mark(g_ptr_array_index(scene->marks, k)))
+      g_array_append_val(x->marks, k);
+  x->others = g_array_new(FALSE, FALSE, sizeof(guint));
+  x->hits = g_array_new(FALSE, FALSE, sizeof(guint));
+  g_autofree double *v = g_new(double, MAX(x->marks->len, 1));
+  for (guint k = 0; k < x->marks->len; k++) {
+    pp_rect r =
+        ((const pp_mark *)g_ptr_array_index(scene->marks, g_array_index(x->marks, guint, k)))->bbox;
+    v[k] = isfinite(r.x0) && r.x0 <= r.x1 ? r.x0 : NAN; /* NaN: left out of the index */
+    if (isnan(v[k]))
+      g_array_append_val(x->others, k);
+  }
+  x->x0 = pp_coord_index_new(v, x->marks->len);
+}
+
+static void line_index_clear(line_index *x) {
+  if (!x->marks)
+    return;
+  g_array_unref(x->marks);
+  pp_coord_index_free(x->x0);
+  g_array_unref(x->others);
+  g_array_unref(x->hits);
+}
+
+static int cmp_guint(gconstpointer a, gconstpointer b) {
+  guint x = *(const guint *)a, y = *(const guint *)b;
+  return (x > y) - (x < y);
+}
+
+/* Lines and markers beside a fitted (vertical) axis, claimed; NULL when there are none. */
 static pp_figure *build_on_axis(pp_recognize_ctx *ctx, const pp_axis_candidate *cand,
-                                GArray *line_marks) {
+                                line_index *x) {
   const pp_scene *scene = ctx->scene;
   pp_rect box = pp_rect_empty();
   const pp_scale *axis = cand->scale;
   double lo, hi;
   pp_axis_reach(cand, ctx->axes, cand->side ? cand->side : +1, &lo, &hi);
+  /* a mark beside the labels has lo <= x0 <= x1 <= hi; a NaN bound passes every mark */
+  GArray *hits = NULL;
+  if (axis->vertical && !isnan(lo) && !isnan(hi)) {
+    hits = x->hits;
+    g_array_set_size(hits, 0);
+    pp_coord_index_range(x->x0, lo, hi, hits);
+    g_array_append_vals(hits, x->others->data, x->others->len);
+    g_array_sort(hits, cmp_guint);
+  }
   GArray *taken = g_array_new(FALSE, FALSE, sizeof(guint));
-  for (guint k = 0; k < line_marks->len; k++) {
-    guint i = g_array_index(line_marks, guint, k);
+  guint n = hits ? hits->len : x->marks->len;
+  for (guint h = 0; h < n; h++) {
+    guint k = hits ? g_array_index(hits, guint, h) : h;
+    guint i = g_array_index(x->marks, guint, k);
     const pp_mark *m = g_ptr_array_index(scene->marks, i);
     if (!pp_claims_mark_free(ctx->claims, i))
       continue;
@@ -87,22 +141,16 @@ static pp_figure *build_on_axis(pp_recognize_ctx *ctx, const pp_axis_candidate *
 }
 
 void pp_recognize_lines(pp_recognize_ctx *ctx) {
-  /* The page's line marks, in page order, found once for the first axis that asks: a page
-   * of tiles has as many axis candidates as rows of numbers, and each looked at every mark. */
-  g_autoptr(GArray) line_marks = NULL;
+  line_index x = {NULL, NULL, NULL, NULL};
   for (guint i = 0; i < ctx->axes->len; i++) {
     const pp_axis_candidate *c = g_ptr_array_index(ctx->axes, i);
     if (c->fit_failed || !c->scale->vertical || pp_axis_taken(ctx, c))
       continue;
-    if (!line_marks) {
-      line_marks = g_array_new(FALSE, FALSE, sizeof(guint));
-      for (guint k = 0; k < ctx->scene->marks->len; k++)
-        if (is_line_mark(g_ptr_array_index(ctx->scene->marks, k)))
-          g_array_append_val(line_marks, k);
-    }
+    if (!x.marks)
+      line_index_build(&x, ctx->scene);
     pp_claims_begin(ctx->claims);
     pp_axis_claim_labels(ctx, c);
-    pp_figure *f = build_on_axis(ctx, c, line_marks);
+    pp_figure *f = build_on_axis(ctx, c, &x);
     if (!f) {
       pp_claims_rollback(ctx->claims);
       continue;
@@ -110,4 +158,5 @@ void pp_recognize_lines(pp_recognize_ctx *ctx) {
     pp_claims_commit(ctx->claims);
     pp_figure_finish(ctx, f, c);
   }
+  line_index_clear(&x);
 }

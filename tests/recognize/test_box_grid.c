@@ -19,6 +19,16 @@ static int cmp_id(gconstpointer a, gconstpointer b) {
   return (x > y) - (x < y);
 }
 
+static gboolean record_none(guint id, gpointer asked) {
+  g_array_append_val((GArray *)asked, id);
+  return FALSE;
+}
+
+static gboolean record_all(guint id, gpointer asked) {
+  g_array_append_val((GArray *)asked, id);
+  return TRUE;
+}
+
 static void check(pp_box_grid *g, const pp_rect *boxes, guint n, pp_rect q) {
   g_autoptr(GArray) hits = g_array_new(FALSE, FALSE, sizeof(guint));
   /* The unordered query gives the same ids as the ordered one, as a set. */
@@ -31,6 +41,18 @@ static void check(pp_box_grid *g, const pp_rect *boxes, guint n, pp_rect q) {
     assert_int_equal(g_array_index(any, guint, k), g_array_index(hits, guint, k));
   for (guint k = 1; k < hits->len; k++) /* ascending, once each */
     assert_true(g_array_index(hits, guint, k - 1) < g_array_index(hits, guint, k));
+  /* find asks every id of the query once until one is taken: taking none asks them all */
+  g_autoptr(GArray) asked = g_array_new(FALSE, FALSE, sizeof(guint));
+  assert_false(pp_box_grid_find(g, q, record_none, asked));
+  g_array_sort(asked, cmp_id);
+  assert_int_equal(asked->len, hits->len);
+  for (guint k = 0; k < hits->len; k++)
+    assert_int_equal(g_array_index(asked, guint, k), g_array_index(hits, guint, k));
+  if (hits->len > 0) { /* and it stops at the first taken */
+    g_array_set_size(asked, 0);
+    assert_true(pp_box_grid_find(g, q, record_all, asked));
+    assert_int_equal(asked->len, 1);
+  }
   guint j = 0;
   for (guint i = 0; i < n; i++) {
     while (j < hits->len && g_array_index(hits, guint, j) < i)
