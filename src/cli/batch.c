@@ -37,7 +37,7 @@ typedef struct {
 
 struct batch {
   const pp_cli_options *opt;
-  pp_launcher *launcher; /* NULL when it could not be started */
+  pp_launcher *launcher;
   guint launched;
   const GArray *items;
   guint next;
@@ -216,7 +216,7 @@ static void start(batch *b, const pp_batch_item *item) {
   g_ptr_array_add(b->running, t);
   int out[2];
   gboolean started = FALSE;
-  if (b->launcher && pipe2(out, O_CLOEXEC) == 0) {
+  if (pipe2(out, O_CLOEXEC) == 0) {
     pp_docworker_job job = {item->path, item->password, b->opt, item->digest};
     char *text = pp_docworker_job_to_json(&job);
     t->launch_id = ++b->launched;
@@ -261,15 +261,8 @@ static gboolean on_tick(gpointer data) {
   return G_SOURCE_CONTINUE;
 }
 
-gboolean pp_batch_run(const pp_cli_options *opt, const GArray *items, pp_batch_done_func done,
-                      gpointer user_data, pp_progress *progress) {
-  /* First, while this process has one thread: the signal sources below start GLib's. */
-  GError *error = NULL;
-  pp_launcher *launcher = pp_launcher_new(pp_docworker_run_job, &error);
-  if (!launcher) {
-    fprintf(stderr, "plotproof: %s\n", error->message);
-    g_error_free(error);
-  }
+gboolean pp_batch_run(const pp_cli_options *opt, pp_launcher *launcher, const GArray *items,
+                      pp_batch_done_func done, gpointer user_data, pp_progress *progress) {
   batch b = {.opt = opt,
              .launcher = launcher,
              .items = items,
@@ -282,19 +275,17 @@ gboolean pp_batch_run(const pp_cli_options *opt, const GArray *items, pp_batch_d
                   g_unix_signal_add(SIGTERM, on_signal, &b),
                   g_unix_signal_add(SIGHUP, on_signal, &b)};
   guint tick = g_timeout_add(PP_BATCH_PROGRESS_MS, on_tick, progress);
-  guint ends = launcher ? g_unix_fd_add(pp_launcher_get_fd(launcher), G_IO_IN | G_IO_HUP | G_IO_ERR,
-                                        on_launcher, &b)
-                        : 0;
+  guint ends =
+      g_unix_fd_add(pp_launcher_get_fd(launcher), G_IO_IN | G_IO_HUP | G_IO_ERR, on_launcher, &b);
   launch_more(&b);
   if (b.running->len > 0)
     g_main_loop_run(b.loop);
   g_source_remove(tick);
   for (int i = 0; i < 3; i++)
     g_source_remove(sig[i]);
-  if (ends && !b.launcher_lost)
+  if (!b.launcher_lost)
     g_source_remove(ends);
   g_main_loop_unref(b.loop);
-  pp_launcher_free(launcher);
   g_ptr_array_unref(b.running);
   return b.interrupted;
 }

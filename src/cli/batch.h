@@ -7,6 +7,7 @@
 #include <json-glib/json-glib.h>
 
 #include "cli.h"
+#include "launcher.h"
 #include "progress.h"
 
 typedef struct {
@@ -34,6 +35,7 @@ typedef struct {
 /* Called once per item as it finishes (in completion order); root is borrowed. */
 typedef void (*pp_batch_done_func)(const pp_batch_result *result, gpointer user_data);
 
-/* Runs every item; returns TRUE when the batch was interrupted. */
-gboolean pp_batch_run(const pp_cli_options *opt, const GArray *items, pp_batch_done_func done,
-                      gpointer user_data, pp_progress *progress);
+/* Runs every item, its worker forked by launcher; returns TRUE when the batch was
+ * interrupted. */
+gboolean pp_batch_run(const pp_cli_options *opt, pp_launcher *launcher, const GArray *items,
+                      pp_batch_done_func done, gpointer user_data, pp_progress *progress);

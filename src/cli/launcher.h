@@ -33,3 +33,4 @@ int pp_launcher_get_fd(const pp_launcher *l);
 gboolean pp_launcher_read(pp_launcher *l, pp_launcher_exit_func on_exit, gpointer data);
 /* Closes the socket (the launcher then kills what still runs and leaves) and reaps it. */
 void pp_launcher_free(pp_launcher *l);
+G_DEFINE_AUTOPTR_CLEANUP_FUNC(pp_launcher, pp_launcher_free)

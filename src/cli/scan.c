@@ -9,6 +9,7 @@
 #include <unistd.h>
 
 #include "batch.h"
+#include "docworker.h"
 #include "inputs.h"
 #include "output.h"
 #include "passwords.h"
@@ -464,6 +465,14 @@ int pp_cli_scan(char **paths, int n_paths, const pp_cli_options *opt) {
     g_error_free(error);
     return PP_EXIT_USAGE;
   }
+  /* Now, while this process has one thread (the batch's signal sources start GLib's), and
+   * before the inputs are read, so that the workers it forks inherit little. */
+  g_autoptr(pp_launcher) launcher = pp_launcher_new(pp_docworker_run_job, &error);
+  if (!launcher) {
+    fprintf(stderr, "plotproof: %s\n", error->message);
+    g_error_free(error);
+    return PP_EXIT_USAGE;
+  }
   scan s = {.opt = opt,
             .write_files = !opt->json || opt->output_given,
             .key = settings_key(opt),
@@ -532,7 +541,7 @@ int pp_cli_scan(char **paths, int n_paths, const pp_cli_options *opt) {
                           &in->digest, i};
     g_array_append_val(items, item);
   }
-  gboolean interrupted = pp_batch_run(opt, items, on_done, &s, s.progress);
+  gboolean interrupted = pp_batch_run(opt, launcher, items, on_done, &s, s.progress);
   for (guint k = 0; k < mine->len; k++) {
     guint i = g_array_index(mine, guint, k);
     if (((pp_input *)g_ptr_array_index(s.inputs, i))->primary >= 0)
