@@ -227,6 +227,8 @@ static void start(batch *b, const pp_batch_item *item) {
   if (!started) { /* no process: reported like a worker that ended without a result */
     t->eof = t->exited = TRUE;
     t->status = 1 << 8;
+    if (pp_launcher_is_gone(b->launcher)) /* no more starts: the batch stops, to be resumed */
+      b->interrupted = t->killed = TRUE;
     finish(t);
     return;
   }

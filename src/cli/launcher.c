@@ -254,8 +254,11 @@ pp_launcher *pp_launcher_new(pp_launcher_job_func run, GError **error) {
 
 gboolean pp_launcher_start(pp_launcher *l, guint id, const char *job, int out_fd) {
   char *text = g_strdup_printf("S %u\n%s", id, job);
-  gboolean ok =
-      !l->gone && strlen(text) < PP_LAUNCHER_MESSAGE_MAX && send_text(l->sock, text, out_fd);
+  gboolean ok = FALSE;
+  if (!l->gone && strlen(text) < PP_LAUNCHER_MESSAGE_MAX) {
+    ok = send_text(l->sock, text, out_fd);
+    l->gone = !ok; /* the socket fails only when the launcher has ended */
+  }
   g_free(text);
   close(out_fd);
   return ok;
@@ -266,6 +269,10 @@ void pp_launcher_kill(pp_launcher *l, guint id) {
   g_snprintf(text, sizeof text, "K %u", id);
   if (!l->gone)
     send_text(l->sock, text, -1);
+}
+
+gboolean pp_launcher_is_gone(const pp_launcher *l) {
+  return l->gone;
 }
 
 int pp_launcher_get_fd(const pp_launcher *l) {

@@ -26,6 +26,9 @@ pp_launcher *pp_launcher_new(pp_launcher_job_func run, GError **error);
 gboolean pp_launcher_start(pp_launcher *l, guint id, const char *job, int out_fd);
 /* SIGKILL to worker id, if it is still running. */
 void pp_launcher_kill(pp_launcher *l, guint id);
+/* TRUE once the launcher is known to have ended (a request could not be sent, or its
+ * socket reached end of file). */
+gboolean pp_launcher_is_gone(const pp_launcher *l);
 /* The socket to watch for pp_launcher_read(). */
 int pp_launcher_get_fd(const pp_launcher *l);
 /* Calls on_exit for each worker whose end the launcher has reported, without blocking.

@@ -309,6 +309,31 @@ time.sleep(1)
 alive = [k for k in kids if os.path.exists(f"/proc/{k}") and "Z" not in open(f"/proc/{k}/stat").read().rsplit(")", 1)[1].split()[0]]
 check(not alive, f"workers are gone after kill -9 of the batch: {alive}")
 
+# --- A launcher killed from outside takes its workers with it; the batch stops as if
+# interrupted (exit 5, "rerun"), keeps what finished, and leaves no process behind.
+def direct_children(pid):
+    return [c for c in children(pid) if int(open(f"/proc/{c}/stat").read().rsplit(")", 1)[1].split()[1]) == pid]
+
+
+env = {**os.environ, "LD_PRELOAD": PAGE_FAULT, "PP_TEST_PAGE_FAULT": "hang", "PP_TEST_PAGE": "2"}
+third = sorted(glob.glob(os.path.join(CORPUS, "gnuplot", "*.pdf")))[0]
+p = subprocess.Popen([PLOTPROOF, "scan", "-q", "-j", "1", "-o", "o-launcher", "--page-seconds", "100",
+                      good, demo, third], env=env, stdout=subprocess.PIPE, stderr=subprocess.PIPE)
+time.sleep(3)
+kids = children(p.pid)
+launcher = direct_children(p.pid)
+check(len(launcher) == 1 and len(kids) >= 3, f"one launcher, a worker and a page process: {kids}")
+if launcher:
+    os.kill(launcher[0], signal.SIGKILL)
+out, err = p.communicate(timeout=60)
+check(p.returncode == 5 and b"rerun" in err, f"launcher killed: exit 5, rerun ({p.returncode}, {err[-200:]!r})")
+time.sleep(1)
+alive = [k for k in kids if os.path.exists(f"/proc/{k}") and "Z" not in open(f"/proc/{k}/stat").read().rsplit(")", 1)[1].split()[0]]
+check(not alive, f"no worker outlives the launcher: {alive}")
+recs, summary = records("o-launcher")
+check(summary.get("interrupted") is True and summary.get("interrupted_documents", 0) >= 1,
+      f"the summary says interrupted: {summary}")
+
 # --- SIGINT stops the workers, keeps finished results, says how far it got (exit 5).
 many = sorted(glob.glob(os.path.join(CORPUS, "gnuplot", "*.pdf")))
 env = {**os.environ, "LD_PRELOAD": PAGE_FAULT, "PP_TEST_PAGE_FAULT": "hang", "PP_TEST_PAGE": "2"}
