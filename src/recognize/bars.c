@@ -51,23 +51,19 @@ static double scale_fit_score(const pp_scale *s) {
 /* The bars by their near edge across each orientation's axis (w0 of pp_frame_of), so that an
  * axis finds the bars within its reach across by binary search instead of a pass over every
  * bar: a page of tiles has a fitted axis for every row and column of them. A bar whose w0 is
- * not finite or lies beyond its w1, which a range of w0 cannot answer for, is tried for every
- * axis. Built on first use. */
+ * not finite or lies beyond its w1, which a range of w0 cannot answer for, is NaN there and
+ * so tried for every axis. Built on first use. */
 typedef struct {
   pp_coord_index *w0[2]; /* [0: vertical axes, 1: horizontal] */
-  GArray *others[2];     /* guint */
   GArray *hits;          /* guint: scratch */
 } across_index;
 
 static void across_index_build(across_index *x, GArray *bars) {
   g_autofree double *v = g_new(double, MAX(bars->len, 1));
   for (int o = 0; o < 2; o++) {
-    x->others[o] = g_array_new(FALSE, FALSE, sizeof(guint));
     for (guint i = 0; i < bars->len; i++) {
       pp_frame_rect f = pp_frame_of(g_array_index(bars, pp_bar_candidate, i).rect, o == 0);
-      v[i] = isfinite(f.w0) && f.w0 <= f.w1 ? f.w0 : NAN; /* NaN: left out of the index */
-      if (isnan(v[i]))
-        g_array_append_val(x->others[o], i);
+      v[i] = isfinite(f.w0) && f.w0 <= f.w1 ? f.w0 : NAN;
     }
     x->w0[o] = pp_coord_index_new(v, bars->len);
   }
@@ -77,16 +73,9 @@ static void across_index_build(across_index *x, GArray *bars) {
 static void across_index_clear(across_index *x) {
   if (!x->hits)
     return;
-  for (int o = 0; o < 2; o++) {
+  for (int o = 0; o < 2; o++)
     pp_coord_index_free(x->w0[o]);
-    g_array_unref(x->others[o]);
-  }
   g_array_unref(x->hits);
-}
-
-static int cmp_guint(gconstpointer a, gconstpointer b) {
-  guint x = *(const guint *)a, y = *(const guint *)b;
-  return (x > y) - (x < y);
 }
 
 /* The free bars across the axis between lo and hi and within its reach along, in page
@@ -99,12 +88,8 @@ static GArray *select_bars(const pp_recognize_ctx *ctx, across_index *x,
   if (!isnan(lo) && !isnan(hi)) { /* a NaN bound passes every bar */
     if (!x->hits)
       across_index_build(x, ctx->bars);
-    int o = vertical ? 0 : 1;
     hits = x->hits;
-    g_array_set_size(hits, 0);
-    pp_coord_index_range(x->w0[o], lo, hi, hits);
-    g_array_append_vals(hits, x->others[o]->data, x->others[o]->len);
-    g_array_sort(hits, cmp_guint);
+    pp_coord_index_within(x->w0[vertical ? 0 : 1], lo, hi, hits);
   }
   guint n = hits ? hits->len : ctx->bars->len;
   for (guint k = 0; k < n; k++) {
@@ -246,7 +231,7 @@ static pp_figure *build_on_axis(pp_recognize_ctx *ctx, across_index *x,
 /* First every axis on the side its labels face, then the ones still free on the other
  * side: with two value axes, the bars go to the axis that faces them. */
 void pp_recognize_bars(pp_recognize_ctx *ctx) {
-  across_index x = {{NULL, NULL}, {NULL, NULL}, NULL};
+  across_index x = {{NULL, NULL}, NULL};
   for (int pass = 0; pass < 2; pass++)
     for (guint i = 0; i < ctx->axes->len; i++) {
       const pp_axis_candidate *c = g_ptr_array_index(ctx->axes, i);

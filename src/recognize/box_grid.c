@@ -224,6 +224,8 @@ struct pp_coord_index {
   guint *ids; /* by value, ties by id */
   double *values;
   guint n;
+  guint *unknown; /* ids of the non-finite values, ascending */
+  guint n_unknown;
 };
 
 static int cmp_by_value(gconstpointer pa, gconstpointer pb, gpointer data) {
@@ -235,10 +237,13 @@ static int cmp_by_value(gconstpointer pa, gconstpointer pb, gpointer data) {
 pp_coord_index *pp_coord_index_new(const double *values, guint n) {
   pp_coord_index *x = g_new0(pp_coord_index, 1);
   x->ids = g_new(guint, MAX(n, 1));
+  x->unknown = g_new(guint, MAX(n, 1));
   x->values = g_memdup2(values, MAX(n, 1) * sizeof(double));
   for (guint i = 0; i < n; i++)
     if (isfinite(values[i]))
       x->ids[x->n++] = i;
+    else
+      x->unknown[x->n_unknown++] = i;
   g_qsort_with_data(x->ids, (gint)x->n, sizeof(guint), cmp_by_value, x->values);
   return x;
 }
@@ -247,6 +252,7 @@ void pp_coord_index_free(pp_coord_index *x) {
   if (!x)
     return;
   g_free(x->ids);
+  g_free(x->unknown);
   g_free(x->values);
   g_free(x);
 }
@@ -262,4 +268,16 @@ void pp_coord_index_range(const pp_coord_index *x, double lo, double hi, GArray 
   }
   for (; a < x->n && x->values[x->ids[a]] <= hi; a++)
     g_array_append_val(out, x->ids[a]);
+}
+
+static int cmp_id(gconstpointer a, gconstpointer b) {
+  guint x = *(const guint *)a, y = *(const guint *)b;
+  return (x > y) - (x < y);
+}
+
+void pp_coord_index_within(const pp_coord_index *x, double lo, double hi, GArray *out) {
+  g_array_set_size(out, 0);
+  pp_coord_index_range(x, lo, hi, out);
+  g_array_append_vals(out, x->unknown, x->n_unknown);
+  g_array_sort(out, cmp_id);
 }

@@ -355,6 +355,10 @@ typedef struct pp_coord_index pp_coord_index;
 pp_coord_index *pp_coord_index_new(const double *values, guint n);
 void pp_coord_index_free(pp_coord_index *index);
 void pp_coord_index_range(const pp_coord_index *index, double lo, double hi, GArray *out);
+/* Fills out with the ids whose value lies in [lo, hi] and those whose value is not finite
+ * (which no range can rule out), in id order: the candidates, in page order, for a caller
+ * that marks with NaN the items its range cannot answer for. */
+void pp_coord_index_within(const pp_coord_index *index, double lo, double hi, GArray *out);
 G_DEFINE_AUTOPTR_CLEANUP_FUNC(pp_coord_index, pp_coord_index_free)
 
 /* ---- Bubbles and their size keys (symbols.c, size_key.c) ---------------------------- */

@@ -42,11 +42,11 @@ static gboolean is_line_mark(const pp_mark *m) {
  * tiles has as many axis candidates as rows of numbers, and each looked at every mark), and
  * indexed by their left edge: an axis' marks lie between its labels and the next axis, so
  * they are found by binary search. A mark whose x0 is not finite or lies beyond its x1, which
- * a range of x0 cannot answer for, is tried for every axis. */
+ * a range of x0 cannot answer for, is NaN there and so tried for every axis. */
 typedef struct {
-  GArray *marks;         /* guint mark indices, ascending */
-  pp_coord_index *x0;    /* item k: marks[k] */
-  GArray *others, *hits; /* guint positions in marks; hits is scratch */
+  GArray *marks;      /* guint mark indices, ascending */
+  pp_coord_index *x0; /* item k: marks[k] */
+  GArray *hits;       /* guint positions in marks: scratch */
 } line_index;
 
 static void line_index_build(line_index *x, const pp_scene *scene) {
@@ -54,15 +54,12 @@ static void line_index_build(line_index *x, const pp_scene *scene) {
   for (guint k = 0; k < scene->marks->len; k++)
     if (is_line_mark(g_ptr_array_index(scene->marks, k)))
       g_array_append_val(x->marks, k);
-  x->others = g_array_new(FALSE, FALSE, sizeof(guint));
   x->hits = g_array_new(FALSE, FALSE, sizeof(guint));
   g_autofree double *v = g_new(double, MAX(x->marks->len, 1));
   for (guint k = 0; k < x->marks->len; k++) {
     pp_rect r =
         ((const pp_mark *)g_ptr_array_index(scene->marks, g_array_index(x->marks, guint, k)))->bbox;
-    v[k] = isfinite(r.x0) && r.x0 <= r.x1 ? r.x0 : NAN; /* NaN: left out of the index */
-    if (isnan(v[k]))
-      g_array_append_val(x->others, k);
+    v[k] = isfinite(r.x0) && r.x0 <= r.x1 ? r.x0 : NAN;
   }
   x->x0 = pp_coord_index_new(v, x->marks->len);
 }
@@ -72,13 +69,7 @@ static void line_index_clear(line_index *x) {
     return;
   g_array_unref(x->marks);
   pp_coord_index_free(x->x0);
-  g_array_unref(x->others);
   g_array_unref(x->hits);
-}
-
-static int cmp_guint(gconstpointer a, gconstpointer b) {
-  guint x = *(const guint *)a, y = *(const guint *)b;
-  return (x > y) - (x < y);
 }
 
 /* Lines and markers beside a fitted (vertical) axis, claimed; NULL when there are none. */
@@ -93,10 +84,7 @@ static pp_figure *build_on_axis(pp_recognize_ctx *ctx, const pp_axis_candidate *
   GArray *hits = NULL;
   if (axis->vertical && !isnan(lo) && !isnan(hi)) {
     hits = x->hits;
-    g_array_set_size(hits, 0);
-    pp_coord_index_range(x->x0, lo, hi, hits);
-    g_array_append_vals(hits, x->others->data, x->others->len);
-    g_array_sort(hits, cmp_guint);
+    pp_coord_index_within(x->x0, lo, hi, hits);
   }
   GArray *taken = g_array_new(FALSE, FALSE, sizeof(guint));
   guint n = hits ? hits->len : x->marks->len;
@@ -141,7 +129,7 @@ static pp_figure *build_on_axis(pp_recognize_ctx *ctx, const pp_axis_candidate *
 }
 
 void pp_recognize_lines(pp_recognize_ctx *ctx) {
-  line_index x = {NULL, NULL, NULL, NULL};
+  line_index x = {NULL, NULL, NULL};
   for (guint i = 0; i < ctx->axes->len; i++) {
     const pp_axis_candidate *c = g_ptr_array_index(ctx->axes, i);
     if (c->fit_failed || !c->scale->vertical || pp_axis_taken(ctx, c))

@@ -2,6 +2,7 @@
  * returned, ascending and once (or in any order, once), whatever the boxes' sizes (points,
  * page-wide boxes, empty boxes). The reference is the exhaustive test of every box against the
  * query (closed rectangles intersect when they overlap on both axes: textbook). */
+#include <math.h>
 #include <setjmp.h>
 #include <stdarg.h>
 #include <stddef.h>
@@ -98,10 +99,41 @@ static void test_empty_grid(void **state) {
   assert_int_equal(hits->len, 0);
 }
 
+/* pp_coord_index_within against the exhaustive pass: every id whose value lies in [lo, hi]
+ * (closed interval) or is not finite, each once, in ascending order. */
+static void test_coord_within(void **state) {
+  (void)state;
+  GRand *rand = g_rand_new_with_seed(11);
+  g_autoptr(GArray) hits = g_array_new(FALSE, FALSE, sizeof(guint));
+  for (int round = 0; round < 200; round++) {
+    guint n = (guint)g_rand_int_range(rand, 0, 60);
+    double *v = g_new(double, MAX(n, 1));
+    for (guint i = 0; i < n; i++) {
+      int kind = g_rand_int_range(rand, 0, 10);
+      v[i] = kind == 0 ? NAN : kind == 1 ? INFINITY : (double)g_rand_int_range(rand, 0, 50);
+    }
+    g_autoptr(pp_coord_index) x = pp_coord_index_new(v, n);
+    double lo = g_rand_int_range(rand, -5, 50), hi = lo + g_rand_int_range(rand, 0, 20);
+    g_array_append_val(hits, n); /* emptied first */
+    pp_coord_index_within(x, lo, hi, hits);
+    guint k = 0;
+    for (guint i = 0; i < n; i++)
+      if (!isfinite(v[i]) || (v[i] >= lo && v[i] <= hi)) {
+        assert_true(k < hits->len);
+        assert_int_equal(g_array_index(hits, guint, k), i);
+        k++;
+      }
+    assert_int_equal(k, hits->len);
+    g_free(v);
+  }
+  g_rand_free(rand);
+}
+
 int main(void) {
   const struct CMUnitTest tests[] = {
       cmocka_unit_test(test_random_boxes),
       cmocka_unit_test(test_empty_grid),
+      cmocka_unit_test(test_coord_within),
   };
   return cmocka_run_group_tests(tests, NULL, NULL);
 }
