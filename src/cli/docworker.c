@@ -134,10 +134,21 @@ typedef struct {
   gboolean over_cpu;
   double cpu_used;  /* CPU seconds of the pages so far */
   double child_cpu; /* of those, reported by the current child */
+  GString *out;     /* lines for the scheduler, sent together: one wake-up, not one a page */
 } run_state;
+
+static void flush_lines(run_state *st) {
+  if (st->out->len && !pp_worker_write_all(st->fd, st->out->str, st->out->len))
+    _exit(3); /* the scheduler is gone */
+  g_string_truncate(st->out, 0);
+}
 
 static gboolean on_page_line(const char *text, gpointer data) {
   run_state *st = data;
+  if (!text) {
+    flush_lines(st);
+    return TRUE;
+  }
   guint index;
   long rss;
   double cpu;
@@ -145,10 +156,8 @@ static gboolean on_page_line(const char *text, gpointer data) {
   if (sscanf(text, "%u %ld %lf %n", &index, &rss, &cpu, &at) != 3 || at == 0 || index != st->next ||
       text[at] != '{')
     return FALSE; /* not ours: the child is ended and the page counted as failed */
-  char *line =
-      g_strdup_printf("{\"page\":%u,\"rss_kib\":%ld,\"report\":%s}", index, rss, text + at);
-  send_line(st->fd, line);
-  g_free(line);
+  g_string_append_printf(st->out, "{\"page\":%u,\"rss_kib\":%ld,\"report\":%s}\n", index, rss,
+                         text + at);
   st->next = index + 1;
   st->cpu_used += cpu;
   st->child_cpu += cpu;
@@ -157,9 +166,7 @@ static gboolean on_page_line(const char *text, gpointer data) {
     return FALSE;
   }
   if (st->next < st->n_pages && st->started <= st->next) {
-    line = g_strdup_printf("{\"start\":%u}", st->next);
-    send_line(st->fd, line);
-    g_free(line);
+    g_string_append_printf(st->out, "{\"start\":%u}\n", st->next);
     st->started = st->next + 1;
   }
   return TRUE;
@@ -201,7 +208,7 @@ int pp_docworker_main(int fd, const pp_docworker_job *job, pid_t parent) {
                   info->n_pages,
                   &page_limits,
                   recycle_kib};
-  run_state st = {fd, opt, info->n_pages, 0, 0, FALSE, 0, 0};
+  run_state st = {fd, opt, info->n_pages, 0, 0, FALSE, 0, 0, g_string_new(NULL)};
   while (st.next < info->n_pages) {
     if (st.started <= st.next) {
       line = g_strdup_printf("{\"start\":%u}", st.next);
@@ -214,6 +221,7 @@ int pp_docworker_main(int fd, const pp_docworker_job *job, pid_t parent) {
     guint before = st.next;
     pp_worker_result r;
     pp_worker_run_lines(page_run_child, &run, &run_limits, on_page_line, &st, &r);
+    flush_lines(&st); /* what came before a line that said stop */
     gboolean ended_well =
         (r.outcome == PP_WORKER_DONE || (r.outcome == PP_WORKER_EXITED && r.exit_status == 0)) &&
         st.next > before;
@@ -244,11 +252,13 @@ int pp_docworker_main(int fd, const pp_docworker_job *job, pid_t parent) {
       send_line(fd, line);
       g_free(line);
       pp_document_free(doc);
+      g_string_free(st.out, TRUE);
       return 0;
     }
   }
   send_line(fd, "{\"end\":true}");
   pp_document_free(doc);
+  g_string_free(st.out, TRUE);
   return 0;
 }
 

@@ -38,16 +38,20 @@ typedef struct {
 void pp_worker_run(pp_worker_func func, gpointer data, const pp_worker_limits *limits,
                    pp_worker_result *result);
 
-/* Runs in the child of pp_worker_run_lines: writes newline-ended lines to fd, returns FALSE
- * on failure. */
+/* Runs in the child of pp_worker_run_lines: writes newline-ended lines to fd (a memory
+ * file, so a write never waits for the parent), each line in one write; returns FALSE on
+ * failure. */
 typedef gboolean (*pp_worker_lines_func)(int fd, gpointer data);
-/* Called in the parent for each line (without its newline); FALSE stops the child. */
+/* Called in the parent for each line (without its newline), then with NULL after the lines
+ * that came together (a chance to pass them on in one write); FALSE stops the child. */
 typedef gboolean (*pp_worker_line_func)(const char *line, gpointer data);
 
 /* Like pp_worker_run for a child that reports in lines: the wall limit applies to each
  * line (from the start, then from the line before), so one child can do many short jobs
- * each under the limit. result->payload holds no copy of the lines (on_line has them): it is
- * not empty once a non-empty line came, which DONE needs. */
+ * each under the limit. The parent looks for lines a few times a second and at the child's
+ * end, not at each line; a line cut short by the child's death is never handed on.
+ * result->payload holds no copy of the lines (on_line has them): it is not empty once a
+ * non-empty line came, which DONE needs. */
 void pp_worker_run_lines(pp_worker_lines_func func, gpointer data, const pp_worker_limits *limits,
                          pp_worker_line_func on_line, gpointer line_data, pp_worker_result *result);
 
