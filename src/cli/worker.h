@@ -39,8 +39,7 @@ void pp_worker_run(pp_worker_func func, gpointer data, const pp_worker_limits *l
                    pp_worker_result *result);
 
 /* Runs in the child of pp_worker_run_lines: writes newline-ended lines to fd (a memory
- * file, so a write never waits for the parent), each line in one write; returns FALSE on
- * failure. */
+ * file, so a write never waits for the parent); returns FALSE on failure. */
 typedef gboolean (*pp_worker_lines_func)(int fd, gpointer data);
 /* Called in the parent for each line (without its newline), then with NULL after the lines
  * that came together (a chance to pass them on in one write); FALSE stops the child. */
